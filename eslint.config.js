@@ -1,0 +1,46 @@
+import js from '@eslint/js';
+import tseslint from 'typescript-eslint';
+import importX from 'eslint-plugin-import-x';
+import { createTypeScriptImportResolver } from 'eslint-import-resolver-typescript';
+import reactHooks from 'eslint-plugin-react-hooks';
+import globals from 'globals';
+
+export default tseslint.config(
+  { ignores: ['dist/**', 'node_modules/**', 'drizzle/**', 'test-results/**', 'playwright-report/**', 'data/**', '.tmp/**'] },
+  js.configs.recommended,
+  ...tseslint.configs.recommended,
+  {
+    files: ['**/*.{ts,tsx}'],
+    languageOptions: { globals: { ...globals.browser, ...globals.node } },
+    plugins: { 'import-x': importX, 'react-hooks': reactHooks },
+    settings: {
+      'import-x/resolver-next': [createTypeScriptImportResolver({ project: './tsconfig.json' })],
+    },
+    rules: {
+      '@typescript-eslint/no-unused-vars': ['error', { argsIgnorePattern: '^_', varsIgnorePattern: '^_' }],
+      'react-hooks/rules-of-hooks': 'error',
+      'react-hooks/exhaustive-deps': 'warn',
+      'import-x/no-cycle': 'error',
+      // Imports flow one way: shared <- (src | server); inside src: components, lib -> features -> app.
+      'import-x/no-restricted-paths': [
+        'error',
+        {
+          zones: [
+            { target: './shared', from: ['./src', './server', './fakes', './catalog-seed'], message: 'shared/ must not import app code' },
+            { target: './src', from: ['./server', './fakes', './catalog-seed'], message: 'the client must not import server code' },
+            { target: './server', from: ['./src'], message: 'the server must not import client code' },
+            { target: './src/features', from: './src/app', message: 'features must not import app/' },
+            { target: ['./src/components', './src/lib'], from: ['./src/features', './src/app'], message: 'components/ and lib/ sit below features/' },
+            { target: './src/features/catalog', from: './src/features', except: ['./catalog'], message: 'features do not import each other' },
+            { target: './src/features/fitment', from: './src/features', except: ['./fitment'], message: 'features do not import each other' },
+            { target: './src/features/cart', from: './src/features', except: ['./cart'], message: 'features do not import each other' },
+            { target: './src/features/auth', from: './src/features', except: ['./auth'], message: 'features do not import each other' },
+            { target: './src/features/orders', from: './src/features', except: ['./orders'], message: 'features do not import each other' },
+            { target: './src/features/warehouse', from: './src/features', except: ['./warehouse'], message: 'features do not import each other' },
+            { target: './src/features/admin', from: './src/features', except: ['./admin'], message: 'features do not import each other' },
+          ],
+        },
+      ],
+    },
+  },
+);

@@ -1,0 +1,259 @@
+import Fuse from 'fuse.js';
+import type { Db } from '../db/client';
+import { categoryLabel } from '../../shared/catalog';
+import { normalizePartNumber } from '../../shared/part-number';
+
+/** Why a part came up, in words a buyer understands. */
+export interface MatchReason {
+  kind: 'part-number' | 'part-number-prefix' | 'superseded' | 'cross-reference' | 'near-number' | 'words' | 'corrected-words';
+  text: string;
+}
+
+export interface SearchHit {
+  partId: number;
+  reasons: MatchReason[];
+}
+
+interface Doc {
+  id: number;
+  partNumber: string;
+  normalizedNumber: string;
+  title: string;
+  status: string;
+  supersededBy: string | null;
+  aliases: Array<{ alias: string; normalized: string; kind: 'cross-reference' | 'superseded' }>;
+}
+
+interface Candidate {
+  doc: Doc;
+  tier: number;
+  reasons: MatchReason[];
+  ftsRank: number;
+}
+
+const WORD_LIMIT = 200;
+const NEAR_LIMIT = 40;
+const PREFIX_LIMIT = 60;
+
+function trigrams(s: string): string[] {
+  const out = new Set<string>();
+  for (let i = 0; i + 3 <= s.length; i++) out.add(s.slice(i, i + 3));
+  return [...out];
+}
+
+function words(q: string): string[] {
+  return q
+    .toLowerCase()
+    .normalize('NFKD')
+    .replace(/[^\p{L}\p{N}.]+/gu, ' ')
+    .split(' ')
+    .map((w) => w.replace(/^\.+|\.+$/g, ''))
+    .filter((w) => w.length > 0)
+    .slice(0, 8);
+}
+
+const ftsTerm = (w: string) => `"${w.replace(/"/g, '')}"*`;
+
+/**
+ * Catalogue search: SQLite finds candidates (exact and prefix part numbers through an index, aliases,
+ * trigram near misses, FTS5 words), and fuse.js ranks and forgives typos among that small set.
+ */
+export function createSearchService(db: Db) {
+  const sqlite = db.$client;
+  const docs = new Map<number, Doc>();
+  let vocabulary = new Set<string>();
+  let vocabularyFuse = new Fuse<string>([], { threshold: 0.34, ignoreLocation: true, includeScore: true });
+
+  const stmt = {
+    exact: sqlite.prepare('SELECT id FROM parts WHERE normalized_number = ?'),
+    aliasExact: sqlite.prepare('SELECT part_id AS id, alias, kind FROM part_aliases WHERE normalized_alias = ?'),
+    prefix: sqlite.prepare(`SELECT id FROM parts WHERE normalized_number > ? AND normalized_number < ? ORDER BY normalized_number LIMIT ${PREFIX_LIMIT}`),
+    aliasPrefix: sqlite.prepare(`SELECT part_id AS id, alias, kind FROM part_aliases WHERE normalized_alias > ? AND normalized_alias < ? LIMIT ${PREFIX_LIMIT}`),
+    near: sqlite.prepare(`SELECT part_id AS id, kind, number FROM numbers_tri WHERE numbers_tri MATCH ? ORDER BY rank LIMIT ${NEAR_LIMIT}`),
+    words: sqlite.prepare(`SELECT part_id AS id, rank FROM parts_fts WHERE parts_fts MATCH ? ORDER BY rank LIMIT ${WORD_LIMIT}`),
+  };
+
+  function loadDocs(ids?: number[]) {
+    const where = ids ? `WHERE p.id IN (${ids.map(() => '?').join(',')})` : '';
+    const rows = sqlite
+      .prepare(`SELECT p.id, p.part_number AS partNumber, p.normalized_number AS normalizedNumber, p.title, p.status, p.superseded_by AS supersededBy FROM parts p ${where}`)
+      .all(...(ids ?? [])) as Array<Omit<Doc, 'aliases'>>;
+    const aliasRows = sqlite
+      .prepare(`SELECT a.part_id AS id, a.alias, a.normalized_alias AS normalized, a.kind FROM part_aliases a ${ids ? `WHERE a.part_id IN (${ids.map(() => '?').join(',')})` : ''}`)
+      .all(...(ids ?? [])) as Array<{ id: number; alias: string; normalized: string; kind: 'cross-reference' | 'superseded' }>;
+    if (ids) for (const id of ids) docs.delete(id);
+    for (const r of rows) docs.set(r.id, { ...r, aliases: [] });
+    for (const a of aliasRows) docs.get(a.id)?.aliases.push({ alias: a.alias, normalized: a.normalized, kind: a.kind });
+  }
+
+  function writeIndexRows(ids?: number[]) {
+    const where = ids ? `WHERE p.id IN (${ids.map(() => '?').join(',')})` : '';
+    const rows = sqlite
+      .prepare(
+        `SELECT p.id, p.part_number AS partNumber, p.normalized_number AS normalizedNumber, p.title, p.description, p.category, p.condition, p.status,
+                f.code AS frameCode, f.name AS frameName,
+                s.compressor_ar AS compressorAr, s.turbine_ar AS turbineAr, s.trim_pct AS trimPct, s.inducer_mm AS inducerMm, s.exducer_mm AS exducerMm,
+                s.flange_pattern AS flangePattern, s.material, s.bearing, s.wastegate, s.cooling, s.gauge_type AS gaugeType, s.range_text AS rangeText,
+                s.mounting, s.connection
+         FROM parts p LEFT JOIN frames f ON f.code = p.frame_code LEFT JOIN part_specs s ON s.part_id = p.id ${where}`,
+      )
+      .all(...(ids ?? [])) as Array<Record<string, string | number | null>>;
+    const aliasRows = sqlite
+      .prepare(`SELECT part_id AS id, normalized_alias AS normalized, kind FROM part_aliases ${ids ? `WHERE part_id IN (${ids.map(() => '?').join(',')})` : ''}`)
+      .all(...(ids ?? [])) as Array<{ id: number; normalized: string; kind: string }>;
+    const insertFts = sqlite.prepare('INSERT INTO parts_fts (part_id, title, body) VALUES (?, ?, ?)');
+    const insertTri = sqlite.prepare('INSERT INTO numbers_tri (part_id, kind, number) VALUES (?, ?, ?)');
+    sqlite.transaction(() => {
+      if (ids) {
+        const list = ids.map(() => '?').join(',');
+        sqlite.prepare(`DELETE FROM parts_fts WHERE part_id IN (${list})`).run(...ids);
+        sqlite.prepare(`DELETE FROM numbers_tri WHERE part_id IN (${list})`).run(...ids);
+      } else {
+        sqlite.exec('DELETE FROM parts_fts; DELETE FROM numbers_tri;');
+      }
+      for (const r of rows) {
+        const specText = [
+          r.compressorAr != null ? `${r.compressorAr} A/R compressor` : '',
+          r.turbineAr != null ? `${r.turbineAr} A/R turbine` : '',
+          r.trimPct != null ? `${r.trimPct} trim` : '',
+          r.inducerMm != null ? `${r.inducerMm} mm inducer` : '',
+          r.bearing != null ? `${r.bearing} bearing` : '',
+          r.flangePattern ?? '',
+          r.material ?? '',
+          r.wastegate != null ? `${r.wastegate} wastegate` : '',
+          r.cooling != null ? `${r.cooling} cooled` : '',
+          r.gaugeType ?? '',
+          r.rangeText ?? '',
+          r.mounting ?? '',
+          r.connection ?? '',
+        ].join(' ');
+        const body = [categoryLabel(String(r.category)), r.frameCode ?? '', r.frameName ?? '', r.condition, r.description, specText].join(' ');
+        insertFts.run(r.id, r.title, body);
+        insertTri.run(r.id, 'part-number', r.normalizedNumber);
+      }
+      for (const a of aliasRows) insertTri.run(a.id, a.kind, a.normalized);
+    })();
+  }
+
+  function loadVocabulary() {
+    sqlite.exec("CREATE VIRTUAL TABLE IF NOT EXISTS temp.parts_fts_vocab USING fts5vocab('main', 'parts_fts', 'row')");
+    const terms = (sqlite.prepare("SELECT term FROM temp.parts_fts_vocab WHERE length(term) >= 3 AND term GLOB '*[a-z]*'").all() as Array<{ term: string }>).map((r) => r.term);
+    vocabulary = new Set(terms);
+    vocabularyFuse = new Fuse(terms, { threshold: 0.34, ignoreLocation: true, includeScore: true, minMatchCharLength: 3 });
+  }
+
+  /** Rebuilds the whole index: at start and after bulk changes. */
+  function rebuild() {
+    writeIndexRows();
+    docs.clear();
+    loadDocs();
+    loadVocabulary();
+  }
+
+  /** Refreshes the index for parts that changed. */
+  function refresh(ids: number[]) {
+    if (ids.length === 0) return;
+    writeIndexRows(ids);
+    loadDocs(ids);
+    loadVocabulary();
+  }
+
+  function correctWord(w: string): string | null {
+    if (vocabulary.has(w) || w.length < 4 || /\d/.test(w)) return null;
+    const best = vocabularyFuse.search(w, { limit: 1 })[0];
+    return best && best.item !== w ? best.item : null;
+  }
+
+  function search(query: string, limit = 300): SearchHit[] {
+    const q = query.trim().slice(0, 100);
+    if (q.length === 0) return [];
+    const n = normalizePartNumber(q);
+    const candidates = new Map<number, Candidate>();
+    const note = (id: number, tier: number, reason: MatchReason, ftsRank = 0) => {
+      const doc = docs.get(id);
+      if (!doc) return;
+      const c = candidates.get(id);
+      if (!c) {
+        candidates.set(id, { doc, tier, reasons: [reason], ftsRank });
+        return;
+      }
+      c.tier = Math.min(c.tier, tier);
+      c.ftsRank = Math.min(c.ftsRank, ftsRank);
+      if (!c.reasons.some((r) => r.kind === reason.kind)) c.reasons.push(reason);
+    };
+
+    if (n.length >= 2) {
+      for (const r of stmt.exact.all(n) as Array<{ id: number }>) {
+        const d = docs.get(r.id);
+        note(r.id, 0, { kind: 'part-number', text: d?.supersededBy ? `Exact part number; superseded by ${d.supersededBy}` : 'Exact part number' });
+      }
+      for (const r of stmt.aliasExact.all(n) as Array<{ id: number; alias: string; kind: string }>) {
+        note(r.id, 1, r.kind === 'superseded' ? { kind: 'superseded', text: `Replaces the earlier number ${r.alias}` } : { kind: 'cross-reference', text: `Cross-reference ${r.alias}` });
+      }
+    }
+    if (n.length >= 3) {
+      const upper = `${n}\uffff`;
+      for (const r of stmt.prefix.all(n, upper) as Array<{ id: number }>) note(r.id, 2, { kind: 'part-number-prefix', text: `Part number starts with ${q.trim()}` });
+      for (const r of stmt.aliasPrefix.all(n, upper) as Array<{ id: number; alias: string; kind: string }>) {
+        note(r.id, 2, { kind: r.kind === 'superseded' ? 'superseded' : 'cross-reference', text: `${r.kind === 'superseded' ? 'Earlier number' : 'Cross-reference'} ${r.alias} starts with ${q.trim()}` });
+      }
+    }
+    const hasDigits = /\d/.test(n);
+    if (hasDigits && n.length >= 5) {
+      // Near misses: numbers that share most three-character pieces with what was typed.
+      const grams = trigrams(n.toLowerCase()).map((g) => `"${g}"`);
+      for (const r of stmt.near.all(grams.join(' OR ')) as Array<{ id: number; kind: string; number: string }>) {
+        const d = docs.get(r.id);
+        if (!d) continue;
+        const shown = r.kind === 'part-number' ? d.partNumber : (d.aliases.find((a) => a.normalized === r.number)?.alias ?? r.number);
+        note(r.id, 3, { kind: 'near-number', text: `Close to ${r.kind === 'part-number' ? 'part number' : r.kind === 'superseded' ? 'earlier number' : 'cross-reference'} ${shown}` });
+      }
+    }
+
+    const ws = words(q);
+    if (ws.length > 0) {
+      const all = ws.map(ftsTerm).join(' AND ');
+      const found = stmt.words.all(all) as Array<{ id: number; rank: number }>;
+      for (const r of found) note(r.id, 2, { kind: 'words', text: `Matches “${ws.join(' ')}”` }, r.rank);
+      if (found.length === 0) {
+        // Forgive typos in words: correct each unknown word against the catalogue's vocabulary.
+        const corrected = ws.map((w) => correctWord(w) ?? w);
+        const changed = corrected.some((w, i) => w !== ws[i]);
+        const terms = corrected.map(ftsTerm);
+        const tryAnd = changed ? (stmt.words.all(terms.join(' AND ')) as Array<{ id: number; rank: number }>) : [];
+        const rows = tryAnd.length > 0 || terms.length === 1 ? tryAnd : (stmt.words.all(terms.join(' OR ')) as Array<{ id: number; rank: number }>);
+        const text = changed ? `Matches “${corrected.join(' ')}” (did you mean?)` : `Matches some of “${ws.join(' ')}”`;
+        for (const r of rows) note(r.id, tryAnd.length > 0 ? 3 : 4, { kind: 'corrected-words', text }, r.rank);
+      }
+    }
+
+    const list = [...candidates.values()];
+    if (list.length === 0) return [];
+    // fuse.js orders the candidates within a tier by how closely the number or title matches what was typed.
+    const fuse = new Fuse(list, {
+      includeScore: true,
+      ignoreLocation: true,
+      threshold: 1,
+      keys: [
+        { name: 'number', weight: 3, getFn: (c) => c.doc.normalizedNumber },
+        { name: 'aliases', weight: 2, getFn: (c) => c.doc.aliases.map((a) => a.normalized) },
+        { name: 'title', weight: 1, getFn: (c) => c.doc.title },
+      ],
+    });
+    const fuseQuery = hasDigits && !/\s/.test(q.trim()) ? n : q.slice(0, 32);
+    const score = new Map<number, number>();
+    for (const r of fuse.search(fuseQuery)) score.set(r.item.doc.id, r.score ?? 1);
+    const statusPenalty = (d: Doc) => (d.status === 'active' ? 0 : 0.05);
+    list.sort((a, b) => {
+      if (a.tier !== b.tier) return a.tier - b.tier;
+      const sa = (score.get(a.doc.id) ?? 1) + statusPenalty(a.doc) + a.ftsRank * 0.01;
+      const sb = (score.get(b.doc.id) ?? 1) + statusPenalty(b.doc) + b.ftsRank * 0.01;
+      return sa - sb || a.doc.partNumber.localeCompare(b.doc.partNumber);
+    });
+    return list.slice(0, limit).map((c) => ({ partId: c.doc.id, reasons: c.reasons }));
+  }
+
+  return { rebuild, refresh, search, size: () => docs.size };
+}
+
+export type SearchService = ReturnType<typeof createSearchService>;

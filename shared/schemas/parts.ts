@@ -1,0 +1,117 @@
+import { z } from 'zod';
+import { BEARINGS, CATEGORY_SLUGS, PART_STATUSES } from '../catalog';
+
+export const PAGE_SIZE_MAX = 100;
+export const PAGE_SIZE_DEFAULT = 24;
+export const QUERY_MAX_LENGTH = 100;
+export const PART_SORTS = ['relevance', 'price-asc', 'price-desc', 'number', 'title'] as const;
+
+const optionalNumber = (label: string, min: number, max: number) =>
+  z.coerce
+    .number({ error: `${label} must be a number` })
+    .int(`${label} must be a whole number`)
+    .min(min, `${label} must be at least ${min}`)
+    .max(max, `${label} must be at most ${max}`)
+    .optional();
+
+export const PartsQuerySchema = z
+  .object({
+    q: z.string().trim().max(QUERY_MAX_LENGTH, `search must be at most ${QUERY_MAX_LENGTH} characters`).optional(),
+    category: z.enum(CATEGORY_SLUGS, { error: `category must be one of ${CATEGORY_SLUGS.join(', ')}` }).optional(),
+    frame: z.string().trim().regex(/^[A-Z]{2}\d{2,3}$/, 'frame must be a frame code such as VC42').optional(),
+    bearing: z.enum(BEARINGS, { error: 'bearing must be journal or ball' }).optional(),
+    minHp: optionalNumber('minimum power', 0, 5000),
+    maxHp: optionalNumber('maximum power', 0, 5000),
+    inStock: z.enum(['true', 'false'], { error: 'inStock must be true or false' }).transform((v) => v === 'true').optional(),
+    sort: z.enum(PART_SORTS, { error: `sort must be one of ${PART_SORTS.join(', ')}` }).optional(),
+    page: optionalNumber('page', 1, 10_000),
+    pageSize: optionalNumber('page size', 1, PAGE_SIZE_MAX),
+  })
+  .refine((v) => v.minHp === undefined || v.maxHp === undefined || v.minHp <= v.maxHp, {
+    message: 'minimum power must not be above maximum power',
+    path: ['minHp'],
+  });
+export type PartsQuery = z.infer<typeof PartsQuerySchema>;
+
+export const SpecsSchema = z.object({
+  compressorAr: z.number().nullable(),
+  turbineAr: z.number().nullable(),
+  trimPct: z.number().nullable(),
+  inducerMm: z.number().nullable(),
+  exducerMm: z.number().nullable(),
+  flangePattern: z.string().nullable(),
+  inletMm: z.number().nullable(),
+  outletMm: z.number().nullable(),
+  material: z.string().nullable(),
+  bearing: z.enum(BEARINGS).nullable(),
+  wastegate: z.string().nullable(),
+  cooling: z.string().nullable(),
+  gaugeType: z.string().nullable(),
+  rangeText: z.string().nullable(),
+  mounting: z.string().nullable(),
+  connection: z.string().nullable(),
+});
+export type Specs = z.infer<typeof SpecsSchema>;
+
+export const StockStateSchema = z.enum(['in-stock', 'low', 'out-of-stock', 'discontinued']);
+
+export const MatchReasonSchema = z.object({ kind: z.string(), text: z.string() });
+
+export const PartSummarySchema = z.object({
+  partNumber: z.string(),
+  title: z.string(),
+  category: z.enum(CATEGORY_SLUGS),
+  frameCode: z.string().nullable(),
+  status: z.enum(PART_STATUSES),
+  condition: z.enum(['new', 'exchange']),
+  priceCents: z.number().int(),
+  coreDepositCents: z.number().int(),
+  weightGrams: z.number().int(),
+  supersededBy: z.string().nullable(),
+  stock: z.object({ available: z.number().int(), state: StockStateSchema }),
+  specs: SpecsSchema,
+  matched: z.array(MatchReasonSchema).optional(),
+});
+export type PartSummary = z.infer<typeof PartSummarySchema>;
+
+const FacetSchema = z.array(z.object({ value: z.string(), label: z.string(), count: z.number().int() }));
+export const PartsListResponseSchema = z.object({
+  items: z.array(PartSummarySchema),
+  total: z.number().int(),
+  page: z.number().int(),
+  pageSize: z.number().int(),
+  facets: z.object({ category: FacetSchema, frame: FacetSchema, bearing: FacetSchema, stock: FacetSchema }),
+});
+export type PartsListResponse = z.infer<typeof PartsListResponseSchema>;
+
+export const PartDetailSchema = PartSummarySchema.extend({
+  description: z.string(),
+  images: z.array(z.string()),
+  frame: z
+    .object({ code: z.string(), name: z.string(), powerBandHp: z.tuple([z.number(), z.number()]), maxShaftRpm: z.number(), flangePattern: z.string() })
+    .nullable(),
+  crossReferences: z.array(z.object({ number: z.string(), source: z.string().nullable() })),
+  earlierNumbers: z.array(z.string()),
+  replacement: PartSummarySchema.omit({ matched: true }).nullable(),
+  goesWith: z.array(PartSummarySchema.omit({ matched: true })),
+  stockByBin: z.array(z.object({ binCode: z.string(), onHand: z.number().int(), reserved: z.number().int() })).optional(),
+});
+export type PartDetail = z.infer<typeof PartDetailSchema>;
+
+export const FrameSummarySchema = z.object({
+  code: z.string(),
+  name: z.string(),
+  powerBandHp: z.tuple([z.number(), z.number()]),
+  maxFlowLbMin: z.number(),
+  flowReference: z.object({ temperatureK: z.number(), pressureKpa: z.number() }),
+  maxPressureRatio: z.number(),
+  maxShaftRpm: z.number(),
+  inducerMm: z.number(),
+  exducerMm: z.number(),
+  trimPct: z.number(),
+  weightKg: z.number(),
+  flangePattern: z.string(),
+  bearingOptions: z.array(z.enum(BEARINGS)),
+});
+export type FrameSummary = z.infer<typeof FrameSummarySchema>;
+export const FramesResponseSchema = z.object({ items: z.array(FrameSummarySchema) });

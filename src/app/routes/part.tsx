@@ -1,0 +1,169 @@
+import { ArrowRight, Gauge } from 'lucide-react';
+import { Link, useParams } from 'react-router-dom';
+import { categoryLabel, formatPrice } from '../../../shared/catalog';
+import { buttonClass } from '../../components/ui/button';
+import { ApiError } from '../../lib/api-client';
+import { ErrorState, LoadingState } from '../../components/ui/states';
+import { usePart } from '../../features/catalog/api/get-part';
+import { PartCautions } from '../../features/catalog/components/part-cautions';
+import { PartListItem } from '../../features/catalog/components/part-list-item';
+import { specRows } from '../../features/catalog/components/spec-rows';
+import { StockBadge } from '../../features/catalog/components/stock-badge';
+
+export function PartRoute() {
+  const { partNumber = '' } = useParams();
+  const part = usePart(partNumber);
+
+  if (part.isPending) return <LoadingState label={`Loading ${partNumber}…`} />;
+  if (part.isError) {
+    return part.error instanceof ApiError && part.error.isNotFound ? (
+      <div className="py-8">
+        <h1 className="text-2xl font-bold">No part {partNumber}</h1>
+        <p className="mt-2 text-cast">We have no part with that number. Search for it: the search forgives dashes, case and small typos.</p>
+        <Link to={`/catalogue?q=${encodeURIComponent(partNumber)}`} className="mt-3 inline-block font-semibold text-temper underline">
+          Search for “{partNumber}”
+        </Link>
+      </div>
+    ) : (
+      <ErrorState title="This part did not load" message={part.error.message} onRetry={() => part.refetch()} />
+    );
+  }
+  const p = part.data;
+  const rows = specRows(p.specs);
+
+  return (
+    <article className="grid gap-8">
+      <nav aria-label="Breadcrumb" className="text-sm text-cast">
+        <Link to="/catalogue" className="hover:underline">
+          Catalogue
+        </Link>{' '}
+        /{' '}
+        <Link to={`/catalogue?category=${p.category}`} className="hover:underline">
+          {categoryLabel(p.category)}
+        </Link>
+        {p.frameCode && (
+          <>
+            {' '}
+            /{' '}
+            <Link to={`/catalogue?frame=${p.frameCode}`} className="hover:underline">
+              {p.frameCode}
+            </Link>
+          </>
+        )}
+      </nav>
+
+      {p.replacement && (
+        <div role="note" className="flex flex-wrap items-center gap-3 rounded-md border border-temper bg-temper-tint p-4">
+          <p>
+            <span className="part-no">{p.partNumber}</span> has been superseded. It is replaced by{' '}
+            <span className="part-no">{p.replacement.partNumber}</span>.
+          </p>
+          <Link to={`/parts/${encodeURIComponent(p.replacement.partNumber)}`} className={buttonClass('primary')}>
+            See {p.replacement.partNumber}
+            <ArrowRight aria-hidden className="size-4" />
+          </Link>
+        </div>
+      )}
+
+      <header className="grid gap-6 md:grid-cols-[3fr_2fr]">
+        <div>
+          <p className="part-no text-lg text-cast">{p.partNumber}</p>
+          <h1 className="text-3xl font-bold leading-tight">{p.title}</h1>
+          <p className="mt-3 text-lg">{p.description}</p>
+          {(p.crossReferences.length > 0 || p.earlierNumbers.length > 0) && (
+            <dl className="mt-3 grid gap-1 text-sm">
+              {p.earlierNumbers.length > 0 && (
+                <div className="flex gap-2">
+                  <dt className="font-semibold">Earlier numbers:</dt>
+                  <dd className="part-no">{p.earlierNumbers.join(', ')}</dd>
+                </div>
+              )}
+              {p.crossReferences.length > 0 && (
+                <div className="flex gap-2">
+                  <dt className="font-semibold">Cross-references:</dt>
+                  <dd>
+                    {p.crossReferences.map((x) => (
+                      <span key={x.number} className="part-no mr-2">
+                        {x.number}
+                      </span>
+                    ))}
+                  </dd>
+                </div>
+              )}
+            </dl>
+          )}
+        </div>
+        <div className="grid content-start gap-3 rounded-lg bg-white p-5 shadow-sm ring-1 ring-cast-line">
+          <p className="tabular text-3xl font-bold">{formatPrice(p.priceCents)}</p>
+          {p.coreDepositCents > 0 && (
+            <p className="text-sm">
+              Plus a refundable core deposit of <span className="tabular font-semibold">{formatPrice(p.coreDepositCents)}</span>, paid back when
+              your old unit is returned in rebuildable condition.
+            </p>
+          )}
+          <StockBadge stock={p.stock} />
+          <p className="tabular text-sm text-cast">Shipping weight {(p.weightGrams / 1000).toFixed(p.weightGrams < 1000 ? 2 : 1)} kg</p>
+          {p.frame && (
+            <Link to={`/fitment?frame=${p.frame.code}`} className={buttonClass('secondary')}>
+              <Gauge aria-hidden className="size-4" />
+              Check fitment for frame {p.frame.code}
+            </Link>
+          )}
+        </div>
+      </header>
+
+      <section aria-labelledby="spec-heading" className="grid gap-6 md:grid-cols-2">
+        <div>
+          <h2 id="spec-heading" className="text-xl font-bold">
+            Specification
+          </h2>
+          <table className="mt-2 w-full border-collapse text-left">
+            <tbody>
+              {p.frame && (
+                <tr className="border-b border-cast-line">
+                  <th scope="row" className="py-2 pr-4 font-semibold">
+                    Frame
+                  </th>
+                  <td className="tabular py-2">
+                    {p.frame.code} {p.frame.name} · {p.frame.powerBandHp[0]}–{p.frame.powerBandHp[1]} hp · max {p.frame.maxShaftRpm.toLocaleString('en-US')} rpm
+                  </td>
+                </tr>
+              )}
+              {rows.map((r) => (
+                <tr key={r.label} className="border-b border-cast-line">
+                  <th scope="row" className="py-2 pr-4 font-semibold">
+                    {r.label}
+                  </th>
+                  <td className="tabular py-2">{r.value}</td>
+                </tr>
+              ))}
+              <tr className="border-b border-cast-line">
+                <th scope="row" className="py-2 pr-4 font-semibold">
+                  Condition
+                </th>
+                <td className="py-2">{p.condition === 'exchange' ? 'Remanufactured, on exchange' : 'New'}</td>
+              </tr>
+            </tbody>
+          </table>
+        </div>
+        <div className="grid content-start gap-3">
+          <h2 className="text-xl font-bold">Before you fit it</h2>
+          <PartCautions category={p.category} />
+        </div>
+      </section>
+
+      {p.goesWith.length > 0 && (
+        <section aria-labelledby="goes-with-heading">
+          <h2 id="goes-with-heading" className="text-xl font-bold">
+            Goes with
+          </h2>
+          <ul>
+            {p.goesWith.map((g) => (
+              <PartListItem key={g.partNumber} part={g} />
+            ))}
+          </ul>
+        </section>
+      )}
+    </article>
+  );
+}

@@ -1,0 +1,13 @@
+import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
+import { PartsListResponseSchema, type PartsQuery } from '../../../../shared/schemas/parts';
+import { api, toSearchParams } from '../../../lib/api-client';
+import { catalogKeys } from './keys';
+
+export function getParts(query: PartsQuery, signal?: AbortSignal) {
+  return api(`/parts${toSearchParams({ ...query, inStock: query.inStock === undefined ? undefined : String(query.inStock) })}`, PartsListResponseSchema, { signal });
+}
+
+export const partsQueryOptions = (query: PartsQuery) =>
+  queryOptions({ queryKey: catalogKeys.parts(query), queryFn: ({ signal }) => getParts(query, signal), placeholderData: keepPreviousData });
+
+export const useParts = (query: PartsQuery, enabled = true) => useQuery({ ...partsQueryOptions(query), enabled });

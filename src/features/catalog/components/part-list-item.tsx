@@ -1,0 +1,38 @@
+import { Link } from 'react-router-dom';
+import { categoryLabel, formatPrice } from '../../../../shared/catalog';
+import type { PartSummary } from '../../../../shared/schemas/parts';
+import { specSummary } from './spec-rows';
+import { StockBadge } from './stock-badge';
+
+export function PartListItem({ part }: { part: PartSummary }) {
+  return (
+    <li className="grid gap-2 border-b border-cast-line py-4 sm:grid-cols-[1fr_auto] sm:gap-6">
+      <div className="min-w-0">
+        <p className="flex flex-wrap items-baseline gap-x-3 text-sm text-cast">
+          <span className="part-no text-ink">{part.partNumber}</span>
+          <span>{categoryLabel(part.category)}</span>
+          {part.frameCode && <span>Frame {part.frameCode}</span>}
+          {part.condition === 'exchange' && <span className="rounded bg-temper-tint px-1.5 text-temper-deep">Exchange</span>}
+          {part.status === 'superseded' && <span className="rounded bg-panel px-1.5">Superseded by {part.supersededBy}</span>}
+        </p>
+        <h3 className="mt-0.5 text-lg font-semibold">
+          <Link to={`/parts/${encodeURIComponent(part.partNumber)}`} className="hover:text-temper hover:underline">
+            {part.title}
+          </Link>
+        </h3>
+        <p className="text-sm text-cast">{specSummary(part.specs)}</p>
+        {part.matched && part.matched.length > 0 && (
+          <p className="mt-1 text-sm text-temper-deep">
+            <span className="sr-only">Why this matched: </span>
+            {part.matched.map((m) => m.text).join(' · ')}
+          </p>
+        )}
+      </div>
+      <div className="flex items-baseline gap-4 sm:flex-col sm:items-end sm:gap-1">
+        <span className="tabular text-xl font-bold">{formatPrice(part.priceCents)}</span>
+        {part.coreDepositCents > 0 && <span className="tabular text-sm text-cast">+ {formatPrice(part.coreDepositCents)} core deposit</span>}
+        <StockBadge stock={part.stock} />
+      </div>
+    </li>
+  );
+}
