@@ -41,6 +41,23 @@ function trigrams(s: string): string[] {
   return [...out];
 }
 
+/** Every string one edit away (a character swapped with its neighbour, dropped, added or changed). */
+export function oneEditVariants(n: string): string[] {
+  const out = new Set<string>();
+  const alphabet = (c: string) => (/\d/.test(c) ? '0123456789' : 'ABCDEFGHIJKLMNOPQRSTUVWXYZ');
+  for (let i = 0; i < n.length; i++) {
+    if (i + 1 < n.length) out.add(n.slice(0, i) + n[i + 1] + n[i] + n.slice(i + 2));
+    out.add(n.slice(0, i) + n.slice(i + 1));
+    for (const c of alphabet(n[i]!)) out.add(n.slice(0, i) + c + n.slice(i + 1));
+  }
+  for (let i = 0; i <= n.length; i++) {
+    const near = n[i] ?? n[i - 1] ?? '0';
+    for (const c of alphabet(near)) out.add(n.slice(0, i) + c + n.slice(i));
+  }
+  out.delete(n);
+  return [...out];
+}
+
 function words(q: string): string[] {
   return q
     .toLowerCase()
@@ -69,6 +86,8 @@ export function createSearchService(db: Db) {
     aliasExact: sqlite.prepare('SELECT part_id AS id, alias, kind FROM part_aliases WHERE normalized_alias = ?'),
     prefix: sqlite.prepare(`SELECT id FROM parts WHERE normalized_number > ? AND normalized_number < ? ORDER BY normalized_number LIMIT ${PREFIX_LIMIT}`),
     aliasPrefix: sqlite.prepare(`SELECT part_id AS id, alias, kind FROM part_aliases WHERE normalized_alias > ? AND normalized_alias < ? LIMIT ${PREFIX_LIMIT}`),
+    oneEdit: sqlite.prepare('SELECT id, normalized_number AS number FROM parts WHERE normalized_number IN (SELECT value FROM json_each(?))'),
+    aliasOneEdit: sqlite.prepare('SELECT part_id AS id, alias, kind FROM part_aliases WHERE normalized_alias IN (SELECT value FROM json_each(?))'),
     near: sqlite.prepare(`SELECT part_id AS id, kind, number FROM numbers_tri WHERE numbers_tri MATCH ? ORDER BY rank LIMIT ${NEAR_LIMIT}`),
     words: sqlite.prepare(`SELECT part_id AS id, rank FROM parts_fts WHERE parts_fts MATCH ? ORDER BY rank LIMIT ${WORD_LIMIT}`),
   };
@@ -199,14 +218,23 @@ export function createSearchService(db: Db) {
       }
     }
     const hasDigits = /\d/.test(n);
-    if (hasDigits && n.length >= 5) {
-      // Near misses: numbers that share most three-character pieces with what was typed.
+    if (hasDigits && n.length >= 5 && n.length <= 24) {
+      // One edit away: a digit swapped with its neighbour, dropped, doubled or mistyped; found by index lookups.
+      const variants = JSON.stringify(oneEditVariants(n));
+      for (const r of stmt.oneEdit.all(variants) as Array<{ id: number }>) {
+        const d = docs.get(r.id);
+        if (d) note(r.id, 3, { kind: 'near-number', text: `Close to part number ${d.partNumber}` });
+      }
+      for (const r of stmt.aliasOneEdit.all(variants) as Array<{ id: number; alias: string; kind: string }>) {
+        note(r.id, 3, { kind: 'near-number', text: `Close to ${r.kind === 'superseded' ? 'earlier number' : 'cross-reference'} ${r.alias}` });
+      }
+      // Further misses: numbers that share most three-character pieces with what was typed.
       const grams = trigrams(n.toLowerCase()).map((g) => `"${g}"`);
       for (const r of stmt.near.all(grams.join(' OR ')) as Array<{ id: number; kind: string; number: string }>) {
         const d = docs.get(r.id);
         if (!d) continue;
         const shown = r.kind === 'part-number' ? d.partNumber : (d.aliases.find((a) => a.normalized === r.number)?.alias ?? r.number);
-        note(r.id, 3, { kind: 'near-number', text: `Close to ${r.kind === 'part-number' ? 'part number' : r.kind === 'superseded' ? 'earlier number' : 'cross-reference'} ${shown}` });
+        note(r.id, 4, { kind: 'near-number', text: `Close to ${r.kind === 'part-number' ? 'part number' : r.kind === 'superseded' ? 'earlier number' : 'cross-reference'} ${shown}` });
       }
     }
 
@@ -223,7 +251,7 @@ export function createSearchService(db: Db) {
         const tryAnd = changed ? (stmt.words.all(terms.join(' AND ')) as Array<{ id: number; rank: number }>) : [];
         const rows = tryAnd.length > 0 || terms.length === 1 ? tryAnd : (stmt.words.all(terms.join(' OR ')) as Array<{ id: number; rank: number }>);
         const text = changed ? `Matches “${corrected.join(' ')}” (did you mean?)` : `Matches some of “${ws.join(' ')}”`;
-        for (const r of rows) note(r.id, tryAnd.length > 0 ? 3 : 4, { kind: 'corrected-words', text }, r.rank);
+        for (const r of rows) note(r.id, tryAnd.length > 0 ? 3 : 5, { kind: 'corrected-words', text }, r.rank);
       }
     }
 

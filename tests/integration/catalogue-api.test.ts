@@ -188,14 +188,14 @@ describe('search', () => {
   });
 
   it('finds a number with a digit swapped or dropped and says it is close', async () => {
-    // VC-T48-1012 with two digits swapped, and with one digit dropped.
-    for (const typed of ['VC-T48-1021', 'VCT48102']) {
+    // VC-C48-2003 with two digits swapped, and with one digit dropped.
+    for (const typed of ['VC-C48-2030', 'VCC48203', 'vc-c84-2003']) {
       const r = await list(`?q=${typed}`);
       const numbers = r.items.slice(0, 5).map((p) => p.partNumber);
-      expect(numbers, typed).toContain('VC-T48-1012');
+      expect(numbers, typed).toContain('VC-C48-2003');
     }
-    const r = await list('?q=VC-T48-1021');
-    const hit = r.items.find((p) => p.partNumber === 'VC-T48-1012');
+    const r = await list('?q=VC-C48-2030');
+    const hit = r.items.find((p) => p.partNumber === 'VC-C48-2003');
     expect(hit?.matched?.map((m) => m.kind)).toContain('near-number');
   });
 
