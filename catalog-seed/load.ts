@@ -1,6 +1,6 @@
 import { sql } from 'drizzle-orm';
 import type { Db } from '../server/db/client';
-import { bins, frames, partAliases, partLinks, parts, partSpecs, stock } from '../server/db/schema';
+import { bins, frames, partAliases, partLinks, parts, partSpecs, stock, stockMovements } from '../server/db/schema';
 import { normalizePartNumber } from '../shared/part-number';
 import { buildCompressorMap } from '../shared/fitment/compressor-map';
 import { maxShaftRpmFor } from './frames';
@@ -91,6 +91,9 @@ export function loadCatalogue(db: Db, seed: CatalogueSeed): { parts: number } {
     for (const group of chunks(linkRows, 400)) tx.insert(partLinks).values(group).onConflictDoNothing().run();
     const stockRows = seed.parts.flatMap((p) => p.stock.map((s) => ({ partId: idOf(p.partNumber), binCode: s.binCode, onHand: s.onHand, reserved: 0 })));
     for (const group of chunks(stockRows, 400)) tx.insert(stock).values(group).run();
+    // Opening stock enters through the ledger like any other goods-in.
+    const openingRows = stockRows.map((s) => ({ partId: s.partId, binCode: s.binCode, kind: 'goods-in' as const, onHandDelta: s.onHand, note: 'opening stock' }));
+    for (const group of chunks(openingRows, 400)) tx.insert(stockMovements).values(group).run();
   });
   return { parts: seed.parts.length };
 }

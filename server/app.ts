@@ -1,37 +1,132 @@
 import fs from 'node:fs';
 import path from 'node:path';
+import cookieParser from 'cookie-parser';
 import express from 'express';
+import { rateLimit } from 'express-rate-limit';
+import { toNodeHandler } from 'better-auth/node';
+import type Stripe from 'stripe';
 import type { Db } from './db/client';
+import { TEST_CARDS } from '../shared/payment-test-methods';
 import { apiNotFound, createErrorHandler } from './middleware/errors';
+import { loadSession, refuseCrossSite } from './middleware/session';
+import { accountRouter } from './routes/account';
+import { adminDealersRouter } from './routes/admin-dealers';
+import { cartRouter } from './routes/cart';
+import { devRouter } from './routes/dev';
 import { framesRouter } from './routes/frames';
+import { checkoutRouter, ordersRouter } from './routes/orders';
 import { partsRouter } from './routes/parts';
+import { webhooksRouter } from './routes/webhooks';
+import { createAuth } from './services/auth';
+import { createCartService } from './services/cart';
 import { createCatalogService } from './services/catalog';
+import type { MailerPort } from './services/mailer';
+import { createNotifications } from './services/notifications';
+import { createOrderService } from './services/orders';
 import { createSearchService } from './services/search';
+import { createStockService } from './services/stock';
+
+export interface AppConfig {
+  publicUrl: string;
+  authSecret: string;
+  taxRatePct: number;
+  signinLimitPerMinute: number;
+  paymentsMode: 'test' | 'live';
+  publishableKey: string;
+  webhookSecret: string;
+  /** The payments fake's own address, for the development authentication step. */
+  paymentsApiUrl: string;
+  mailInboxUrl: string;
+  /** Development tools: the inbox, the card step, demo accounts on the sign-in page. Off in production. */
+  devTools: boolean;
+  demoAccounts?: Array<{ role: string; email: string; password: string }>;
+  trustedOrigins?: string[];
+}
 
 export interface AppDeps {
   db: Db;
+  payments: Stripe;
+  mailer: MailerPort;
+  config: AppConfig;
   /** Built client to serve; omitted in API-only tests. */
   clientDir?: string;
   now?: () => Date;
   log?: (err: unknown) => void;
+  /** Sees each outgoing mail's promise (tests wait on them). */
+  trackMail?: (p: Promise<boolean>) => void;
 }
 
 export function createApp(deps: AppDeps) {
+  const { db, config } = deps;
   const log = deps.log ?? ((err: unknown) => console.error(err));
-  const search = createSearchService(deps.db);
+  const now = deps.now ?? (() => new Date());
+  const trustedOrigins = [new URL(config.publicUrl).origin, ...(config.trustedOrigins ?? [])];
+
+  const search = createSearchService(db);
   search.rebuild();
-  const catalog = createCatalogService(deps.db, search);
+  const catalog = createCatalogService(db, search);
+  const stock = createStockService(db);
+  const cart = createCartService(db, search, { taxRatePct: config.taxRatePct });
+  const notifications = createNotifications({ db, mailer: deps.mailer, publicUrl: config.publicUrl, track: deps.trackMail });
+  const orders = createOrderService({ db, stock, cart, payments: deps.payments, notify: notifications.orders, taxRatePct: config.taxRatePct, now });
+  const auth = createAuth({
+    db,
+    baseURL: config.publicUrl,
+    secret: config.authSecret,
+    trustedOrigins,
+    secureCookies: config.publicUrl.startsWith('https://'),
+    sendResetPassword: (to, url) => notifications.passwordReset(to, url),
+  });
 
   const app = express();
   app.disable('x-powered-by');
   app.set('query parser', 'simple');
-  app.use('/api', express.json({ limit: '100kb' }));
+  app.set('trust proxy', 'loopback');
 
   app.get('/api/health', (_req, res) => {
     res.json({ ok: true });
   });
+
+  // Webhooks first: their signature is checked over the raw body, and they come from the payment service, not a browser.
+  app.use('/api/webhooks', webhooksRouter({ payments: deps.payments, secret: config.webhookSecret, orders }));
+
+  app.use('/api', refuseCrossSite(trustedOrigins));
+  const signInLimiter = rateLimit({
+    windowMs: 60_000,
+    limit: config.signinLimitPerMinute,
+    standardHeaders: 'draft-8',
+    legacyHeaders: false,
+    handler: (_req, res) => {
+      res.status(429).json({ error: { message: 'Too many sign-in attempts. Wait a minute and try again.' } });
+    },
+  });
+  app.use(['/api/auth/sign-in', '/api/auth/request-password-reset'], signInLimiter);
+  const authHandler = toNodeHandler(auth);
+  app.all('/api/auth/{*splat}', (req, res) => {
+    void authHandler(req, res);
+  });
+
+  app.use('/api', express.json({ limit: '100kb' }), cookieParser(), loadSession(auth, db));
   app.use('/api/parts', partsRouter(catalog));
   app.use('/api/frames', framesRouter(catalog));
+  app.use(
+    '/api/account',
+    accountRouter({
+      db,
+      payments: {
+        mode: config.paymentsMode,
+        publishableKey: config.publishableKey,
+        ...(config.devTools ? { testMethods: Object.values(TEST_CARDS).map((c) => ({ id: c.id, label: c.label })) } : {}),
+      },
+      ...(config.devTools && config.demoAccounts ? { demoAccounts: config.demoAccounts } : {}),
+      onDealerApplied: (id) => notifications.dealerApplied(id),
+    }),
+  );
+  app.use('/api/cart', cartRouter(cart));
+  app.use('/api/checkout', checkoutRouter(orders, cart));
+  app.use('/api/orders', ordersRouter(orders));
+  app.use('/api/admin/dealers', adminDealersRouter({ db, onDecision: (e) => notifications.dealerDecided(e.dealerAccountId, e.decision) }));
+  if (config.devTools) app.use('/api/dev', devRouter({ mailInboxUrl: config.mailInboxUrl, paymentsApiUrl: config.paymentsApiUrl, orders }));
   app.use('/api', apiNotFound);
 
   if (deps.clientDir && fs.existsSync(path.join(deps.clientDir, 'index.html'))) {
@@ -42,5 +137,5 @@ export function createApp(deps: AppDeps) {
     });
   }
   app.use(createErrorHandler(log));
-  return { app, search, catalog };
+  return { app, search, catalog, stock, cart, orders, auth, notifications };
 }

@@ -1,13 +1,46 @@
 import { z } from 'zod';
 
-const EnvSchema = z.object({
-  NODE_ENV: z.enum(['development', 'production', 'test']).default('development'),
-  PORT: z.coerce.number().int().min(0).max(65535).default(3000),
-  HOST: z.string().default('127.0.0.1'),
-  DATABASE_FILE: z.string().min(1).default('data/spoolyard.db'),
-  /** Seed the demo catalogue when the database has no parts. */
-  SEED_DEMO: z.enum(['true', 'false']).default('true').transform((v) => v === 'true'),
-});
+const bool = (def: 'true' | 'false') => z.enum(['true', 'false']).default(def).transform((v) => v === 'true');
+const DEV_AUTH_SECRET = 'spoolyard-development-secret-change-me-0001';
+
+const EnvSchema = z
+  .object({
+    NODE_ENV: z.enum(['development', 'production', 'test']).default('development'),
+    PORT: z.coerce.number().int().min(0).max(65535).default(3000),
+    HOST: z.string().default('127.0.0.1'),
+    /** The address buyers reach the app at; links in e-mails use it. */
+    PUBLIC_URL: z.url().optional(),
+    DATABASE_FILE: z.string().min(1).default('data/spoolyard.db'),
+    /** Seed the demo catalogue and accounts when the database is empty. */
+    SEED_DEMO: bool('true'),
+    AUTH_SECRET: z.string().min(32, 'must be at least 32 characters').default(DEV_AUTH_SECRET),
+    SIGNIN_LIMIT_PER_MINUTE: z.coerce.number().int().min(1).max(10_000).default(10),
+    TAX_RATE_PCT: z.coerce.number().min(0).max(40).default(8),
+    /** "test" talks to the local payments fake; "live" to the real service with its browser script. */
+    PAYMENTS_MODE: z.enum(['test', 'live']).default('test'),
+    PAYMENTS_SECRET_KEY: z.string().regex(/^sk_(test|live)_/, 'must start with sk_test_ or sk_live_').default('sk_test_spoolyard_development_only'),
+    PAYMENTS_PUBLISHABLE_KEY: z.string().regex(/^pk_(test|live)_/, 'must start with pk_test_ or pk_live_').default('pk_test_spoolyard_development_only'),
+    PAYMENTS_WEBHOOK_SECRET: z.string().startsWith('whsec_', 'must start with whsec_').default('whsec_spoolyard_development_only'),
+    PAYMENTS_API_HOST: z.string().min(1).default('127.0.0.1'),
+    PAYMENTS_API_PORT: z.coerce.number().int().min(1).max(65535).default(12111),
+    PAYMENTS_API_PROTOCOL: z.enum(['http', 'https']).default('http'),
+    MAIL_HOST: z.string().min(1).default('127.0.0.1'),
+    MAIL_PORT: z.coerce.number().int().min(1).max(65535).default(12525),
+    MAIL_FROM: z.string().min(3).default('Spoolyard Turbo Supply <orders@spoolyard.test>'),
+    /** The mail fake's message API, for the development inbox. */
+    MAIL_INBOX_URL: z.url().default('http://127.0.0.1:12580'),
+  })
+  .superRefine((env, ctx) => {
+    if (env.NODE_ENV !== 'production') return;
+    // Production refuses the fakes' settings, so a misconfigured deploy cannot take test payments.
+    if (env.PAYMENTS_MODE !== 'live') ctx.addIssue({ code: 'custom', path: ['PAYMENTS_MODE'], message: 'must be "live" in production' });
+    if (!env.PAYMENTS_SECRET_KEY.startsWith('sk_live_')) ctx.addIssue({ code: 'custom', path: ['PAYMENTS_SECRET_KEY'], message: 'must be a live key in production' });
+    if (env.PAYMENTS_API_HOST === '127.0.0.1' || env.PAYMENTS_API_HOST === 'localhost' || env.PAYMENTS_API_PROTOCOL !== 'https') {
+      ctx.addIssue({ code: 'custom', path: ['PAYMENTS_API_HOST'], message: 'must be the real payment service over https in production' });
+    }
+    if (env.AUTH_SECRET === DEV_AUTH_SECRET) ctx.addIssue({ code: 'custom', path: ['AUTH_SECRET'], message: 'must be set in production' });
+    if (!env.PUBLIC_URL?.startsWith('https://')) ctx.addIssue({ code: 'custom', path: ['PUBLIC_URL'], message: 'must be an https address in production' });
+  });
 
 export type Env = z.infer<typeof EnvSchema>;
 
@@ -19,4 +52,8 @@ export function parseEnv(source: NodeJS.ProcessEnv = process.env): Env {
     throw new Error(`Invalid environment:\n${lines.join('\n')}`);
   }
   return result.data;
+}
+
+export function publicUrl(env: Env): string {
+  return env.PUBLIC_URL ?? `http://localhost:${env.PORT}`;
 }

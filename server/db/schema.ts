@@ -1,7 +1,8 @@
 import { sql } from 'drizzle-orm';
 import { index, integer, primaryKey, real, sqliteTable, text, uniqueIndex } from 'drizzle-orm/sqlite-core';
 
-const createdAt = () => text('created_at').notNull().default(sql`(strftime('%Y-%m-%dT%H:%M:%fZ','now'))`);
+const stamp = (name: string) => text(name).notNull().default(sql`(strftime('%Y-%m-%dT%H:%M:%fZ','now'))`);
+const createdAt = () => stamp('created_at');
 
 export const frames = sqliteTable('frames', {
   code: text('code').primaryKey(),
@@ -43,7 +44,7 @@ export const parts = sqliteTable(
     images: text('images', { mode: 'json' }).$type<string[]>().notNull().default(sql`'[]'`),
     minStock: integer('min_stock').notNull().default(0),
     createdAt: createdAt(),
-    updatedAt: createdAt(),
+    updatedAt: stamp('updated_at'),
   },
   (t) => [
     uniqueIndex('parts_part_number_uq').on(t.partNumber),
@@ -119,3 +120,237 @@ export const meta = sqliteTable('meta', {
   key: text('key').primaryKey(),
   value: text('value').notNull(),
 });
+
+/* Accounts: the tables better-auth keeps its users and sessions in (with the admin plugin's fields). */
+const ts = (name: string) => integer(name, { mode: 'timestamp_ms' });
+
+export const user = sqliteTable('user', {
+  id: text('id').primaryKey(),
+  name: text('name').notNull(),
+  email: text('email').notNull().unique(),
+  emailVerified: integer('email_verified', { mode: 'boolean' }).notNull().default(false),
+  image: text('image'),
+  createdAt: ts('created_at').notNull(),
+  updatedAt: ts('updated_at').notNull(),
+  role: text('role').default('customer'),
+  banned: integer('banned', { mode: 'boolean' }).default(false),
+  banReason: text('ban_reason'),
+  banExpires: ts('ban_expires'),
+});
+
+export const session = sqliteTable(
+  'session',
+  {
+    id: text('id').primaryKey(),
+    expiresAt: ts('expires_at').notNull(),
+    token: text('token').notNull().unique(),
+    createdAt: ts('created_at').notNull(),
+    updatedAt: ts('updated_at').notNull(),
+    ipAddress: text('ip_address'),
+    userAgent: text('user_agent'),
+    userId: text('user_id').notNull().references(() => user.id, { onDelete: 'cascade' }),
+    impersonatedBy: text('impersonated_by'),
+  },
+  (t) => [index('session_user_idx').on(t.userId)],
+);
+
+export const account = sqliteTable(
+  'account',
+  {
+    id: text('id').primaryKey(),
+    accountId: text('account_id').notNull(),
+    providerId: text('provider_id').notNull(),
+    userId: text('user_id').notNull().references(() => user.id, { onDelete: 'cascade' }),
+    accessToken: text('access_token'),
+    refreshToken: text('refresh_token'),
+    idToken: text('id_token'),
+    accessTokenExpiresAt: ts('access_token_expires_at'),
+    refreshTokenExpiresAt: ts('refresh_token_expires_at'),
+    scope: text('scope'),
+    password: text('password'),
+    createdAt: ts('created_at').notNull(),
+    updatedAt: ts('updated_at').notNull(),
+  },
+  (t) => [index('account_user_idx').on(t.userId)],
+);
+
+export const verification = sqliteTable('verification', {
+  id: text('id').primaryKey(),
+  identifier: text('identifier').notNull(),
+  value: text('value').notNull(),
+  expiresAt: ts('expires_at').notNull(),
+  createdAt: ts('created_at').notNull(),
+  updatedAt: ts('updated_at').notNull(),
+});
+
+/* Dealers: a trade account that one or more buyers belong to. */
+export const dealerAccounts = sqliteTable('dealer_accounts', {
+  id: integer('id').primaryKey({ autoIncrement: true }),
+  companyName: text('company_name').notNull(),
+  contactName: text('contact_name').notNull(),
+  phone: text('phone').notNull(),
+  taxNumber: text('tax_number'),
+  addressLine1: text('address_line1').notNull(),
+  city: text('city').notNull(),
+  postcode: text('postcode').notNull(),
+  deliveryZone: text('delivery_zone').notNull().default('national'),
+  status: text('status', { enum: ['pending', 'approved', 'declined'] }).notNull().default('pending'),
+  tier: text('tier', { enum: ['standard', 'preferred', 'partner'] }),
+  creditLimitCents: integer('credit_limit_cents').notNull().default(0),
+  paymentTermsDays: integer('payment_terms_days').notNull().default(30),
+  declineReason: text('decline_reason'),
+  createdAt: createdAt(),
+  decidedAt: text('decided_at'),
+});
+
+export const dealerMembers = sqliteTable('dealer_members', {
+  userId: text('user_id').primaryKey().references(() => user.id, { onDelete: 'cascade' }),
+  dealerAccountId: integer('dealer_account_id').notNull().references(() => dealerAccounts.id),
+});
+
+/* Saved fitment checks. */
+export const savedFitments = sqliteTable(
+  'saved_fitments',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    userId: text('user_id').notNull().references(() => user.id, { onDelete: 'cascade' }),
+    name: text('name').notNull(),
+    input: text('input', { mode: 'json' }).$type<unknown>().notNull(),
+    summary: text('summary').notNull(),
+    bestFrameCode: text('best_frame_code'),
+    createdAt: createdAt(),
+  },
+  (t) => [index('saved_fitments_user_idx').on(t.userId)],
+);
+
+/* Carts live on the server: one per signed-in user, or per guest token until sign-in merges it. */
+export const carts = sqliteTable('carts', {
+  id: integer('id').primaryKey({ autoIncrement: true }),
+  userId: text('user_id').unique().references(() => user.id, { onDelete: 'cascade' }),
+  guestToken: text('guest_token').unique(),
+  deliveryZone: text('delivery_zone').notNull().default('national'),
+  updatedAt: stamp('updated_at'),
+});
+
+export const cartLines = sqliteTable(
+  'cart_lines',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    cartId: integer('cart_id').notNull().references(() => carts.id, { onDelete: 'cascade' }),
+    partId: integer('part_id').notNull().references(() => parts.id),
+    quantity: integer('quantity').notNull(),
+    fitmentId: integer('fitment_id').references(() => savedFitments.id, { onDelete: 'set null' }),
+    allowBackorder: integer('allow_backorder', { mode: 'boolean' }).notNull().default(false),
+    createdAt: createdAt(),
+  },
+  (t) => [uniqueIndex('cart_lines_cart_part_uq').on(t.cartId, t.partId)],
+);
+
+export const ORDER_STATUSES = [
+  'pending_payment',
+  'paid',
+  'on_account',
+  'picking',
+  'packed',
+  'dispatched',
+  'back_ordered',
+  'cancelled',
+  'returned',
+] as const;
+
+export const orders = sqliteTable(
+  'orders',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    number: text('number').notNull().unique(),
+    userId: text('user_id').notNull().references(() => user.id),
+    dealerAccountId: integer('dealer_account_id').references(() => dealerAccounts.id),
+    status: text('status', { enum: ORDER_STATUSES }).notNull(),
+    paymentMethod: text('payment_method', { enum: ['card', 'account'] }).notNull(),
+    paymentState: text('payment_state', { enum: ['awaiting', 'requires_action', 'failed', 'paid', 'on_account', 'refunded', 'partially_refunded'] }).notNull(),
+    paymentIntentId: text('payment_intent_id').unique(),
+    purchaseOrder: text('purchase_order'),
+    paymentTermsDays: integer('payment_terms_days'),
+    currency: text('currency').notNull().default('usd'),
+    goodsCents: integer('goods_cents').notNull(),
+    discountCents: integer('discount_cents').notNull().default(0),
+    coreDepositCents: integer('core_deposit_cents').notNull().default(0),
+    freightCents: integer('freight_cents').notNull(),
+    taxCents: integer('tax_cents').notNull(),
+    totalCents: integer('total_cents').notNull(),
+    refundedCents: integer('refunded_cents').notNull().default(0),
+    weightGrams: integer('weight_grams').notNull(),
+    deliveryZone: text('delivery_zone').notNull(),
+    shipName: text('ship_name').notNull(),
+    shipLine1: text('ship_line1').notNull(),
+    shipCity: text('ship_city').notNull(),
+    shipPostcode: text('ship_postcode').notNull(),
+    email: text('email').notNull(),
+    carrier: text('carrier'),
+    trackingNumber: text('tracking_number'),
+    cartons: integer('cartons'),
+    packedWeightGrams: integer('packed_weight_grams'),
+    createdAt: createdAt(),
+    updatedAt: stamp('updated_at'),
+  },
+  (t) => [index('orders_user_idx').on(t.userId, t.createdAt), index('orders_status_idx').on(t.status, t.createdAt), index('orders_dealer_idx').on(t.dealerAccountId)],
+);
+
+export const orderLines = sqliteTable(
+  'order_lines',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    orderId: integer('order_id').notNull().references(() => orders.id, { onDelete: 'cascade' }),
+    partId: integer('part_id').notNull().references(() => parts.id),
+    partNumber: text('part_number').notNull(),
+    title: text('title').notNull(),
+    quantity: integer('quantity').notNull(),
+    /** Of the quantity, how many wait for stock. */
+    quantityBackordered: integer('quantity_backordered').notNull().default(0),
+    quantityPicked: integer('quantity_picked').notNull().default(0),
+    unitPriceCents: integer('unit_price_cents').notNull(),
+    retailUnitPriceCents: integer('retail_unit_price_cents').notNull(),
+    coreDepositCents: integer('core_deposit_cents').notNull().default(0),
+    weightGrams: integer('weight_grams').notNull(),
+    fitmentId: integer('fitment_id'),
+    fitmentSummary: text('fitment_summary'),
+  },
+  (t) => [index('order_lines_order_idx').on(t.orderId)],
+);
+
+export const orderEvents = sqliteTable(
+  'order_events',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    orderId: integer('order_id').notNull().references(() => orders.id, { onDelete: 'cascade' }),
+    status: text('status').notNull(),
+    note: text('note'),
+    createdAt: createdAt(),
+  },
+  (t) => [index('order_events_order_idx').on(t.orderId)],
+);
+
+/** Each payment webhook event is applied once: its id is recorded in the same transaction as its effect. */
+export const paymentEvents = sqliteTable('payment_events', {
+  eventId: text('event_id').primaryKey(),
+  type: text('type').notNull(),
+  paymentIntentId: text('payment_intent_id'),
+  receivedAt: createdAt(),
+});
+
+/** The stock ledger: on hand and reserved per part and bin are always the sums of these rows. */
+export const stockMovements = sqliteTable(
+  'stock_movements',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    partId: integer('part_id').notNull().references(() => parts.id),
+    binCode: text('bin_code').notNull().references(() => bins.code),
+    kind: text('kind', { enum: ['goods-in', 'reserve', 'release', 'pick', 'dispatch', 'adjustment', 'return'] }).notNull(),
+    onHandDelta: integer('on_hand_delta').notNull().default(0),
+    reservedDelta: integer('reserved_delta').notNull().default(0),
+    orderId: integer('order_id').references(() => orders.id),
+    note: text('note'),
+    createdAt: createdAt(),
+  },
+  (t) => [index('stock_movements_part_idx').on(t.partId, t.binCode), index('stock_movements_order_idx').on(t.orderId)],
+);

@@ -7,7 +7,7 @@ export function partsRouter(catalog: CatalogService): Router {
   const router = Router();
   router.get('/', (req, res) => {
     const query = parseOr400(PartsQuerySchema, req.query, 'Some search options are not valid');
-    res.json(catalog.listParts(query));
+    res.type('application/json').send(catalog.listPartsJson(query));
   });
   router.get('/:partNumber', (req, res) => {
     const part = catalog.getPart(String(req.params.partNumber).slice(0, 60));

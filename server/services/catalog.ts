@@ -264,7 +264,30 @@ export function createCatalogService(db: Db, search: SearchService) {
     }));
   }
 
-  return { listParts, getPart, listFrames };
+  /**
+   * The list answer as JSON, cached until anything in the database changes (total_changes() moves on every
+   * write through this connection), so repeated browsing of the same page costs a map lookup.
+   */
+  const cache = new Map<string, string>();
+  const changes = sqlite.prepare('SELECT total_changes() AS n').pluck();
+  let cachedAt = -1;
+  function listPartsJson(query: PartsQuery): string {
+    const version = changes.get() as number;
+    if (version !== cachedAt) {
+      cache.clear();
+      cachedAt = version;
+    }
+    const key = JSON.stringify(query);
+    let json = cache.get(key);
+    if (json === undefined) {
+      json = JSON.stringify(listParts(query));
+      if (cache.size >= 500) cache.delete(cache.keys().next().value!);
+      cache.set(key, json);
+    }
+    return json;
+  }
+
+  return { listParts, listPartsJson, getPart, listFrames };
 }
 
 export type CatalogService = ReturnType<typeof createCatalogService>;

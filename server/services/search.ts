@@ -65,7 +65,7 @@ function words(q: string): string[] {
     .replace(/[^\p{L}\p{N}.]+/gu, ' ')
     .split(' ')
     .map((w) => w.replace(/^\.+|\.+$/g, ''))
-    .filter((w) => w.length > 0)
+    .filter((w, _i, all) => w.length > 1 || all.length === 1)
     .slice(0, 8);
 }
 
@@ -89,7 +89,7 @@ export function createSearchService(db: Db) {
     oneEdit: sqlite.prepare('SELECT id, normalized_number AS number FROM parts WHERE normalized_number IN (SELECT value FROM json_each(?))'),
     aliasOneEdit: sqlite.prepare('SELECT part_id AS id, alias, kind FROM part_aliases WHERE normalized_alias IN (SELECT value FROM json_each(?))'),
     near: sqlite.prepare(`SELECT part_id AS id, kind, number FROM numbers_tri WHERE numbers_tri MATCH ? ORDER BY rank LIMIT ${NEAR_LIMIT}`),
-    words: sqlite.prepare(`SELECT part_id AS id, rank FROM parts_fts WHERE parts_fts MATCH ? ORDER BY rank LIMIT ${WORD_LIMIT}`),
+    words: sqlite.prepare(`SELECT part_id AS id, 0 AS rank FROM parts_fts WHERE parts_fts MATCH ? LIMIT ${WORD_LIMIT}`),
   };
 
   function loadDocs(ids?: number[]) {
@@ -218,7 +218,10 @@ export function createSearchService(db: Db) {
       }
     }
     const hasDigits = /\d/.test(n);
-    if (hasDigits && n.length >= 5 && n.length <= 24) {
+    const oneToken = !/\s/.test(q);
+    const exactHit = [...candidates.values()].some((c) => c.tier <= 1);
+    // A number typed exactly needs no near misses or word search; that keeps the common case cheap.
+    if (hasDigits && n.length >= 5 && n.length <= 24 && !exactHit) {
       // One edit away: a digit swapped with its neighbour, dropped, doubled or mistyped; found by index lookups.
       const variants = JSON.stringify(oneEditVariants(n));
       for (const r of stmt.oneEdit.all(variants) as Array<{ id: number }>) {
@@ -228,9 +231,10 @@ export function createSearchService(db: Db) {
       for (const r of stmt.aliasOneEdit.all(variants) as Array<{ id: number; alias: string; kind: string }>) {
         note(r.id, 3, { kind: 'near-number', text: `Close to ${r.kind === 'superseded' ? 'earlier number' : 'cross-reference'} ${r.alias}` });
       }
-      // Further misses: numbers that share most three-character pieces with what was typed.
+      // Further misses, only when nothing closer was found: numbers sharing most three-character pieces.
       const grams = trigrams(n.toLowerCase()).map((g) => `"${g}"`);
-      for (const r of stmt.near.all(grams.join(' OR ')) as Array<{ id: number; kind: string; number: string }>) {
+      const nearRows = candidates.size === 0 ? (stmt.near.all(grams.join(' OR ')) as Array<{ id: number; kind: string; number: string }>) : [];
+      for (const r of nearRows) {
         const d = docs.get(r.id);
         if (!d) continue;
         const shown = r.kind === 'part-number' ? d.partNumber : (d.aliases.find((a) => a.normalized === r.number)?.alias ?? r.number);
@@ -239,7 +243,7 @@ export function createSearchService(db: Db) {
     }
 
     const ws = words(q);
-    if (ws.length > 0) {
+    if (ws.length > 0 && !(oneToken && hasDigits && candidates.size > 0)) {
       const all = ws.map(ftsTerm).join(' AND ');
       const found = stmt.words.all(all) as Array<{ id: number; rank: number }>;
       for (const r of found) note(r.id, 2, { kind: 'words', text: `Matches “${ws.join(' ')}”` }, r.rank);

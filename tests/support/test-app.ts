@@ -1,24 +1,40 @@
 import fs from 'node:fs';
 import os from 'node:os';
+import net from 'node:net';
 import path from 'node:path';
 import type { AddressInfo } from 'node:net';
 import type { Server } from 'node:http';
 import { generateCatalogue, type GenerateOptions } from '../../catalog-seed/generate';
 import { loadCatalogue } from '../../catalog-seed/load';
-import { createApp, type AppDeps } from '../../server/app';
+import { seedDemoAccounts } from '../../catalog-seed/accounts';
+import { startMailFake, type MailFake } from '../../fakes/mail/mail-fake';
+import { startPaymentsFake, type PaymentsFake } from '../../fakes/payments/payments-fake';
+import { createApp, type AppConfig, type AppDeps } from '../../server/app';
 import { openDatabase, type Db } from '../../server/db/client';
+import { createMailer, createRecordingMailer } from '../../server/services/mailer';
+import { offlineDeps, paymentsClient, testConfig, TEST_WEBHOOK_SECRET } from './app-deps';
+
+export interface Reply {
+  status: number;
+  body: unknown;
+  headers: Headers;
+}
 
 export interface TestApp {
   db: Db;
   url: string;
   dir: string;
-  get: (p: string, init?: RequestInit) => Promise<{ status: number; body: unknown; headers: Headers }>;
-  send: (method: string, p: string, body?: unknown, headers?: Record<string, string>) => Promise<{ status: number; body: unknown; headers: Headers }>;
-  close: () => Promise<void>;
   app: ReturnType<typeof createApp>;
+  payments: PaymentsFake | null;
+  mail: MailFake | null;
+  /** Resolves when every mail started so far has been handed to the SMTP server. */
+  mailSettled: () => Promise<void>;
+  get: (p: string, init?: RequestInit) => Promise<Reply>;
+  send: (method: string, p: string, body?: unknown, headers?: Record<string, string>) => Promise<Reply>;
+  close: () => Promise<void>;
 }
 
-/** A fresh, migrated SQLite file with the demo catalogue, and the real app listening on 127.0.0.1. */
+/** A fresh, migrated SQLite file with the demo catalogue. */
 export function createTestDb(options: GenerateOptions = {}): { db: Db; dir: string } {
   const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'spoolyard-test-'));
   const db = openDatabase(path.join(dir, 'test.db'));
@@ -26,14 +42,58 @@ export function createTestDb(options: GenerateOptions = {}): { db: Db; dir: stri
   return { db, dir };
 }
 
-export async function startTestApp(deps: Partial<AppDeps> = {}, options: GenerateOptions = {}): Promise<TestApp> {
-  const { db, dir } = deps.db ? { db: deps.db, dir: fs.mkdtempSync(path.join(os.tmpdir(), 'spoolyard-test-')) } : createTestDb(options);
-  const app = createApp({ ...deps, db });
-  const server: Server = await new Promise((resolve) => {
-    const s = app.app.listen(0, '127.0.0.1', () => resolve(s));
+async function freePort(): Promise<number> {
+  const probe = net.createServer();
+  await new Promise<void>((resolve) => probe.listen(0, '127.0.0.1', () => resolve()));
+  const { port } = probe.address() as AddressInfo;
+  await new Promise<void>((resolve) => probe.close(() => resolve()));
+  return port;
+}
+
+export interface StartOptions {
+  /** Run the payments and mail fakes as real local servers and point the app at them. */
+  fakes?: boolean;
+  /** Seed the demo accounts (one per role). */
+  accounts?: boolean;
+  config?: Partial<AppConfig>;
+  deps?: Partial<AppDeps>;
+  catalogue?: GenerateOptions;
+}
+
+export async function startTestApp(options: StartOptions = {}): Promise<TestApp> {
+  const { db, dir } = createTestDb(options.catalogue);
+  let payments: PaymentsFake | null = null;
+  let mail: MailFake | null = null;
+  const pending: Array<Promise<boolean>> = [];
+  if (options.fakes) {
+    payments = await startPaymentsFake({ port: 0, host: '127.0.0.1', webhookUrl: null, webhookSecret: TEST_WEBHOOK_SECRET, retryDelaysMs: [50, 100, 200] });
+    mail = await startMailFake({ smtpPort: 0, httpPort: 0, host: '127.0.0.1' });
+  }
+  const mailer = mail ? createMailer({ host: '127.0.0.1', port: mail.smtpPort, from: 'Spoolyard Turbo Supply <orders@spoolyard.test>' }) : createRecordingMailer();
+  const base = offlineDeps(db);
+  // The app is created before it listens, so its public URL is set to the port it will get below.
+  const port = await freePort();
+  const url = `http://127.0.0.1:${port}`;
+  const app = createApp({
+    ...base,
+    payments: payments ? paymentsClient(payments.port) : base.payments,
+    mailer,
+    trackMail: (p) => pending.push(p),
+    config: testConfig({
+      publicUrl: url,
+      ...(payments ? { paymentsApiUrl: payments.url } : {}),
+      ...(mail ? { mailInboxUrl: mail.httpUrl } : {}),
+      ...options.config,
+    }),
+    ...options.deps,
   });
-  const url = `http://127.0.0.1:${(server.address() as AddressInfo).port}`;
-  const read = async (res: Response) => {
+  if (options.accounts) await seedDemoAccounts(app.auth, db);
+  const listening: Server = await new Promise((resolve) => {
+    const s = app.app.listen(port, '127.0.0.1', () => resolve(s));
+  });
+  payments?.setWebhookUrl(`${url}/api/webhooks/payments`);
+
+  const read = async (res: Response): Promise<Reply> => {
     const text = await res.text();
     let body: unknown = text;
     try {
@@ -48,11 +108,20 @@ export async function startTestApp(deps: Partial<AppDeps> = {}, options: Generat
     url,
     dir,
     app,
+    payments,
+    mail,
+    mailSettled: async () => {
+      await Promise.all(pending);
+    },
     get: async (p, init) => read(await fetch(`${url}${p}`, init)),
     send: async (method, p, body, headers = {}) =>
       read(await fetch(`${url}${p}`, { method, headers: { 'content-type': 'application/json', ...headers }, body: body === undefined ? undefined : JSON.stringify(body) })),
     close: async () => {
-      await new Promise<void>((resolve) => server.close(() => resolve()));
+      listening.closeAllConnections();
+      await new Promise<void>((resolve) => listening.close(() => resolve()));
+      await payments?.close();
+      await mail?.close();
+      if ('close' in mailer && typeof mailer.close === 'function') await mailer.close();
       db.$client.close();
       fs.rmSync(dir, { recursive: true, force: true });
     },

@@ -1,0 +1,92 @@
+import { performance } from 'node:perf_hooks';
+import { createApp } from '../server/app';
+import { offlineDeps } from '../tests/support/app-deps';
+import { openDatabase } from '../server/db/client';
+import { PartsQuerySchema } from '../shared/schemas/parts';
+import type { BenchCatalogue, BenchEnv } from './bench-catalogues';
+import { section, summarize, type LatencySummary, type SectionContext } from './bench-harness';
+import { buildQueries, QUERY_KINDS, type BenchQuery } from './bench-queries';
+
+const SEARCH_P95_TARGET_MS = 15;
+const ROUNDS = 3;
+
+interface Measured {
+  search: LatencySummary;
+  handler: LatencySummary;
+  byKind: Map<string, { search: LatencySummary; handler: LatencySummary }>;
+  exactFirst: { hit: number; of: number };
+}
+
+function measure(cat: BenchCatalogue, ctx: SectionContext): Measured {
+  const db = openDatabase(cat.file);
+  try {
+    const t0 = performance.now();
+    // The same wiring the server uses: createApp builds the search index, listParts is the handler's work.
+    const { search, catalog } = createApp(offlineDeps(db, { log: () => {} }));
+    ctx.log(`${cat.label}: index built in ${((performance.now() - t0) / 1000).toFixed(1)} s`);
+    const queries = buildQueries(db.$client);
+    const runHandler = (q: BenchQuery) => JSON.stringify(catalog.listParts(PartsQuerySchema.parse({ q: q.q })));
+
+    // One untimed pass, so the figures are steady-state rather than the first call's JIT and page-cache warm-up.
+    for (const q of queries) {
+      search.search(q.q);
+      runHandler(q);
+    }
+    const searchMs = new Map<BenchQuery, number[]>();
+    const handlerMs = new Map<BenchQuery, number[]>();
+    for (let round = 0; round < ROUNDS; round++) {
+      for (const q of queries) {
+        let t = performance.now();
+        search.search(q.q);
+        (searchMs.get(q) ?? searchMs.set(q, []).get(q)!).push(performance.now() - t);
+        t = performance.now();
+        runHandler(q);
+        (handlerMs.get(q) ?? handlerMs.set(q, []).get(q)!).push(performance.now() - t);
+      }
+    }
+    const all = (m: Map<BenchQuery, number[]>, kind?: string) => [...m].filter(([q]) => !kind || q.kind === kind).flatMap(([, xs]) => xs);
+    const byKind = new Map(QUERY_KINDS.map((k) => [k, { search: summarize(all(searchMs, k)), handler: summarize(all(handlerMs, k)) }]));
+
+    const expecting = queries.filter((q) => q.expectFirst);
+    const hit = expecting.filter((q) => {
+      const first = search.search(q.q)[0];
+      return first !== undefined && db.$client.prepare('SELECT part_number AS n FROM parts WHERE id = ?').pluck().get(first.partId) === q.expectFirst;
+    }).length;
+
+    const slowest = [...searchMs].map(([q, xs]) => ({ q, ms: Math.max(...xs) })).sort((a, b) => b.ms - a.ms).slice(0, 5);
+    ctx.log(`${cat.label}: slowest search queries: ${slowest.map((s) => `${s.q.kind} "${s.q.q}" ${s.ms.toFixed(1)} ms`).join('; ')}`);
+    return { search: summarize(all(searchMs)), handler: summarize(all(handlerMs)), byKind, exactFirst: { hit, of: expecting.length } };
+  } finally {
+    db.$client.close();
+  }
+}
+
+/** Search latency for 100 mixed queries, on the demo catalogue and on the large generated one. */
+export const searchSection = section<BenchEnv>('Search latency (100 mixed queries × 3 rounds)', (ctx, env) => {
+  const results = env.catalogues.map((cat) => ({ cat, m: measure(cat, ctx) }));
+  for (const { cat, m } of results) {
+    const large = cat.parts >= 50_000;
+    const target = large ? { op: '<=' as const, value: SEARCH_P95_TARGET_MS } : undefined;
+    const label = `${cat.parts.toLocaleString('en-US')} parts`;
+    ctx.record(`search() p50, ${label}`, m.search.p50, 'ms');
+    ctx.record(`search() p95, ${label}`, m.search.p95, 'ms', { target });
+    ctx.record(`GET /api/parts?q= handler p50, ${label}`, m.handler.p50, 'ms');
+    ctx.record(`GET /api/parts?q= handler p95, ${label}`, m.handler.p95, 'ms', { target });
+    ctx.record(`exact / lower-case numbers ranked first, ${label}`, (100 * m.exactFirst.hit) / m.exactFirst.of, '%', {
+      target: { op: '>=', value: 100 },
+      detail: `${m.exactFirst.hit} of ${m.exactFirst.of}`,
+    });
+  }
+  ctx.table(
+    'p50 / p95 / max in ms by query kind (search() | whole handler)',
+    ['kind', ...results.flatMap(({ cat }) => [`search ${cat.label}`, `handler ${cat.label}`])],
+    QUERY_KINDS.map((k) => [
+      k,
+      ...results.flatMap(({ m }) => {
+        const s = m.byKind.get(k)!;
+        const f = (x: LatencySummary) => `${x.p50.toFixed(1)} / ${x.p95.toFixed(1)} / ${x.max.toFixed(1)}`;
+        return [f(s.search), f(s.handler)];
+      }),
+    ]),
+  );
+});

@@ -1,0 +1,33 @@
+import { spawn, spawnSync } from 'node:child_process';
+import fs from 'node:fs';
+import path from 'node:path';
+
+// The server the browser tests run against: a fresh database seeded with the demo catalogue on every run.
+const root = path.resolve(import.meta.dirname, '..');
+const dbDir = path.join(root, '.tmp', 'e2e');
+const dbFile = path.join(dbDir, 'spoolyard-e2e.db');
+const port = process.env.E2E_PORT ?? '3100';
+const tsx = path.join(root, 'node_modules', '.bin', 'tsx');
+const vite = path.join(root, 'node_modules', '.bin', 'vite');
+
+for (const suffix of ['', '-wal', '-shm']) fs.rmSync(`${dbFile}${suffix}`, { force: true });
+fs.mkdirSync(dbDir, { recursive: true });
+
+if (!fs.existsSync(path.join(root, 'dist', 'client', 'index.html'))) {
+  console.log('dist/client is missing; building the client first');
+  const build = spawnSync(vite, ['build'], { cwd: root, stdio: 'inherit' });
+  if (build.status !== 0) process.exit(build.status ?? 1);
+}
+
+const child = spawn(tsx, ['server/index.ts'], {
+  cwd: root,
+  stdio: 'inherit',
+  env: { ...process.env, DATABASE_FILE: dbFile, PORT: port, HOST: '127.0.0.1', NODE_ENV: 'test', SEED_DEMO: 'true' },
+});
+
+for (const signal of ['SIGINT', 'SIGTERM'] as const) {
+  process.on(signal, () => {
+    if (child.exitCode === null) child.kill(signal);
+  });
+}
+child.on('exit', (code, signal) => process.exit(code ?? (signal ? 0 : 1)));

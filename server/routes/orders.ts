@@ -1,0 +1,36 @@
+import { Router } from 'express';
+import { CheckoutSchema } from '../../shared/schemas/orders';
+import { HttpError, parseOr400 } from '../middleware/errors';
+import { requireUser } from '../middleware/session';
+import type { CartService } from '../services/cart';
+import type { OrderService } from '../services/orders';
+import { cartOwner } from './cart';
+
+export function checkoutRouter(orders: OrderService, cart: CartService): Router {
+  const router = Router();
+  router.post('/', async (req, res) => {
+    const user = requireUser(res);
+    if (user.role === 'warehouse') throw new HttpError(403, 'Warehouse accounts do not place orders');
+    const input = parseOr400(CheckoutSchema, req.body, 'Some checkout details are missing or not valid');
+    const owner = cartOwner(req, res, cart, false)!;
+    const result = await orders.checkout(user, owner, input);
+    res.status(result.status).json(result.body);
+  });
+  return router;
+}
+
+export function ordersRouter(orders: OrderService): Router {
+  const router = Router();
+  router.get('/', (_req, res) => {
+    res.json({ items: orders.listOrders(requireUser(res)) });
+  });
+  router.get('/:number', (req, res) => {
+    res.json(orders.orderDetail(requireUser(res), String(req.params.number).slice(0, 20)));
+  });
+  router.post('/:number/reorder', (req, res) => {
+    const user = requireUser(res);
+    if (user.role !== 'customer' && user.role !== 'dealer') throw new HttpError(403, 'Only buyers reorder');
+    res.status(201).json(orders.reorder(user, String(req.params.number).slice(0, 20)));
+  });
+  return router;
+}

@@ -1,0 +1,116 @@
+import nodemailer from 'nodemailer';
+import type { RenderedMail } from './mail-templates/types';
+
+export type OutgoingMail = RenderedMail & { to: string };
+
+/** What request handlers need; tests pass a recording fake in its place. */
+export interface MailerPort {
+  send(message: OutgoingMail): Promise<void>;
+}
+
+export interface Mailer extends MailerPort {
+  /** Connects and greets the server once; rejects when it cannot be reached. */
+  verify(): Promise<void>;
+  close(): Promise<void>;
+}
+
+export interface MailerOptions {
+  host: string;
+  port: number;
+  /** e.g. `"Spoolyard Turbo Supply" <orders@spoolyard.test>` */
+  from: string;
+  /** Implicit TLS from the first byte (port 465 style). */
+  secure?: boolean;
+  /**
+   * Skip STARTTLS even when offered. On by default because the local fake runs without TLS;
+   * a production relay sets this to false.
+   */
+  ignoreTLS?: boolean;
+  auth?: { user: string; pass: string };
+  /** Upper bound for connecting, the greeting and each socket wait, so a dead relay fails fast. */
+  timeoutMs?: number;
+}
+
+export function createMailer(options: MailerOptions): Mailer {
+  const timeout = options.timeoutMs ?? 10_000;
+  const transport = nodemailer.createTransport({
+    host: options.host,
+    port: options.port,
+    secure: options.secure ?? false,
+    ignoreTLS: options.ignoreTLS ?? true,
+    ...(options.auth ? { auth: options.auth } : {}),
+    connectionTimeout: timeout,
+    greetingTimeout: timeout,
+    socketTimeout: timeout * 3,
+  });
+  return {
+    async send(message) {
+      await transport.sendMail({
+        from: options.from,
+        to: message.to,
+        subject: message.subject,
+        text: message.text,
+        html: message.html,
+      });
+    },
+    async verify() {
+      await transport.verify();
+    },
+    async close() {
+      transport.close();
+    },
+  };
+}
+
+function reason(error: unknown): string {
+  if (error instanceof Error) {
+    const code = (error as { code?: unknown }).code;
+    return typeof code === 'string' && !error.message.includes(code) ? `${code} ${error.message}` : error.message;
+  }
+  return String(error);
+}
+
+/**
+ * Sends without ever rejecting: call it after the database work has committed, so a mail outage cannot turn a
+ * placed order into an error page. Pass a function to have rendering failures caught the same way.
+ * Resolves true when the message was handed to the server.
+ */
+export async function sendSafely(
+  mailer: MailerPort,
+  message: OutgoingMail | (() => OutgoingMail),
+  label = 'mail',
+): Promise<boolean> {
+  let subject = '';
+  try {
+    const outgoing = typeof message === 'function' ? message() : message;
+    subject = outgoing.subject;
+    await mailer.send(outgoing);
+    return true;
+  } catch (error) {
+    // warn, not error: the caller's work succeeded and the failure is an operational notice.
+    console.warn(`${label} not sent${subject ? ` ("${subject}")` : ''}: ${reason(error)}`);
+    return false;
+  }
+}
+
+export interface RecordingMailer extends MailerPort {
+  sent: OutgoingMail[];
+  /** Makes every later send reject with this error, to exercise failure paths. */
+  failWith(error: Error | null): void;
+}
+
+/** An in-memory mailer for tests of code that sends mail. */
+export function createRecordingMailer(): RecordingMailer {
+  let failure: Error | null = null;
+  const sent: OutgoingMail[] = [];
+  return {
+    sent,
+    failWith(error) {
+      failure = error;
+    },
+    async send(message) {
+      if (failure) throw failure;
+      sent.push(structuredClone(message));
+    },
+  };
+}

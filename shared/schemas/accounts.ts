@@ -1,0 +1,82 @@
+import { z } from 'zod';
+import { DEALER_TIER_KEYS, DELIVERY_ZONE_KEYS } from '../pricing';
+
+export const PASSWORD_MIN = 10;
+
+export const SignInSchema = z.object({
+  email: z.email('enter your e-mail address'),
+  password: z.string().min(1, 'enter your password').max(128),
+});
+export type SignIn = z.infer<typeof SignInSchema>;
+
+export const SignUpSchema = z.object({
+  name: z.string().trim().min(2, 'enter your name').max(80, 'name is too long'),
+  email: z.email('enter a valid e-mail address'),
+  password: z.string().min(PASSWORD_MIN, `password must be at least ${PASSWORD_MIN} characters`).max(128, 'password is too long'),
+});
+export type SignUp = z.infer<typeof SignUpSchema>;
+
+export const DealerApplicationSchema = z.object({
+  companyName: z.string().trim().min(2, 'enter the company name').max(100),
+  contactName: z.string().trim().min(2, 'enter a contact name').max(80),
+  phone: z.string().trim().regex(/^[+\d][\d\s\-()]{5,20}$/, 'enter a phone number'),
+  taxNumber: z.string().trim().max(30).optional(),
+  addressLine1: z.string().trim().min(3, 'enter the street address').max(120),
+  city: z.string().trim().min(2, 'enter the town or city').max(60),
+  postcode: z.string().trim().min(3, 'enter the postcode').max(12),
+  deliveryZone: z.enum(DELIVERY_ZONE_KEYS, { error: 'choose a delivery zone' }),
+});
+export type DealerApplication = z.infer<typeof DealerApplicationSchema>;
+
+export const DealerDecisionSchema = z.discriminatedUnion('decision', [
+  z.object({
+    decision: z.literal('approve'),
+    tier: z.enum(DEALER_TIER_KEYS, { error: 'choose a trade tier' }),
+    creditLimitCents: z.number().int('credit limit must be whole cents').min(0, 'credit limit cannot be negative').max(100_000_000, 'credit limit is too high'),
+    paymentTermsDays: z.number().int().refine((d) => [7, 14, 30, 45, 60].includes(d), 'payment terms must be 7, 14, 30, 45 or 60 days'),
+  }),
+  z.object({ decision: z.literal('decline'), reason: z.string().trim().min(3, 'give a reason').max(300) }),
+]);
+export type DealerDecision = z.infer<typeof DealerDecisionSchema>;
+
+export const MeSchema = z.object({
+  user: z
+    .object({
+      id: z.string(),
+      email: z.string(),
+      name: z.string(),
+      role: z.enum(['customer', 'dealer', 'warehouse', 'admin']),
+      dealer: z
+        .object({
+          id: z.number(),
+          companyName: z.string(),
+          status: z.enum(['pending', 'approved', 'declined']),
+          tier: z.enum(DEALER_TIER_KEYS).nullable(),
+          creditLimitCents: z.number(),
+          paymentTermsDays: z.number(),
+          deliveryZone: z.string(),
+          openBalanceCents: z.number().optional(),
+        })
+        .nullable(),
+    })
+    .nullable(),
+  demoAccounts: z.array(z.object({ role: z.string(), email: z.string(), password: z.string() })).optional(),
+  payments: z.object({ mode: z.enum(['test', 'live']), publishableKey: z.string(), testMethods: z.array(z.object({ id: z.string(), label: z.string() })).optional() }),
+});
+export type Me = z.infer<typeof MeSchema>;
+
+export const DealerAccountRowSchema = z.object({
+  id: z.number(),
+  companyName: z.string(),
+  contactName: z.string(),
+  email: z.string(),
+  phone: z.string(),
+  city: z.string(),
+  status: z.enum(['pending', 'approved', 'declined']),
+  tier: z.enum(DEALER_TIER_KEYS).nullable(),
+  creditLimitCents: z.number(),
+  paymentTermsDays: z.number(),
+  openBalanceCents: z.number(),
+  createdAt: z.string(),
+});
+export const DealerAccountsSchema = z.object({ items: z.array(DealerAccountRowSchema) });

@@ -1,0 +1,132 @@
+import { createServer } from 'node:net';
+import type { AddressInfo } from 'node:net';
+import { afterAll, beforeAll, beforeEach, describe, expect, it, vi } from 'vitest';
+import { startMailFake, type MailFake } from '../../fakes/mail/mail-fake';
+import { createMailer, createRecordingMailer, sendSafely, type Mailer } from '../../server/services/mailer';
+import { renderDispatchNotice } from '../../server/services/mail-templates/dispatch-notice';
+import { renderOrderConfirmation } from '../../server/services/mail-templates/order-confirmation';
+
+const FROM = '"Spoolyard Turbo Supply" <orders@spoolyard.test>';
+
+let fake: MailFake;
+let mailer: Mailer;
+
+beforeAll(async () => {
+  fake = await startMailFake({ smtpPort: 0, httpPort: 0 });
+  mailer = createMailer({ host: '127.0.0.1', port: fake.smtpPort, from: FROM });
+});
+
+afterAll(async () => {
+  await mailer.close();
+  await fake.close();
+});
+
+beforeEach(() => fake.clear());
+
+/** A port nothing listens on: bind one, then let it go. */
+async function closedPort(): Promise<number> {
+  const server = createServer();
+  await new Promise<void>((resolve) => server.listen(0, '127.0.0.1', resolve));
+  const { port } = server.address() as AddressInfo;
+  await new Promise<void>((resolve) => server.close(() => resolve()));
+  return port;
+}
+
+function orderMail() {
+  return renderOrderConfirmation({
+    orderNumber: 'SY-2001',
+    customerName: 'Robin <Vale>',
+    placedAt: new Date('2025-03-04T10:00:00Z'),
+    lines: [
+      {
+        partNumber: 'VC-C62003',
+        title: 'Vanecraft 62 cartridge, ball bearing',
+        category: 'cartridges',
+        quantity: 1,
+        unitPriceCents: 61900,
+        lineTotalCents: 61900,
+      },
+    ],
+    totals: { goodsCents: 61900, dealerDiscountCents: 0, coreDepositsCents: 0, freightCents: 2200, taxCents: 5128, totalCents: 69228 },
+    deliveryAddress: { name: 'Robin Vale', lines: ['14 Kiln Lane'], city: 'Ashcombe', postalCode: '00042' },
+    payment: { method: 'card', status: 'paid', cardLast4: '4242' },
+    orderUrl: 'http://127.0.0.1:5173/orders/SY-2001',
+  });
+}
+
+describe('mailer over SMTP', () => {
+  it('verifies the connection to the mail server', async () => {
+    await expect(mailer.verify()).resolves.toBeUndefined();
+  });
+
+  it('delivers a rendered message with its text and HTML parts intact', async () => {
+    const rendered = orderMail();
+    await mailer.send({ to: 'Buyer@Retail.test', ...rendered });
+
+    const message = await fake.waitForMessage((m) => m.subject === rendered.subject);
+    expect(message).toMatchObject({
+      from: 'orders@spoolyard.test',
+      fromName: 'Spoolyard Turbo Supply',
+      to: ['buyer@retail.test'],
+      subject: 'Order SY-2001 confirmed',
+    });
+    // mailparser decodes the transfer encoding; what arrives must be what was rendered.
+    expect(message.text?.trim()).toBe(rendered.text.trim());
+    expect(message.text).toContain('$692.28');
+    expect(message.html).toContain('$692.28');
+    expect(message.html).toContain('Robin &lt;Vale&gt;');
+    expect(message.html).toContain('Prime the oil supply');
+  });
+
+  it('delivers the dispatch notice with the tracking number', async () => {
+    const rendered = renderDispatchNotice({
+      orderNumber: 'SY-2002',
+      customerName: 'Sam Ferrow',
+      dispatchedAt: new Date('2025-06-12T15:00:00Z'),
+      carrier: 'Millbrook Freight',
+      trackingNumber: 'MF987654321',
+      cartons: 1,
+      lines: [{ partNumber: 'VC-G1003', title: 'Turbine inlet flange gasket', category: 'gaskets-fittings', quantity: 2 }],
+      deliveryAddress: { name: 'Sam Ferrow', lines: ['2 Mill Yard'], city: 'Ashcombe', postalCode: '00043' },
+      orderUrl: 'http://127.0.0.1:5173/orders/SY-2002',
+    });
+    expect(await sendSafely(mailer, { to: 'sam@dealer.test', ...rendered }, 'dispatch notice')).toBe(true);
+    const message = await fake.waitForMessage((m) => m.to.includes('sam@dealer.test'));
+    expect(message.text).toContain('MF987654321');
+    expect(message.html).toContain('MF987654321');
+  });
+});
+
+describe('sendSafely', () => {
+  it('resolves false with a short warning when the mail server is down', async () => {
+    const warn = vi.spyOn(console, 'warn').mockImplementation(() => undefined);
+    const down = createMailer({ host: '127.0.0.1', port: await closedPort(), from: FROM, timeoutMs: 2_000 });
+    try {
+      await expect(down.verify()).rejects.toThrow();
+      await expect(sendSafely(down, { to: 'buyer@retail.test', ...orderMail() }, 'order confirmation')).resolves.toBe(false);
+    } finally {
+      await down.close();
+    }
+    expect(warn).toHaveBeenCalledTimes(1);
+    const line = String(warn.mock.calls[0]?.[0]);
+    expect(line).toMatch(/^order confirmation not sent \("Order SY-2001 confirmed"\): .*ECONNREFUSED/);
+    expect(line.length).toBeLessThan(200);
+  });
+
+  it('catches a failure while rendering when given a function', async () => {
+    const warn = vi.spyOn(console, 'warn').mockImplementation(() => undefined);
+    const recorder = createRecordingMailer();
+    const sent = await sendSafely(recorder, () => {
+      throw new TypeError('Mail links must be http(s), got javascript:');
+    });
+    expect(sent).toBe(false);
+    expect(recorder.sent).toHaveLength(0);
+    expect(warn).toHaveBeenCalledWith('mail not sent: Mail links must be http(s), got javascript:');
+  });
+
+  it('hands the message to the mailer once when it works', async () => {
+    const recorder = createRecordingMailer();
+    await expect(sendSafely(recorder, () => ({ to: 'a@retail.test', ...orderMail() }))).resolves.toBe(true);
+    expect(recorder.sent.map((m) => [m.to, m.subject])).toEqual([['a@retail.test', 'Order SY-2001 confirmed']]);
+  });
+});
