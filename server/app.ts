@@ -13,6 +13,7 @@ import { accountRouter } from './routes/account';
 import { adminDealersRouter } from './routes/admin-dealers';
 import { cartRouter } from './routes/cart';
 import { devRouter } from './routes/dev';
+import { fitmentRouter, savedFitmentsRouter } from './routes/fitment';
 import { framesRouter } from './routes/frames';
 import { checkoutRouter, ordersRouter } from './routes/orders';
 import { partsRouter } from './routes/parts';
@@ -122,6 +123,8 @@ export function createApp(deps: AppDeps) {
       onDealerApplied: (id) => notifications.dealerApplied(id),
     }),
   );
+  app.use('/api/fitment', fitmentRouter({ db }));
+  app.use('/api/fitments', savedFitmentsRouter({ db }));
   app.use('/api/cart', cartRouter(cart));
   app.use('/api/checkout', checkoutRouter(orders, cart));
   app.use('/api/orders', ordersRouter(orders));

@@ -1,17 +1,41 @@
-import { createBrowserRouter, RouterProvider } from 'react-router-dom';
+import { createBrowserRouter, RouterProvider, type RouteObject } from 'react-router-dom';
 import { Layout } from './layout';
 import { RouteError } from './route-error';
 
-// Each page is its own chunk so the first page stays small.
+type Loader = () => Promise<Record<string, unknown>>;
+
+/** Each page is its own chunk so the first page stays small. */
+const page = (path: string, load: Loader, exportName: string): RouteObject => ({
+  path,
+  errorElement: <RouteError />,
+  lazy: async () => ({ Component: (await load())[exportName] as React.ComponentType }),
+});
+
 const router = createBrowserRouter([
   {
     element: <Layout />,
     errorElement: <RouteError />,
     children: [
       { index: true, lazy: async () => ({ Component: (await import('./routes/home')).HomeRoute }) },
-      { path: 'catalogue', lazy: async () => ({ Component: (await import('./routes/catalogue')).CatalogueRoute }), errorElement: <RouteError /> },
-      { path: 'parts/:partNumber', lazy: async () => ({ Component: (await import('./routes/part')).PartRoute }), errorElement: <RouteError /> },
-      { path: 'fitment', lazy: async () => ({ Component: (await import('./routes/fitment')).FitmentRoute }), errorElement: <RouteError /> },
+      page('catalogue', () => import('./routes/catalogue'), 'CatalogueRoute'),
+      page('parts/:partNumber', () => import('./routes/part'), 'PartRoute'),
+      page('fitment', () => import('./routes/fitment'), 'FitmentRoute'),
+      page('fitment/saved', () => import('./routes/saved-fitments'), 'SavedFitmentsRoute'),
+      page('sign-in', () => import('./routes/sign-in'), 'SignInRoute'),
+      page('sign-up', () => import('./routes/sign-up'), 'SignUpRoute'),
+      page('forgot-password', () => import('./routes/forgot-password'), 'ForgotPasswordRoute'),
+      page('reset-password', () => import('./routes/reset-password'), 'ResetPasswordRoute'),
+      page('account', () => import('./routes/account'), 'AccountRoute'),
+      page('account/trade-application', () => import('./routes/dealer-apply'), 'DealerApplyRoute'),
+      page('cart', () => import('./routes/cart'), 'CartRoute'),
+      page('checkout', () => import('./routes/checkout'), 'CheckoutRoute'),
+      page('orders', () => import('./routes/orders'), 'OrdersRoute'),
+      page('orders/:number', () => import('./routes/order'), 'OrderRoute'),
+      page('orders/:number/invoice', () => import('./routes/order-invoice'), 'OrderInvoiceRoute'),
+      page('trade/quick-order', () => import('./routes/quick-order'), 'QuickOrderRoute'),
+      page('trade/stock-list', () => import('./routes/stock-list-upload'), 'StockListUploadRoute'),
+      page('office/dealers', () => import('./routes/office-dealers'), 'OfficeDealersRoute'),
+      page('dev/inbox', () => import('./routes/dev-inbox'), 'DevInboxRoute'),
       { path: '*', lazy: async () => ({ Component: (await import('./routes/not-found')).NotFoundRoute }) },
     ],
   },

@@ -1,0 +1,3 @@
+export function DevInboxRoute() {
+  return <h1 className="text-2xl font-bold">Development inbox</h1>;
+}

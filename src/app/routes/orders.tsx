@@ -1,0 +1,3 @@
+export function OrdersRoute() {
+  return <h1 className="text-2xl font-bold">Your orders</h1>;
+}

@@ -1,0 +1,3 @@
+export function ResetPasswordRoute() {
+  return <h1 className="text-2xl font-bold">Choose a new password</h1>;
+}

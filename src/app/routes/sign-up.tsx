@@ -1,0 +1,3 @@
+export function SignUpRoute() {
+  return <h1 className="text-2xl font-bold">Create an account</h1>;
+}
