@@ -2,7 +2,17 @@ import { test as base, expect } from '@playwright/test';
 import { expectNoSeriousA11yViolations, type AxeOptions } from './support/axe';
 
 /** The people who use the storefront (see PRODUCT.md). */
-export type Role = 'retail' | 'dealer' | 'warehouse' | 'admin';
+export type Role = 'retail' | 'dealer' | 'dealer2' | 'warehouse' | 'admin';
+
+/** The seeded demo accounts (catalog-seed/accounts.ts). */
+export const DEMO_PASSWORD = 'spoolyard-demo-1';
+export const DEMO_EMAILS: Record<Role, string> = {
+  retail: 'retail@spoolyard.test',
+  dealer: 'dealer@spoolyard.test',
+  dealer2: 'dealer2@spoolyard.test',
+  warehouse: 'warehouse@spoolyard.test',
+  admin: 'admin@spoolyard.test',
+};
 
 interface Fixtures {
   /** Signs the page in as a user with this role. */
@@ -13,10 +23,14 @@ interface Fixtures {
 
 // The fixture callback is named `provide`, not Playwright's usual `use`, so the React hooks lint rule leaves it alone.
 export const test = base.extend<Fixtures>({
-  login: async ({ page: _page }, provide) => {
+  login: async ({ page, baseURL }, provide) => {
     await provide(async (role) => {
-      // Accounts arrive with authentication; until then a journey that needs one fails loudly.
-      throw new Error(`login(${role}): not yet — there is no sign-in until authentication exists`);
+      // Signs in through the API; the session cookie lands in the page's browser context.
+      const res = await page.request.post('/api/auth/sign-in/email', {
+        data: { email: DEMO_EMAILS[role], password: DEMO_PASSWORD },
+        headers: { origin: new URL(baseURL ?? 'http://127.0.0.1:3100').origin },
+      });
+      expect(res.ok(), `sign-in as ${role}`).toBe(true);
     });
   },
   axe: async ({ page }, provide) => {

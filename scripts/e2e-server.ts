@@ -4,9 +4,9 @@ import path from 'node:path';
 
 // The server the browser tests run against: a fresh database seeded with the demo catalogue on every run.
 const root = path.resolve(import.meta.dirname, '..');
-const dbDir = path.join(root, '.tmp', 'e2e');
-const dbFile = path.join(dbDir, 'spoolyard-e2e.db');
 const port = process.env.E2E_PORT ?? '3100';
+const dbDir = path.join(root, '.tmp', `e2e-${port}`);
+const dbFile = path.join(dbDir, 'spoolyard-e2e.db');
 const tsx = path.join(root, 'node_modules', '.bin', 'tsx');
 const vite = path.join(root, 'node_modules', '.bin', 'vite');
 
@@ -19,10 +19,24 @@ if (!fs.existsSync(path.join(root, 'dist', 'client', 'index.html'))) {
   if (build.status !== 0) process.exit(build.status ?? 1);
 }
 
-const child = spawn(tsx, ['server/index.ts'], {
+// The fakes get ports of their own, derived from the app's, so several runs can share the machine.
+const offset = Number(port) + 10_000;
+const child = spawn(tsx, ['scripts/start.ts'], {
   cwd: root,
   stdio: 'inherit',
-  env: { ...process.env, DATABASE_FILE: dbFile, PORT: port, HOST: '127.0.0.1', NODE_ENV: 'test', SEED_DEMO: 'true' },
+  env: {
+    ...process.env,
+    DATABASE_FILE: dbFile,
+    PORT: port,
+    HOST: '127.0.0.1',
+    PUBLIC_URL: `http://127.0.0.1:${port}`,
+    NODE_ENV: 'test',
+    SEED_DEMO: 'true',
+    SIGNIN_LIMIT_PER_MINUTE: '200',
+    PAYMENTS_API_PORT: String(offset + 11),
+    MAIL_PORT: String(offset + 25),
+    MAIL_INBOX_URL: `http://127.0.0.1:${offset + 80}`,
+  },
 });
 
 for (const signal of ['SIGINT', 'SIGTERM'] as const) {

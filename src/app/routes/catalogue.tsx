@@ -199,7 +199,7 @@ export function CatalogueRoute() {
         ) : (
           data && (
             <>
-              <ul className="mt-2">
+              <ul className="mt-2" aria-label="Parts found">
                 {data.items.map((p) => (
                   <PartListItem key={p.partNumber} part={p} />
                 ))}
