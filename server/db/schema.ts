@@ -308,6 +308,7 @@ export const orderLines = sqliteTable(
     /** Of the quantity, how many wait for stock. */
     quantityBackordered: integer('quantity_backordered').notNull().default(0),
     quantityPicked: integer('quantity_picked').notNull().default(0),
+    quantityDispatched: integer('quantity_dispatched').notNull().default(0),
     unitPriceCents: integer('unit_price_cents').notNull(),
     retailUnitPriceCents: integer('retail_unit_price_cents').notNull(),
     coreDepositCents: integer('core_deposit_cents').notNull().default(0),
@@ -354,3 +355,72 @@ export const stockMovements = sqliteTable(
   },
   (t) => [index('stock_movements_part_idx').on(t.partId, t.binCode), index('stock_movements_order_idx').on(t.orderId)],
 );
+
+/** Each dispatch of an order: a back-order that arrives later leaves in a shipment of its own. */
+export const shipments = sqliteTable(
+  'shipments',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    orderId: integer('order_id').notNull().references(() => orders.id),
+    carrier: text('carrier').notNull(),
+    trackingNumber: text('tracking_number').notNull(),
+    cartons: integer('cartons').notNull(),
+    weightGrams: integer('weight_grams').notNull(),
+    units: integer('units').notNull(),
+    createdAt: createdAt(),
+  },
+  (t) => [index('shipments_order_idx').on(t.orderId)],
+);
+
+export const returns = sqliteTable(
+  'returns',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    reference: text('reference').notNull().unique(),
+    orderId: integer('order_id').notNull().references(() => orders.id),
+    orderLineId: integer('order_line_id').notNull().references(() => orderLines.id),
+    userId: text('user_id').notNull().references(() => user.id),
+    kind: text('kind', { enum: ['wrong-part', 'faulty', 'core'] }).notNull(),
+    quantity: integer('quantity').notNull(),
+    reason: text('reason').notNull(),
+    status: text('status', { enum: ['requested', 'refunded', 'credited', 'rejected'] }).notNull().default('requested'),
+    conditionGrade: text('condition_grade'),
+    decision: text('decision'),
+    refundCents: integer('refund_cents').notNull().default(0),
+    rejectReason: text('reject_reason'),
+    paymentRefundId: text('payment_refund_id'),
+    createdAt: createdAt(),
+    decidedAt: text('decided_at'),
+  },
+  (t) => [index('returns_order_idx').on(t.orderId), index('returns_status_idx').on(t.status)],
+);
+
+export const returnPhotos = sqliteTable('return_photos', {
+  id: integer('id').primaryKey({ autoIncrement: true }),
+  returnId: integer('return_id').notNull().references(() => returns.id, { onDelete: 'cascade' }),
+  /** Made by the server; the uploaded name is never used on disk. */
+  storedName: text('stored_name').notNull().unique(),
+  mimeType: text('mime_type').notNull(),
+  bytes: integer('bytes').notNull(),
+  createdAt: createdAt(),
+});
+
+export const creditNotes = sqliteTable('credit_notes', {
+  id: integer('id').primaryKey({ autoIncrement: true }),
+  number: text('number').notNull().unique(),
+  dealerAccountId: integer('dealer_account_id').notNull().references(() => dealerAccounts.id),
+  orderId: integer('order_id').notNull().references(() => orders.id),
+  returnId: integer('return_id').notNull().unique().references(() => returns.id),
+  amountCents: integer('amount_cents').notNull(),
+  createdAt: createdAt(),
+});
+
+export const priceImports = sqliteTable('price_imports', {
+  id: integer('id').primaryKey({ autoIncrement: true }),
+  userId: text('user_id').notNull().references(() => user.id),
+  fileName: text('file_name').notNull(),
+  status: text('status', { enum: ['preview', 'applied'] }).notNull().default('preview'),
+  rows: text('rows', { mode: 'json' }).$type<unknown[]>().notNull(),
+  createdAt: createdAt(),
+  appliedAt: text('applied_at'),
+});

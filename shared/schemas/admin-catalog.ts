@@ -1,0 +1,86 @@
+import { z } from 'zod';
+import { BEARINGS, CATEGORY_SLUGS } from '../catalog';
+
+export const PART_PHOTO_MAX_BYTES = 3_000_000;
+export const PRICE_IMPORT_MAX_BYTES = 5_000_000;
+export const PRICE_IMPORT_MAX_ROWS = 60_000;
+
+const optionalNumber = (label: string, min: number, max: number) =>
+  z.number({ error: `${label} must be a number` }).min(min, `${label} must be at least ${min}`).max(max, `${label} must be at most ${max}`).nullable().optional();
+const optionalText = (max = 80) => z.string().trim().max(max).nullable().optional();
+
+export const PartSpecsFormSchema = z.object({
+  compressorAr: optionalNumber('compressor A/R', 0.2, 2),
+  turbineAr: optionalNumber('turbine A/R', 0.2, 2.5),
+  trimPct: optionalNumber('trim', 20, 80),
+  inducerMm: optionalNumber('inducer', 10, 200),
+  exducerMm: optionalNumber('exducer', 10, 250),
+  flangePattern: optionalText(),
+  inletMm: optionalNumber('inlet', 5, 300),
+  outletMm: optionalNumber('outlet', 5, 300),
+  material: optionalText(),
+  bearing: z.enum(BEARINGS).nullable().optional(),
+  wastegate: optionalText(),
+  cooling: optionalText(),
+  gaugeType: optionalText(),
+  rangeText: optionalText(),
+  mounting: optionalText(),
+  connection: optionalText(),
+});
+
+export const PartFormSchema = z
+  .object({
+    partNumber: z
+      .string()
+      .trim()
+      .toUpperCase()
+      .regex(/^[A-Z0-9][A-Z0-9-]{3,30}$/, 'part number uses letters, digits and dashes, 4–31 characters'),
+    title: z.string().trim().min(5, 'title is too short').max(140, 'title is too long'),
+    category: z.enum(CATEGORY_SLUGS, { error: 'choose a category' }),
+    frameCode: z.string().trim().regex(/^[A-Z]{2}\d{2,3}$/, 'frame code such as VC42').nullable(),
+    condition: z.enum(['new', 'exchange']),
+    status: z.enum(['active', 'discontinued']),
+    priceCents: z.number().int('price must be whole cents').min(1, 'price must be above 0').max(100_000_000),
+    coreDepositCents: z.number().int().min(0).max(10_000_000),
+    weightGrams: z.number().int('weight must be whole grams').min(1, 'weight must be above 0').max(200_000, 'weight must be at most 200 kg'),
+    minStock: z.number().int().min(0).max(10_000),
+    description: z.string().trim().max(2000),
+    specs: PartSpecsFormSchema,
+  })
+  .refine((p) => p.condition === 'exchange' || p.coreDepositCents === 0, { message: 'only exchange units carry a core deposit', path: ['coreDepositCents'] })
+  .refine((p) => p.condition === 'new' || p.coreDepositCents > 0, { message: 'an exchange unit needs a core deposit', path: ['coreDepositCents'] })
+  .refine((p) => !(p.specs.inducerMm && p.specs.exducerMm) || p.specs.inducerMm < p.specs.exducerMm, {
+    message: 'the inducer is smaller than the exducer',
+    path: ['specs', 'inducerMm'],
+  });
+export type PartForm = z.infer<typeof PartFormSchema>;
+
+export const SupersedeSchema = z.object({ replacedBy: z.string().trim().min(2, 'enter the part number that replaces it').max(40) });
+export const PartLinksSchema = z.object({ partNumbers: z.array(z.string().trim().min(2).max(40)).max(30, 'at most 30 parts go with one part') });
+
+export const PriceImportRowSchema = z.object({
+  row: z.number().int(),
+  partNumber: z.string(),
+  status: z.enum(['new', 'changed', 'unchanged', 'error']),
+  oldPriceCents: z.number().int().nullable(),
+  newPriceCents: z.number().int().nullable(),
+  title: z.string().nullable(),
+  message: z.string().nullable(),
+  input: z.record(z.string(), z.string()),
+});
+export type PriceImportRow = z.infer<typeof PriceImportRowSchema>;
+
+export const PriceImportSchema = z.object({
+  id: z.number().int(),
+  fileName: z.string(),
+  status: z.enum(['preview', 'applied']),
+  counts: z.object({ new: z.number().int(), changed: z.number().int(), unchanged: z.number().int(), error: z.number().int() }),
+  rows: z.array(PriceImportRowSchema),
+  totalRows: z.number().int(),
+  createdAt: z.string(),
+  appliedAt: z.string().nullable(),
+});
+export type PriceImport = z.infer<typeof PriceImportSchema>;
+
+/** A corrected row: the same columns as the file. */
+export const PriceImportFixSchema = z.object({ input: z.record(z.string(), z.string().max(200)) });

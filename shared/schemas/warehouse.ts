@@ -1,0 +1,152 @@
+import { z } from 'zod';
+import { ORDER_STATUS_KEYS } from './orders';
+
+export const CARRIERS = ['Ridgeway Freight', 'Tern Parcel', 'Hollis Overnight', 'Customer collect'] as const;
+
+const partNumber = z.string().trim().min(2, 'scan or type a part number').max(40, 'part number is too long');
+const binCode = z.string().trim().regex(/^[A-Z]-\d{2}-\d$/, 'bin code looks like A-01-2');
+
+export const PickSchema = z.object({
+  lineId: z.number({ error: 'choose a line' }).int().positive(),
+  scannedPartNumber: partNumber,
+  quantity: z.number({ error: 'quantity must be a number' }).int('quantity must be a whole number').min(0).max(999),
+  /** The bin is short: what is not picked now becomes a back-order. */
+  short: z.boolean().optional(),
+});
+export type Pick = z.infer<typeof PickSchema>;
+
+export const PackSchema = z.object({
+  cartons: z.number({ error: 'enter the number of cartons' }).int('cartons must be a whole number').min(1, 'at least one carton').max(50, 'at most 50 cartons'),
+  weightKg: z.number({ error: 'enter the packed weight' }).positive('weight must be above 0').max(2000, 'weight must be at most 2000 kg'),
+});
+
+export const DispatchSchema = PackSchema.partial().extend({
+  carrier: z.enum(CARRIERS, { error: 'choose a carrier' }),
+  trackingNumber: z
+    .string()
+    .trim()
+    .min(4, 'enter the tracking number')
+    .max(40, 'tracking number is too long')
+    .regex(/^[A-Za-z0-9-]+$/, 'tracking number may use letters, digits and dashes'),
+});
+export type Dispatch = z.infer<typeof DispatchSchema>;
+
+export const GoodsInSchema = z.object({
+  partNumber,
+  binCode,
+  quantity: z.number().int('quantity must be a whole number').min(1, 'at least 1').max(10_000),
+  note: z.string().trim().max(120).optional(),
+});
+
+export const AdjustmentSchema = z.object({
+  partNumber,
+  binCode,
+  delta: z.number().int('change must be a whole number').min(-10_000).max(10_000).refine((d) => d !== 0, 'the change cannot be 0'),
+  reason: z.string().trim().min(3, 'give a reason').max(120),
+});
+
+export const PickLineSchema = z.object({
+  lineId: z.number().int(),
+  orderNumber: z.string(),
+  partNumber: z.string(),
+  title: z.string(),
+  binCode: z.string().nullable(),
+  walkOrder: z.number().int().nullable(),
+  quantity: z.number().int(),
+  toPick: z.number().int(),
+  picked: z.number().int(),
+  backordered: z.number().int(),
+  fitmentSummary: z.string().nullable(),
+});
+export type PickLine = z.infer<typeof PickLineSchema>;
+
+export const PickQueueItemSchema = z.object({
+  number: z.string(),
+  status: z.enum(ORDER_STATUS_KEYS),
+  paymentMethod: z.enum(['card', 'account']),
+  customer: z.string(),
+  createdAt: z.string(),
+  lines: z.number().int(),
+  unitsToPick: z.number().int(),
+  ready: z.enum(['pick', 'pack', 'dispatch']),
+  releasedBackorder: z.boolean(),
+  weightGrams: z.number().int(),
+});
+export const PickQueueSchema = z.object({ items: z.array(PickQueueItemSchema) });
+
+export const PickListSchema = z.object({
+  orders: z.array(z.object({ number: z.string(), status: z.enum(ORDER_STATUS_KEYS), customer: z.string(), deliveryZone: z.string() })),
+  lines: z.array(PickLineSchema),
+});
+export type PickList = z.infer<typeof PickListSchema>;
+
+export const PickResultSchema = z.object({ line: PickLineSchema, orderStatus: z.enum(ORDER_STATUS_KEYS), message: z.string() });
+
+export const LowStockSchema = z.object({
+  items: z.array(z.object({ partNumber: z.string(), title: z.string(), available: z.number().int(), onHand: z.number().int(), minStock: z.number().int(), waitingBackorders: z.number().int() })),
+});
+
+export const StockDetailSchema = z.object({
+  partNumber: z.string(),
+  title: z.string(),
+  bins: z.array(z.object({ binCode: z.string(), onHand: z.number().int(), reserved: z.number().int(), ledgerOnHand: z.number().int(), ledgerReserved: z.number().int() })),
+  movements: z.array(z.object({ id: z.number().int(), binCode: z.string(), kind: z.string(), onHandDelta: z.number().int(), reservedDelta: z.number().int(), orderNumber: z.string().nullable(), note: z.string().nullable(), createdAt: z.string() })),
+});
+
+export const RETURN_KINDS = { 'wrong-part': 'Wrong part', faulty: 'Faulty', core: 'Exchange core' } as const;
+export type ReturnKind = keyof typeof RETURN_KINDS;
+export const RETURN_KIND_KEYS = Object.keys(RETURN_KINDS) as [ReturnKind, ...ReturnKind[]];
+export const CONDITION_GRADES = { 'as-new': 'As new, resaleable', rebuildable: 'Rebuildable core', damaged: 'Damaged', scrap: 'Scrap / not rebuildable' } as const;
+export type ConditionGrade = keyof typeof CONDITION_GRADES;
+export const CONDITION_GRADE_KEYS = Object.keys(CONDITION_GRADES) as [ConditionGrade, ...ConditionGrade[]];
+export const RETURN_PHOTO_MAX_BYTES = 2_000_000;
+export const RETURN_PHOTOS_MAX = 4;
+
+/** Fields of the multipart return request (photos come as files named "photos"). */
+export const ReturnRequestSchema = z.object({
+  orderNumber: z.string().trim().min(3).max(20),
+  lineId: z.coerce.number().int().positive(),
+  kind: z.enum(RETURN_KIND_KEYS, { error: 'choose why it comes back' }),
+  quantity: z.coerce.number().int('quantity must be a whole number').min(1, 'at least 1').max(999),
+  reason: z.string().trim().min(3, 'tell us what is wrong, or that it is a core').max(500, 'at most 500 characters'),
+});
+export type ReturnRequest = z.infer<typeof ReturnRequestSchema>;
+
+export const ReturnDecisionSchema = z.discriminatedUnion('decision', [
+  z.object({ decision: z.literal('core-refund'), conditionGrade: z.enum(CONDITION_GRADE_KEYS) }),
+  z.object({ decision: z.literal('full-refund'), conditionGrade: z.enum(CONDITION_GRADE_KEYS), restock: z.boolean().optional() }),
+  z.object({
+    decision: z.literal('partial-refund'),
+    conditionGrade: z.enum(CONDITION_GRADE_KEYS),
+    amountCents: z.number().int('amount must be whole cents').min(1, 'amount must be above 0'),
+  }),
+  z.object({ decision: z.literal('reject'), conditionGrade: z.enum(CONDITION_GRADE_KEYS), rejectReason: z.string().trim().min(3, 'give a reason').max(300) }),
+]);
+export type ReturnDecision = z.infer<typeof ReturnDecisionSchema>;
+
+export const ReturnViewSchema = z.object({
+  id: z.number().int(),
+  reference: z.string(),
+  orderNumber: z.string(),
+  partNumber: z.string(),
+  title: z.string(),
+  quantity: z.number().int(),
+  kind: z.enum(RETURN_KIND_KEYS),
+  reason: z.string(),
+  status: z.enum(['requested', 'refunded', 'credited', 'rejected']),
+  conditionGrade: z.enum(CONDITION_GRADE_KEYS).nullable(),
+  decision: z.string().nullable(),
+  refundCents: z.number().int(),
+  rejectReason: z.string().nullable(),
+  creditNoteNumber: z.string().nullable(),
+  paymentMethod: z.enum(['card', 'account']),
+  /** What a refund may be at most: the line's value, capped by what is left of the payment. */
+  maxRefundCents: z.number().int(),
+  coreDepositCents: z.number().int(),
+  photos: z.array(z.string()),
+  customer: z.string(),
+  createdAt: z.string(),
+  decidedAt: z.string().nullable(),
+});
+export type ReturnView = z.infer<typeof ReturnViewSchema>;
+export const ReturnsSchema = z.object({ items: z.array(ReturnViewSchema) });

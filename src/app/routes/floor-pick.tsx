@@ -1,0 +1,3 @@
+export function FloorPickRoute() {
+  return <h1 className="text-2xl font-bold">Pick list</h1>;
+}

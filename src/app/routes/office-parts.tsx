@@ -1,0 +1,3 @@
+export function OfficePartsRoute() {
+  return <h1 className="text-2xl font-bold">Catalogue upkeep</h1>;
+}
