@@ -27,6 +27,7 @@ const child = spawn(tsx, ['scripts/start.ts'], {
   env: {
     ...process.env,
     DATABASE_FILE: dbFile,
+    UPLOADS_DIR: path.join(dbDir, 'uploads'),
     PORT: port,
     HOST: '127.0.0.1',
     PUBLIC_URL: `http://127.0.0.1:${port}`,

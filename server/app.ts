@@ -18,6 +18,14 @@ import { framesRouter } from './routes/frames';
 import { checkoutRouter, ordersRouter } from './routes/orders';
 import { partsRouter } from './routes/parts';
 import { webhooksRouter } from './routes/webhooks';
+import { warehouseRouter } from './routes/warehouse';
+import { returnsRouter } from './routes/returns';
+import { adminCatalogRouter } from './routes/admin-catalog';
+import { createWarehouseService } from './services/warehouse';
+import { createReturnsService } from './services/returns';
+import { createCatalogAdmin } from './services/catalog-admin';
+import { storedPath } from './services/uploads';
+import { HttpError } from './middleware/errors';
 import { createAuth } from './services/auth';
 import { createCartService } from './services/cart';
 import { createCatalogService } from './services/catalog';
@@ -42,6 +50,8 @@ export interface AppConfig {
   devTools: boolean;
   demoAccounts?: Array<{ role: string; email: string; password: string }>;
   trustedOrigins?: string[];
+  /** Uploaded photos live here, outside the web root, under names the server makes. */
+  uploadsDir: string;
 }
 
 export interface AppDeps {
@@ -70,6 +80,11 @@ export function createApp(deps: AppDeps) {
   const cart = createCartService(db, search, { taxRatePct: config.taxRatePct });
   const notifications = createNotifications({ db, mailer: deps.mailer, publicUrl: config.publicUrl, track: deps.trackMail });
   const orders = createOrderService({ db, stock, cart, payments: deps.payments, notify: notifications.orders, taxRatePct: config.taxRatePct, now });
+  const returnPhotosDir = path.join(config.uploadsDir, 'returns');
+  const partPhotosDir = path.join(config.uploadsDir, 'parts');
+  const warehouse = createWarehouseService({ db, stock, notify: notifications.warehouse, search });
+  const returns = createReturnsService({ db, stock, payments: deps.payments, notify: notifications.returns, photosDir: returnPhotosDir, taxRatePct: config.taxRatePct });
+  const catalogAdmin = createCatalogAdmin({ db, refreshSearch: (ids) => search.refresh(ids), rebuildSearch: () => search.rebuild() });
   const auth = createAuth({
     db,
     baseURL: config.publicUrl,
@@ -108,6 +123,11 @@ export function createApp(deps: AppDeps) {
   });
 
   app.use('/api', express.json({ limit: '100kb' }), cookieParser(), loadSession(auth, db));
+  app.get('/api/parts/photos/:name', (req, res) => {
+    const file = storedPath(partPhotosDir, String(req.params.name));
+    if (!file) throw new HttpError(404, 'No such photo');
+    res.sendFile(file, { headers: { 'Cache-Control': 'public, max-age=86400', 'X-Content-Type-Options': 'nosniff' } });
+  });
   app.use('/api/parts', partsRouter(catalog));
   app.use('/api/frames', framesRouter(catalog));
   app.use(
@@ -128,6 +148,9 @@ export function createApp(deps: AppDeps) {
   app.use('/api/cart', cartRouter(cart));
   app.use('/api/checkout', checkoutRouter(orders, cart));
   app.use('/api/orders', ordersRouter(orders));
+  app.use('/api/warehouse', warehouseRouter({ db, warehouse, returns }));
+  app.use('/api/returns', returnsRouter({ returns, photosDir: returnPhotosDir }));
+  app.use('/api/admin', adminCatalogRouter({ admin: catalogAdmin, photosDir: partPhotosDir }));
   app.use('/api/admin/dealers', adminDealersRouter({ db, onDecision: (e) => notifications.dealerDecided(e.dealerAccountId, e.decision) }));
   if (config.devTools) app.use('/api/dev', devRouter({ mailInboxUrl: config.mailInboxUrl, paymentsApiUrl: config.paymentsApiUrl, orders }));
   app.use('/api', apiNotFound);
@@ -140,5 +163,5 @@ export function createApp(deps: AppDeps) {
     });
   }
   app.use(createErrorHandler(log));
-  return { app, search, catalog, stock, cart, orders, auth, notifications };
+  return { app, search, catalog, stock, cart, orders, auth, notifications, warehouse, returns, catalogAdmin };
 }

@@ -11,6 +11,8 @@ const EnvSchema = z
     /** The address buyers reach the app at; links in e-mails use it. */
     PUBLIC_URL: z.url().optional(),
     DATABASE_FILE: z.string().min(1).default('data/spoolyard.db'),
+    /** Uploaded photos, kept outside the built client so they are only served through checked routes. */
+    UPLOADS_DIR: z.string().min(1).default('data/uploads'),
     /** Seed the demo catalogue and accounts when the database is empty. */
     SEED_DEMO: bool('true'),
     AUTH_SECRET: z.string().min(32, 'must be at least 32 characters').default(DEV_AUTH_SECRET),

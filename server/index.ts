@@ -45,6 +45,7 @@ const { app, auth } = createApp({
     paymentsApiUrl: `${env.PAYMENTS_API_PROTOCOL}://${env.PAYMENTS_API_HOST}:${env.PAYMENTS_API_PORT}`,
     mailInboxUrl: env.MAIL_INBOX_URL,
     devTools,
+    uploadsDir: path.resolve(env.UPLOADS_DIR),
     demoAccounts: devTools ? demoAccountList() : undefined,
     trustedOrigins: [`http://127.0.0.1:${env.PORT}`, `http://localhost:${env.PORT}`, 'http://localhost:5173', 'http://127.0.0.1:5173'],
   },

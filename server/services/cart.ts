@@ -155,10 +155,12 @@ export function createCartService(db: Db, search: SearchService, config: { taxRa
     const rows = cart ? (stmt.lines.all(cart.id) as LineRow[]) : [];
     const zone = cart?.zone ?? 'national';
     const buyer = buyerOf(user);
+    // A dealer's freight is priced to the trade account's zone; the view reports the zone it priced with.
+    const pricedZone = user?.dealer?.deliveryZone && buyer.kind === 'dealer' ? (user.dealer.deliveryZone as DeliveryZone) : zone;
     const totals = priceOrder(
       rows.map((r) => ({ partNumber: r.partNumber, quantity: r.quantity, retailUnitCents: r.priceCents, coreDepositCents: r.coreDepositCents, weightGrams: r.weightGrams })),
       buyer,
-      user?.dealer?.deliveryZone && buyer.kind === 'dealer' ? (user.dealer.deliveryZone as DeliveryZone) : zone,
+      pricedZone,
       config.taxRatePct,
     );
     const lines = rows.map((r, i) => {
@@ -188,7 +190,7 @@ export function createCartService(db: Db, search: SearchService, config: { taxRa
       lines,
       warnings: compatibilityWarnings(rows.map((r) => ({ lineId: r.lineId, partNumber: r.partNumber, category: r.category, frameCode: r.frameCode, flangePattern: r.flangePattern }))),
       notices,
-      deliveryZone: zone,
+      deliveryZone: pricedZone,
       totals: sums,
       taxRatePct: config.taxRatePct,
       buyer: { kind: buyer.kind, tier: buyer.tier ?? null, discountPct: buyer.tier ? DEALER_TIERS[buyer.tier].discountPct : 0 },

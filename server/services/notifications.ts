@@ -9,6 +9,11 @@ import { renderDealerApplicationReceived } from './mail-templates/dealer-applica
 import { renderOrderConfirmation } from './mail-templates/order-confirmation';
 import { renderPasswordReset } from './mail-templates/password-reset';
 import { renderPaymentFailed } from './mail-templates/payment-failed';
+import { renderDispatchNotice } from './mail-templates/dispatch-notice';
+import { renderReturnDecision } from './mail-templates/return-decision';
+import { CONDITION_GRADES, type ConditionGrade } from '../../shared/schemas/warehouse';
+import type { WarehouseNotifier } from './warehouse';
+import type { ReturnsNotifier } from './returns';
 import type { MailAddress } from './mail-templates/types';
 import type { OrderNotifier } from './orders';
 
@@ -134,9 +139,90 @@ export function createNotifications(deps: { db: Db; mailer: MailerPort; publicUr
     },
   };
 
+  const warehouse: WarehouseNotifier = {
+    shortPicked(orderId, short) {
+      const found = load(orderId);
+      if (!found) return;
+      const { order } = found;
+      send('short-pick back-order notice', () => ({
+        to: order.email,
+        ...renderBackOrderNotice({
+          orderNumber: order.number,
+          customerName: order.userName,
+          cause: 'short-pick',
+          lines: short.map((l) => ({ partNumber: l.partNumber, title: l.title, orderedQuantity: l.ordered, backOrderedQuantity: l.backordered })),
+          orderUrl: url(`/orders/${order.number}`),
+        }),
+      }));
+    },
+    dispatched(orderId, shipmentId) {
+      const found = load(orderId);
+      const shipment = sqlite
+        .prepare('SELECT carrier, tracking_number AS trackingNumber, cartons, weight_grams AS grams, created_at AS at FROM shipments WHERE id = ?')
+        .get(shipmentId) as { carrier: string; trackingNumber: string; cartons: number; grams: number; at: string } | undefined;
+      if (!found || !shipment) return;
+      const { order, lines } = found;
+      send('dispatch notice', () => ({
+        to: order.email,
+        ...renderDispatchNotice({
+          orderNumber: order.number,
+          customerName: order.userName,
+          dispatchedAt: new Date(shipment.at),
+          carrier: shipment.carrier,
+          trackingNumber: shipment.trackingNumber,
+          cartons: shipment.cartons,
+          weightKg: shipment.grams / 1000,
+          lines: lines.filter((l) => l.quantity - l.backordered > 0).map((l) => ({ partNumber: l.partNumber, title: l.title, category: l.category, quantity: l.quantity - l.backordered })),
+          stillBackOrdered: lines.filter((l) => l.backordered > 0).map((l) => ({ partNumber: l.partNumber, title: l.title, quantity: l.backordered })),
+          deliveryAddress: address(order),
+          orderUrl: url(`/orders/${order.number}`),
+        }),
+      }));
+    },
+  };
+
+  const returns: ReturnsNotifier = {
+    returnDecided(returnId) {
+      const r = sqlite
+        .prepare(
+          `SELECT r.reference, r.quantity, r.status, r.decision, r.refund_cents AS refundCents, r.reject_reason AS rejectReason, r.condition_grade AS grade,
+                  o.number AS orderNumber, o.email, u.name, l.part_number AS partNumber, l.title, c.number AS creditNote
+           FROM returns r JOIN orders o ON o.id = r.order_id JOIN user u ON u.id = r.user_id JOIN order_lines l ON l.id = r.order_line_id
+           LEFT JOIN credit_notes c ON c.return_id = r.id WHERE r.id = ?`,
+        )
+        .get(returnId) as
+        | { reference: string; quantity: number; status: string; decision: string; refundCents: number; rejectReason: string | null; grade: ConditionGrade | null; orderNumber: string; email: string; name: string; partNumber: string; title: string; creditNote: string | null }
+        | undefined;
+      if (!r) return;
+      const route = r.creditNote ? ({ via: 'credit-note', creditNoteNumber: r.creditNote } as const) : ({ via: 'card' } as const);
+      const outcome =
+        r.decision === 'reject'
+          ? ({ kind: 'rejected', reason: r.rejectReason ?? '' } as const)
+          : r.decision === 'core-refund'
+            ? ({ kind: 'core-deposit-refund', amountCents: r.refundCents, route } as const)
+            : ({ kind: 'refund', amountCents: r.refundCents, partial: r.decision === 'partial-refund', route } as const);
+      send('return decision', () => ({
+        to: r.email,
+        ...renderReturnDecision({
+          customerName: r.name,
+          returnReference: r.reference,
+          orderNumber: r.orderNumber,
+          partNumber: r.partNumber,
+          title: r.title,
+          quantity: r.quantity,
+          conditionGrade: r.grade ? CONDITION_GRADES[r.grade] : undefined,
+          outcome,
+          orderUrl: url('/returns'),
+        }),
+      }));
+    },
+  };
+
   type DealerRow = { companyName: string; contactName: string; tier: DealerTier | null; creditLimitCents: number; paymentTermsDays: number; declineReason: string | null; createdAt: string; email: string };
   return {
     orders,
+    warehouse,
+    returns,
     dealerApplied(dealerAccountId: number) {
       const d = dealerRow.get(dealerAccountId) as DealerRow | undefined;
       if (!d) return;

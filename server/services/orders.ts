@@ -382,6 +382,8 @@ export function createOrderService(deps: OrderServiceDeps) {
         notices.push(`${resolved.part.partNumber} is discontinued and out of stock, so it was left out.`);
         continue;
       }
+      // The line is added under its new number, so addLines cannot see the supersession: say so here.
+      if (resolved.replacedFrom) notices.push(`${l.partNumber} is superseded: ${resolved.part.partNumber} was added instead.`);
       addable.push({ partNumber: resolved.part.partNumber, quantity: l.quantity });
     }
     const view = addable.length ? cart.addLines({ userId: user.id }, user, addable) : cart.view({ userId: user.id }, user);

@@ -1,3 +1,5 @@
+import os from 'node:os';
+import path from 'node:path';
 import Stripe from 'stripe';
 import type { AppConfig, AppDeps } from '../../server/app';
 import type { Db } from '../../server/db/client';
@@ -18,6 +20,7 @@ export function testConfig(overrides: Partial<AppConfig> = {}): AppConfig {
     paymentsApiUrl: 'http://127.0.0.1:9',
     mailInboxUrl: 'http://127.0.0.1:9',
     devTools: true,
+    uploadsDir: path.join(os.tmpdir(), `spoolyard-uploads-${process.pid}`),
     ...overrides,
   };
 }

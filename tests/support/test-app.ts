@@ -83,6 +83,7 @@ export async function startTestApp(options: StartOptions = {}): Promise<TestApp>
       publicUrl: url,
       ...(payments ? { paymentsApiUrl: payments.url } : {}),
       ...(mail ? { mailInboxUrl: mail.httpUrl } : {}),
+      uploadsDir: path.join(dir, 'uploads'),
       ...options.config,
     }),
     ...options.deps,

@@ -1,0 +1,67 @@
+import { Router } from 'express';
+import type { Db } from '../db/client';
+import { AdjustmentSchema, DispatchSchema, GoodsInSchema, PackSchema, PickSchema, ReturnDecisionSchema } from '../../shared/schemas/warehouse';
+import { HttpError, parseOr400 } from '../middleware/errors';
+import { requireRole } from '../middleware/session';
+import type { ReturnsService } from '../services/returns';
+import type { WarehouseService } from '../services/warehouse';
+
+const orderNumber = (raw: unknown) => {
+  const n = String(raw).trim().toUpperCase();
+  if (!/^SY-\d{6,8}$/.test(n)) throw new HttpError(404, `No order ${String(raw).slice(0, 20)}`);
+  return n;
+};
+
+export function warehouseRouter(deps: { db: Db; warehouse: WarehouseService; returns: ReturnsService }): Router {
+  const { warehouse, returns } = deps;
+  const router = Router();
+  router.use(requireRole('warehouse', 'admin'));
+
+  router.get('/pick-queue', (_req, res) => {
+    res.json({ items: warehouse.pickQueue() });
+  });
+  router.get('/pick-list', (req, res) => {
+    const raw = typeof req.query.orders === 'string' ? req.query.orders : '';
+    const numbers = [...new Set(raw.split(',').map((s) => s.trim()).filter(Boolean))];
+    if (numbers.length === 0 || numbers.length > 20) throw new HttpError(400, 'Give 1 to 20 order numbers', { orders: ['give 1 to 20 order numbers'] });
+    res.json(warehouse.pickList(numbers.map(orderNumber)));
+  });
+  router.get('/orders/:number/pick-list', (req, res) => {
+    res.json(warehouse.pickList([orderNumber(req.params.number)]));
+  });
+  router.post('/orders/:number/picks', (req, res) => {
+    const input = parseOr400(PickSchema, req.body);
+    res.json(warehouse.pick(orderNumber(req.params.number), input));
+  });
+  router.post('/orders/:number/pack', (req, res) => {
+    const input = parseOr400(PackSchema, req.body);
+    res.json(warehouse.pack(orderNumber(req.params.number), input.cartons, input.weightKg));
+  });
+  router.post('/orders/:number/dispatch', (req, res) => {
+    const input = parseOr400(DispatchSchema, req.body);
+    res.json(warehouse.dispatch(orderNumber(req.params.number), input));
+  });
+  router.post('/goods-in', (req, res) => {
+    res.status(201).json(warehouse.goodsIn(parseOr400(GoodsInSchema, req.body)));
+  });
+  router.post('/adjustments', (req, res) => {
+    res.status(201).json(warehouse.adjust(parseOr400(AdjustmentSchema, req.body)));
+  });
+  router.get('/low-stock', (_req, res) => {
+    res.json({ items: warehouse.lowStock() });
+  });
+  router.get('/stock/:partNumber', (req, res) => {
+    res.json(warehouse.stockDetail(String(req.params.partNumber).slice(0, 40)));
+  });
+  router.get('/bins', (_req, res) => {
+    res.json({ items: deps.db.$client.prepare('SELECT code, zone, walk_order AS walkOrder FROM bins ORDER BY walk_order').all() });
+  });
+  router.get('/returns', (req, res) => {
+    res.json({ items: returns.listAll(req.query.status === 'all' ? 'all' : 'requested') });
+  });
+  router.post('/returns/:id/receive', async (req, res) => {
+    const decision = parseOr400(ReturnDecisionSchema, req.body);
+    res.json(await returns.decide(Number(req.params.id), decision));
+  });
+  return router;
+}
