@@ -1,0 +1,43 @@
+import type { Reply, TestApp } from './test-app';
+
+/** A signed-in client of the test app: it keeps its cookies and sends the app's own Origin, like the browser. */
+export interface Client {
+  get: (p: string) => Promise<Reply>;
+  send: (method: string, p: string, body?: unknown) => Promise<Reply>;
+  upload: (p: string, form: FormData) => Promise<Reply>;
+  cookie: () => string;
+}
+
+export async function signIn(t: TestApp, email: string, password = 'spoolyard-demo-1'): Promise<Client> {
+  const jar = new Map<string, string>();
+  const keep = (res: Response) => {
+    for (const line of res.headers.getSetCookie()) {
+      const [pair] = line.split(';');
+      const [name, ...rest] = pair!.split('=');
+      jar.set(name!.trim(), rest.join('='));
+    }
+  };
+  const cookie = () => [...jar].map(([k, v]) => `${k}=${v}`).join('; ');
+  const read = async (res: Response): Promise<Reply> => {
+    keep(res);
+    const text = await res.text();
+    let body: unknown = text;
+    try {
+      body = text ? JSON.parse(text) : null;
+    } catch {
+      /* not JSON */
+    }
+    return { status: res.status, body, headers: res.headers };
+  };
+  const headers = () => ({ origin: t.url, cookie: cookie() });
+  const client: Client = {
+    get: async (p) => read(await fetch(`${t.url}${p}`, { headers: headers() })),
+    send: async (method, p, body) =>
+      read(await fetch(`${t.url}${p}`, { method, headers: { ...headers(), 'content-type': 'application/json' }, body: body === undefined ? undefined : JSON.stringify(body) })),
+    upload: async (p, form) => read(await fetch(`${t.url}${p}`, { method: 'POST', headers: headers(), body: form })),
+    cookie,
+  };
+  const res = await client.send('POST', '/api/auth/sign-in/email', { email, password });
+  if (res.status !== 200) throw new Error(`sign-in as ${email} failed: ${res.status} ${JSON.stringify(res.body)}`);
+  return client;
+}
