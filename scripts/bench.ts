@@ -2,11 +2,13 @@ import fs from 'node:fs';
 import path from 'node:path';
 import { parseArgs } from 'node:util';
 import { catalogueSection, type BenchEnv } from './bench-catalogues';
+import { checkoutSection } from './bench-checkout';
+import { fitmentSection } from './bench-fitment';
 import { printReport, runSections, writeReport, type BenchSection } from './bench-harness';
 import { httpSection } from './bench-http';
 import { searchSection } from './bench-search';
 
-// Usage: npm run bench -- [--parts 50000] [--duration 5] [--only search|throughput] [--keep]
+// Usage: npm run bench -- [--parts 50000] [--duration 5] [--only search|throughput|fitment|checkout] [--keep]
 const { values } = parseArgs({
   options: {
     parts: { type: 'string', default: '50000' },
@@ -23,8 +25,7 @@ if (!Number.isInteger(httpDurationS) || httpDurationS < 1 || httpDurationS > 30)
 const root = path.resolve(import.meta.dirname, '..');
 const env: BenchEnv = { root, workDir: path.join(root, '.tmp', 'bench'), largeParts, httpDurationS, catalogues: [] };
 
-// Later sections (fitment, checkout) are added to this list.
-const sections: Array<BenchSection<BenchEnv>> = [searchSection, httpSection].filter((s) => !values.only || s.name.toLowerCase().includes(values.only.toLowerCase()));
+const sections: Array<BenchSection<BenchEnv>> = [searchSection, httpSection, fitmentSection, checkoutSection].filter((s) => !values.only || s.name.toLowerCase().includes(values.only.toLowerCase()));
 
 const report = await runSections([catalogueSection, ...sections], env);
 printReport(report);

@@ -49,6 +49,6 @@ function stop(code: number) {
 process.on('SIGINT', () => stop(0));
 process.on('SIGTERM', () => stop(0));
 
-start('API server', bin('tsx'), ['watch', '--clear-screen=false', 'server/index.ts']);
+start('API server', bin('tsx'), ['watch', '--clear-screen=false', 'scripts/start.ts']);
 start('Vite', bin('vite'), ['--port', vitePort, '--strictPort', '--host', '127.0.0.1']);
 console.log(`\nSpoolyard dev: app http://127.0.0.1:${vitePort}/ (Vite, /api proxied) · API http://127.0.0.1:${apiPort}/api/health\nCtrl-C stops both.\n`);

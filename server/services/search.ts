@@ -21,6 +21,8 @@ interface Doc {
   title: string;
   status: string;
   supersededBy: string | null;
+  /** The frame's size figure (VF60 → "60"), which is how people name a frame in words. */
+  frameSize: string;
   aliases: Array<{ alias: string; normalized: string; kind: 'cross-reference' | 'superseded' }>;
 }
 
@@ -31,7 +33,8 @@ interface Candidate {
   ftsRank: number;
 }
 
-const WORD_LIMIT = 200;
+const WORD_LIMIT = 300;
+const RANKED = 100;
 const NEAR_LIMIT = 40;
 const PREFIX_LIMIT = 60;
 
@@ -79,7 +82,6 @@ export function createSearchService(db: Db) {
   const sqlite = db.$client;
   const docs = new Map<number, Doc>();
   let vocabulary = new Set<string>();
-  let vocabularyFuse = new Fuse<string>([], { threshold: 0.34, ignoreLocation: true, includeScore: true });
 
   const stmt = {
     exact: sqlite.prepare('SELECT id FROM parts WHERE normalized_number = ?'),
@@ -95,7 +97,7 @@ export function createSearchService(db: Db) {
   function loadDocs(ids?: number[]) {
     const where = ids ? `WHERE p.id IN (${ids.map(() => '?').join(',')})` : '';
     const rows = sqlite
-      .prepare(`SELECT p.id, p.part_number AS partNumber, p.normalized_number AS normalizedNumber, p.title, p.status, p.superseded_by AS supersededBy FROM parts p ${where}`)
+      .prepare(`SELECT p.id, p.part_number AS partNumber, p.normalized_number AS normalizedNumber, p.title, p.status, p.superseded_by AS supersededBy, COALESCE(substr(p.frame_code, 3), '') AS frameSize FROM parts p ${where}`)
       .all(...(ids ?? [])) as Array<Omit<Doc, 'aliases'>>;
     const aliasRows = sqlite
       .prepare(`SELECT a.part_id AS id, a.alias, a.normalized_alias AS normalized, a.kind FROM part_aliases a ${ids ? `WHERE a.part_id IN (${ids.map(() => '?').join(',')})` : ''}`)
@@ -158,7 +160,6 @@ export function createSearchService(db: Db) {
     sqlite.exec("CREATE VIRTUAL TABLE IF NOT EXISTS temp.parts_fts_vocab USING fts5vocab('main', 'parts_fts', 'row')");
     const terms = (sqlite.prepare("SELECT term FROM temp.parts_fts_vocab WHERE length(term) >= 3 AND term GLOB '*[a-z]*'").all() as Array<{ term: string }>).map((r) => r.term);
     vocabulary = new Set(terms);
-    vocabularyFuse = new Fuse(terms, { threshold: 0.34, ignoreLocation: true, includeScore: true, minMatchCharLength: 3 });
   }
 
   /** Rebuilds the whole index: at start and after bulk changes. */
@@ -179,7 +180,11 @@ export function createSearchService(db: Db) {
 
   function correctWord(w: string): string | null {
     if (vocabulary.has(w) || w.length < 4 || /\d/.test(w)) return null;
-    const best = vocabularyFuse.search(w, { limit: 1 })[0];
+    // fuse.js scores the few terms of a similar length that share a first or second letter; a typo rarely
+    // changes both, and scoring the whole vocabulary for every word costs milliseconds.
+    const near = [...vocabulary].filter((t) => Math.abs(t.length - w.length) <= 2 && (t[0] === w[0] || t[1] === w[1]));
+    if (near.length === 0) return null;
+    const best = new Fuse(near, { threshold: 0.34, ignoreLocation: true, includeScore: true, minMatchCharLength: 3 }).search(w, { limit: 1 })[0];
     return best && best.item !== w ? best.item : null;
   }
 
@@ -219,9 +224,11 @@ export function createSearchService(db: Db) {
     }
     const hasDigits = /\d/.test(n);
     const oneToken = !/\s/.test(q);
+    // A number typed in pieces ("vc c60 2003") is still a number; a phrase with words is not.
+    const numberLike = hasDigits && (oneToken || q.split(/\s+/).every((w) => /\d/.test(w) || w.length <= 3));
     const exactHit = [...candidates.values()].some((c) => c.tier <= 1);
     // A number typed exactly needs no near misses or word search; that keeps the common case cheap.
-    if (hasDigits && n.length >= 5 && n.length <= 24 && !exactHit) {
+    if (numberLike && n.length >= 5 && n.length <= 24 && !exactHit) {
       // One edit away: a digit swapped with its neighbour, dropped, doubled or mistyped; found by index lookups.
       const variants = JSON.stringify(oneEditVariants(n));
       for (const r of stmt.oneEdit.all(variants) as Array<{ id: number }>) {
@@ -243,15 +250,16 @@ export function createSearchService(db: Db) {
     }
 
     const ws = words(q);
-    if (ws.length > 0 && !(oneToken && hasDigits && candidates.size > 0)) {
-      const all = ws.map(ftsTerm).join(' AND ');
-      const found = stmt.words.all(all) as Array<{ id: number; rank: number }>;
+    if (ws.length > 0 && !(numberLike && candidates.size > 0)) {
+      // Whole words known to the catalogue match exactly (cheap); the last word may be a prefix, as it may still
+      // be being typed. Unknown words are corrected against the catalogue's vocabulary.
+      const term = (w: string, last: boolean) => (last && !vocabulary.has(w) && !/\d/.test(w) ? ftsTerm(w) : `"${w.replace(/"/g, '')}"`);
+      const found = stmt.words.all(ws.map((w, i) => term(w, i === ws.length - 1)).join(' AND ')) as Array<{ id: number; rank: number }>;
       for (const r of found) note(r.id, 2, { kind: 'words', text: `Matches “${ws.join(' ')}”` }, r.rank);
       if (found.length === 0) {
-        // Forgive typos in words: correct each unknown word against the catalogue's vocabulary.
         const corrected = ws.map((w) => correctWord(w) ?? w);
         const changed = corrected.some((w, i) => w !== ws[i]);
-        const terms = corrected.map(ftsTerm);
+        const terms = corrected.map((w, i) => term(w, i === corrected.length - 1));
         const tryAnd = changed ? (stmt.words.all(terms.join(' AND ')) as Array<{ id: number; rank: number }>) : [];
         const rows = tryAnd.length > 0 || terms.length === 1 ? tryAnd : (stmt.words.all(terms.join(' OR ')) as Array<{ id: number; rank: number }>);
         const text = changed ? `Matches “${corrected.join(' ')}” (did you mean?)` : `Matches some of “${ws.join(' ')}”`;
@@ -259,27 +267,33 @@ export function createSearchService(db: Db) {
       }
     }
 
-    const list = [...candidates.values()];
+    const list = [...candidates.values()].sort((a, b) => a.tier - b.tier);
     if (list.length === 0) return [];
-    // fuse.js orders the candidates within a tier by how closely the number or title matches what was typed.
-    const fuse = new Fuse(list, {
-      includeScore: true,
-      ignoreLocation: true,
-      threshold: 1,
-      keys: [
-        { name: 'number', weight: 3, getFn: (c) => c.doc.normalizedNumber },
-        { name: 'aliases', weight: 2, getFn: (c) => c.doc.aliases.map((a) => a.normalized) },
-        { name: 'title', weight: 1, getFn: (c) => c.doc.title },
-      ],
-    });
-    const fuseQuery = hasDigits && !/\s/.test(q.trim()) ? n : q.slice(0, 32);
+    // Ranking is for the top of the list; past RANKED candidates, order by tier and number is as good as any.
+    const ranked = list.slice(0, RANKED);
+    // fuse.js orders the candidates within a tier: a number against numbers, words word by word against titles
+    // (its token search, which keeps a long query cheap and still forgives a typo in each word).
+    const numberQuery = hasDigits && oneToken;
+    const fuse = numberQuery
+      ? new Fuse(ranked, {
+          includeScore: true,
+          ignoreLocation: true,
+          threshold: 1,
+          keys: [
+            { name: 'number', weight: 3, getFn: (c) => c.doc.normalizedNumber },
+            { name: 'aliases', weight: 2, getFn: (c) => c.doc.aliases.map((a) => a.normalized) },
+          ],
+        })
+      : new Fuse(ranked, { includeScore: true, ignoreLocation: true, threshold: 0.6, useTokenSearch: true, keys: [{ name: 'title', getFn: (c) => c.doc.title }] });
     const score = new Map<number, number>();
-    for (const r of fuse.search(fuseQuery)) score.set(r.item.doc.id, r.score ?? 1);
+    // People name a frame by its size ("cartridge 60"): a word equal to the frame's size figure counts for more.
+    const sizes = new Set(ws);
+    for (const r of fuse.search(numberQuery ? n : q.slice(0, 100))) score.set(r.item.doc.id, (r.score ?? 1) - (!numberQuery && sizes.has(r.item.doc.frameSize) ? 0.2 : 0));
     const statusPenalty = (d: Doc) => (d.status === 'active' ? 0 : 0.05);
     list.sort((a, b) => {
       if (a.tier !== b.tier) return a.tier - b.tier;
-      const sa = (score.get(a.doc.id) ?? 1) + statusPenalty(a.doc) + a.ftsRank * 0.01;
-      const sb = (score.get(b.doc.id) ?? 1) + statusPenalty(b.doc) + b.ftsRank * 0.01;
+      const sa = (score.get(a.doc.id) ?? 1) + statusPenalty(a.doc);
+      const sb = (score.get(b.doc.id) ?? 1) + statusPenalty(b.doc);
       return sa - sb || a.doc.partNumber.localeCompare(b.doc.partNumber);
     });
     return list.slice(0, limit).map((c) => ({ partId: c.doc.id, reasons: c.reasons }));

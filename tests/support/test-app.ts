@@ -118,6 +118,7 @@ export async function startTestApp(options: StartOptions = {}): Promise<TestApp>
     send: async (method, p, body, headers = {}) =>
       read(await fetch(`${url}${p}`, { method, headers: { 'content-type': 'application/json', ...headers }, body: body === undefined ? undefined : JSON.stringify(body) })),
     close: async () => {
+      await Promise.all(pending);
       listening.closeAllConnections();
       await new Promise<void>((resolve) => listening.close(() => resolve()));
       await payments?.close();

@@ -1,0 +1,61 @@
+import { performance } from 'node:perf_hooks';
+import { openDatabase } from '../server/db/client';
+import { createFitmentService } from '../server/services/fitment';
+import { APPLICATIONS, FUELS, FitmentRequestSchema, type FitmentRequest } from '../shared/schemas/fitment';
+import type { BenchEnv } from './bench-catalogues';
+import { section, summarize } from './bench-harness';
+
+const FITMENT_P95_TARGET_MS = 5;
+const ROUNDS = 20;
+
+/** A spread of engines from a small single to a large race V8, on every fuel and use. */
+function requests(): FitmentRequest[] {
+  const engines = [
+    { displacementL: 0.5, powerHp: 100, rpm: 9000 },
+    { displacementL: 1.6, powerHp: 220, rpm: 6500 },
+    { displacementL: 2.0, powerHp: 300, rpm: 6500 },
+    { displacementL: 3.0, powerHp: 550, rpm: 7000 },
+    { displacementL: 5.0, powerHp: 900, rpm: 6800 },
+    { displacementL: 8.0, powerHp: 2000, rpm: 7500 },
+  ];
+  return engines.flatMap((engine, i) =>
+    APPLICATIONS.map((application, j) =>
+      FitmentRequestSchema.parse({
+        ...engine,
+        application,
+        fuel: FUELS[(i + j) % FUELS.length],
+        rpm: FUELS[(i + j) % FUELS.length] === 'diesel' ? Math.min(engine.rpm, 4500) : engine.rpm,
+        altitudeM: (i * 400) % 2000,
+        intercooled: j % 2 === 0,
+      }),
+    ),
+  );
+}
+
+/** runFitmentCheck against every frame of the demo catalogue, read from its database as the server reads them. */
+export const fitmentSection = section<BenchEnv>(`Fitment check (all frames, ${ROUNDS} rounds)`, (ctx, env) => {
+  const demo = env.catalogues[0];
+  if (!demo) throw new Error('the catalogue section did not build the demo catalogue');
+  const db = openDatabase(demo.file);
+  try {
+    const fitment = createFitmentService(db);
+    const frames = fitment.frameMaps().length;
+    const inputs = requests();
+    for (const input of inputs) fitment.check(input);
+    const samples: number[] = [];
+    for (let round = 0; round < ROUNDS; round++) {
+      for (const input of inputs) {
+        const t = performance.now();
+        fitment.check(input);
+        samples.push(performance.now() - t);
+      }
+    }
+    const s = summarize(samples);
+    ctx.log(`${inputs.length} engines × ${ROUNDS} rounds against ${frames} frames`);
+    ctx.record(`runFitmentCheck() p50, ${frames} frames`, s.p50, 'ms');
+    ctx.record(`runFitmentCheck() p95, ${frames} frames`, s.p95, 'ms', { target: { op: '<=', value: FITMENT_P95_TARGET_MS }, detail: `${s.n} checks` });
+    ctx.record(`runFitmentCheck() max, ${frames} frames`, s.max, 'ms');
+  } finally {
+    db.$client.close();
+  }
+});
