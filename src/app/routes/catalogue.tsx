@@ -1,5 +1,5 @@
 import { X } from 'lucide-react';
-import { useMemo } from 'react';
+import { useMemo, useState } from 'react';
 import { Link, useSearchParams } from 'react-router-dom';
 import { categoryLabel } from '../../../shared/catalog';
 import { PartsQuerySchema, PART_SORTS, type PartsListResponse, type PartsQuery } from '../../../shared/schemas/parts';
@@ -80,6 +80,7 @@ function FacetGroup({ title, name, options, selected, onSelect }: {
 
 export function CatalogueRoute() {
   const [query, , update] = useCatalogueQuery();
+  const [filtersOpen, setFiltersOpen] = useState(false);
   const parts = useParts(query);
   const data = parts.data;
   const page = query.page ?? 1;
@@ -97,9 +98,20 @@ export function CatalogueRoute() {
   return (
     <div className="grid gap-6 lg:grid-cols-[16rem_1fr]">
       <aside aria-label="Filters" className="grid content-start gap-3 lg:sticky lg:top-4">
-        <h2 className="text-lg font-bold">Filter</h2>
+        <div className="flex items-center justify-between">
+          <h2 className="text-lg font-bold">Filter</h2>
+          <button
+            type="button"
+            aria-expanded={filtersOpen}
+            aria-controls="catalogue-filters"
+            onClick={() => setFiltersOpen((o) => !o)}
+            className="min-h-10 rounded border border-cast-line bg-white px-3 font-semibold lg:hidden"
+          >
+            {filtersOpen ? 'Hide filters' : `Show filters${chips.length ? ` (${chips.length} on)` : ''}`}
+          </button>
+        </div>
         {data && (
-          <>
+          <div id="catalogue-filters" className={`${filtersOpen ? 'grid' : 'hidden'} gap-3 lg:grid`}>
             <FacetGroup title="Category" name="category" options={data.facets.category} selected={query.category} onSelect={(v) => update({ category: v })} />
             <FacetGroup title="Frame" name="frame" options={data.facets.frame} selected={query.frame} onSelect={(v) => update({ frame: v })} />
             <FacetGroup title="Bearing" name="bearing" options={data.facets.bearing} selected={query.bearing} onSelect={(v) => update({ bearing: v })} />
@@ -137,7 +149,7 @@ export function CatalogueRoute() {
                 ))}
               </div>
             </fieldset>
-          </>
+          </div>
         )}
       </aside>
 
