@@ -12,6 +12,8 @@ export interface DealerInfo {
   creditLimitCents: number;
   paymentTermsDays: number;
   deliveryZone: string;
+  declineReason: string | null;
+  address: { line1: string; city: string; postcode: string };
 }
 
 export interface CurrentUser {
@@ -26,7 +28,8 @@ export interface CurrentUser {
 export function loadSession(auth: Auth, db: Db): RequestHandler {
   const dealerOf = db.$client.prepare(
     `SELECT d.id, d.company_name AS companyName, d.status, d.tier, d.credit_limit_cents AS creditLimitCents,
-            d.payment_terms_days AS paymentTermsDays, d.delivery_zone AS deliveryZone
+            d.payment_terms_days AS paymentTermsDays, d.delivery_zone AS deliveryZone, d.decline_reason AS declineReason,
+            d.address_line1 AS line1, d.city, d.postcode
      FROM dealer_members m JOIN dealer_accounts d ON d.id = m.dealer_account_id WHERE m.user_id = ?`,
   );
   return async (req, res, next) => {
@@ -41,7 +44,7 @@ export function loadSession(auth: Auth, db: Db): RequestHandler {
           email: result.user.email,
           name: result.user.name,
           role,
-          dealer: (dealerOf.get(result.user.id) as DealerInfo | undefined) ?? null,
+          dealer: dealerInfo(dealerOf.get(result.user.id) as (Omit<DealerInfo, 'address'> & { line1: string; city: string; postcode: string }) | undefined),
         } satisfies CurrentUser;
       }
       next();
@@ -49,6 +52,12 @@ export function loadSession(auth: Auth, db: Db): RequestHandler {
       next(err);
     }
   };
+}
+
+function dealerInfo(row: (Omit<DealerInfo, 'address'> & { line1: string; city: string; postcode: string }) | undefined): DealerInfo | null {
+  if (!row) return null;
+  const { line1, city, postcode, ...rest } = row;
+  return { ...rest, address: { line1, city, postcode } };
 }
 
 export function currentUser(res: Response): CurrentUser | null {

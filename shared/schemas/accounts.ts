@@ -55,6 +55,8 @@ export const MeSchema = z.object({
           creditLimitCents: z.number(),
           paymentTermsDays: z.number(),
           deliveryZone: z.string(),
+          declineReason: z.string().nullable().optional(),
+          address: z.object({ line1: z.string(), city: z.string(), postcode: z.string() }).optional(),
           openBalanceCents: z.number().optional(),
         })
         .nullable(),

@@ -1,6 +1,19 @@
-import { Search } from 'lucide-react';
+import { Inbox, Search, ShoppingCart } from 'lucide-react';
 import { useEffect, useState, type FormEvent } from 'react';
-import { Link, NavLink, Outlet, useNavigate, useNavigation, useSearchParams } from 'react-router-dom';
+import { RouterProvider as AriaRouterProvider } from 'react-aria-components';
+import { Link, NavLink, Outlet, useHref, useLocation, useNavigate, useNavigation, useSearchParams, type NavigateOptions } from 'react-router-dom';
+import { useMe } from '../features/auth/api/get-me';
+import { useSignOut } from '../features/auth/api/sign-out';
+import { AccountMenu } from '../features/auth/components/account-menu';
+import { signInHref } from '../features/auth/next-path';
+import type { Role } from '../features/auth/roles';
+import { useCart } from '../features/cart/api/get-cart';
+
+declare module 'react-aria-components' {
+  interface RouterConfig {
+    routerOptions: NavigateOptions;
+  }
+}
 
 function HeaderSearch() {
   const [params] = useSearchParams();
@@ -39,44 +52,169 @@ function HeaderSearch() {
 const navClass = ({ isActive }: { isActive: boolean }) =>
   `rounded px-2 py-1 font-semibold ${isActive ? 'bg-temper-tint text-temper-deep' : 'text-ink hover:text-temper'}`;
 
+type Workspace = 'Counter' | 'Floor' | 'Office';
+
+/** The building a path belongs to (DESIGN.md: Counter, Floor, Office). */
+function workspaceOf(pathname: string): Workspace {
+  if (pathname === '/floor' || pathname.startsWith('/floor/')) return 'Floor';
+  if (pathname === '/office' || pathname.startsWith('/office/')) return 'Office';
+  return 'Counter';
+}
+
+/** The workspaces a role may enter besides the Counter; the server checks each route too. */
+const WORKSPACE_LINKS: Record<Role, Array<{ name: Workspace; to: string }>> = {
+  customer: [],
+  dealer: [],
+  warehouse: [{ name: 'Floor', to: '/floor' }],
+  admin: [{ name: 'Office', to: '/office/dealers' }],
+};
+
+function WorkspaceNav({ role, current }: { role: Role; current: Workspace }) {
+  const extra = WORKSPACE_LINKS[role];
+  if (extra.length === 0) return null;
+  const links = [{ name: 'Counter' as Workspace, to: '/' }, ...extra];
+  return (
+    <nav aria-label="Workspaces" className="flex items-center gap-1 rounded-md bg-panel p-1">
+      {links.map((l) => (
+        <Link
+          key={l.name}
+          to={l.to}
+          aria-current={l.name === current ? 'page' : undefined}
+          className={`rounded px-2 py-1 text-sm font-semibold ${l.name === current ? 'bg-white text-temper-deep shadow-sm' : 'text-ink hover:text-temper'}`}
+        >
+          {l.name}
+        </Link>
+      ))}
+    </nav>
+  );
+}
+
+function CartLink() {
+  const cart = useCart();
+  const count = cart.data?.lines.length;
+  return (
+    <NavLink
+      to="/cart"
+      className={({ isActive }) =>
+        `inline-flex min-h-11 items-center gap-2 rounded-md border px-3 font-semibold ${isActive ? 'border-temper bg-temper-tint text-temper-deep' : 'border-cast-line bg-white text-ink hover:border-temper'}`
+      }
+    >
+      <ShoppingCart aria-hidden className="size-5 text-temper" />
+      Cart
+      {count !== undefined && (
+        <span className="tabular min-w-6 rounded-full bg-temper px-1.5 text-center text-sm text-white">
+          {count}
+          <span className="sr-only">{count === 1 ? ' line' : ' lines'}</span>
+        </span>
+      )}
+    </NavLink>
+  );
+}
+
+function AccountArea() {
+  const me = useMe();
+  const location = useLocation();
+  const navigate = useNavigate();
+  const signOut = useSignOut();
+  const here = `${location.pathname}${location.search}`;
+  if (me.isPending) return <span className="inline-block min-h-11 w-28" aria-hidden />;
+  const user = me.data?.user;
+  if (!user) {
+    return (
+      <Link to={signInHref(location.pathname.startsWith('/sign-') ? '/' : here)} className="inline-flex min-h-11 items-center rounded-md bg-temper px-4 font-semibold text-white hover:bg-temper-deep">
+        Sign in
+      </Link>
+    );
+  }
+  return (
+    <>
+      <AccountMenu
+        user={user}
+        signingOut={signOut.isPending}
+        onSignOut={() =>
+          signOut.mutate(undefined, {
+            // The sign-out hook resets every cached query, the cart included.
+            onSuccess: () => navigate('/'),
+          })
+        }
+      />
+      {signOut.isError && (
+        <p role="alert" className="basis-full text-right text-sm font-semibold text-oxide">
+          Sign-out did not go through. Try again.
+        </p>
+      )}
+    </>
+  );
+}
+
 export function Layout() {
   const navigation = useNavigation();
+  const navigate = useNavigate();
+  const location = useLocation();
+  const me = useMe();
+  const role = me.data?.user?.role;
+  const inPath = workspaceOf(location.pathname);
+  // Someone who may not enter the Floor or Office is still at the Counter, whatever the address says.
+  const workspace: Workspace = inPath === 'Counter' || (role && WORKSPACE_LINKS[role].some((w) => w.name === inPath)) ? inPath : 'Counter';
+  // Development tools are on when the server lists its test payment methods or demo accounts.
+  const devTools = Boolean(me.data?.payments.testMethods || me.data?.demoAccounts);
   return (
-    <div className="flex min-h-screen flex-col">
-      <a href="#main" className="sr-only focus:not-sr-only focus:absolute focus:left-2 focus:top-2 focus:z-50 focus:rounded focus:bg-white focus:p-2">
-        Skip to content
-      </a>
-      <header className="no-print border-b-4 border-temper bg-white">
-        <div className="mx-auto flex max-w-6xl flex-wrap items-center gap-x-6 gap-y-3 px-4 py-3">
-          <Link to="/" className="flex items-baseline gap-2">
-            <span className="text-2xl font-bold tracking-tight text-ink">Spoolyard</span>
-            <span className="rounded bg-panel px-2 py-0.5 text-sm font-semibold uppercase tracking-wider text-cast" aria-label="Workspace: Counter">
-              Counter
-            </span>
-          </Link>
-          <HeaderSearch />
-          <nav aria-label="Main" className="flex gap-2">
-            <NavLink to="/catalogue" className={navClass}>
-              Catalogue
-            </NavLink>
-            <NavLink to="/fitment" className={navClass}>
-              Fitment check
-            </NavLink>
-          </nav>
-        </div>
-        {navigation.state === 'loading' && <div className="h-0.5 animate-pulse bg-temper" role="progressbar" aria-label="Loading page" />}
-      </header>
-      <main id="main" className="mx-auto w-full max-w-6xl flex-1 px-4 py-6">
-        <Outlet />
-      </main>
-      <footer className="no-print border-t border-cast-line bg-panel">
-        <div className="mx-auto grid max-w-6xl gap-2 px-4 py-6 text-sm text-cast sm:grid-cols-2">
-          <p>
-            <span className="font-semibold text-ink">Spoolyard Turbo Supply</span> · Unit 7, Foundry Row, Millbrook · trade counter Mon–Fri 8:00–17:00
-          </p>
-          <p className="sm:text-right">Vanecraft is our house brand. Fitting advice is general: have your installation checked by a licensed mechanic.</p>
-        </div>
-      </footer>
-    </div>
+    <AriaRouterProvider navigate={navigate} useHref={useHref}>
+      <div className="flex min-h-screen flex-col">
+        <a href="#main" className="sr-only focus:not-sr-only focus:absolute focus:left-2 focus:top-2 focus:z-50 focus:rounded focus:bg-white focus:p-2">
+          Skip to content
+        </a>
+        <header className="no-print border-b-4 border-temper bg-white">
+          <div className="mx-auto flex max-w-6xl flex-wrap items-center gap-x-4 gap-y-3 px-4 py-3">
+            <Link to="/" className="flex items-baseline gap-2">
+              <span className="text-2xl font-bold tracking-tight text-ink">Spoolyard</span>
+              <span className="rounded bg-panel px-2 py-0.5 text-sm font-semibold uppercase tracking-wider text-cast" aria-label={`Workspace: ${workspace}`}>
+                {workspace}
+              </span>
+            </Link>
+            <div className="order-last w-full lg:order-none lg:w-auto lg:flex-1">
+              <HeaderSearch />
+            </div>
+            <div className="ml-auto flex flex-wrap items-center justify-end gap-2">
+              <CartLink />
+              <AccountArea />
+            </div>
+          </div>
+          <div className="border-t border-cast-line/70">
+            <div className="mx-auto flex max-w-6xl flex-wrap items-center gap-x-4 gap-y-2 px-4 py-1.5">
+              <nav aria-label="Main" className="flex gap-2">
+                <NavLink to="/catalogue" className={navClass}>
+                  Catalogue
+                </NavLink>
+                <NavLink to="/fitment" className={navClass}>
+                  Fitment check
+                </NavLink>
+              </nav>
+              <div className="ml-auto flex items-center gap-3">
+                {role && <WorkspaceNav role={role} current={workspace} />}
+                {devTools && (
+                  <Link to="/dev/inbox" className="inline-flex items-center gap-1 rounded border border-dashed border-amber-line px-2 py-0.5 text-sm font-semibold text-amber hover:bg-amber-tint">
+                    <Inbox aria-hidden className="size-4" />
+                    Inbox <span className="sr-only">(development mail catcher)</span>
+                  </Link>
+                )}
+              </div>
+            </div>
+          </div>
+          {navigation.state === 'loading' && <div className="h-0.5 animate-pulse bg-temper" role="progressbar" aria-label="Loading page" />}
+        </header>
+        <main id="main" className="mx-auto w-full max-w-6xl flex-1 px-4 py-6">
+          <Outlet />
+        </main>
+        <footer className="no-print border-t border-cast-line bg-panel">
+          <div className="mx-auto grid max-w-6xl gap-2 px-4 py-6 text-sm text-cast sm:grid-cols-2">
+            <p>
+              <span className="font-semibold text-ink">Spoolyard Turbo Supply</span> · Unit 7, Foundry Row, Millbrook · trade counter Mon–Fri 8:00–17:00
+            </p>
+            <p className="sm:text-right">Vanecraft is our house brand. Fitting advice is general: have your installation checked by a licensed mechanic.</p>
+          </div>
+        </footer>
+      </div>
+    </AriaRouterProvider>
   );
 }

@@ -1,3 +1,8 @@
+import { useMe } from '../../features/auth/api/get-me';
+import { CartPage } from '../../features/cart/components/cart-page';
+
 export function CartRoute() {
-  return <h1 className="text-2xl font-bold">Your cart</h1>;
+  const me = useMe();
+  const dealer = me.data?.user?.role === 'dealer' && me.data.user.dealer?.status === 'approved';
+  return <CartPage tradeTools={dealer} />;
 }

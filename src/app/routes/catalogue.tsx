@@ -4,6 +4,7 @@ import { Link, useSearchParams } from 'react-router-dom';
 import { categoryLabel } from '../../../shared/catalog';
 import { PartsQuerySchema, PART_SORTS, type PartsListResponse, type PartsQuery } from '../../../shared/schemas/parts';
 import { EmptyState, ErrorState, LoadingState } from '../../components/ui/states';
+import { useMe } from '../../features/auth/api/get-me';
 import { useParts } from '../../features/catalog/api/get-parts';
 import { PartListItem } from '../../features/catalog/components/part-list-item';
 
@@ -81,6 +82,9 @@ function FacetGroup({ title, name, options, selected, onSelect }: {
 export function CatalogueRoute() {
   const [query, , update] = useCatalogueQuery();
   const [filtersOpen, setFiltersOpen] = useState(false);
+  const me = useMe();
+  const dealer = me.data?.user?.role === 'dealer' ? me.data.user.dealer : null;
+  const tradeTier = dealer?.status === 'approved' ? dealer.tier : null;
   const parts = useParts(query);
   const data = parts.data;
   const page = query.page ?? 1;
@@ -213,7 +217,7 @@ export function CatalogueRoute() {
             <>
               <ul className="mt-2" aria-label="Parts found">
                 {data.items.map((p) => (
-                  <PartListItem key={p.partNumber} part={p} />
+                  <PartListItem key={p.partNumber} part={p} tradeTier={tradeTier} />
                 ))}
               </ul>
               {pageCount > 1 && (

@@ -1,8 +1,152 @@
+import { useQueryClient } from '@tanstack/react-query';
+import { Gauge } from 'lucide-react';
+import { useEffect, useRef, useState } from 'react';
+import { Link, useSearchParams } from 'react-router-dom';
+import { FITMENT_CAUTIONS } from '../../../shared/fitment/check';
+import type { FitmentRequest } from '../../../shared/schemas/fitment';
+import type { SavedFitment } from '../../../shared/schemas/saved-fitments';
+import { EmptyState, ErrorState, LoadingState } from '../../components/ui/states';
+import { ApiError } from '../../lib/api-client';
+import { useMe } from '../../features/auth/api/get-me';
+import { cartKeys } from '../../features/cart/api/keys';
+import { useFrameMaps } from '../../features/fitment/api/get-frame-maps';
+import { useSavedFitment } from '../../features/fitment/api/get-saved-fitment';
+import { useRunFitmentCheck } from '../../features/fitment/api/run-fitment-check';
+import { FitmentForm, formValuesFor } from '../../features/fitment/components/fitment-form';
+import { FitmentCautions, FitmentResults } from '../../features/fitment/components/fitment-results';
+import { useUnitSystem } from '../../features/fitment/lib/use-unit-system';
+
+const FRAME_CODE = /^[A-Z]{2}\d{2,3}$/;
+
 export function FitmentRoute() {
+  const [params] = useSearchParams();
+  const frameParam = params.get('frame')?.toUpperCase() ?? null;
+  const cameFrom = frameParam && FRAME_CODE.test(frameParam) ? frameParam : null;
+  const savedParam = params.get('saved');
+  const savedId = savedParam && /^\d{1,12}$/.test(savedParam) ? Number(savedParam) : null;
+
+  const me = useMe();
+  const signedIn = Boolean(me.data?.user);
+  const queryClient = useQueryClient();
+  const maps = useFrameMaps();
+  const check = useRunFitmentCheck();
+  const [system, setSystem] = useUnitSystem();
+  const [request, setRequest] = useState<FitmentRequest | null>(null);
+  const [selected, setSelected] = useState<string | null>(cameFrom);
+  const [saved, setSaved] = useState<Pick<SavedFitment, 'id' | 'name'> | null>(null);
+  const [form, setForm] = useState(() => ({ key: 0, values: formValuesFor(null, system) }));
+  const savedCheck = useSavedFitment(savedId !== null && signedIn ? savedId : null);
+  const loadedSaved = useRef<number | null>(null);
+
+  const run = (next: FitmentRequest, keep: Pick<SavedFitment, 'id' | 'name'> | null = null) => {
+    setRequest(next);
+    setSaved(keep);
+    check.mutate(next, {
+      onSuccess: (result) => {
+        const codes = result.candidates.map((c) => c.frameCode);
+        setSelected(cameFrom && codes.includes(cameFrom) ? cameFrom : (codes[0] ?? null));
+      },
+    });
+  };
+
+  // Opening a saved check loads it into the form and runs it again, with today's frames.
+  useEffect(() => {
+    const item = savedCheck.data;
+    if (!item || loadedSaved.current === item.id) return;
+    loadedSaved.current = item.id;
+    setForm((f) => ({ key: f.key + 1, values: formValuesFor(item.input, system) }));
+    run(item.input, { id: item.id, name: item.name });
+    // eslint-disable-next-line react-hooks/exhaustive-deps -- runs once per saved check opened
+  }, [savedCheck.data]);
+
+  const cameFromFrame = cameFrom ? maps.data?.items.find((f) => f.code === cameFrom) : undefined;
+  const validation = check.error instanceof ApiError && check.error.isValidation ? check.error.fieldErrors : undefined;
+
   return (
-    <div className="py-8">
-      <h1 className="text-2xl font-bold">Fitment check</h1>
-      <p className="mt-2 text-cast">The fitment check is being set up.</p>
+    <div className="grid gap-6">
+      <header className="grid gap-2">
+        <h1 className="text-3xl font-bold">Fitment check</h1>
+        <p className="max-w-3xl text-lg">
+          Tell us about the engine and what you want from it. We work out the air it needs and judge every Vanecraft frame against its
+          compressor map, from full boost to peak power.
+        </p>
+        <p>
+          {signedIn ? (
+            <Link to="/fitment/saved" className="font-semibold text-temper underline underline-offset-2">
+              Your saved checks
+            </Link>
+          ) : (
+            <span className="text-cast">
+              <Link to="/sign-in" className="font-semibold text-temper underline underline-offset-2">
+                Sign in to save
+              </Link>{' '}
+              checks and attach them to orders.
+            </span>
+          )}
+        </p>
+      </header>
+
+      {cameFrom && (
+        <div role="note" className="flex items-center gap-3 rounded-md border border-temper bg-temper-tint p-4">
+          <Gauge aria-hidden className="size-5 shrink-0 text-temper" />
+          <p>
+            Checking frame <span className="part-no">{cameFrom}</span>
+            {cameFromFrame ? ` ${cameFromFrame.name}` : ''}: fill in your engine and we show it on that frame’s map, ranked against the others.
+          </p>
+        </div>
+      )}
+      {savedId !== null && !signedIn && !me.isPending && (
+        <ErrorState title="Sign in to open a saved check" message="Saved checks belong to the account that saved them." />
+      )}
+      {savedCheck.isError && (
+        <ErrorState
+          title="That saved check did not open"
+          message={savedCheck.error instanceof ApiError && savedCheck.error.isNotFound ? 'We have no saved check with that number on your account.' : savedCheck.error.message}
+        />
+      )}
+
+      <div className="grid items-start gap-8 lg:grid-cols-[26rem_minmax(0,1fr)]">
+        <div className="rounded-lg bg-white p-5 shadow-sm ring-1 ring-cast-line">
+          <FitmentForm
+            key={form.key}
+            initialValues={form.values}
+            system={system}
+            onSystemChange={setSystem}
+            onSubmit={(next) => run(next)}
+            pending={check.isPending}
+            serverFieldErrors={validation}
+          />
+        </div>
+        <div className="min-w-0">
+          {check.isPending || savedCheck.isFetching ? (
+            <LoadingState label="Checking every frame…" />
+          ) : check.isError && !validation ? (
+            <ErrorState title="The check did not run" message={check.error.message} onRetry={() => request && run(request, saved)} />
+          ) : check.data && request ? (
+            <FitmentResults
+              request={request}
+              result={check.data}
+              system={system}
+              selected={selected}
+              onSelect={setSelected}
+              cameFrom={cameFrom}
+              signedIn={signedIn}
+              saved={saved}
+              onSaved={(s) => setSaved({ id: s.id, name: s.name })}
+              onAddedToCart={() => queryClient.invalidateQueries({ queryKey: cartKeys.all })}
+            />
+          ) : (
+            <div className="grid gap-4">
+              <EmptyState title="No check yet">
+                Fill in the engine and press <span className="font-semibold text-ink">Check fitment</span>. The starting values are a 2.0 L petrol
+                street engine; change them to yours. You will see the airflow and boost it needs, each frame’s verdict with its reasons, and the
+                engine’s operating line on a compressor map.
+              </EmptyState>
+              <FitmentCautions cautions={FITMENT_CAUTIONS} />
+            </div>
+          )}
+        </div>
+      </div>
     </div>
   );
 }

@@ -1,3 +1,14 @@
+import { useParams } from 'react-router-dom';
+import { useMe } from '../../features/auth/api/get-me';
+import { FloorGate } from '../../features/warehouse/components/floor-shell';
+import { PackPage } from '../../features/warehouse/components/pack-page';
+
 export function FloorPackRoute() {
-  return <h1 className="text-2xl font-bold">Pack and dispatch</h1>;
+  const me = useMe();
+  const number = (useParams().number ?? '').toUpperCase();
+  return (
+    <FloorGate me={me}>
+      <PackPage key={number} number={number} />
+    </FloorGate>
+  );
 }

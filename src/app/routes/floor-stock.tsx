@@ -1,3 +1,16 @@
+import { useSearchParams } from 'react-router-dom';
+import { useMe } from '../../features/auth/api/get-me';
+import { FloorGate } from '../../features/warehouse/components/floor-shell';
+import { StockPage } from '../../features/warehouse/components/stock-page';
+
 export function FloorStockRoute() {
-  return <h1 className="text-2xl font-bold">Stock</h1>;
+  const me = useMe();
+  const [params, setParams] = useSearchParams();
+  const part = params.get('part')?.trim().toUpperCase() || null;
+  return (
+    <FloorGate me={me}>
+      <h1 className="mb-4 text-3xl font-bold">Stock</h1>
+      <StockPage part={part} onLookUp={(p) => setParams(p ? { part: p } : {})} />
+    </FloorGate>
+  );
 }

@@ -1,3 +1,88 @@
+import { BadgeCheck, ShieldX } from 'lucide-react';
+import { useState } from 'react';
+import { Link } from 'react-router-dom';
+import { formatPrice } from '../../../shared/catalog';
+import { DEALER_TIERS } from '../../../shared/pricing';
+import { buttonClass } from '../../components/ui/button';
+import { EmptyState, ErrorState, LoadingState } from '../../components/ui/states';
+import { ApiError } from '../../lib/api-client';
+import { useDealers } from '../../features/admin/api/get-dealers';
+import type { DecisionDone } from '../../features/admin/components/decision-forms';
+import { DealersTable } from '../../features/admin/components/dealers-table';
+import { useMe } from '../../features/auth/api/get-me';
+import { signInHref } from '../../features/auth/next-path';
+
+function NotAllowed({ signedIn }: { signedIn: boolean }) {
+  return (
+    <div role="alert" className="mx-auto mt-6 flex max-w-2xl gap-4 rounded-md border-2 border-oxide bg-oxide-tint p-6">
+      <ShieldX aria-hidden className="size-8 shrink-0 text-oxide" />
+      <div>
+        <h1 className="text-2xl font-bold">Not allowed</h1>
+        <p className="mt-1">
+          Dealer accounts are managed in the Office, which only administrators can open.
+          {signedIn ? ' Your account is not an administrator account.' : ' Sign in with an administrator account.'}
+        </p>
+        <div className="mt-3 flex flex-wrap gap-3">
+          {!signedIn && (
+            <Link to={signInHref('/office/dealers')} className={buttonClass('primary')}>
+              Sign in
+            </Link>
+          )}
+          <Link to="/" className={buttonClass('secondary')}>
+            Back to the counter
+          </Link>
+        </div>
+      </div>
+    </div>
+  );
+}
+
+function describe(done: DecisionDone): string {
+  const d = done.decision;
+  if (d.decision === 'decline') return `${done.companyName} declined. The applicant gets an e-mail with your reason.`;
+  const tier = DEALER_TIERS[d.tier];
+  return `${done.companyName} approved: ${tier.label} (${tier.discountPct} % off), credit limit ${formatPrice(d.creditLimitCents)}, net ${d.paymentTermsDays} days. The dealer gets an e-mail with these terms.`;
+}
+
 export function OfficeDealersRoute() {
-  return <h1 className="text-2xl font-bold">Dealer accounts</h1>;
+  const me = useMe();
+  const isAdmin = me.data?.user?.role === 'admin';
+  const dealers = useDealers(isAdmin);
+  const [done, setDone] = useState<DecisionDone | null>(null);
+
+  if (me.isPending) return <LoadingState />;
+  if (me.isError) return <ErrorState message={me.error.message} onRetry={() => me.refetch()} />;
+  if (!isAdmin || (dealers.error instanceof ApiError && (dealers.error.status === 403 || dealers.error.status === 401))) {
+    return <NotAllowed signedIn={Boolean(me.data.user)} />;
+  }
+
+  return (
+    <div className="grid grid-cols-[minmax(0,1fr)] gap-5">
+      <div>
+        <p className="text-sm font-semibold uppercase tracking-wider text-cast">Office</p>
+        <h1 className="text-3xl font-bold">Dealer accounts</h1>
+        <p className="mt-1 text-cast">Trade applications wait here, pending first. Approving sets the tier, credit limit and payment terms, and e-mails the dealer.</p>
+      </div>
+      <div role="status">
+        {done && (
+          <div className="flex gap-3 rounded-md border border-machined bg-machined-tint p-4">
+            <BadgeCheck aria-hidden className="mt-0.5 size-5 shrink-0 text-machined" />
+            <p>
+              <span className="font-semibold">Done. </span>
+              {describe(done)}
+            </p>
+          </div>
+        )}
+      </div>
+      {dealers.isPending ? (
+        <LoadingState label="Loading dealer accounts…" />
+      ) : dealers.isError ? (
+        <ErrorState title="The dealer accounts did not load" message={dealers.error.message} onRetry={() => dealers.refetch()} />
+      ) : dealers.data.items.length === 0 ? (
+        <EmptyState title="No dealer accounts yet">Applications made from the account page show up here.</EmptyState>
+      ) : (
+        <DealersTable items={dealers.data.items} onDecided={setDone} />
+      )}
+    </div>
+  );
 }

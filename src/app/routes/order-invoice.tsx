@@ -1,3 +1,7 @@
+import { useParams } from 'react-router-dom';
+import { Invoice } from '../../features/orders/components/invoice';
+
 export function OrderInvoiceRoute() {
-  return <h1 className="text-2xl font-bold">Invoice</h1>;
+  const { number = '' } = useParams();
+  return <Invoice number={number} />;
 }

@@ -1,3 +1,11 @@
+import { useQueryClient } from '@tanstack/react-query';
+import { useParams, useSearchParams } from 'react-router-dom';
+import { cartKeys } from '../../features/cart/api/keys';
+import { OrderPage } from '../../features/orders/components/order-page';
+
 export function OrderRoute() {
-  return <h1 className="text-2xl font-bold">Order</h1>;
+  const { number = '' } = useParams();
+  const [params] = useSearchParams();
+  const qc = useQueryClient();
+  return <OrderPage number={number} placed={params.get('placed') === '1'} onReorderAdded={() => void qc.invalidateQueries({ queryKey: cartKeys.all })} />;
 }

@@ -1,9 +1,11 @@
 import { ArrowRight, Gauge } from 'lucide-react';
-import { Link, useParams } from 'react-router-dom';
+import { Link, useParams, useSearchParams } from 'react-router-dom';
 import { categoryLabel, formatPrice } from '../../../shared/catalog';
 import { buttonClass } from '../../components/ui/button';
 import { ApiError } from '../../lib/api-client';
 import { ErrorState, LoadingState } from '../../components/ui/states';
+import { useMe } from '../../features/auth/api/get-me';
+import { AddToCart } from '../../features/cart/components/add-to-cart';
 import { usePart } from '../../features/catalog/api/get-part';
 import { PartCautions } from '../../features/catalog/components/part-cautions';
 import { PartListItem } from '../../features/catalog/components/part-list-item';
@@ -13,6 +15,10 @@ import { StockBadge } from '../../features/catalog/components/stock-badge';
 export function PartRoute() {
   const { partNumber = '' } = useParams();
   const part = usePart(partNumber);
+  const me = useMe();
+  // A fitment screen links here with ?fitment=<saved check id> so the line remembers what it was chosen for.
+  const fitmentParam = Number(useSearchParams()[0].get('fitment'));
+  const dealer = me.data?.user?.role === 'dealer' && me.data.user.dealer?.status === 'approved' ? me.data.user.dealer : null;
 
   if (part.isPending) return <LoadingState label={`Loading ${partNumber}…`} />;
   if (part.isError) {
@@ -102,6 +108,16 @@ export function PartRoute() {
             </p>
           )}
           <StockBadge stock={p.stock} />
+          {me.data?.user?.role !== 'warehouse' && (
+            <AddToCart
+              partNumber={p.partNumber}
+              retailCents={p.priceCents}
+              available={p.stock.available}
+              discontinued={p.status === 'discontinued'}
+              tier={dealer?.tier ?? null}
+              {...(Number.isInteger(fitmentParam) && fitmentParam > 0 && me.data?.user ? { fitmentId: fitmentParam } : {})}
+            />
+          )}
           <p className="tabular text-sm text-cast">Shipping weight {(p.weightGrams / 1000).toFixed(p.weightGrams < 1000 ? 2 : 1)} kg</p>
           {p.frame && (
             <Link to={`/fitment?frame=${p.frame.code}`} className={buttonClass('secondary')}>

@@ -1,3 +1,49 @@
+import { useQueryClient } from '@tanstack/react-query';
+import { Link, useNavigate, useSearchParams } from 'react-router-dom';
+import { buttonClass } from '../../components/ui/button';
+import { ErrorState, LoadingState } from '../../components/ui/states';
+import { authKeys } from '../../features/auth/api/keys';
+import { useMe } from '../../features/auth/api/get-me';
+import { SignInForm } from '../../features/auth/components/sign-in-form';
+import { safeNextPath } from '../../features/auth/next-path';
+import { ROLE_LABELS } from '../../features/auth/roles';
+import { cartKeys } from '../../features/cart/api/keys';
+
 export function SignInRoute() {
-  return <h1 className="text-2xl font-bold">Sign in</h1>;
+  const [params] = useSearchParams();
+  const next = safeNextPath(params.get('next'));
+  const navigate = useNavigate();
+  const client = useQueryClient();
+  const me = useMe();
+
+  const onSignedIn = async () => {
+    // The server joins a guest cart to the user's on the next cart request, so both are read again.
+    await Promise.all([client.invalidateQueries({ queryKey: authKeys.all }), client.invalidateQueries({ queryKey: cartKeys.all })]);
+    navigate(next, { replace: true });
+  };
+
+  return (
+    <div className="mx-auto grid max-w-2xl grid-cols-[minmax(0,1fr)] gap-6">
+      <div>
+        <h1 className="text-3xl font-bold">Sign in</h1>
+        <p className="mt-1 text-cast">Sign in to see your orders and, for trade accounts, your prices and account balance.</p>
+      </div>
+      {me.isPending ? (
+        <LoadingState />
+      ) : me.isError ? (
+        <ErrorState message={me.error.message} onRetry={() => me.refetch()} />
+      ) : me.data.user ? (
+        <div role="status" className="rounded-md border border-cast-line bg-white p-4">
+          <p>
+            You are signed in as <span className="font-semibold">{me.data.user.name}</span> ({ROLE_LABELS[me.data.user.role]}).
+          </p>
+          <Link to={next} className={`${buttonClass('primary')} mt-3`}>
+            Continue
+          </Link>
+        </div>
+      ) : (
+        <SignInForm demoAccounts={me.data.demoAccounts} onSignedIn={() => void onSignedIn()} />
+      )}
+    </div>
+  );
 }

@@ -1,10 +1,12 @@
 import { Link } from 'react-router-dom';
 import { categoryLabel, formatPrice } from '../../../../shared/catalog';
 import type { PartSummary } from '../../../../shared/schemas/parts';
+import { dealerUnitPriceCents, type DealerTier } from '../../../../shared/pricing';
 import { specSummary } from './spec-rows';
 import { StockBadge } from './stock-badge';
 
-export function PartListItem({ part }: { part: PartSummary }) {
+/** A part in a list; with a trade tier, the dealer's price leads and the retail price is shown beside it. */
+export function PartListItem({ part, tradeTier }: { part: PartSummary; tradeTier?: DealerTier | null }) {
   return (
     <li className="grid gap-2 border-b border-cast-line py-4 sm:grid-cols-[1fr_auto] sm:gap-6">
       <div className="min-w-0">
@@ -29,7 +31,17 @@ export function PartListItem({ part }: { part: PartSummary }) {
         )}
       </div>
       <div className="flex items-baseline gap-4 sm:flex-col sm:items-end sm:gap-1">
-        <span className="tabular text-xl font-bold">{formatPrice(part.priceCents)}</span>
+        {tradeTier ? (
+          <span className="text-right">
+            <span className="tabular block text-xl font-bold">
+              <span className="sr-only">Trade price </span>
+              {formatPrice(dealerUnitPriceCents(part.priceCents, tradeTier))}
+            </span>
+            <span className="tabular text-sm text-cast">retail {formatPrice(part.priceCents)}</span>
+          </span>
+        ) : (
+          <span className="tabular text-xl font-bold">{formatPrice(part.priceCents)}</span>
+        )}
         {part.coreDepositCents > 0 && <span className="tabular text-sm text-cast">+ {formatPrice(part.coreDepositCents)} core deposit</span>}
         <StockBadge stock={part.stock} />
       </div>

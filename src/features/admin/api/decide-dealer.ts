@@ -1,0 +1,16 @@
+import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { DealerDecisionReplySchema } from '../../../../shared/schemas/account-replies';
+import type { DealerDecision } from '../../../../shared/schemas/accounts';
+import { api } from '../../../lib/api-client';
+import { adminKeys } from './keys';
+
+export const decideDealer = ({ id, decision }: { id: number; decision: DealerDecision }) =>
+  api(`/admin/dealers/${id}/decision`, DealerDecisionReplySchema, { method: 'POST', body: decision });
+
+export function useDecideDealer() {
+  const client = useQueryClient();
+  return useMutation({
+    mutationFn: decideDealer,
+    onSuccess: () => client.invalidateQueries({ queryKey: adminKeys.dealers() }),
+  });
+}

@@ -1,0 +1,259 @@
+import {
+  createColumnHelper,
+  flexRender,
+  getCoreRowModel,
+  getPaginationRowModel,
+  getSortedRowModel,
+  useReactTable,
+  type SortingFn,
+  type SortingState,
+} from '@tanstack/react-table';
+import { ArrowDown, ArrowUp, ArrowUpDown, BadgeCheck, ChevronDown, ChevronRight, CircleSlash, Clock } from 'lucide-react';
+import { Fragment, useEffect, useRef, useState } from 'react';
+import { z } from 'zod';
+import { formatPrice } from '../../../../shared/catalog';
+import type { DealerAccountRowSchema } from '../../../../shared/schemas/accounts';
+import { DEALER_TIERS } from '../../../../shared/pricing';
+import { ApproveDealerForm, DeclineDealerForm, type DecisionDone } from './decision-forms';
+
+type DealerRow = z.infer<typeof DealerAccountRowSchema>;
+
+const STATUS_ORDER: Record<DealerRow['status'], number> = { pending: 0, approved: 1, declined: 2 };
+
+/** Pending first, then approved, then declined; newest first inside each. */
+const byStatus: SortingFn<DealerRow> = (a, b) => STATUS_ORDER[a.original.status] - STATUS_ORDER[b.original.status] || b.original.id - a.original.id;
+
+export function StatusBadge({ status }: { status: DealerRow['status'] }) {
+  if (status === 'pending')
+    return (
+      <span className="inline-flex items-center gap-1 rounded-full border border-amber-line bg-amber-tint px-2 py-0.5 text-sm font-semibold whitespace-nowrap text-amber">
+        <Clock aria-hidden className="size-4" /> Pending
+      </span>
+    );
+  if (status === 'approved')
+    return (
+      <span className="inline-flex items-center gap-1 rounded-full border border-machined bg-machined-tint px-2 py-0.5 text-sm font-semibold whitespace-nowrap text-machined">
+        <BadgeCheck aria-hidden className="size-4" /> Approved
+      </span>
+    );
+  return (
+    <span className="inline-flex items-center gap-1 rounded-full border border-oxide bg-oxide-tint px-2 py-0.5 text-sm font-semibold whitespace-nowrap text-oxide">
+      <CircleSlash aria-hidden className="size-4" /> Declined
+    </span>
+  );
+}
+
+/** Breaks a long address after the @ rather than anywhere. */
+function EmailCell({ email }: { email: string }) {
+  const at = email.indexOf('@');
+  if (at < 0) return <span className="break-all">{email}</span>;
+  return (
+    <span>
+      {email.slice(0, at)}
+      <wbr />
+      {email.slice(at)}
+    </span>
+  );
+}
+
+const col = createColumnHelper<DealerRow>();
+const columns = [
+  col.accessor('companyName', { header: 'Company', cell: (c) => <span className="block min-w-32 font-semibold">{c.getValue()}</span> }),
+  col.accessor('status', { header: 'Status', sortingFn: byStatus, cell: (c) => <StatusBadge status={c.getValue()} /> }),
+  col.accessor('contactName', {
+    header: 'Contact',
+    cell: (c) => (
+      <span>
+        {c.getValue()}
+        <span className="block text-sm whitespace-nowrap text-cast">{c.row.original.phone}</span>
+      </span>
+    ),
+  }),
+  col.accessor('email', { header: 'E-mail', cell: (c) => <EmailCell email={c.getValue()} /> }),
+  col.accessor('city', { header: 'City' }),
+  col.accessor((r) => (r.tier ? DEALER_TIERS[r.tier].discountPct : -1), {
+    id: 'tier',
+    header: 'Tier',
+    cell: (c) => {
+      const tier = c.row.original.tier;
+      return tier ? (
+        <span>
+          <span className="whitespace-nowrap">{DEALER_TIERS[tier].label}</span>
+          <span className="tabular block text-sm text-cast">{DEALER_TIERS[tier].discountPct} % off</span>
+        </span>
+      ) : (
+        <span className="text-cast">—</span>
+      );
+    },
+  }),
+  col.accessor('creditLimitCents', {
+    header: 'Credit limit',
+    meta: { numeric: true },
+    cell: (c) =>
+      c.row.original.status === 'approved' ? (
+        <span>
+          {formatPrice(c.getValue())}
+          <span className="block text-sm text-cast">net {c.row.original.paymentTermsDays} days</span>
+        </span>
+      ) : (
+        '—'
+      ),
+  }),
+  col.accessor('openBalanceCents', { header: 'Open balance', meta: { numeric: true }, cell: (c) => formatPrice(c.getValue()) }),
+];
+
+const PAGE_SIZE = 25;
+const REVIEW_PANEL_ID = 'dealer-review';
+
+/** The open application under the table, outside its horizontal scroll so the forms fit a phone. */
+function ReviewPanel({ dealer, onDone, onClose }: { dealer: DealerRow; onDone: (d: DecisionDone) => void; onClose: () => void }) {
+  const heading = useRef<HTMLHeadingElement>(null);
+  useEffect(() => {
+    heading.current?.scrollIntoView({ block: 'start', behavior: 'smooth' });
+    heading.current?.focus({ preventScroll: true });
+  }, []);
+  return (
+    <section id={REVIEW_PANEL_ID} aria-labelledby="dealer-review-heading" className="grid gap-3 rounded-md border-2 border-amber-line bg-panel/60 p-4">
+      <div className="flex flex-wrap items-start justify-between gap-3">
+        <div>
+          <h2 id="dealer-review-heading" ref={heading} tabIndex={-1} className="text-xl font-bold outline-none">
+            Review: {dealer.companyName}
+          </h2>
+          <p className="text-sm text-cast">
+            Applied {new Date(dealer.createdAt).toLocaleDateString('en-US', { dateStyle: 'medium' })} · {dealer.contactName}, {dealer.phone}, {dealer.city} ·{' '}
+            <span className="break-all">{dealer.email}</span>
+          </p>
+        </div>
+        <button type="button" onClick={onClose} className="rounded-md border border-cast-line bg-white px-3 py-1 font-semibold hover:border-temper">
+          Close
+        </button>
+      </div>
+      <div className="grid gap-4 lg:grid-cols-2">
+        <ApproveDealerForm dealerId={dealer.id} companyName={dealer.companyName} onDone={onDone} />
+        <DeclineDealerForm dealerId={dealer.id} companyName={dealer.companyName} onDone={onDone} />
+      </div>
+    </section>
+  );
+}
+
+export function DealersTable({ items, onDecided }: { items: DealerRow[]; onDecided: (d: DecisionDone) => void }) {
+  const [sorting, setSorting] = useState<SortingState>([{ id: 'status', desc: false }]);
+  const [open, setOpen] = useState<number | null>(null);
+  const table = useReactTable({
+    data: items,
+    columns,
+    state: { sorting },
+    onSortingChange: setSorting,
+    getCoreRowModel: getCoreRowModel(),
+    getSortedRowModel: getSortedRowModel(),
+    getPaginationRowModel: getPaginationRowModel(),
+    initialState: { pagination: { pageSize: PAGE_SIZE } },
+    getRowId: (r) => String(r.id),
+  });
+  const pending = items.filter((i) => i.status === 'pending').length;
+  const rows = table.getRowModel().rows;
+  const reviewing = items.find((i) => i.id === open && i.status === 'pending') ?? null;
+
+  return (
+    <div className="grid grid-cols-[minmax(0,1fr)] gap-3">
+      <p className="text-cast">
+        <span className="tabular font-semibold text-ink">{items.length}</span> dealer accounts ·{' '}
+        <span className="tabular font-semibold text-ink">{pending}</span> pending
+      </p>
+      <div className={`relative max-h-[75vh] overflow-auto rounded-md border border-cast-line bg-white`}>
+        <table className="w-full text-left">
+          <caption className="sr-only">Dealer accounts and applications. Column headers sort the table.</caption>
+          <thead className="sticky top-0 z-10 bg-panel text-sm">
+            {table.getHeaderGroups().map((group) => (
+              <tr key={group.id}>
+                {group.headers.map((header) => {
+                  const sorted = header.column.getIsSorted();
+                  const numeric = (header.column.columnDef.meta as { numeric?: boolean } | undefined)?.numeric;
+                  const Icon = sorted === 'asc' ? ArrowUp : sorted === 'desc' ? ArrowDown : ArrowUpDown;
+                  return (
+                    <th
+                      key={header.id}
+                      scope="col"
+                      aria-sort={sorted === 'asc' ? 'ascending' : sorted === 'desc' ? 'descending' : undefined}
+                      className={`px-2.5 py-2 ${numeric ? 'text-right' : ''}`}
+                    >
+                      <button
+                        type="button"
+                        onClick={header.column.getToggleSortingHandler()}
+                        className={`inline-flex items-center gap-1 font-semibold whitespace-nowrap hover:text-temper ${numeric ? 'flex-row-reverse' : ''}`}
+                      >
+                        {flexRender(header.column.columnDef.header, header.getContext())}
+                        <Icon aria-hidden className={`size-4 shrink-0 ${sorted ? 'text-temper' : 'text-cast'}`} />
+                      </button>
+                    </th>
+                  );
+                })}
+                <th scope="col" className="px-3 py-2">
+                  <span className="sr-only">Actions</span>
+                </th>
+              </tr>
+            ))}
+          </thead>
+          <tbody>
+            {rows.map((row) => {
+              const d = row.original;
+              const isOpen = open === d.id;
+              return (
+                <Fragment key={row.id}>
+                  <tr className={`border-t border-cast-line align-top ${d.status === 'pending' ? 'bg-amber-tint/40' : ''}`}>
+                    {row.getVisibleCells().map((cell) => {
+                      const numeric = (cell.column.columnDef.meta as { numeric?: boolean } | undefined)?.numeric;
+                      return (
+                        <td key={cell.id} className={`px-2.5 py-2 ${numeric ? 'tabular text-right whitespace-nowrap' : ''}`}>
+                          {flexRender(cell.column.columnDef.cell, cell.getContext())}
+                        </td>
+                      );
+                    })}
+                    <td className="px-3 py-1.5 text-right">
+                      {d.status === 'pending' && (
+                        <button
+                          type="button"
+                          aria-expanded={isOpen}
+                          aria-controls={isOpen ? REVIEW_PANEL_ID : undefined}
+                          onClick={() => setOpen(isOpen ? null : d.id)}
+                          className="inline-flex min-h-10 items-center gap-1 rounded-md border border-cast-line bg-white px-3 font-semibold whitespace-nowrap text-temper hover:border-temper"
+                        >
+                          {isOpen ? <ChevronDown aria-hidden className="size-4" /> : <ChevronRight aria-hidden className="size-4" />}
+                          Review<span className="sr-only"> {d.companyName}</span>
+                        </button>
+                      )}
+                    </td>
+                  </tr>
+                </Fragment>
+              );
+            })}
+          </tbody>
+        </table>
+      </div>
+      {reviewing && (
+        <ReviewPanel
+          key={reviewing.id}
+          dealer={reviewing}
+          onClose={() => setOpen(null)}
+          onDone={(done) => {
+            setOpen(null);
+            onDecided(done);
+          }}
+        />
+      )}
+      {table.getPageCount() > 1 && (
+        <nav aria-label="Pages" className="flex items-center gap-3">
+          <button type="button" onClick={() => table.previousPage()} disabled={!table.getCanPreviousPage()} className="rounded-md border border-cast-line bg-white px-3 py-1 font-semibold disabled:text-cast">
+            Previous
+          </button>
+          <span className="tabular">
+            Page {table.getState().pagination.pageIndex + 1} of {table.getPageCount()}
+          </span>
+          <button type="button" onClick={() => table.nextPage()} disabled={!table.getCanNextPage()} className="rounded-md border border-cast-line bg-white px-3 py-1 font-semibold disabled:text-cast">
+            Next
+          </button>
+        </nav>
+      )}
+    </div>
+  );
+}

@@ -1,0 +1,230 @@
+import { zodResolver } from '@hookform/resolvers/zod';
+import { AlertOctagon } from 'lucide-react';
+import { useId, useRef, useState, type ReactNode } from 'react';
+import { useForm, type FieldErrors } from 'react-hook-form';
+import { z } from 'zod';
+import { PAYMENT_TERMS_DAYS } from '../../../../shared/schemas/account-replies';
+import { DealerDecisionSchema, type DealerDecision } from '../../../../shared/schemas/accounts';
+import { DEALER_TIER_KEYS, DEALER_TIERS } from '../../../../shared/pricing';
+import { buttonClass } from '../../../components/ui/button';
+import { useDecideDealer } from '../api/decide-dealer';
+
+/** Dollars as typed ("7500", "7,500.00") to whole cents, without floating-point rounding. */
+export function dollarsToCents(input: string): number | null {
+  const m = /^\s*\$?\s*(\d{1,3}(?:,\d{3})+|\d+)(?:\.(\d{1,2}))?\s*$/.exec(input);
+  if (!m) return null;
+  const whole = Number(m[1]!.replace(/,/g, ''));
+  const fraction = Number((m[2] ?? '').padEnd(2, '0'));
+  return whole * 100 + fraction;
+}
+
+const ApproveFormSchema = z.object({
+  tier: z.enum(DEALER_TIER_KEYS, { error: 'choose a trade tier' }),
+  creditLimit: z
+    .string()
+    .trim()
+    .min(1, 'enter a credit limit in dollars')
+    .refine((v) => dollarsToCents(v) !== null, 'enter dollars and cents, for example 7500 or 7,500.00')
+    .refine((v) => (dollarsToCents(v) ?? 0) <= 1_000_000_00, 'credit limit is too high (at most $1,000,000)'),
+  paymentTermsDays: z.enum(PAYMENT_TERMS_DAYS.map(String) as [string, ...string[]], { error: 'choose payment terms' }),
+});
+type ApproveForm = z.infer<typeof ApproveFormSchema>;
+
+const DeclineFormSchema = DealerDecisionSchema.options[1].omit({ decision: true });
+type DeclineForm = z.infer<typeof DeclineFormSchema>;
+
+export interface DecisionDone {
+  dealerId: number;
+  companyName: string;
+  decision: DealerDecision;
+}
+
+const control = (invalid: boolean) => `min-h-11 w-full rounded-md border bg-white px-3 text-ink focus:border-temper ${invalid ? 'border-2 border-oxide' : 'border-cast-line'}`;
+
+function FieldMessage({ id, message }: { id: string; message?: string }) {
+  if (!message) return null;
+  return (
+    <p id={id} className="flex items-center gap-1 text-sm font-semibold text-oxide">
+      <AlertOctagon aria-hidden className="size-4 shrink-0" />
+      {message}
+    </p>
+  );
+}
+
+function Summary({ items, formError, summaryRef }: { items: Array<{ id: string; message: string }>; formError?: string; summaryRef: React.Ref<HTMLDivElement> }) {
+  if (items.length === 0 && !formError) return null;
+  return (
+    <div ref={summaryRef} tabIndex={-1} role="alert" className="rounded-md border-2 border-oxide bg-oxide-tint p-3">
+      <p className="flex items-center gap-1 font-semibold text-oxide">
+        <AlertOctagon aria-hidden className="size-4" />
+        {items.length ? 'Please check the form' : 'That did not work'}
+      </p>
+      {formError && <p>{formError}</p>}
+      <ul className="list-disc pl-5">
+        {items.map((i) => (
+          <li key={i.id}>
+            <a
+              href={`#${i.id}`}
+              onClick={(e) => {
+                e.preventDefault();
+                document.getElementById(i.id)?.focus();
+              }}
+              className="font-semibold text-oxide underline underline-offset-2"
+            >
+              {i.message}
+            </a>
+          </li>
+        ))}
+      </ul>
+    </div>
+  );
+}
+
+function useSummary<T extends Record<string, unknown>>(errors: FieldErrors<T>, fields: Array<{ name: keyof T & string; id: string; label: string }>) {
+  const ref = useRef<HTMLDivElement>(null);
+  const [shown, setShown] = useState(false);
+  const items = fields.flatMap((f) => {
+    const message = (errors as Record<string, { message?: unknown } | undefined>)[f.name]?.message;
+    return typeof message === 'string' ? [{ id: f.id, message: `${f.label}: ${message}` }] : [];
+  });
+  const show = () => {
+    setShown(true);
+    requestAnimationFrame(() => ref.current?.focus());
+  };
+  return { ref, shown, show, hide: () => setShown(false), items };
+}
+
+function Labelled({ id, label, hint, error, children }: { id: string; label: string; hint?: string; error?: string; children: ReactNode }) {
+  return (
+    <div className="grid content-start gap-1">
+      <label htmlFor={id} className="font-semibold">
+        {label}
+      </label>
+      {children}
+      {hint && (
+        <p id={`${id}-hint`} className="text-sm text-cast">
+          {hint}
+        </p>
+      )}
+      <FieldMessage id={`${id}-error`} message={error} />
+    </div>
+  );
+}
+
+const aria = (id: string, error?: string, hint = false) => ({
+  'aria-invalid': error ? true : undefined,
+  'aria-describedby': [hint ? `${id}-hint` : '', error ? `${id}-error` : ''].filter(Boolean).join(' ') || undefined,
+});
+
+export function ApproveDealerForm({ dealerId, companyName, onDone }: { dealerId: number; companyName: string; onDone: (d: DecisionDone) => void }) {
+  const base = useId();
+  const ids = { tier: `${base}-tier`, creditLimit: `${base}-credit`, paymentTermsDays: `${base}-terms` };
+  const form = useForm<ApproveForm>({ shouldFocusError: false, resolver: zodResolver(ApproveFormSchema), defaultValues: { creditLimit: '', paymentTermsDays: '30' } });
+  const decide = useDecideDealer();
+  const errors = form.formState.errors;
+  const summary = useSummary(errors, [
+    { name: 'tier', id: ids.tier, label: 'Trade tier' },
+    { name: 'creditLimit', id: ids.creditLimit, label: 'Credit limit' },
+    { name: 'paymentTermsDays', id: ids.paymentTermsDays, label: 'Payment terms' },
+  ]);
+
+  const onSubmit = form.handleSubmit(
+    (values) => {
+      summary.hide();
+      const decision = DealerDecisionSchema.parse({
+        decision: 'approve',
+        tier: values.tier,
+        creditLimitCents: dollarsToCents(values.creditLimit),
+        paymentTermsDays: Number(values.paymentTermsDays),
+      });
+      decide.mutate({ id: dealerId, decision }, { onSuccess: () => onDone({ dealerId, companyName, decision }), onError: summary.show });
+    },
+    () => {
+      decide.reset();
+      summary.show();
+    },
+  );
+
+  return (
+    <form noValidate onSubmit={onSubmit} aria-label={`Approve ${companyName}`} className="grid content-start gap-3 rounded-md border border-machined/50 bg-white p-4">
+      <h3 className="text-lg font-bold">Approve</h3>
+      {summary.shown && <Summary summaryRef={summary.ref} items={summary.items} formError={decide.isError ? decide.error.message : undefined} />}
+      <Labelled id={ids.tier} label="Trade tier" error={errors.tier?.message}>
+        <select id={ids.tier} defaultValue="" className={control(Boolean(errors.tier))} {...aria(ids.tier, errors.tier?.message)} {...form.register('tier')}>
+          <option value="" disabled>
+            Choose a tier
+          </option>
+          {DEALER_TIER_KEYS.map((t) => (
+            <option key={t} value={t}>
+              {DEALER_TIERS[t].label} — {DEALER_TIERS[t].discountPct} % off
+            </option>
+          ))}
+        </select>
+      </Labelled>
+      <Labelled id={ids.creditLimit} label="Credit limit" hint="In dollars. Orders on account stop when the open balance would pass it." error={errors.creditLimit?.message}>
+        <div className="flex">
+          <span aria-hidden className="inline-flex items-center rounded-l-md border border-r-0 border-cast-line bg-panel px-3 font-semibold text-cast">
+            $
+          </span>
+          <input
+            id={ids.creditLimit}
+            inputMode="decimal"
+            autoComplete="off"
+            className={`${control(Boolean(errors.creditLimit))} tabular rounded-l-none`}
+            {...aria(ids.creditLimit, errors.creditLimit?.message, true)}
+            {...form.register('creditLimit')}
+          />
+        </div>
+      </Labelled>
+      <Labelled id={ids.paymentTermsDays} label="Payment terms" error={errors.paymentTermsDays?.message}>
+        <select id={ids.paymentTermsDays} className={control(Boolean(errors.paymentTermsDays))} {...aria(ids.paymentTermsDays, errors.paymentTermsDays?.message)} {...form.register('paymentTermsDays')}>
+          {PAYMENT_TERMS_DAYS.map((d) => (
+            <option key={d} value={String(d)}>
+              Net {d} days
+            </option>
+          ))}
+        </select>
+      </Labelled>
+      <div>
+        <button type="submit" className={buttonClass('primary')} disabled={decide.isPending}>
+          {decide.isPending ? 'Approving…' : `Approve ${companyName}`}
+        </button>
+      </div>
+    </form>
+  );
+}
+
+export function DeclineDealerForm({ dealerId, companyName, onDone }: { dealerId: number; companyName: string; onDone: (d: DecisionDone) => void }) {
+  const id = `${useId()}-reason`;
+  const form = useForm<DeclineForm>({ shouldFocusError: false, resolver: zodResolver(DeclineFormSchema), defaultValues: { reason: '' } });
+  const decide = useDecideDealer();
+  const errors = form.formState.errors;
+  const summary = useSummary(errors, [{ name: 'reason', id, label: 'Reason' }]);
+
+  const onSubmit = form.handleSubmit(
+    ({ reason }) => {
+      summary.hide();
+      const decision: DealerDecision = { decision: 'decline', reason };
+      decide.mutate({ id: dealerId, decision }, { onSuccess: () => onDone({ dealerId, companyName, decision }), onError: summary.show });
+    },
+    () => {
+      decide.reset();
+      summary.show();
+    },
+  );
+
+  return (
+    <form noValidate onSubmit={onSubmit} aria-label={`Decline ${companyName}`} className="grid content-start gap-3 rounded-md border border-oxide/40 bg-white p-4">
+      <h3 className="text-lg font-bold">Decline</h3>
+      {summary.shown && <Summary summaryRef={summary.ref} items={summary.items} formError={decide.isError ? decide.error.message : undefined} />}
+      <Labelled id={id} label="Reason" hint="Sent to the applicant in the decision e-mail. Keep it short and factual." error={errors.reason?.message}>
+        <textarea id={id} rows={4} className={`${control(Boolean(errors.reason))} py-2`} {...aria(id, errors.reason?.message, true)} {...form.register('reason')} />
+      </Labelled>
+      <div>
+        <button type="submit" className={buttonClass('secondary')} disabled={decide.isPending}>
+          {decide.isPending ? 'Declining…' : `Decline ${companyName}`}
+        </button>
+      </div>
+    </form>
+  );
+}

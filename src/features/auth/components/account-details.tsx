@@ -1,0 +1,108 @@
+import { BadgeCheck, CircleSlash, Clock } from 'lucide-react';
+import type { ReactNode } from 'react';
+import { formatPrice } from '../../../../shared/catalog';
+import type { Me } from '../../../../shared/schemas/accounts';
+import { DEALER_TIERS } from '../../../../shared/pricing';
+import { ROLE_LABELS } from '../roles';
+
+type User = NonNullable<Me['user']>;
+type Dealer = NonNullable<User['dealer']>;
+
+function Row({ label, children }: { label: string; children: ReactNode }) {
+  return (
+    <div className="grid gap-1 border-t border-cast-line py-2 first:border-t-0 sm:grid-cols-[12rem_1fr]">
+      <dt className="font-semibold text-cast">{label}</dt>
+      <dd>{children}</dd>
+    </div>
+  );
+}
+
+export function AccountDetails({ user }: { user: User }) {
+  return (
+    <section aria-labelledby="account-you" className="rounded-md border border-cast-line bg-white p-4">
+      <h2 id="account-you" className="text-xl font-bold">
+        You
+      </h2>
+      <dl className="mt-2">
+        <Row label="Name">{user.name}</Row>
+        <Row label="E-mail">
+          <span className="break-all">{user.email}</span>
+        </Row>
+        <Row label="Role">{ROLE_LABELS[user.role]}</Row>
+      </dl>
+    </section>
+  );
+}
+
+/** The terms an approved dealer buys on; money from the server in cents. */
+export function DealerTerms({ dealer }: { dealer: Dealer }) {
+  const tier = dealer.tier ? DEALER_TIERS[dealer.tier] : null;
+  const balance = dealer.openBalanceCents ?? 0;
+  const available = Math.max(0, dealer.creditLimitCents - balance);
+  return (
+    <section aria-labelledby="account-trade" className="rounded-md border border-cast-line bg-white p-4">
+      <h2 id="account-trade" className="text-xl font-bold">
+        Trade account
+      </h2>
+      <dl className="mt-2">
+        <Row label="Company">{dealer.companyName}</Row>
+        <Row label="Trade tier">{tier ? `${tier.label} — ${tier.discountPct} % off retail` : 'Not set'}</Row>
+        <Row label="Credit limit">
+          <span className="tabular">{formatPrice(dealer.creditLimitCents)}</span>
+        </Row>
+        <Row label="Open balance">
+          <span className="tabular">{formatPrice(balance)}</span>
+          <span className="text-cast"> on account, not yet paid</span>
+        </Row>
+        <Row label="Available credit">
+          <span className="tabular font-semibold">{formatPrice(available)}</span>
+        </Row>
+        <Row label="Payment terms">Net {dealer.paymentTermsDays} days from invoice</Row>
+      </dl>
+    </section>
+  );
+}
+
+/** A trade application's state, with a shape and a word. */
+export function ApplicationState({ dealer }: { dealer: Dealer }) {
+  if (dealer.status === 'pending') {
+    return (
+      <div role="status" className="flex gap-3 rounded-md border border-amber-line bg-amber-tint p-4">
+        <Clock aria-hidden className="mt-0.5 size-5 shrink-0 text-amber" />
+        <div>
+          <p className="font-semibold">
+            Application received — <span className="uppercase tracking-wide">pending</span>
+          </p>
+          <p>
+            We have your trade application for <span className="font-semibold">{dealer.companyName}</span>. The office checks it and e-mails you the
+            decision, usually within two working days. Until then you buy at retail prices.
+          </p>
+        </div>
+      </div>
+    );
+  }
+  if (dealer.status === 'declined') {
+    return (
+      <div role="status" className="flex gap-3 rounded-md border border-oxide bg-oxide-tint p-4">
+        <CircleSlash aria-hidden className="mt-0.5 size-5 shrink-0 text-oxide" />
+        <div>
+          <p className="font-semibold">
+            Application <span className="uppercase tracking-wide">declined</span>
+          </p>
+          <p>
+            The trade application for <span className="font-semibold">{dealer.companyName}</span> was declined; the e-mail we sent gives the reason.
+            Call the trade counter if something has changed.
+          </p>
+        </div>
+      </div>
+    );
+  }
+  return (
+    <div role="status" className="flex gap-3 rounded-md border border-machined bg-machined-tint p-4">
+      <BadgeCheck aria-hidden className="mt-0.5 size-5 shrink-0 text-machined" />
+      <p>
+        <span className="font-semibold">Approved.</span> {dealer.companyName} has a trade account.
+      </p>
+    </div>
+  );
+}

@@ -1,0 +1,132 @@
+import { zodResolver } from '@hookform/resolvers/zod';
+import { useRef, useState } from 'react';
+import { useForm } from 'react-hook-form';
+import { Link } from 'react-router-dom';
+import { SignInSchema, type Me, type SignIn } from '../../../../shared/schemas/accounts';
+import { Button, buttonClass } from '../../../components/ui/button';
+import { useSignIn } from '../api/sign-in';
+import { authErrorMessage } from '../auth-errors';
+import { ErrorSummary, summaryItems, TextField } from './form-parts';
+
+const FIELDS = [
+  { name: 'email', id: 'sign-in-email', label: 'E-mail address' },
+  { name: 'password', id: 'sign-in-password', label: 'Password' },
+] as const;
+
+export function SignInForm({ demoAccounts, onSignedIn }: { demoAccounts?: Me['demoAccounts']; onSignedIn: () => void }) {
+  const form = useForm<SignIn>({ shouldFocusError: false, resolver: zodResolver(SignInSchema), defaultValues: { email: '', password: '' } });
+  const signIn = useSignIn();
+  const summaryRef = useRef<HTMLDivElement>(null);
+  const submitRef = useRef<HTMLButtonElement>(null);
+  const [showSummary, setShowSummary] = useState(false);
+  const errors = form.formState.errors;
+
+  const focusSummary = () => requestAnimationFrame(() => summaryRef.current?.focus());
+  const onSubmit = form.handleSubmit(
+    (values) => {
+      setShowSummary(false);
+      signIn.mutate(values, {
+        onSuccess: onSignedIn,
+        onError: () => {
+          setShowSummary(true);
+          form.setValue('password', '');
+          focusSummary();
+        },
+      });
+    },
+    () => {
+      signIn.reset();
+      setShowSummary(true);
+      focusSummary();
+    },
+  );
+
+  const fillAccount = (email: string, password: string) => {
+    form.reset({ email, password });
+    setShowSummary(false);
+    signIn.reset();
+    submitRef.current?.focus();
+  };
+
+  const formError = signIn.isError ? authErrorMessage(signIn.error, 'sign-in') : undefined;
+  return (
+    <div className="grid grid-cols-[minmax(0,1fr)] gap-8">
+      <form noValidate onSubmit={onSubmit} className="grid gap-4" aria-label="Sign in">
+        {showSummary && <ErrorSummary ref={summaryRef} items={summaryItems(errors, FIELDS)} formError={formError} />}
+        <TextField
+          id="sign-in-email"
+          label="E-mail address"
+          type="email"
+          autoComplete="username"
+          error={errors.email?.message}
+          {...form.register('email')}
+        />
+        <TextField
+          id="sign-in-password"
+          label="Password"
+          type="password"
+          autoComplete="current-password"
+          error={errors.password?.message}
+          hint={
+            <Link to="/forgot-password" className="font-semibold text-temper underline underline-offset-2">
+              Forgot your password?
+            </Link>
+          }
+          {...form.register('password')}
+        />
+        <div className="flex flex-wrap items-center gap-4">
+          <button ref={submitRef} type="submit" className={buttonClass('primary', 'lg')} disabled={signIn.isPending}>
+            {signIn.isPending ? 'Signing in…' : 'Sign in'}
+          </button>
+          <p className="text-cast">
+            New here?{' '}
+            <Link to="/sign-up" className="font-semibold text-temper underline underline-offset-2">
+              Create an account
+            </Link>
+          </p>
+        </div>
+      </form>
+      {demoAccounts && demoAccounts.length > 0 && <DemoAccounts accounts={demoAccounts} onUse={fillAccount} />}
+    </div>
+  );
+}
+
+function DemoAccounts({ accounts, onUse }: { accounts: NonNullable<Me['demoAccounts']>; onUse: (email: string, password: string) => void }) {
+  return (
+    <section aria-labelledby="demo-accounts-heading" className="rounded-md border border-dashed border-amber-line bg-amber-tint/60 p-4">
+      <h2 id="demo-accounts-heading" className="text-lg font-bold">
+        Demo accounts <span className="rounded bg-white px-2 py-0.5 text-sm font-semibold uppercase tracking-wider text-amber">development only</span>
+      </h2>
+      <p className="text-sm text-cast">One account per role, shown here because this server runs in development. Production never lists them.</p>
+      <div className="relative mt-3 overflow-x-auto rounded-md border border-cast-line bg-white">
+        <table className="w-full text-left text-sm">
+          <caption className="sr-only">Demo accounts with their passwords</caption>
+          <thead className="bg-panel">
+            <tr>
+              <th scope="col" className="px-3 py-2">Role</th>
+              <th scope="col" className="px-3 py-2">E-mail</th>
+              <th scope="col" className="px-3 py-2">Password</th>
+              <th scope="col" className="px-3 py-2">
+                <span className="sr-only">Action</span>
+              </th>
+            </tr>
+          </thead>
+          <tbody>
+            {accounts.map((a) => (
+              <tr key={a.email} className="border-t border-cast-line">
+                <td className="px-3 py-2 font-semibold whitespace-nowrap">{a.role}</td>
+                <td className="px-3 py-2 whitespace-nowrap">{a.email}</td>
+                <td className="px-3 py-2 font-mono whitespace-nowrap">{a.password}</td>
+                <td className="px-3 py-1 text-right">
+                  <Button variant="secondary" className="min-h-9" onClick={() => onUse(a.email, a.password)} aria-label={`Use ${a.email}`}>
+                    Use
+                  </Button>
+                </td>
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      </div>
+    </section>
+  );
+}

@@ -1,0 +1,78 @@
+import { zodResolver } from '@hookform/resolvers/zod';
+import { useRef, useState } from 'react';
+import { useForm } from 'react-hook-form';
+import { Link } from 'react-router-dom';
+import { PASSWORD_MIN, SignUpSchema, type SignUp } from '../../../../shared/schemas/accounts';
+import { buttonClass } from '../../../components/ui/button';
+import { useSignUp } from '../api/sign-up';
+import { authErrorMessage } from '../auth-errors';
+import { ErrorSummary, summaryItems, TextField } from './form-parts';
+
+const FIELDS = [
+  { name: 'name', id: 'sign-up-name', label: 'Your name' },
+  { name: 'email', id: 'sign-up-email', label: 'E-mail address' },
+  { name: 'password', id: 'sign-up-password', label: 'Password' },
+] as const;
+
+export function SignUpForm({ onSignedUp, signInHref }: { onSignedUp: () => void; signInHref: string }) {
+  const form = useForm<SignUp>({ shouldFocusError: false, resolver: zodResolver(SignUpSchema), defaultValues: { name: '', email: '', password: '' } });
+  const signUp = useSignUp();
+  const summaryRef = useRef<HTMLDivElement>(null);
+  const [showSummary, setShowSummary] = useState(false);
+  const errors = form.formState.errors;
+  const focusSummary = () => requestAnimationFrame(() => summaryRef.current?.focus());
+
+  const onSubmit = form.handleSubmit(
+    (values) => {
+      setShowSummary(false);
+      signUp.mutate(values, {
+        onSuccess: onSignedUp,
+        onError: () => {
+          setShowSummary(true);
+          focusSummary();
+        },
+      });
+    },
+    () => {
+      signUp.reset();
+      setShowSummary(true);
+      focusSummary();
+    },
+  );
+
+  return (
+    <form noValidate onSubmit={onSubmit} className="grid gap-4" aria-label="Create an account">
+      {showSummary && <ErrorSummary ref={summaryRef} items={summaryItems(errors, FIELDS)} formError={signUp.isError ? authErrorMessage(signUp.error, 'sign-up') : undefined} />}
+      <TextField id="sign-up-name" label="Your name" autoComplete="name" error={errors.name?.message} {...form.register('name')} />
+      <TextField
+        id="sign-up-email"
+        label="E-mail address"
+        type="email"
+        autoComplete="email"
+        hint="Order confirmations and password-reset links go here."
+        error={errors.email?.message}
+        {...form.register('email')}
+      />
+      <TextField
+        id="sign-up-password"
+        label="Password"
+        type="password"
+        autoComplete="new-password"
+        hint={`At least ${PASSWORD_MIN} characters. A short sentence is easier to remember than a jumble.`}
+        error={errors.password?.message}
+        {...form.register('password')}
+      />
+      <div className="flex flex-wrap items-center gap-4">
+        <button type="submit" className={buttonClass('primary', 'lg')} disabled={signUp.isPending}>
+          {signUp.isPending ? 'Creating your account…' : 'Create account'}
+        </button>
+        <p className="text-cast">
+          Already have one?{' '}
+          <Link to={signInHref} className="font-semibold text-temper underline underline-offset-2">
+            Sign in
+          </Link>
+        </p>
+      </div>
+    </form>
+  );
+}

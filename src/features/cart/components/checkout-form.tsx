@@ -1,0 +1,423 @@
+import { zodResolver } from '@hookform/resolvers/zod';
+import { CircleCheck, CreditCard, FileText, LoaderCircle, OctagonAlert, ShieldCheck } from 'lucide-react';
+import { useState } from 'react';
+import { useForm, type FieldError, type FieldErrors, type Resolver } from 'react-hook-form';
+import { Link } from 'react-router-dom';
+import { formatPrice } from '../../../../shared/catalog';
+import { DELIVERY_ZONE_KEYS, DELIVERY_ZONES, type DeliveryZone } from '../../../../shared/pricing';
+import type { Me } from '../../../../shared/schemas/accounts';
+import { CheckoutSchema, PURCHASE_ORDER_MAX, type CartView, type Checkout } from '../../../../shared/schemas/orders';
+import { Button } from '../../../components/ui/button';
+import { EmptyState, ErrorState, LoadingState } from '../../../components/ui/states';
+import { ApiError } from '../../../lib/api-client';
+import { useAuthenticatePayment, usePlaceOrder } from '../api/checkout';
+import { useCart } from '../api/get-cart';
+import { useSetDeliveryZone } from '../api/set-delivery-zone';
+import { CartTotals } from './cart-totals';
+import { blockedLines } from './cart-page';
+import { ErrorSummary, type SummaryItem } from './error-summary';
+
+interface CheckoutFormValues {
+  method: 'card' | 'account';
+  paymentMethod: string;
+  purchaseOrder: string;
+  /** Dealers on account may ship to the address on their trade account. */
+  useAccountAddress: boolean;
+  delivery: { name: string; line1: string; city: string; postcode: string; zone: DeliveryZone };
+}
+
+function toPayload(v: CheckoutFormValues): Checkout {
+  if (v.method === 'account') return { method: 'account', purchaseOrder: v.purchaseOrder, ...(v.useAccountAddress ? {} : { delivery: v.delivery }) };
+  return { method: 'card', paymentMethod: v.paymentMethod, delivery: v.delivery };
+}
+
+const payloadResolver = zodResolver(CheckoutSchema);
+/** The shared CheckoutSchema checks what will be sent, so the form and the server agree on every rule. */
+const resolver: Resolver<CheckoutFormValues> = async (values, context, options) => {
+  const result = await payloadResolver(toPayload(values) as never, context, options as never);
+  return Object.keys(result.errors).length > 0 ? { values: {}, errors: result.errors as FieldErrors<CheckoutFormValues> } : { values, errors: {} };
+};
+
+const fieldId = (path: string) => `checkout-${path.replace(/\./g, '-')}`;
+
+const FIELD_ORDER = ['method', 'paymentMethod', 'purchaseOrder', 'delivery.name', 'delivery.line1', 'delivery.city', 'delivery.postcode', 'delivery.zone'] as const;
+
+function summaryOf(errors: FieldErrors<CheckoutFormValues>): SummaryItem[] {
+  const get = (path: string): FieldError | undefined => path.split('.').reduce<unknown>((o, k) => (o as Record<string, unknown> | undefined)?.[k], errors) as FieldError | undefined;
+  return FIELD_ORDER.flatMap((p) => {
+    const e = get(p);
+    if (!e?.message) return [];
+    // A card choice is a radio group: link to its first option.
+    return [{ fieldId: p === 'paymentMethod' ? `${fieldId(p)}-0` : fieldId(p), message: e.message }];
+  });
+}
+
+const inputClass = (invalid: boolean) =>
+  `min-h-11 w-full rounded-md border bg-white px-3 ${invalid ? 'border-2 border-oxide' : 'border-cast-line'} focus:border-temper`;
+
+function FieldMessage({ id, error }: { id: string; error?: FieldError }) {
+  if (!error?.message) return null;
+  return (
+    <p id={`${id}-error`} className="inline-flex items-center gap-1 text-sm font-semibold text-oxide">
+      <OctagonAlert aria-hidden className="size-4" />
+      {error.message}
+    </p>
+  );
+}
+
+function CreditCheck({ dealer, orderCents }: { dealer: NonNullable<NonNullable<Me['user']>['dealer']>; orderCents: number }) {
+  const open = dealer.openBalanceCents ?? 0;
+  const after = open + orderCents;
+  const over = after > dealer.creditLimitCents;
+  const pct = dealer.creditLimitCents > 0 ? Math.min(100, (after / dealer.creditLimitCents) * 100) : 100;
+  return (
+    <section aria-labelledby="credit-heading" className="grid gap-2 rounded-md bg-panel p-4">
+      <h3 id="credit-heading" className="font-bold">
+        Credit check
+      </h3>
+      <dl className="grid grid-cols-[1fr_auto] gap-x-4 gap-y-1 text-sm">
+        <dt>Open balance</dt>
+        <dd className="tabular text-right">{formatPrice(open)}</dd>
+        <dt>This order</dt>
+        <dd className="tabular text-right">{formatPrice(orderCents)}</dd>
+        <dt className="font-semibold">Balance after this order</dt>
+        <dd className="tabular text-right font-semibold">{formatPrice(after)}</dd>
+        <dt>Credit limit</dt>
+        <dd className="tabular text-right">{formatPrice(dealer.creditLimitCents)}</dd>
+      </dl>
+      <div aria-hidden className="h-2 overflow-hidden rounded bg-white ring-1 ring-cast-line">
+        <div className={`h-full ${over ? 'bg-oxide' : 'bg-machined'}`} style={{ width: `${pct}%` }} />
+      </div>
+      {over ? (
+        <p className="inline-flex items-start gap-1 text-sm font-semibold text-oxide">
+          <OctagonAlert aria-hidden className="mt-0.5 size-4 shrink-0" />
+          Over your credit limit by {formatPrice(after - dealer.creditLimitCents)}. Pay an open invoice first, or pay this order by card.
+        </p>
+      ) : (
+        <p className="inline-flex items-start gap-1 text-sm text-machined">
+          <CircleCheck aria-hidden className="mt-0.5 size-4 shrink-0" />
+          Within your credit limit ({formatPrice(dealer.creditLimitCents - after)} to spare).
+        </p>
+      )}
+    </section>
+  );
+}
+
+function AuthenticationStep({ paymentIntentId, orderNumber, totalCents, onDone }: { paymentIntentId: string; orderNumber: string; totalCents: number; onDone: () => void }) {
+  const authenticate = useAuthenticatePayment();
+  return (
+    <section aria-labelledby="auth-heading" className="grid max-w-xl gap-3 rounded-lg bg-white p-6 shadow-sm ring-2 ring-temper">
+      <h2 id="auth-heading" className="inline-flex items-center gap-2 text-2xl font-bold">
+        <ShieldCheck aria-hidden className="size-6 text-temper" />
+        Your card needs authentication
+      </h2>
+      <p>
+        The card issuer asks you to confirm the payment of <span className="tabular font-semibold">{formatPrice(totalCents)}</span> for order{' '}
+        <span className="part-no">{orderNumber}</span>.
+      </p>
+      <p className="text-sm text-cast">Test mode: this step stands in for the issuer's check, which the payment provider's script would show.</p>
+      <div className="flex flex-wrap gap-3">
+        <Button disabled={authenticate.isPending} onClick={() => authenticate.mutate({ paymentIntentId, outcome: 'succeed' }, { onSuccess: onDone })}>
+          Complete authentication
+        </Button>
+        <Button variant="secondary" disabled={authenticate.isPending} onClick={() => authenticate.mutate({ paymentIntentId, outcome: 'fail' }, { onSuccess: onDone })}>
+          Fail authentication
+        </Button>
+      </div>
+      {authenticate.isError && (
+        <p role="alert" className="font-semibold text-oxide">
+          {authenticate.error.message}
+        </p>
+      )}
+    </section>
+  );
+}
+
+function OrderLinesSummary({ cart }: { cart: CartView }) {
+  return (
+    <ul className="grid gap-2 text-sm">
+      {cart.lines.map((l) => (
+        <li key={l.id} className="flex justify-between gap-3">
+          <span className="min-w-0">
+            <span className="tabular">{l.quantity}</span> × <span className="part-no">{l.partNumber}</span>
+            <span className="block text-cast">{l.title}</span>
+            {l.backorderQuantity > 0 && l.allowBackorder && <span className="block text-amber">{l.backorderQuantity} on back-order</span>}
+          </span>
+          <span className="tabular shrink-0">{formatPrice(l.lineCents)}</span>
+        </li>
+      ))}
+    </ul>
+  );
+}
+
+export function CheckoutForm({ me, onPlaced }: { me: Me; onPlaced: (orderNumber: string) => void }) {
+  const cart = useCart();
+  const place = usePlaceOrder();
+  if (place.data?.nextAction) {
+    const { order, nextAction } = place.data;
+    return <AuthenticationStep paymentIntentId={nextAction.paymentIntentId} orderNumber={order.number} totalCents={order.totalCents} onDone={() => onPlaced(order.number)} />;
+  }
+  if (place.isSuccess) return <LoadingState label={`Order ${place.data.order.number} placed. Opening it…`} />;
+  if (cart.isPending) return <LoadingState label="Loading your cart…" />;
+  if (cart.isError) return <ErrorState title="Your cart did not load" message={cart.error.message} onRetry={() => cart.refetch()} />;
+  if (cart.data.lines.length === 0) {
+    return (
+      <EmptyState title="Your cart is empty">
+        <p>
+          Nothing to check out yet.{' '}
+          <Link to="/catalogue" className="font-semibold text-temper underline">
+            Browse the catalogue
+          </Link>
+          {' or '}
+          <Link to="/orders" className="font-semibold text-temper underline">
+            see your orders
+          </Link>
+          .
+        </p>
+      </EmptyState>
+    );
+  }
+  return <CheckoutFields me={me} cart={cart.data} place={place} onPlaced={onPlaced} />;
+}
+
+function CheckoutFields({ me, cart: c, place, onPlaced }: { me: Me; cart: CartView; place: ReturnType<typeof usePlaceOrder>; onPlaced: (orderNumber: string) => void }) {
+  const user = me.user!;
+  const dealer = user.role === 'dealer' && user.dealer?.status === 'approved' ? user.dealer : null;
+  const testMethods = me.payments.testMethods ?? [];
+  const setZone = useSetDeliveryZone();
+  const [submitCount, setSubmitCount] = useState(0);
+
+  const form = useForm<CheckoutFormValues>({
+    resolver,
+    defaultValues: {
+      method: dealer ? 'account' : 'card',
+      paymentMethod: '',
+      purchaseOrder: '',
+      useAccountAddress: true,
+      delivery: { name: dealer ? dealer.companyName : user.name, line1: '', city: '', postcode: '', zone: (dealer?.deliveryZone as DeliveryZone | undefined) ?? c.deliveryZone },
+    },
+  });
+  const { register, handleSubmit, watch, formState, setError } = form;
+  const method = watch('method');
+  const useAccountAddress = watch('useAccountAddress');
+  const errors = formState.errors;
+
+  const blocked = blockedLines(c);
+  const showDelivery = method === 'card' || !useAccountAddress;
+  const summary = summaryOf(errors);
+  const placeError = place.error instanceof ApiError ? place.error : place.error ? new ApiError(0, place.error.message) : null;
+
+  const onSubmit = handleSubmit(
+    (values) => {
+      place.mutate(toPayload(values), {
+        onSuccess: (res) => {
+          if (!res.nextAction) onPlaced(res.order.number);
+        },
+        onError: (err) => {
+          if (err instanceof ApiError && err.isValidation) {
+            for (const [path, messages] of Object.entries(err.fieldErrors)) {
+              if ((FIELD_ORDER as readonly string[]).includes(path)) setError(path as (typeof FIELD_ORDER)[number], { message: messages[0] ?? 'not valid' });
+            }
+          }
+          window.scrollTo({ top: 0 });
+        },
+      });
+    },
+    () => setSubmitCount((n) => n + 1),
+  );
+
+  const zoneField = register('delivery.zone', {
+    onChange: (e: { target: { value: string } }) => {
+      if (!dealer) setZone.mutate(e.target.value as DeliveryZone);
+    },
+  });
+
+  return (
+    <div className="grid gap-8 lg:grid-cols-[minmax(0,1fr)_22rem]">
+      <form onSubmit={onSubmit} noValidate className="grid content-start gap-6" aria-label="Checkout">
+        <ErrorSummary items={summary} focusKey={submitCount} />
+        {placeError && (
+          <div role="alert" className="flex gap-3 rounded-md border-2 border-oxide bg-oxide-tint p-4">
+            <OctagonAlert aria-hidden className="mt-0.5 size-5 shrink-0 text-oxide" />
+            <div>
+              <p className="font-bold text-oxide">
+                {placeError.status === 402 ? 'Payment declined' : placeError.status === 409 ? 'The order was not placed' : 'Something went wrong'}
+              </p>
+              <p>{placeError.message}</p>
+            </div>
+          </div>
+        )}
+
+        <fieldset className="grid gap-3">
+          <legend className="mb-2 text-xl font-bold">How to pay</legend>
+          {errors.method && <FieldMessage id={fieldId('method')} error={errors.method} />}
+          <div className="grid gap-2 sm:grid-cols-2">
+            {dealer && (
+              <label className="flex cursor-pointer items-start gap-3 rounded-md border border-cast-line bg-white p-4 has-[:checked]:border-2 has-[:checked]:border-temper">
+                <input type="radio" value="account" id={fieldId('method')} {...register('method')} className="mt-1 size-5 accent-temper" />
+                <span>
+                  <span className="inline-flex items-center gap-2 font-semibold">
+                    <FileText aria-hidden className="size-5" /> On account
+                  </span>
+                  <span className="block text-sm text-cast">Invoice to {dealer.companyName}, payment due in {dealer.paymentTermsDays} days</span>
+                </span>
+              </label>
+            )}
+            <label className="flex cursor-pointer items-start gap-3 rounded-md border border-cast-line bg-white p-4 has-[:checked]:border-2 has-[:checked]:border-temper">
+              <input type="radio" value="card" {...register('method')} {...(dealer ? {} : { id: fieldId('method') })} className="mt-1 size-5 accent-temper" />
+              <span>
+                <span className="inline-flex items-center gap-2 font-semibold">
+                  <CreditCard aria-hidden className="size-5" /> Card
+                </span>
+                <span className="block text-sm text-cast">Paid now; we start picking once the payment is confirmed</span>
+              </span>
+            </label>
+          </div>
+        </fieldset>
+
+        {method === 'card' && (
+          <fieldset className="grid gap-2" aria-describedby="test-card-hint">
+            <legend className="mb-1 text-lg font-bold">Test card</legend>
+            {testMethods.length > 0 ? (
+              <>
+                <p id="test-card-hint" className="text-sm text-cast">
+                  Test mode: the payment provider's card form cannot load here, so choose one of its test cards. No money moves.
+                </p>
+                {testMethods.map((m, i) => (
+                  <label key={m.id} className="flex cursor-pointer items-center gap-3 rounded-md border border-cast-line bg-white px-4 py-3 has-[:checked]:border-2 has-[:checked]:border-temper">
+                    <input
+                      type="radio"
+                      value={m.id}
+                      id={`${fieldId('paymentMethod')}-${i}`}
+                      {...register('paymentMethod')}
+                      aria-invalid={!!errors.paymentMethod}
+                      className="size-5 accent-temper"
+                    />
+                    <span>{m.label}</span>
+                  </label>
+                ))}
+                <FieldMessage id={fieldId('paymentMethod')} error={errors.paymentMethod} />
+              </>
+            ) : (
+              <p id="test-card-hint" className="text-sm">
+                Card payments use the payment provider's secure card form.
+              </p>
+            )}
+          </fieldset>
+        )}
+
+        {method === 'account' && dealer && (
+          <div className="grid gap-4">
+            <div className="grid max-w-md gap-1">
+              <label htmlFor={fieldId('purchaseOrder')} className="font-semibold">
+                Purchase-order number
+              </label>
+              <input
+                id={fieldId('purchaseOrder')}
+                maxLength={PURCHASE_ORDER_MAX}
+                autoComplete="off"
+                aria-invalid={!!errors.purchaseOrder}
+                aria-describedby={`${fieldId('purchaseOrder')}-hint${errors.purchaseOrder ? ` ${fieldId('purchaseOrder')}-error` : ''}`}
+                className={inputClass(!!errors.purchaseOrder)}
+                {...register('purchaseOrder')}
+              />
+              <p id={`${fieldId('purchaseOrder')}-hint`} className="text-sm text-cast">
+                Your own reference; it is printed on the invoice. Up to {PURCHASE_ORDER_MAX} letters, digits, spaces and - / . #
+              </p>
+              <FieldMessage id={fieldId('purchaseOrder')} error={errors.purchaseOrder} />
+            </div>
+            <p>
+              Payment terms: <span className="font-semibold">{dealer.paymentTermsDays} days</span> from the invoice date.
+            </p>
+            <CreditCheck dealer={dealer} orderCents={c.totals.totalCents} />
+          </div>
+        )}
+
+        <fieldset className="grid gap-3">
+          <legend className="mb-1 text-xl font-bold">Delivery address</legend>
+          {dealer && method === 'account' && (
+            <label className="inline-flex items-center gap-2">
+              <input type="checkbox" className="size-5 accent-temper" {...register('useAccountAddress')} />
+              Deliver to the address on {dealer.companyName}'s trade account
+            </label>
+          )}
+          {showDelivery && (
+            <div className="grid gap-4 sm:grid-cols-2">
+              {(
+                [
+                  ['delivery.name', 'Name or company', 'name', 'organization'],
+                  ['delivery.line1', 'Street address', 'line1', 'street-address'],
+                  ['delivery.city', 'Town or city', 'city', 'address-level2'],
+                  ['delivery.postcode', 'Postcode', 'postcode', 'postal-code'],
+                ] as const
+              ).map(([path, label, key, auto]) => {
+                const err = errors.delivery?.[key];
+                const id = fieldId(path);
+                return (
+                  <div key={path} className={`grid content-start gap-1 ${key === 'line1' ? 'sm:col-span-2' : ''}`}>
+                    <label htmlFor={id} className="font-semibold">
+                      {label}
+                    </label>
+                    <input
+                      id={id}
+                      autoComplete={auto}
+                      aria-invalid={!!err}
+                      aria-describedby={err ? `${id}-error` : undefined}
+                      className={inputClass(!!err)}
+                      {...register(path)}
+                    />
+                    <FieldMessage id={id} error={err} />
+                  </div>
+                );
+              })}
+              <div className="grid content-start gap-1">
+                <label htmlFor={fieldId('delivery.zone')} className="font-semibold">
+                  Delivery zone
+                </label>
+                <select id={fieldId('delivery.zone')} disabled={!!dealer} aria-describedby={`${fieldId('delivery.zone')}-hint`} className={inputClass(!!errors.delivery?.zone)} {...zoneField}>
+                  {DELIVERY_ZONE_KEYS.map((z) => (
+                    <option key={z} value={z}>
+                      {DELIVERY_ZONES[z]}
+                    </option>
+                  ))}
+                </select>
+                <p id={`${fieldId('delivery.zone')}-hint`} className="text-sm text-cast">
+                  {dealer ? "Set on your trade account; freight is priced to it." : 'Freight is priced to this zone.'}
+                </p>
+                <FieldMessage id={fieldId('delivery.zone')} error={errors.delivery?.zone} />
+              </div>
+            </div>
+          )}
+        </fieldset>
+
+        {blocked.length > 0 && (
+          <p role="status" className="rounded-md border border-oxide/40 bg-oxide-tint p-3">
+            Not enough stock for {blocked.map((l) => l.partNumber).join(', ')}.{' '}
+            <Link to="/cart" className="font-semibold text-temper underline">
+              Change the cart
+            </Link>{' '}
+            first.
+          </p>
+        )}
+        <div className="flex flex-wrap items-center gap-4">
+          <Button type="submit" size="lg" disabled={place.isPending || blocked.length > 0 || (method === 'card' && testMethods.length === 0)}>
+            {place.isPending && <LoaderCircle aria-hidden className="size-5 animate-spin" />}
+            {method === 'account' ? `Place order on account (${formatPrice(c.totals.totalCents)})` : `Pay ${formatPrice(c.totals.totalCents)} by card`}
+          </Button>
+          <Link to="/cart" className="font-semibold text-temper underline">
+            Back to cart
+          </Link>
+        </div>
+      </form>
+      <aside className="grid min-w-0 content-start gap-4" aria-label="Order summary">
+        <section aria-labelledby="summary-lines" className="min-w-0 rounded-lg bg-white p-5 shadow-sm ring-1 ring-cast-line">
+          <h2 id="summary-lines" className="mb-2 text-xl font-bold">
+            In this order
+          </h2>
+          <OrderLinesSummary cart={c} />
+        </section>
+        <CartTotals cart={c} />
+      </aside>
+    </div>
+  );
+}

@@ -1,0 +1,18 @@
+import { queryOptions, useQuery } from '@tanstack/react-query';
+import { CaughtMailListSchema } from '../../../../shared/schemas/dev-mail';
+import { api } from '../../../lib/api-client';
+import { devKeys } from './keys';
+
+export const getMail = (signal?: AbortSignal) => api('/dev/mail', CaughtMailListSchema, { signal });
+
+export const mailQueryOptions = () =>
+  queryOptions({
+    queryKey: devKeys.mail(),
+    queryFn: ({ signal }) => getMail(signal),
+    staleTime: 0,
+    // Newest first whatever order the catcher keeps.
+    select: (data) => [...data.messages].sort((a, b) => b.date.localeCompare(a.date)),
+  });
+
+/** Messages the development mail catcher holds. */
+export const useMail = () => useQuery(mailQueryOptions());

@@ -1,0 +1,4 @@
+export const devKeys = {
+  all: ['dev'] as const,
+  mail: () => [...devKeys.all, 'mail'] as const,
+};

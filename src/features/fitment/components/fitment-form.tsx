@@ -1,0 +1,451 @@
+import { zodResolver } from '@hookform/resolvers/zod';
+import { ChevronRight } from 'lucide-react';
+import { useEffect, useRef, useState, type ReactNode } from 'react';
+import { useForm, type FieldErrors, type Resolver, type UseFormRegisterReturn } from 'react-hook-form';
+import { defaultAfr, defaultBsfcLbPerHpH } from '../../../../shared/fitment/airflow';
+import {
+  APPLICATION_DEFAULTS,
+  DEFAULT_AMBIENT_C,
+  DEFAULT_CHARGE_LOSS_PSI_INTERCOOLED,
+  DEFAULT_CHARGE_LOSS_PSI_NO_INTERCOOLER,
+  DEFAULT_COMPRESSOR_EFFICIENCY,
+  DEFAULT_INLET_LOSS_PSI,
+  DEFAULT_INTERCOOLED,
+  DEFAULT_VOLUMETRIC_EFFICIENCY,
+} from '../../../../shared/fitment/defaults';
+import { APPLICATIONS, FUELS, FitmentRequestSchema, type Application, type FitmentRequest, type FitmentRequestInput, type Fuel } from '../../../../shared/schemas/fitment';
+import { Button } from '../../../components/ui/button';
+import {
+  ADVANCED_FIELDS,
+  formFieldOf,
+  formToRequest,
+  NUMERIC_FIELDS,
+  rangeMessage,
+  requestToForm,
+  show,
+  type FitmentFormValues,
+  type FormField,
+  type NumericField,
+  type UnitSystem,
+} from '../lib/units';
+import { UnitSwitch } from './unit-switch';
+
+export const FUEL_LABELS: Record<Fuel, string> = { petrol: 'Petrol (gasoline)', e85: 'E85', methanol: 'Methanol', diesel: 'Diesel' };
+export const APPLICATION_LABELS: Record<Application, string> = {
+  street: 'Street',
+  circuit: 'Circuit (track days, racing)',
+  drag: 'Drag racing',
+  offroad: 'Off-road',
+  marine: 'Marine',
+};
+
+/** A 2.0 L petrol street engine making 300 hp at 6500 rpm: a common first turbo project. */
+const STARTING_ENGINE: Partial<FitmentRequest> = { displacementL: 2.0, powerHp: 300, rpm: 6500, fuel: 'petrol', application: 'street' };
+
+const BLANK: FitmentFormValues = {
+  displacement: '',
+  power: '',
+  rpm: '',
+  fuel: 'petrol',
+  application: 'street',
+  altitude: '',
+  inletTemp: '',
+  intercooled: DEFAULT_INTERCOOLED,
+  bsfc: '',
+  afr: '',
+  volumetricEfficiency: '',
+  manifoldTemp: '',
+  chargeLoss: '',
+  inletLoss: '',
+  compressorEfficiency: '',
+};
+
+export function formValuesFor(request: Partial<FitmentRequest> | null, system: UnitSystem): FitmentFormValues {
+  return requestToForm(request ?? STARTING_ENGINE, system, BLANK);
+}
+
+const fieldId = (name: FormField) => `fitment-${name}`;
+const capitalise = (s: string) => s.charAt(0).toUpperCase() + s.slice(1);
+
+function flatten(errors: FieldErrors, prefix = ''): Array<[string, string]> {
+  const out: Array<[string, string]> = [];
+  for (const [key, value] of Object.entries(errors)) {
+    if (!value || typeof value !== 'object') continue;
+    const path = prefix ? `${prefix}.${key}` : key;
+    if ('message' in value && typeof value.message === 'string') out.push([path, value.message]);
+    else out.push(...flatten(value as FieldErrors, path));
+  }
+  return out;
+}
+
+/** The message a field shows: the shared schema's words, with ranges restated in the units on screen. */
+function messageFor(field: FormField, schemaMessage: string, values: FitmentFormValues, system: UnitSystem): string {
+  if (field in NUMERIC_FIELDS) {
+    const numeric = field as NumericField;
+    const text = values[numeric].trim();
+    if (text === '') return capitalise(schemaMessage);
+    if (Number.isNaN(Number(text.replace(/,/g, '')))) return `${NUMERIC_FIELDS[numeric].label} must be a number`;
+    return capitalise(rangeMessage(numeric, system));
+  }
+  return capitalise(schemaMessage);
+}
+
+/** Validates with the shared request schema after converting the form to the API's units. */
+function fitmentResolver(systemRef: { current: UnitSystem }): Resolver<FitmentFormValues> {
+  const schemaResolver = zodResolver(FitmentRequestSchema);
+  return async (values, context) => {
+    const system = systemRef.current;
+    const body = formToRequest(values, system) as FitmentRequestInput;
+    const result = await schemaResolver(body, context, { fields: {}, shouldUseNativeValidation: false });
+    const errors: Partial<Record<FormField, { type: string; message: string }>> = {};
+    for (const [path, message] of flatten(result.errors)) {
+      const field = formFieldOf(path);
+      if (field && !errors[field]) errors[field] = { type: 'validate', message: messageFor(field, message, values, system) };
+    }
+    // The schema checks power only once everything else parses; say it at once.
+    if (values.power.trim() === '' && !errors.power) errors.power = { type: 'required', message: 'Power is required' };
+    return Object.keys(errors).length === 0 ? { values, errors: {} } : { values: {}, errors: errors as FieldErrors<FitmentFormValues> };
+  };
+}
+
+function Field({
+  name,
+  label,
+  hint,
+  unit,
+  error,
+  registration,
+}: {
+  name: FormField;
+  label: string;
+  hint?: ReactNode;
+  unit?: string;
+  error?: string;
+  registration: UseFormRegisterReturn;
+}) {
+  const id = fieldId(name);
+  const describedBy = [hint ? `${id}-hint` : null, error ? `${id}-error` : null].filter(Boolean).join(' ') || undefined;
+  return (
+    <div className="grid content-start gap-1">
+      <label htmlFor={id} className="font-semibold">
+        {label}
+      </label>
+      <div className="flex items-stretch">
+        <input
+          id={id}
+          type="text"
+          inputMode="decimal"
+          autoComplete="off"
+          aria-invalid={error ? true : undefined}
+          aria-describedby={describedBy}
+          {...registration}
+          className={`tabular min-h-11 w-full min-w-0 rounded-l-md border bg-white px-3 text-ink ${unit ? '' : 'rounded-r-md'} ${
+            error ? 'border-oxide ring-1 ring-oxide' : 'border-cast-line focus:border-temper'
+          }`}
+        />
+        {unit && (
+          <span className="inline-flex min-w-14 items-center justify-center rounded-r-md border border-l-0 border-cast-line bg-panel px-2 text-sm text-cast">
+            {unit}
+          </span>
+        )}
+      </div>
+      {hint && (
+        <p id={`${id}-hint`} className="text-sm text-cast">
+          {hint}
+        </p>
+      )}
+      {error && (
+        <p id={`${id}-error`} className="text-sm font-semibold text-oxide">
+          {error}
+        </p>
+      )}
+    </div>
+  );
+}
+
+function SelectField({ name, label, hint, options, registration }: {
+  name: FormField;
+  label: string;
+  hint?: string;
+  options: Array<[string, string]>;
+  registration: UseFormRegisterReturn;
+}) {
+  const id = fieldId(name);
+  return (
+    <div className="grid content-start gap-1">
+      <label htmlFor={id} className="font-semibold">
+        {label}
+      </label>
+      <select id={id} {...registration} aria-describedby={hint ? `${id}-hint` : undefined} className="min-h-11 rounded-md border border-cast-line bg-white px-3 text-ink focus:border-temper">
+        {options.map(([value, text]) => (
+          <option key={value} value={value}>
+            {text}
+          </option>
+        ))}
+      </select>
+      {hint && (
+        <p id={`${id}-hint`} className="text-sm text-cast">
+          {hint}
+        </p>
+      )}
+    </div>
+  );
+}
+
+export interface FitmentFormProps {
+  initialValues: FitmentFormValues;
+  system: UnitSystem;
+  onSystemChange: (system: UnitSystem) => void;
+  onSubmit: (request: FitmentRequest) => void;
+  pending: boolean;
+  /** Field errors the server answered with, keyed by the API's paths. */
+  serverFieldErrors?: Record<string, string[]>;
+}
+
+export function FitmentForm({ initialValues, system, onSystemChange, onSubmit, pending, serverFieldErrors }: FitmentFormProps) {
+  const systemRef = useRef(system);
+  systemRef.current = system;
+  const [resolver] = useState(() => fitmentResolver(systemRef));
+  const { register, handleSubmit, formState, getValues, reset, setError, setFocus, watch } = useForm<FitmentFormValues>({
+    defaultValues: initialValues,
+    resolver,
+    mode: 'onSubmit',
+    reValidateMode: 'onChange',
+    // The error summary takes focus instead, so a screen reader hears every problem at once.
+    shouldFocusError: false,
+  });
+  const [advancedOpen, setAdvancedOpen] = useState(false);
+  const summaryRef = useRef<HTMLDivElement>(null);
+  // Set on a refused submit; the summary takes focus on the first render that shows it.
+  const focusSummary = useRef(false);
+  useEffect(() => {
+    if (focusSummary.current && summaryRef.current) {
+      focusSummary.current = false;
+      summaryRef.current.focus();
+    }
+  });
+  const errors = formState.errors;
+  const errorList = (Object.keys(errors) as FormField[]).map((f) => [f, errors[f]?.message ?? ''] as const).filter(([, m]) => m);
+
+  useEffect(() => {
+    if (!serverFieldErrors) return;
+    for (const [path, messages] of Object.entries(serverFieldErrors)) {
+      const field = formFieldOf(path);
+      if (field) setError(field, { type: 'server', message: capitalise(messages[0] ?? 'not valid') });
+    }
+  }, [serverFieldErrors, setError]);
+
+  const switchUnits = (next: UnitSystem) => {
+    if (next === system) return;
+    const values = getValues();
+    reset(requestToForm(formToRequest(values, system) as Partial<FitmentRequest>, next, values));
+    onSystemChange(next);
+  };
+
+  const submit = handleSubmit(
+    (values) => {
+      onSubmit(FitmentRequestSchema.parse(formToRequest(values, systemRef.current)));
+    },
+    (invalid) => {
+      if (ADVANCED_FIELDS.some((f) => f in invalid)) setAdvancedOpen(true);
+      focusSummary.current = true;
+    },
+  );
+
+  const goTo = (field: FormField) => {
+    if (ADVANCED_FIELDS.includes(field)) setAdvancedOpen(true);
+    requestAnimationFrame(() => setFocus(field));
+  };
+
+  const fuel = watch('fuel');
+  const application = watch('application');
+  const intercooled = watch('intercooled');
+  const displacementText = watch('displacement');
+  const unit = (f: NumericField) => NUMERIC_FIELDS[f].unit(system);
+  const other: UnitSystem = system === 'metric' ? 'imperial' : 'metric';
+  const typedLitres = formToRequest({ ...getValues(), displacement: displacementText }, system).displacementL;
+  const useLabel = APPLICATION_DEFAULTS[application].label;
+
+  return (
+    <form onSubmit={submit} noValidate aria-labelledby="fitment-form-heading" className="grid gap-5">
+      <div className="flex flex-wrap items-center justify-between gap-3">
+        <h2 id="fitment-form-heading" className="text-xl font-bold">
+          Your engine
+        </h2>
+        <UnitSwitch value={system} onChange={switchUnits} />
+      </div>
+
+      {formState.isSubmitted && errorList.length > 0 && (
+        <div ref={summaryRef} tabIndex={-1} role="alert" aria-labelledby="fitment-error-summary" className="rounded-md border-2 border-oxide bg-oxide-tint p-4">
+          <p id="fitment-error-summary" className="font-semibold">
+            {errorList.length === 1 ? 'One value needs fixing' : `${errorList.length} values need fixing`}
+          </p>
+          <ul className="mt-1 list-disc pl-5">
+            {errorList.map(([field, message]) => (
+              <li key={field}>
+                <a
+                  href={`#${fieldId(field)}`}
+                  onClick={(e) => {
+                    e.preventDefault();
+                    goTo(field);
+                  }}
+                  className="font-semibold text-oxide underline underline-offset-2"
+                >
+                  {message}
+                </a>
+              </li>
+            ))}
+          </ul>
+        </div>
+      )}
+
+      <div className="grid gap-4 sm:grid-cols-2">
+        <Field
+          name="displacement"
+          label="Engine displacement"
+          unit={unit('displacement')}
+          hint={
+            typeof typedLitres === 'number' && Number.isFinite(typedLitres) && typedLitres > 0
+              ? `= ${show.displacement(typedLitres, other)}. All cylinders together.`
+              : 'All cylinders together, from the engine’s data.'
+          }
+          error={errors.displacement?.message}
+          registration={register('displacement')}
+        />
+        <Field
+          name="power"
+          label="Power wanted"
+          unit={unit('power')}
+          hint="At the crank, with the turbo."
+          error={errors.power?.message}
+          registration={register('power')}
+        />
+        <Field
+          name="rpm"
+          label="Peak-power rpm"
+          unit="rpm"
+          hint="Engine speed where that power comes."
+          error={errors.rpm?.message}
+          registration={register('rpm')}
+        />
+        <SelectField name="fuel" label="Fuel" options={FUELS.map((f) => [f, FUEL_LABELS[f]])} registration={register('fuel')} />
+        <div className="sm:col-span-2">
+          <SelectField
+            name="application"
+            label="Application"
+            hint="Circuit and marine run at full load for long spells, so they keep more in hand; drag runs are short."
+            options={APPLICATIONS.map((a) => [a, APPLICATION_LABELS[a]])}
+            registration={register('application')}
+          />
+        </div>
+      </div>
+
+      <details
+        open={advancedOpen}
+        onToggle={(e) => setAdvancedOpen(e.currentTarget.open)}
+        className="group rounded-md border border-cast-line bg-white"
+      >
+        <summary className="grid min-h-11 cursor-pointer list-none grid-cols-[auto_1fr] items-center gap-x-2 px-4 py-2 [&::-webkit-details-marker]:hidden">
+          <ChevronRight aria-hidden className="size-4 text-temper transition-transform group-open:rotate-90" />
+          <span className="font-semibold text-temper">Advanced assumptions</span>
+          <span className="col-start-2 text-sm text-cast">For tuners. Leave blank for our defaults.</span>
+        </summary>
+        <div className="grid gap-4 border-t border-cast-line p-4 sm:grid-cols-2">
+          <Field
+            name="altitude"
+            label="Altitude"
+            unit={unit('altitude')}
+            hint={`Default sea level (${show.altitude(0, system)}). Thinner air needs a higher pressure ratio.`}
+            error={errors.altitude?.message}
+            registration={register('altitude')}
+          />
+          <Field
+            name="inletTemp"
+            label="Inlet air temperature"
+            unit={unit('inletTemp')}
+            hint={`At the compressor inlet. Default ${show.temp(DEFAULT_AMBIENT_C, system)}.`}
+            error={errors.inletTemp?.message}
+            registration={register('inletTemp')}
+          />
+          <div className="grid content-start gap-1 sm:col-span-2">
+            <label className="flex min-h-11 items-center gap-3 font-semibold">
+              <input
+                id={fieldId('intercooled')}
+                type="checkbox"
+                {...register('intercooled')}
+                aria-describedby={`${fieldId('intercooled')}-hint`}
+                className="size-5 accent-temper"
+              />
+              Intercooled (a charge-air cooler is fitted)
+            </label>
+            <p id={`${fieldId('intercooled')}-hint`} className="text-sm text-cast">
+              Default: yes. Intercooler effectiveness for {useLabel} is taken as {show.pct(APPLICATION_DEFAULTS[application].intercoolerEffectiveness)}.
+            </p>
+          </div>
+          <Field
+            name="bsfc"
+            label="BSFC (brake-specific fuel consumption)"
+            unit={unit('bsfc')}
+            hint={`Default ${show.bsfc(defaultBsfcLbPerHpH(fuel, application), system)} for ${FUEL_LABELS[fuel].toLowerCase()}, ${useLabel}.`}
+            error={errors.bsfc?.message}
+            registration={register('bsfc')}
+          />
+          <Field
+            name="afr"
+            label="Air-fuel ratio at full load"
+            unit=":1"
+            hint={`By mass. Default ${defaultAfr(fuel, application).toFixed(1)}:1 for ${FUEL_LABELS[fuel].toLowerCase()}, ${useLabel}.`}
+            error={errors.afr?.message}
+            registration={register('afr')}
+          />
+          <Field
+            name="volumetricEfficiency"
+            label="Volumetric efficiency"
+            unit="%"
+            hint={`Default ${show.pct(DEFAULT_VOLUMETRIC_EFFICIENCY)}, a healthy four-valve head at full load.`}
+            error={errors.volumetricEfficiency?.message}
+            registration={register('volumetricEfficiency')}
+          />
+          <Field
+            name="manifoldTemp"
+            label="Manifold air temperature"
+            unit={unit('manifoldTemp')}
+            hint="Leave blank to work it out from the compressor and intercooler."
+            error={errors.manifoldTemp?.message}
+            registration={register('manifoldTemp')}
+          />
+          <Field
+            name="chargeLoss"
+            label="Charge-side pressure loss"
+            unit={unit('chargeLoss')}
+            hint={`Intercooler and pipes. Default ${show.lossPsi(intercooled ? DEFAULT_CHARGE_LOSS_PSI_INTERCOOLED : DEFAULT_CHARGE_LOSS_PSI_NO_INTERCOOLER, system)}.`}
+            error={errors.chargeLoss?.message}
+            registration={register('chargeLoss')}
+          />
+          <Field
+            name="inletLoss"
+            label="Inlet pressure loss"
+            unit={unit('inletLoss')}
+            hint={`Filter and intake. Default ${show.lossPsi(DEFAULT_INLET_LOSS_PSI, system)}.`}
+            error={errors.inletLoss?.message}
+            registration={register('inletLoss')}
+          />
+          <Field
+            name="compressorEfficiency"
+            label="Compressor efficiency"
+            unit="%"
+            hint={`For the outlet temperature. Default ${show.pct(DEFAULT_COMPRESSOR_EFFICIENCY)}.`}
+            error={errors.compressorEfficiency?.message}
+            registration={register('compressorEfficiency')}
+          />
+        </div>
+      </details>
+
+      <div>
+        <Button type="submit" size="lg" disabled={pending} className="w-full sm:w-auto">
+          {pending ? 'Checking…' : 'Check fitment'}
+        </Button>
+      </div>
+    </form>
+  );
+}

@@ -1,0 +1,7 @@
+export const officeKeys = {
+  all: ['office'] as const,
+  parts: (q: string, sort: string, page: number) => [...officeKeys.all, 'parts', { q, sort, page }] as const,
+  part: (partNumber: string) => [...officeKeys.all, 'part', partNumber] as const,
+  lookup: (partNumber: string) => [...officeKeys.all, 'lookup', partNumber] as const,
+  priceImport: (id: number) => [...officeKeys.all, 'price-import', id] as const,
+};

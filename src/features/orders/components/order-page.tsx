@@ -1,0 +1,218 @@
+import { CircleCheck, CircleX, Hourglass, Printer, Truck } from 'lucide-react';
+import { Link } from 'react-router-dom';
+import type { OrderDetail } from '../../../../shared/schemas/orders';
+import { buttonClass } from '../../../components/ui/button';
+import { ErrorState, LoadingState } from '../../../components/ui/states';
+import { ApiError } from '../../../lib/api-client';
+import { PAYMENT_POLL_LIMIT, PAYMENT_POLL_MS, useOrder } from '../api/get-order';
+import { OrderLinesTable, OrderTotals, zoneLabel } from './order-lines';
+import { formatDateTime, OrderStatusBadge } from './order-status';
+import { OrderTimeline } from './order-timeline';
+import { ReorderButton } from './reorder-button';
+
+const PAYMENT_STATE_WORDS: Record<string, string> = {
+  awaiting: 'Waiting for the card payment to be confirmed',
+  requires_action: 'Waiting for card authentication',
+  paid: 'Paid by card',
+  failed: 'Payment not completed: no money was taken',
+  on_account: 'On account',
+  refunded: 'Refunded',
+  partially_refunded: 'Partly refunded',
+};
+
+function PaymentBanner({ order, placed }: { order: OrderDetail; placed: boolean }) {
+  if (order.status === 'pending_payment') {
+    // Polling stops after about PAYMENT_POLL_LIMIT answers; by then the order is old enough to say so.
+    const slow = Date.now() - Date.parse(order.createdAt) > (PAYMENT_POLL_LIMIT * PAYMENT_POLL_MS) / 2;
+    return (
+      <div role="status" className="flex items-start gap-3 rounded-md border border-amber-line bg-amber-tint p-4">
+        <Hourglass aria-hidden className="mt-0.5 size-5 shrink-0 text-amber" />
+        <div>
+          <p className="font-semibold">Waiting for the payment service to confirm your payment…</p>
+          <p className="text-sm">
+            {slow ? 'This is taking longer than usual. Reload the page in a minute; you will also get an e-mail.' : 'This usually takes a second or two.'}
+          </p>
+        </div>
+      </div>
+    );
+  }
+  if (order.status === 'cancelled' && order.paymentState === 'failed') {
+    return (
+      <div role="alert" className="flex items-start gap-3 rounded-md border-2 border-oxide bg-oxide-tint p-4">
+        <CircleX aria-hidden className="mt-0.5 size-5 shrink-0 text-oxide" />
+        <div>
+          <p className="font-bold text-oxide">Payment not completed: this order is cancelled</p>
+          <p>
+            No money was taken and the parts are back in your cart.{' '}
+            <Link to="/cart" className="font-semibold text-temper underline">
+              Go to your cart
+            </Link>{' '}
+            to try another card.
+          </p>
+        </div>
+      </div>
+    );
+  }
+  if (placed && (order.status === 'paid' || order.status === 'on_account')) {
+    return (
+      <div role="status" className="flex items-start gap-3 rounded-md border border-machined bg-machined-tint p-4">
+        <CircleCheck aria-hidden className="mt-0.5 size-5 shrink-0 text-machined" />
+        <div>
+          <p className="font-bold text-machined">{order.status === 'paid' ? 'Thank you: payment received' : 'Thank you: order placed on account'}</p>
+          <p>A confirmation is on its way to {order.email}.</p>
+        </div>
+      </div>
+    );
+  }
+  return null;
+}
+
+export function OrderPage({ number, placed, onReorderAdded }: { number: string; placed: boolean; onReorderAdded: () => void }) {
+  const order = useOrder(number);
+  if (order.isPending) return <LoadingState label={`Loading order ${number}…`} />;
+  if (order.isError) {
+    if (order.error instanceof ApiError && order.error.isNotFound) {
+      return (
+        <div className="grid gap-2 py-6">
+          <h1 className="text-2xl font-bold">No order {number}</h1>
+          <p>
+            We have no order with that number on your account.{' '}
+            <Link to="/orders" className="font-semibold text-temper underline">
+              See your orders
+            </Link>
+          </p>
+        </div>
+      );
+    }
+    if (order.error instanceof ApiError && order.error.isUnauthorized) {
+      return (
+        <p className="py-6">
+          <Link to={`/sign-in?next=/orders/${encodeURIComponent(number)}`} className="font-semibold text-temper underline">
+            Sign in
+          </Link>{' '}
+          to see this order.
+        </p>
+      );
+    }
+    return <ErrorState title="This order did not load" message={order.error.message} onRetry={() => order.refetch()} />;
+  }
+  const o = order.data;
+  const hasDispatch = o.dispatch.carrier || o.dispatch.trackingNumber || o.dispatch.cartons;
+  const canReorder = o.status !== 'pending_payment';
+  return (
+    <article className="grid gap-6">
+      <nav aria-label="Breadcrumb" className="text-sm text-cast">
+        <Link to="/orders" className="hover:underline">
+          Your orders
+        </Link>{' '}
+        / <span className="part-no">{o.number}</span>
+      </nav>
+      <header className="flex flex-wrap items-center justify-between gap-4">
+        <div>
+          <h1 className="text-3xl font-bold">
+            Order <span className="part-no">{o.number}</span>
+          </h1>
+          <p className="text-cast">
+            Placed <time dateTime={o.createdAt}>{formatDateTime(o.createdAt)}</time>
+            {o.dealer && <> · {o.dealer.companyName}</>}
+          </p>
+        </div>
+        <OrderStatusBadge status={o.status} />
+      </header>
+      <PaymentBanner order={o} placed={placed} />
+      <div className="grid gap-8 lg:grid-cols-[minmax(0,1fr)_20rem]">
+        <div className="grid min-w-0 content-start gap-6">
+          <section aria-labelledby="lines-heading" className="min-w-0">
+            <h2 id="lines-heading" className="mb-2 text-xl font-bold">
+              Lines
+            </h2>
+            <OrderLinesTable order={o} />
+          </section>
+          <section aria-labelledby="totals-heading" className="max-w-md justify-self-end rounded-lg bg-white p-5 shadow-sm ring-1 ring-cast-line sm:min-w-80">
+            <h2 id="totals-heading" className="text-xl font-bold">
+              Totals
+            </h2>
+            <OrderTotals order={o} />
+          </section>
+        </div>
+        <aside className="grid min-w-0 content-start gap-6" aria-label="Order details">
+          <section aria-labelledby="timeline-heading">
+            <h2 id="timeline-heading" className="mb-3 text-xl font-bold">
+              Progress
+            </h2>
+            <OrderTimeline order={o} />
+          </section>
+          <section aria-labelledby="payment-heading">
+            <h2 id="payment-heading" className="text-xl font-bold">
+              Payment
+            </h2>
+            <dl className="mt-1 grid gap-1">
+              <div>
+                <dt className="sr-only">Method</dt>
+                <dd>{o.paymentMethod === 'account' ? 'On account' : 'Card'}</dd>
+              </div>
+              {o.paymentState !== 'on_account' && (
+                <div>
+                  <dt className="sr-only">State</dt>
+                  <dd className="text-cast">{PAYMENT_STATE_WORDS[o.paymentState] ?? o.paymentState}</dd>
+                </div>
+              )}
+              {o.purchaseOrder && (
+                <div className="flex gap-1">
+                  <dt>Purchase order:</dt>
+                  <dd className="part-no">{o.purchaseOrder}</dd>
+                </div>
+              )}
+              {o.paymentTermsDays !== null && (
+                <div className="flex gap-1">
+                  <dt>Terms:</dt>
+                  <dd>{o.paymentTermsDays} days</dd>
+                </div>
+              )}
+            </dl>
+          </section>
+          <section aria-labelledby="delivery-heading">
+            <h2 id="delivery-heading" className="text-xl font-bold">
+              Delivery
+            </h2>
+            <address className="mt-1 not-italic">
+              {o.delivery.name}
+              <br />
+              {o.delivery.line1}
+              <br />
+              {o.delivery.city} {o.delivery.postcode}
+              <br />
+              <span className="text-cast">{zoneLabel(o.delivery.zone)}</span>
+            </address>
+            {hasDispatch && (
+              <p className="mt-2 inline-flex items-start gap-2">
+                <Truck aria-hidden className="mt-0.5 size-4 shrink-0 text-machined" />
+                <span>
+                  Dispatched{o.dispatch.carrier && <> with {o.dispatch.carrier}</>}
+                  {o.dispatch.trackingNumber && (
+                    <>
+                      , tracking <span className="part-no">{o.dispatch.trackingNumber}</span>
+                    </>
+                  )}
+                  {o.dispatch.cartons !== null && (
+                    <>
+                      {' '}
+                      · <span className="tabular">{o.dispatch.cartons}</span> {o.dispatch.cartons === 1 ? 'carton' : 'cartons'}
+                    </>
+                  )}
+                </span>
+              </p>
+            )}
+          </section>
+          <div className="grid gap-3">
+            {canReorder && <ReorderButton number={o.number} onAdded={onReorderAdded} />}
+            <Link to={`/orders/${encodeURIComponent(o.number)}/invoice`} className={buttonClass('secondary')}>
+              <Printer aria-hidden className="size-4" />
+              {o.paymentMethod === 'account' ? 'Printable invoice' : 'Printable receipt'}
+            </Link>
+          </div>
+        </aside>
+      </div>
+    </article>
+  );
+}

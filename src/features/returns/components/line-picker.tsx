@@ -1,0 +1,85 @@
+import { ChevronRight } from 'lucide-react';
+import { useState } from 'react';
+import { Link } from 'react-router-dom';
+import { formatPrice } from '../../../../shared/catalog';
+import { ORDER_STATUS_LABELS } from '../../../../shared/schemas/orders';
+import { buttonClass } from '../../../components/ui/button';
+import { EmptyState, ErrorState, LoadingState } from '../../../components/ui/states';
+import { useOrderForReturn } from '../api/get-order';
+import { useOrdersForReturn } from '../api/get-orders';
+import { useReturns } from '../api/get-returns';
+import { hasLeftTheBuilding, returnableQuantity } from '../lib/returnable';
+
+function OrderLines({ number }: { number: string }) {
+  const order = useOrderForReturn(number);
+  const returns = useReturns();
+  if (order.isPending || returns.isPending) return <LoadingState label={`Loading ${number}…`} />;
+  if (order.isError) return <ErrorState title={`${number} did not load`} message={order.error.message} onRetry={() => order.refetch()} />;
+  const items = returns.data?.items ?? [];
+  return (
+    <ul aria-label={`Lines of ${number}`} className="grid gap-2">
+      {order.data.lines.map((line) => {
+        const left = returnableQuantity(order.data, line, items);
+        return (
+          <li key={line.id} className="flex flex-wrap items-center justify-between gap-3 rounded-md border border-cast-line bg-white p-3">
+            <div className="min-w-0">
+              <p>
+                <span className="part-no">{line.partNumber}</span> {line.title}
+              </p>
+              <p className="text-sm text-cast">
+                <span className="tabular">{line.quantityPicked}</span> dispatched · <span className="tabular">{formatPrice(line.unitPriceCents)}</span> each
+                {line.condition === 'exchange' ? ' · exchange unit' : ''}
+              </p>
+            </div>
+            {left > 0 ? (
+              <Link to={`/returns/new?order=${encodeURIComponent(number)}&line=${line.id}`} className={buttonClass('secondary')}>
+                Return this<span className="sr-only"> {line.partNumber}</span>
+                <ChevronRight aria-hidden className="size-4" />
+              </Link>
+            ) : (
+              <span className="text-sm text-cast">{line.quantityPicked === 0 ? 'Not dispatched' : 'Already returned'}</span>
+            )}
+          </li>
+        );
+      })}
+    </ul>
+  );
+}
+
+/** Choose a dispatched order, then the line to send back. */
+export function LinePicker() {
+  const orders = useOrdersForReturn();
+  const [chosen, setChosen] = useState<string | null>(null);
+  if (orders.isPending) return <LoadingState label="Loading your orders…" />;
+  if (orders.isError) return <ErrorState title="Your orders did not load" message={orders.error.message} onRetry={() => orders.refetch()} />;
+  const dispatched = orders.data.items.filter((o) => hasLeftTheBuilding(o.status));
+  if (dispatched.length === 0) {
+    return (
+      <EmptyState title="Nothing to return yet">
+        <p>Only parts that have been dispatched to you can come back. Orders still being picked or packed can be changed by calling the trade counter.</p>
+      </EmptyState>
+    );
+  }
+  return (
+    <div className="grid gap-4 md:grid-cols-[18rem_1fr]">
+      <fieldset className="grid content-start gap-2">
+        <legend className="mb-1 font-semibold">Dispatched orders</legend>
+        {dispatched.map((o) => (
+          <label
+            key={o.number}
+            className={`flex min-h-12 cursor-pointer items-center gap-3 rounded-md border bg-white px-3 py-2 ${chosen === o.number ? 'border-2 border-temper' : 'border-cast-line'}`}
+          >
+            <input type="radio" name="return-order" value={o.number} checked={chosen === o.number} onChange={() => setChosen(o.number)} className="accent-temper" />
+            <span className="grid">
+              <span className="part-no">{o.number}</span>
+              <span className="text-sm text-cast">
+                {new Date(o.createdAt).toLocaleDateString('en-US', { dateStyle: 'medium' })} · {ORDER_STATUS_LABELS[o.status]} · {o.lineCount} {o.lineCount === 1 ? 'line' : 'lines'}
+              </span>
+            </span>
+          </label>
+        ))}
+      </fieldset>
+      <div aria-live="polite">{chosen ? <OrderLines number={chosen} /> : <p className="rounded-md border border-dashed border-cast-line p-4 text-cast">Choose an order to see its lines.</p>}</div>
+    </div>
+  );
+}

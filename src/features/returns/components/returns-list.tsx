@@ -1,0 +1,100 @@
+import { Link } from 'react-router-dom';
+import { formatPrice } from '../../../../shared/catalog';
+import { CONDITION_GRADES, RETURN_KINDS, type ReturnView } from '../../../../shared/schemas/warehouse';
+import { EmptyState, ErrorState, LoadingState } from '../../../components/ui/states';
+import { useReturns } from '../api/get-returns';
+import { ReturnStatus } from './return-status';
+
+const DECISIONS: Record<string, string> = {
+  'core-refund': 'Core deposit refunded',
+  'full-refund': 'Full refund',
+  'partial-refund': 'Partial refund',
+  reject: 'Rejected',
+};
+
+const day = (iso: string) => new Date(iso).toLocaleDateString('en-US', { dateStyle: 'medium' });
+
+function Outcome({ r }: { r: ReturnView }) {
+  if (r.status === 'requested') {
+    return (
+      <p className="text-cast">
+        Waiting for the part to reach us and be inspected.
+        {r.kind === 'core' && r.coreDepositCents > 0 && (
+          <>
+            {' '}
+            The core deposit of <span className="tabular font-semibold text-ink">{formatPrice(r.coreDepositCents * r.quantity)}</span> is refunded once the core is graded.
+          </>
+        )}
+      </p>
+    );
+  }
+  if (r.status === 'rejected') {
+    return (
+      <p>
+        <span className="font-semibold">Not accepted:</span> {r.rejectReason ?? 'no reason given'}
+        {r.conditionGrade && <span className="text-cast"> · graded {CONDITION_GRADES[r.conditionGrade].toLowerCase()}</span>}
+      </p>
+    );
+  }
+  return (
+    <div>
+      <p>
+        <span className="font-semibold">{(r.decision && DECISIONS[r.decision]) ?? 'Settled'}:</span>{' '}
+        <span className="tabular font-semibold">{formatPrice(r.refundCents)}</span>{' '}
+        {r.status === 'credited' ? 'credited to your trade account' : 'refunded to your card'}
+        {r.decidedAt ? ` on ${day(r.decidedAt)}` : ''}.
+      </p>
+      {r.creditNoteNumber && (
+        <p>
+          Credit note <span className="part-no">{r.creditNoteNumber}</span>
+        </p>
+      )}
+      {r.conditionGrade && <p className="text-sm text-cast">Graded: {CONDITION_GRADES[r.conditionGrade]}</p>}
+    </div>
+  );
+}
+
+export function ReturnsList({ highlight }: { highlight?: string | null }) {
+  const returns = useReturns();
+  if (returns.isPending) return <LoadingState label="Loading your returns…" />;
+  if (returns.isError) return <ErrorState title="Your returns did not load" message={returns.error.message} onRetry={() => returns.refetch()} />;
+  if (returns.data.items.length === 0) {
+    return (
+      <EmptyState title="No returns yet">
+        <p>When a part is wrong, faulty, or you are sending back an exchange core, start a return from the dispatched order.</p>
+      </EmptyState>
+    );
+  }
+  return (
+    <ul aria-label="Your returns" className="grid gap-3">
+      {returns.data.items.map((r) => (
+        <li
+          key={r.id}
+          aria-label={`Return ${r.reference}`}
+          className={`grid gap-3 rounded-lg bg-white p-4 ring-1 md:grid-cols-[12rem_1fr_14rem] ${highlight === r.reference ? 'ring-2 ring-temper' : 'ring-cast-line'}`}
+        >
+          <div className="grid content-start gap-1">
+            <p className="part-no text-lg">{r.reference}</p>
+            <ReturnStatus status={r.status} />
+            <p className="text-sm text-cast">Asked {day(r.createdAt)}</p>
+          </div>
+          <div className="grid content-start gap-1">
+            <p>
+              <span className="part-no">{r.partNumber}</span> {r.title}
+            </p>
+            <p className="text-sm text-cast">
+              <span className="tabular">{r.quantity}</span> × · {RETURN_KINDS[r.kind]} · from order{' '}
+              <Link to={`/orders/${encodeURIComponent(r.orderNumber)}`} className="part-no text-temper underline underline-offset-2">
+                {r.orderNumber}
+              </Link>
+            </p>
+            <p className="text-sm">“{r.reason}”</p>
+          </div>
+          <div className="md:text-right">
+            <Outcome r={r} />
+          </div>
+        </li>
+      ))}
+    </ul>
+  );
+}

@@ -1,0 +1,4 @@
+export const tradeKeys = {
+  all: ['trade'] as const,
+  check: (lines: Array<{ partNumber: string; quantity: string }>) => [...tradeKeys.all, 'check', lines] as const,
+};

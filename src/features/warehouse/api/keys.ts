@@ -1,0 +1,14 @@
+export const warehouseKeys = {
+  all: ['warehouse'] as const,
+  queue: () => [...warehouseKeys.all, 'pick-queue'] as const,
+  pickLists: () => [...warehouseKeys.all, 'pick-list'] as const,
+  pickList: (orders: readonly string[]) => [...warehouseKeys.pickLists(), [...orders].sort().join(',')] as const,
+  orders: () => [...warehouseKeys.all, 'order'] as const,
+  order: (number: string) => [...warehouseKeys.orders(), number] as const,
+  bins: () => [...warehouseKeys.all, 'bins'] as const,
+  stock: () => [...warehouseKeys.all, 'stock'] as const,
+  stockPart: (partNumber: string) => [...warehouseKeys.stock(), partNumber] as const,
+  lowStock: () => [...warehouseKeys.all, 'low-stock'] as const,
+  returns: () => [...warehouseKeys.all, 'returns'] as const,
+  returnList: (status: 'requested' | 'all') => [...warehouseKeys.returns(), status] as const,
+};

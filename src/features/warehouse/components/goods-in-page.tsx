@@ -1,0 +1,194 @@
+import { zodResolver } from '@hookform/resolvers/zod';
+import { CircleCheckBig, PackagePlus, RotateCcw } from 'lucide-react';
+import { useEffect, useRef, useState } from 'react';
+import { useForm } from 'react-hook-form';
+import { Link } from 'react-router-dom';
+import { GoodsInSchema } from '../../../../shared/schemas/warehouse';
+import { Button } from '../../../components/ui/button';
+import { ApiError } from '../../../lib/api-client';
+import { useBins } from '../api/get-bins';
+import { useStock } from '../api/get-stock';
+import { useReceiveGoods, type GoodsIn } from '../api/receive-goods';
+import type { GoodsInReply } from '../api/reply-schemas';
+import { normalisePartNumber } from '../lib/pick-progress';
+import { ErrorSummary, SelectField, summaryItems, TextField } from './fields';
+import { ScanField } from './scan-field';
+
+const FIELDS = [
+  { name: 'partNumber', id: 'gi-part', label: 'Part number' },
+  { name: 'binCode', id: 'gi-bin', label: 'Bin' },
+  { name: 'quantity', id: 'gi-qty', label: 'Quantity received' },
+  { name: 'note', id: 'gi-note', label: 'Note' },
+] as const;
+
+export function GoodsInPage() {
+  const form = useForm<GoodsIn>({ resolver: zodResolver(GoodsInSchema), defaultValues: { partNumber: '', binCode: '', note: '' } });
+  const receive = useReceiveGoods();
+  const bins = useBins();
+  const [lookup, setLookup] = useState<string | null>(null);
+  const stock = useStock(lookup);
+  const [result, setResult] = useState<GoodsInReply | null>(null);
+  const [showSummary, setShowSummary] = useState(false);
+  const [formError, setFormError] = useState<string | null>(null);
+  const summaryRef = useRef<HTMLDivElement>(null);
+  const partRef = useRef<HTMLInputElement | null>(null);
+  const errors = form.formState.errors;
+  const focusSummary = () => requestAnimationFrame(() => summaryRef.current?.focus());
+
+  // The part's own bin is the default, where it is already stocked; the receiver can still choose another.
+  useEffect(() => {
+    if (!stock.data || form.getFieldState('binCode').isDirty) return;
+    const home = stock.data.bins.find((b) => b.onHand > 0) ?? stock.data.bins[0];
+    if (home) form.setValue('binCode', home.binCode, { shouldValidate: false });
+  }, [stock.data, form]);
+
+  const lookUpPart = () => {
+    const value = normalisePartNumber(form.getValues('partNumber'));
+    form.setValue('partNumber', value);
+    if (value.length >= 2) {
+      setLookup(value);
+      form.resetField('binCode', { defaultValue: '' });
+      requestAnimationFrame(() => document.getElementById('gi-qty')?.focus());
+    }
+  };
+
+  const onSubmit = form.handleSubmit(
+    (values) => {
+      setShowSummary(false);
+      setFormError(null);
+      receive.mutate(
+        { ...values, partNumber: normalisePartNumber(values.partNumber), note: values.note || undefined },
+        {
+          onSuccess: (reply) => {
+            setResult(reply);
+            form.reset({ partNumber: '', binCode: '', note: '' });
+            setLookup(null);
+            requestAnimationFrame(() => partRef.current?.focus());
+          },
+          onError: (err) => {
+            setFormError(err.message);
+            setShowSummary(true);
+            focusSummary();
+          },
+        },
+      );
+    },
+    () => {
+      setFormError(null);
+      setShowSummary(true);
+      focusSummary();
+    },
+  );
+
+  const partRegister = form.register('partNumber');
+  const notFound = stock.error instanceof ApiError && stock.error.isNotFound;
+  return (
+    <div className="grid gap-6 lg:grid-cols-[minmax(0,1.2fr)_minmax(0,1fr)] lg:items-start">
+      <form noValidate onSubmit={onSubmit} aria-labelledby="gi-heading" className="grid gap-5 rounded-lg border-2 border-cast-line bg-white p-5">
+        <h2 id="gi-heading" className="flex items-center gap-2 text-2xl font-bold">
+          <PackagePlus aria-hidden className="size-7 text-temper" />
+          Receive stock
+        </h2>
+        {showSummary && <ErrorSummary ref={summaryRef} items={summaryItems(errors, FIELDS)} formError={formError ?? undefined} />}
+        <ScanField
+          id="gi-part"
+          label="Part number"
+          error={errors.partNumber?.message}
+          hint="Scan the label on the carton; Enter looks the part up."
+          {...partRegister}
+          ref={(el) => {
+            partRegister.ref(el);
+            partRef.current = el;
+          }}
+          onBlur={(e) => {
+            void partRegister.onBlur(e);
+            if (normalisePartNumber(e.target.value) !== lookup && e.target.value.trim()) lookUpPart();
+          }}
+          onKeyDown={(e) => {
+            if (e.key === 'Enter') {
+              e.preventDefault();
+              lookUpPart();
+            }
+          }}
+        />
+        <div aria-live="polite">
+          {lookup && stock.isPending && <p className="text-cast">Looking up {lookup}…</p>}
+          {notFound && (
+            <p className="font-semibold text-oxide">
+              There is no part {lookup}. Check the label; new parts are added in the Office first.
+            </p>
+          )}
+          {stock.data && (
+            <p className="text-lg">
+              <span className="part-no">{stock.data.partNumber}</span> {stock.data.title}
+              <span className="block text-cast">
+                {stock.data.bins.length > 0
+                  ? `Now in ${stock.data.bins.map((b) => `${b.binCode} (${b.onHand})`).join(', ')}`
+                  : 'Not stocked in any bin yet.'}
+              </span>
+            </p>
+          )}
+        </div>
+        <div className="grid gap-5 sm:grid-cols-2">
+          <SelectField id="gi-bin" label="Bin" error={errors.binCode?.message} hint={bins.error ? `Bins did not load: ${bins.error.message}` : 'Defaults to where the part already sits.'} {...form.register('binCode')}>
+            <option value="">{bins.isPending ? 'Loading bins…' : 'Choose a bin'}</option>
+            {bins.data?.items.map((b) => (
+              <option key={b.code} value={b.code}>
+                {b.code} · zone {b.zone}
+              </option>
+            ))}
+          </SelectField>
+          <TextField id="gi-qty" label="Quantity received" inputMode="numeric" error={errors.quantity?.message} {...form.register('quantity', { valueAsNumber: true })} />
+        </div>
+        <TextField id="gi-note" label="Note" optional maxLength={120} hint="Supplier delivery note or carton count, up to 120 characters." error={errors.note?.message} {...form.register('note')} />
+        <div>
+          <Button type="submit" size="lg" disabled={receive.isPending}>
+            <PackagePlus aria-hidden className="size-5" />
+            {receive.isPending ? 'Receiving…' : 'Receive into bin'}
+          </Button>
+        </div>
+      </form>
+
+      <section aria-labelledby="gi-result-heading" aria-live="polite" className="grid gap-3">
+        <h2 id="gi-result-heading" className="text-xl font-bold">
+          Last receipt
+        </h2>
+        {result ? <Receipt reply={result} /> : <p className="rounded-md border border-dashed border-cast-line bg-white/60 p-4 text-cast">Nothing received on this screen yet.</p>}
+      </section>
+    </div>
+  );
+}
+
+function Receipt({ reply }: { reply: GoodsInReply }) {
+  return (
+    <div className="grid gap-3 rounded-lg border-4 border-machined bg-machined-tint p-4">
+      <p className="flex items-center gap-3 text-xl font-bold text-machined">
+        <CircleCheckBig aria-hidden className="size-8 shrink-0" />
+        Received into {reply.binCode}
+      </p>
+      <p className="text-lg">
+        <span className="part-no text-2xl">{reply.partNumber}</span> — on hand in {reply.binCode}: <span className="tabular text-2xl font-bold">{reply.onHand}</span>
+      </p>
+      {reply.released.length > 0 ? (
+        <div>
+          <p className="flex items-center gap-2 text-lg font-semibold">
+            <RotateCcw aria-hidden className="size-5 text-amber" />
+            Back-orders released into the pick queue
+          </p>
+          <ul className="mt-1 grid gap-1">
+            {reply.released.map((r) => (
+              <li key={r.orderNumber} className="text-lg">
+                <Link to={`/floor/pick?orders=${encodeURIComponent(r.orderNumber)}`} className="part-no text-temper underline underline-offset-2">
+                  {r.orderNumber}
+                </Link>{' '}
+                · <span className="tabular">{r.quantity}</span> {r.quantity === 1 ? 'unit' : 'units'}
+              </li>
+            ))}
+          </ul>
+        </div>
+      ) : (
+        <p>No back-orders were waiting for this part.</p>
+      )}
+    </div>
+  );
+}

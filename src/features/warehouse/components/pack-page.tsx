@@ -1,0 +1,273 @@
+import { zodResolver } from '@hookform/resolvers/zod';
+import { CircleCheckBig, FileText, ListChecks, PackageCheck, Truck, Undo2 } from 'lucide-react';
+import { useRef, useState } from 'react';
+import { useForm } from 'react-hook-form';
+import { Link, useLocation } from 'react-router-dom';
+import type { OrderDetail } from '../../../../shared/schemas/orders';
+import { CARRIERS, DispatchSchema, PackSchema } from '../../../../shared/schemas/warehouse';
+import { Button, buttonClass } from '../../../components/ui/button';
+import { ErrorState, LoadingState } from '../../../components/ui/states';
+import { ApiError } from '../../../lib/api-client';
+import { useDispatchOrder } from '../api/dispatch-order';
+import { useOrder } from '../api/get-order';
+import { usePackOrder } from '../api/pack-order';
+import type { DispatchReply } from '../api/reply-schemas';
+import { ErrorSummary, SelectField, summaryItems, TextField } from './fields';
+import { ScanField } from './scan-field';
+
+const PackDispatchFormSchema = PackSchema.extend({ carrier: DispatchSchema.shape.carrier, trackingNumber: DispatchSchema.shape.trackingNumber });
+type PackDispatchForm = { cartons: number; weightKg: number; carrier: (typeof CARRIERS)[number]; trackingNumber: string };
+
+const FIELDS = [
+  { name: 'cartons', id: 'pack-cartons', label: 'Cartons' },
+  { name: 'weightKg', id: 'pack-weight', label: 'Packed weight' },
+  { name: 'carrier', id: 'pack-carrier', label: 'Carrier' },
+  { name: 'trackingNumber', id: 'pack-tracking', label: 'Tracking number' },
+] as const;
+
+/** Lines with units still on the shelf: picked less than ordered, less what is back-ordered. */
+export const unpickedLines = (order: OrderDetail) => order.lines.filter((l) => l.quantityPicked < l.quantity - l.quantityBackordered);
+
+export function PackPage({ number }: { number: string }) {
+  const order = useOrder(number);
+  const location = useLocation();
+  const flash = (location.state as { flash?: string } | null)?.flash;
+  const [dispatched, setDispatched] = useState<DispatchReply | null>(null);
+
+  if (order.isPending) return <LoadingState label={`Loading ${number}…`} />;
+  if (order.error)
+    return (
+      <>
+        <h1 className="text-3xl font-bold">Pack and dispatch {number}</h1>
+        <ErrorState
+          title={order.error instanceof ApiError && order.error.isNotFound ? `There is no order ${number}` : 'The order did not load'}
+          message={order.error.message}
+          onRetry={() => void order.refetch()}
+        />
+      </>
+    );
+
+  const o = order.data;
+  if (dispatched) return <Dispatched order={o} reply={dispatched} />;
+  const waiting = unpickedLines(o);
+  return (
+    <div className="grid grid-cols-[minmax(0,1fr)] gap-6">
+      <div className="flex flex-wrap items-end justify-between gap-4">
+        <div>
+          <h1 className="text-3xl font-bold">
+            Pack and dispatch <span className="tabular whitespace-nowrap">{o.number}</span>
+          </h1>
+          <p className="text-lg text-cast">
+            {o.dealer?.companyName ?? o.delivery.name} · {o.delivery.city} · {o.lines.length} {o.lines.length === 1 ? 'line' : 'lines'}
+          </p>
+        </div>
+        <div className="flex flex-wrap gap-3">
+          <Link to={`/floor/orders/${encodeURIComponent(o.number)}/slip`} className={buttonClass('secondary', 'lg')}>
+            <FileText aria-hidden className="size-5" />
+            Packing slip
+          </Link>
+          <Link to="/floor" className={buttonClass('quiet', 'lg')}>
+            <Undo2 aria-hidden className="size-5" />
+            Queue
+          </Link>
+        </div>
+      </div>
+
+      {flash && (
+        <p role="status" className="flex items-center gap-3 rounded-lg border-4 border-machined bg-machined-tint p-4 text-xl font-bold text-machined">
+          <CircleCheckBig aria-hidden className="size-8 shrink-0" />
+          {flash}
+        </p>
+      )}
+
+      <PackedLines order={o} />
+
+      {o.status === 'dispatched' ? (
+        <AlreadyDispatched order={o} />
+      ) : waiting.length > 0 ? (
+        <div className="flex flex-wrap items-center gap-4 rounded-lg border-2 border-amber-line bg-amber-tint p-4">
+          <ListChecks aria-hidden className="size-8 shrink-0 text-amber" />
+          <p className="flex-1 text-lg">
+            <span className="font-semibold text-amber">Still to pick:</span> {waiting.map((l) => l.partNumber).join(', ')}. Pick every line before packing.
+          </p>
+          <Link to={`/floor/pick?orders=${encodeURIComponent(o.number)}`} className={buttonClass('primary', 'lg')}>
+            Open the pick list
+          </Link>
+        </div>
+      ) : (
+        <PackForm order={o} onDispatched={setDispatched} />
+      )}
+    </div>
+  );
+}
+
+function PackedLines({ order }: { order: OrderDetail }) {
+  return (
+    <div className="relative overflow-x-auto rounded-md border border-cast-line bg-white">
+      <table className="w-full text-left">
+        <caption className="sr-only">Lines in this order</caption>
+        <thead className="bg-panel">
+          <tr>
+            <th scope="col" className="px-3 py-2">Part number</th>
+            <th scope="col" className="px-3 py-2">Title</th>
+            <th scope="col" className="px-3 py-2 text-right">Ordered</th>
+            <th scope="col" className="px-3 py-2 text-right">Picked</th>
+            <th scope="col" className="px-3 py-2 text-right">Back-ordered</th>
+          </tr>
+        </thead>
+        <tbody>
+          {order.lines.map((l) => (
+            <tr key={l.id} className="border-t border-cast-line">
+              <td className="part-no px-3 py-2 text-lg">{l.partNumber}</td>
+              <td className="px-3 py-2">{l.title}</td>
+              <td className="tabular px-3 py-2 text-right">{l.quantity}</td>
+              <td className="tabular px-3 py-2 text-right font-semibold">{l.quantityPicked}</td>
+              <td className="tabular px-3 py-2 text-right">{l.quantityBackordered > 0 ? <span className="font-semibold text-amber">{l.quantityBackordered}</span> : '—'}</td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+    </div>
+  );
+}
+
+function PackForm({ order, onDispatched }: { order: OrderDetail; onDispatched: (r: DispatchReply) => void }) {
+  const goodsKg = Math.round(order.totals.weightGrams / 100) / 10;
+  const form = useForm<PackDispatchForm>({
+    resolver: zodResolver(PackDispatchFormSchema),
+    defaultValues: { cartons: order.dispatch.cartons ?? 1, weightKg: goodsKg > 0 ? goodsKg : undefined, trackingNumber: '' },
+  });
+  const pack = usePackOrder();
+  const dispatch = useDispatchOrder();
+  const summaryRef = useRef<HTMLDivElement>(null);
+  const [showSummary, setShowSummary] = useState(false);
+  const [formError, setFormError] = useState<string | null>(null);
+  const errors = form.formState.errors;
+  const focusSummary = () => requestAnimationFrame(() => summaryRef.current?.focus());
+  const busy = pack.isPending || dispatch.isPending;
+
+  const onSubmit = form.handleSubmit(
+    async (values) => {
+      setShowSummary(false);
+      setFormError(null);
+      try {
+        // Packing records cartons and weight; an order already packed goes straight to dispatch.
+        if (order.status !== 'packed') await pack.mutateAsync({ orderNumber: order.number, pack: { cartons: values.cartons, weightKg: values.weightKg } });
+        const reply = await dispatch.mutateAsync({ orderNumber: order.number, dispatch: values });
+        onDispatched(reply);
+      } catch (err) {
+        setFormError(err instanceof Error ? err.message : 'That did not work');
+        setShowSummary(true);
+        focusSummary();
+      }
+    },
+    () => {
+      setFormError(null);
+      setShowSummary(true);
+      focusSummary();
+    },
+  );
+
+  return (
+    <form noValidate onSubmit={onSubmit} aria-labelledby="pack-heading" className="grid gap-5 rounded-lg border-2 border-cast-line bg-white p-5">
+      <h2 id="pack-heading" className="flex items-center gap-2 text-2xl font-bold">
+        <PackageCheck aria-hidden className="size-7 text-temper" />
+        Pack and dispatch
+      </h2>
+      {showSummary && <ErrorSummary ref={summaryRef} items={summaryItems(errors, FIELDS)} formError={formError ?? undefined} />}
+      <div className="grid gap-5 sm:grid-cols-2">
+        <TextField
+          id="pack-cartons"
+          label="Cartons"
+          inputMode="numeric"
+          autoFocus
+          error={errors.cartons?.message}
+          hint="How many cartons go on the pallet or in the van."
+          {...form.register('cartons', { valueAsNumber: true })}
+        />
+        <TextField
+          id="pack-weight"
+          label="Packed weight"
+          inputMode="decimal"
+          suffix="kg"
+          error={errors.weightKg?.message}
+          hint={goodsKg > 0 ? `The goods weigh ${goodsKg} kg; weigh the packed cartons.` : 'Weigh the packed cartons.'}
+          {...form.register('weightKg', { valueAsNumber: true })}
+        />
+        <SelectField id="pack-carrier" label="Carrier" error={errors.carrier?.message} defaultValue="" {...form.register('carrier')}>
+          <option value="" disabled>
+            Choose a carrier
+          </option>
+          {CARRIERS.map((c) => (
+            <option key={c} value={c}>
+              {c}
+            </option>
+          ))}
+        </SelectField>
+        <ScanField
+          id="pack-tracking"
+          label="Tracking number"
+          keepFocus={false}
+          error={errors.trackingNumber?.message}
+          hint="Scan the carrier’s label or type it. For a collection, type the collection reference."
+          {...form.register('trackingNumber')}
+        />
+      </div>
+      <div>
+        <Button type="submit" size="lg" disabled={busy}>
+          <Truck aria-hidden className="size-5" />
+          {busy ? 'Dispatching…' : 'Dispatch'}
+        </Button>
+      </div>
+    </form>
+  );
+}
+
+function Dispatched({ order, reply }: { order: OrderDetail; reply: DispatchReply }) {
+  return (
+    <section aria-labelledby="dispatched-heading" className="grid gap-5">
+      <div role="status" className="flex items-start gap-4 rounded-lg border-4 border-machined bg-machined-tint p-6">
+        <CircleCheckBig aria-hidden className="size-14 shrink-0 text-machined" strokeWidth={2.5} />
+        <div>
+          <h1 id="dispatched-heading" className="text-3xl font-bold text-machined">
+            Dispatched <span className="tabular whitespace-nowrap">{order.number}</span>
+          </h1>
+          <p className="mt-2 text-xl">
+            {reply.shipment.carrier} · tracking <span className="part-no text-2xl">{reply.shipment.trackingNumber}</span>
+          </p>
+          <p className="tabular text-lg">
+            {reply.shipment.cartons ?? '—'} {reply.shipment.cartons === 1 ? 'carton' : 'cartons'} · {reply.shipment.units} {reply.shipment.units === 1 ? 'unit' : 'units'}
+          </p>
+          <p className="mt-2 text-lg">The customer has been e-mailed the tracking number.</p>
+        </div>
+      </div>
+      <div className="flex flex-wrap gap-3">
+        <Link to="/floor" className={buttonClass('primary', 'lg')}>
+          Next order
+        </Link>
+        <Link to={`/floor/orders/${encodeURIComponent(order.number)}/slip`} className={buttonClass('secondary', 'lg')}>
+          <FileText aria-hidden className="size-5" />
+          Packing slip
+        </Link>
+      </div>
+    </section>
+  );
+}
+
+function AlreadyDispatched({ order }: { order: OrderDetail }) {
+  return (
+    <div className="flex items-start gap-4 rounded-lg border-2 border-machined bg-machined-tint p-4">
+      <Truck aria-hidden className="size-8 shrink-0 text-machined" />
+      <p className="text-lg">
+        <span className="font-semibold text-machined">Already dispatched</span>
+        {order.dispatch.carrier && <> with {order.dispatch.carrier}</>}
+        {order.dispatch.trackingNumber && (
+          <>
+            , tracking <span className="part-no">{order.dispatch.trackingNumber}</span>
+          </>
+        )}
+        . An order leaves the building once.
+      </p>
+    </div>
+  );
+}

@@ -1,0 +1,363 @@
+import { zodResolver } from '@hookform/resolvers/zod';
+import { Ban, CircleCheckBig, Clock, CreditCard, FileText, Landmark, Undo2 } from 'lucide-react';
+import { useRef, useState } from 'react';
+import { useForm, useWatch } from 'react-hook-form';
+import { z } from 'zod';
+import { formatPrice } from '../../../../shared/catalog';
+import { CONDITION_GRADE_KEYS, CONDITION_GRADES, RETURN_KINDS, ReturnDecisionSchema, type ReturnDecision, type ReturnView } from '../../../../shared/schemas/warehouse';
+import { Button } from '../../../components/ui/button';
+import { EmptyState, ErrorState, LoadingState } from '../../../components/ui/states';
+import { useDecideReturn } from '../api/decide-return';
+import { useReturns, type ReturnFilter } from '../api/get-returns';
+import { formatDateTime } from '../lib/age';
+import { centsToDollarsInput, dollarsToCents } from '../lib/money';
+import { ErrorSummary, FieldShell, SelectField, summaryItems, TextAreaField, TextField } from './fields';
+
+const STATUS = {
+  requested: { label: 'Requested', Icon: Clock, cls: 'text-amber' },
+  refunded: { label: 'Refunded', Icon: CircleCheckBig, cls: 'text-machined' },
+  credited: { label: 'Credit note', Icon: FileText, cls: 'text-machined' },
+  rejected: { label: 'Rejected', Icon: Ban, cls: 'text-oxide' },
+} as const;
+
+function ReturnStatus({ status }: { status: ReturnView['status'] }) {
+  const { label, Icon, cls } = STATUS[status];
+  return (
+    <span className={`inline-flex items-center gap-1 whitespace-nowrap font-semibold ${cls}`}>
+      <Icon aria-hidden className="size-4" />
+      {label}
+    </span>
+  );
+}
+
+export function ReturnsPage({ status, openId, onStatus, onOpen }: { status: ReturnFilter; openId: number | null; onStatus: (s: ReturnFilter) => void; onOpen: (id: number | null) => void }) {
+  const list = useReturns(status);
+  // A decided return leaves the "waiting" list on refetch; keep showing its outcome.
+  const [lastDecided, setLastDecided] = useState<ReturnView | null>(null);
+  const open = list.data?.items.find((r) => r.id === openId) ?? (lastDecided && lastDecided.id === openId ? lastDecided : null);
+  return (
+    <div className="grid grid-cols-[minmax(0,1fr)] gap-6">
+      <fieldset className="flex flex-wrap gap-2">
+        <legend className="sr-only">Which returns</legend>
+        {(['requested', 'all'] as const).map((s) => (
+          <label
+            key={s}
+            className={`inline-flex min-h-12 cursor-pointer items-center gap-2 rounded-md border-2 px-4 text-lg font-semibold has-[:focus-visible]:outline-3 has-[:focus-visible]:outline-temper ${
+              status === s ? 'border-temper bg-temper-tint text-temper-deep' : 'border-cast-line bg-white'
+            }`}
+          >
+            <input type="radio" name="returns-status" value={s} checked={status === s} onChange={() => onStatus(s)} className="size-5 accent-temper" />
+            {s === 'requested' ? 'Waiting to be received' : 'All returns'}
+          </label>
+        ))}
+      </fieldset>
+
+      {openId !== null && list.data && !open && <ErrorState title="That return is not in this list" message="It may have been decided already; choose “All returns”." />}
+      {open && <ReturnDetail key={open.id} ret={open} onClose={() => onOpen(null)} onDecided={setLastDecided} />}
+
+      {list.isPending ? (
+        <LoadingState label="Loading returns…" />
+      ) : list.error ? (
+        <ErrorState title="Returns did not load" message={list.error.message} onRetry={() => void list.refetch()} />
+      ) : list.data.items.length === 0 ? (
+        <EmptyState title={status === 'requested' ? 'No returns waiting' : 'No returns yet'}>Returns and exchange cores that customers send back appear here.</EmptyState>
+      ) : (
+        <div className="relative overflow-x-auto rounded-md border border-cast-line bg-white">
+          <table className="w-full text-left">
+            <caption className="sr-only">{status === 'requested' ? 'Returns waiting to be received' : 'All returns'}, newest first</caption>
+            <thead className="bg-panel">
+              <tr>
+                <th scope="col" className="px-3 py-2">Return</th>
+                <th scope="col" className="px-3 py-2">Asked</th>
+                <th scope="col" className="px-3 py-2">Customer</th>
+                <th scope="col" className="px-3 py-2">Part</th>
+                <th scope="col" className="px-3 py-2">Why</th>
+                <th scope="col" className="px-3 py-2 text-right">Qty</th>
+                <th scope="col" className="px-3 py-2">Status</th>
+                <th scope="col" className="px-3 py-2">
+                  <span className="sr-only">Actions</span>
+                </th>
+              </tr>
+            </thead>
+            <tbody>
+              {list.data.items.map((r) => (
+                <tr key={r.id} className={`border-t border-cast-line ${r.id === openId ? 'bg-temper-tint/60' : ''}`}>
+                  <td className="part-no px-3 py-1">{r.reference}</td>
+                  <td className="whitespace-nowrap px-3 py-1">{formatDateTime(r.createdAt)}</td>
+                  <td className="px-3 py-1">
+                    {r.customer}
+                    <span className="block text-sm text-cast">
+                      order <span className="part-no">{r.orderNumber}</span>
+                    </span>
+                  </td>
+                  <td className="px-3 py-1">
+                    <span className="part-no">{r.partNumber}</span>
+                    <span className="block max-w-64 truncate text-sm text-cast">{r.title}</span>
+                  </td>
+                  <td className="px-3 py-1">{RETURN_KINDS[r.kind]}</td>
+                  <td className="tabular px-3 py-1 text-right">{r.quantity}</td>
+                  <td className="px-3 py-1">
+                    <ReturnStatus status={r.status} />
+                  </td>
+                  <td className="px-3 py-1 text-right">
+                    <Button variant="secondary" className="min-h-12" onClick={() => onOpen(r.id)} aria-label={`Open ${r.reference}`}>
+                      {r.status === 'requested' ? 'Receive' : 'View'}
+                    </Button>
+                  </td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
+        </div>
+      )}
+    </div>
+  );
+}
+
+const DECISIONS = {
+  'core-refund': 'Core-deposit refund',
+  'full-refund': 'Full refund',
+  'partial-refund': 'Partial refund',
+  reject: 'Reject',
+} as const;
+type DecisionKey = keyof typeof DECISIONS;
+
+/** The form's own shape (the amount is typed in dollars); it becomes a ReturnDecision on submit. */
+const decisionForm = (maxCents: number) =>
+  z
+    .object({
+      // Checked in the refinement below, so every field's message shows at once (zod skips refinements on a failed shape).
+      conditionGrade: z.string(),
+      decision: z.string(),
+      restock: z.boolean(),
+      amount: z.string(),
+      rejectReason: z.string(),
+    })
+    .superRefine((v, ctx) => {
+      if (!(CONDITION_GRADE_KEYS as readonly string[]).includes(v.conditionGrade)) ctx.addIssue({ code: 'custom', path: ['conditionGrade'], message: 'grade the condition' });
+      if (!(v.decision in DECISIONS)) ctx.addIssue({ code: 'custom', path: ['decision'], message: 'choose a decision' });
+      if (v.decision === 'partial-refund') {
+        const cents = dollarsToCents(v.amount);
+        if (cents === null || cents <= 0) ctx.addIssue({ code: 'custom', path: ['amount'], message: 'enter an amount in dollars, like 45.50' });
+        else if (cents > maxCents) ctx.addIssue({ code: 'custom', path: ['amount'], message: `at most ${formatPrice(maxCents)} can be refunded` });
+      }
+      if (v.decision === 'reject' && v.rejectReason.trim().length < 3) ctx.addIssue({ code: 'custom', path: ['rejectReason'], message: 'give a reason' });
+    });
+type DecisionForm = z.infer<ReturnType<typeof decisionForm>>;
+
+/** The form's values as the API's decision; the shared schema has the last word. */
+export function toDecision(v: DecisionForm): ReturnDecision {
+  const base = { conditionGrade: v.conditionGrade };
+  switch (v.decision) {
+    case 'core-refund':
+      return ReturnDecisionSchema.parse({ ...base, decision: 'core-refund' });
+    case 'full-refund':
+      return ReturnDecisionSchema.parse({ ...base, decision: 'full-refund', restock: v.restock });
+    case 'partial-refund':
+      return ReturnDecisionSchema.parse({ ...base, decision: 'partial-refund', amountCents: dollarsToCents(v.amount) ?? 0 });
+    default:
+      return ReturnDecisionSchema.parse({ ...base, decision: 'reject', rejectReason: v.rejectReason.trim() });
+  }
+}
+
+const FIELDS = [
+  { name: 'conditionGrade', id: 'ret-grade', label: 'Condition' },
+  { name: 'decision', id: 'ret-decision-core-refund', label: 'Decision' },
+  { name: 'amount', id: 'ret-amount', label: 'Refund amount' },
+  { name: 'rejectReason', id: 'ret-reject', label: 'Reason for rejecting' },
+] as const;
+
+function ReturnDetail({ ret, onClose, onDecided }: { ret: ReturnView; onClose: () => void; onDecided: (r: ReturnView) => void }) {
+  const [decided, setDecided] = useState<ReturnView | null>(ret.status === 'requested' ? null : ret);
+  const decide = (r: ReturnView) => {
+    setDecided(r);
+    onDecided(r);
+  };
+  return (
+    <section aria-labelledby="ret-heading" className="grid gap-5 rounded-lg border-4 border-temper bg-white p-5">
+      <div className="flex flex-wrap items-start justify-between gap-3">
+        <div>
+          <h2 id="ret-heading" className="text-2xl font-bold">
+            Return <span className="part-no">{ret.reference}</span>
+          </h2>
+          <p className="text-lg text-cast">
+            {ret.customer} · order <span className="part-no">{ret.orderNumber}</span> · asked {formatDateTime(ret.createdAt)}
+          </p>
+        </div>
+        <Button variant="quiet" size="lg" onClick={onClose}>
+          <Undo2 aria-hidden className="size-5" />
+          Close
+        </Button>
+      </div>
+      <dl className="grid gap-x-6 gap-y-2 sm:grid-cols-[auto_1fr]">
+        <dt className="font-semibold text-cast">What</dt>
+        <dd>
+          <span className="tabular font-semibold">{ret.quantity} ×</span> <span className="part-no text-xl">{ret.partNumber}</span> {ret.title}
+        </dd>
+        <dt className="font-semibold text-cast">Why</dt>
+        <dd>
+          <span className="font-semibold">{RETURN_KINDS[ret.kind]}</span> — “{ret.reason}”
+        </dd>
+        <dt className="font-semibold text-cast">Paid by</dt>
+        <dd className="inline-flex items-center gap-1.5">
+          {ret.paymentMethod === 'card' ? <CreditCard aria-hidden className="size-5 text-cast" /> : <Landmark aria-hidden className="size-5 text-cast" />}
+          {ret.paymentMethod === 'card' ? 'Card: a refund goes back to the card' : 'On account: a refund is a credit note'}
+        </dd>
+        <dt className="font-semibold text-cast">Refund at most</dt>
+        <dd className="tabular text-lg font-semibold">{formatPrice(ret.maxRefundCents)}</dd>
+        <dt className="font-semibold text-cast">Core deposit</dt>
+        <dd className="tabular">{ret.coreDepositCents > 0 ? formatPrice(ret.coreDepositCents) : 'none on this line'}</dd>
+      </dl>
+      <Photos ret={ret} />
+      {decided ? <Decided ret={decided} /> : <DecisionFormView ret={ret} onDecided={decide} />}
+    </section>
+  );
+}
+
+function Photos({ ret }: { ret: ReturnView }) {
+  if (ret.photos.length === 0) return <p className="text-cast">No photos were sent.</p>;
+  return (
+    <ul aria-label="Photos from the customer" className="flex flex-wrap gap-3">
+      {ret.photos.map((name, i) => {
+        const src = `/api/returns/photos/${encodeURIComponent(name)}`;
+        return (
+          <li key={name}>
+            <a href={src} target="_blank" rel="noreferrer" className="block rounded-md border border-cast-line bg-panel p-1 hover:border-temper">
+              <img src={src} alt={`Photo ${i + 1} of ${ret.photos.length} sent with ${ret.reference}`} className="h-40 w-auto max-w-64 object-contain" loading="lazy" />
+              <span className="sr-only"> (opens full size in a new tab)</span>
+            </a>
+          </li>
+        );
+      })}
+    </ul>
+  );
+}
+
+function DecisionFormView({ ret, onDecided }: { ret: ReturnView; onDecided: (r: ReturnView) => void }) {
+  const decide = useDecideReturn();
+  const form = useForm<DecisionForm>({
+    resolver: zodResolver(decisionForm(ret.maxRefundCents)),
+    defaultValues: { conditionGrade: '', decision: ret.kind === 'core' && ret.coreDepositCents > 0 ? 'core-refund' : 'full-refund', restock: false, amount: '', rejectReason: '' },
+  });
+  const decision = useWatch({ control: form.control, name: 'decision' });
+  const grade = useWatch({ control: form.control, name: 'conditionGrade' });
+  const [showSummary, setShowSummary] = useState(false);
+  const [formError, setFormError] = useState<string | null>(null);
+  const summaryRef = useRef<HTMLDivElement>(null);
+  const errors = form.formState.errors;
+  const focusSummary = () => requestAnimationFrame(() => summaryRef.current?.focus());
+  const offered = (Object.keys(DECISIONS) as DecisionKey[]).filter((d) => d !== 'core-refund' || ret.coreDepositCents > 0);
+
+  const onSubmit = form.handleSubmit(
+    (values) => {
+      setShowSummary(false);
+      setFormError(null);
+      decide.mutate(
+        { id: ret.id, decision: toDecision(values) },
+        {
+          onSuccess: onDecided,
+          onError: (err) => {
+            setFormError(err.message);
+            setShowSummary(true);
+            focusSummary();
+          },
+        },
+      );
+    },
+    () => {
+      setFormError(null);
+      setShowSummary(true);
+      focusSummary();
+    },
+  );
+
+  const amountFor = (d: DecisionKey) =>
+    d === 'core-refund' ? formatPrice(Math.min(ret.coreDepositCents, ret.maxRefundCents)) : d === 'full-refund' ? formatPrice(ret.maxRefundCents) : null;
+
+  return (
+    <form noValidate onSubmit={onSubmit} aria-labelledby="ret-decide-heading" className="grid gap-5 border-t border-cast-line pt-5">
+      <h3 id="ret-decide-heading" className="text-xl font-bold">
+        Grade and decide
+      </h3>
+      {showSummary && <ErrorSummary ref={summaryRef} items={summaryItems(errors, FIELDS)} formError={formError ?? undefined} />}
+      <SelectField id="ret-grade" label="Condition" error={errors.conditionGrade?.message} {...form.register('conditionGrade')}>
+        <option value="" disabled>
+          Grade what came back
+        </option>
+        {CONDITION_GRADE_KEYS.map((g) => (
+          <option key={g} value={g}>
+            {CONDITION_GRADES[g]}
+          </option>
+        ))}
+      </SelectField>
+      <fieldset className="grid gap-2" aria-describedby={errors.decision ? 'ret-decision-error' : undefined}>
+        <legend className="text-lg font-semibold">Decision</legend>
+        {offered.map((d) => (
+          <label key={d} className="flex min-h-12 cursor-pointer items-center gap-3 rounded-md border-2 border-cast-line px-3 has-[:checked]:border-temper has-[:checked]:bg-temper-tint/60">
+            <input id={`ret-decision-${d}`} type="radio" value={d} className="size-5 accent-temper" {...form.register('decision')} />
+            <span className="text-lg font-semibold">{DECISIONS[d]}</span>
+            {amountFor(d) && <span className="tabular text-cast">{amountFor(d)}</span>}
+          </label>
+        ))}
+        {errors.decision && (
+          <p id="ret-decision-error" className="font-semibold text-oxide">
+            {errors.decision.message}
+          </p>
+        )}
+      </fieldset>
+      {decision === 'full-refund' && (
+        <FieldShell id="ret-restock" label="Back on the shelf">
+          <label className="flex min-h-12 items-center gap-3">
+            <input id="ret-restock" type="checkbox" className="size-6 accent-temper" aria-describedby="ret-restock-hint" {...form.register('restock')} />
+            <span className="text-lg">Restock it</span>
+          </label>
+          <p id="ret-restock-hint" className="text-cast">
+            Only a part graded “{CONDITION_GRADES['as-new']}” goes back into stock{grade && grade !== 'as-new' ? '; this one will not' : ''}.
+          </p>
+        </FieldShell>
+      )}
+      {decision === 'partial-refund' && (
+        <TextField
+          id="ret-amount"
+          label="Refund amount"
+          inputMode="decimal"
+          suffix="USD"
+          placeholder={centsToDollarsInput(ret.maxRefundCents)}
+          hint={`In dollars, at most ${formatPrice(ret.maxRefundCents)}.`}
+          error={errors.amount?.message}
+          {...form.register('amount')}
+        />
+      )}
+      {decision === 'reject' && (
+        <TextAreaField id="ret-reject" label="Reason for rejecting" maxLength={300} hint="The customer reads this in their e-mail." error={errors.rejectReason?.message} {...form.register('rejectReason')} />
+      )}
+      <div>
+        <Button type="submit" size="lg" disabled={decide.isPending}>
+          {decide.isPending ? 'Recording…' : decision === 'reject' ? 'Reject the return' : 'Refund and close'}
+        </Button>
+      </div>
+    </form>
+  );
+}
+
+function Decided({ ret }: { ret: ReturnView }) {
+  const how =
+    ret.status === 'refunded'
+      ? `Refunded ${formatPrice(ret.refundCents)} through the card.`
+      : ret.status === 'credited'
+        ? `Credit note ${ret.creditNoteNumber ?? ''} for ${formatPrice(ret.refundCents)} on the customer’s account.`
+        : `Rejected: ${ret.rejectReason ?? 'no reason recorded'}.`;
+  const ok = ret.status !== 'rejected';
+  return (
+    <div role="status" className={`flex items-start gap-3 rounded-lg border-4 p-4 ${ok ? 'border-machined bg-machined-tint' : 'border-oxide bg-oxide-tint'}`}>
+      {ok ? <CircleCheckBig aria-hidden className="size-8 shrink-0 text-machined" /> : <Ban aria-hidden className="size-8 shrink-0 text-oxide" />}
+      <div>
+        <p className={`text-xl font-bold ${ok ? 'text-machined' : 'text-oxide'}`}>{how}</p>
+        <p className="text-lg">
+          {ret.conditionGrade && <>Graded {CONDITION_GRADES[ret.conditionGrade]}. </>}
+          {ret.decidedAt && <>Decided {formatDateTime(ret.decidedAt)}. </>}The customer has been e-mailed.
+        </p>
+      </div>
+    </div>
+  );
+}

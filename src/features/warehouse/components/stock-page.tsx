@@ -1,0 +1,326 @@
+import { zodResolver } from '@hookform/resolvers/zod';
+import { CircleCheckBig, OctagonAlert, Search, SlidersHorizontal, TriangleAlert } from 'lucide-react';
+import { useRef, useState, type FormEvent } from 'react';
+import { useForm } from 'react-hook-form';
+import type { z } from 'zod';
+import { AdjustmentSchema, type StockDetailSchema } from '../../../../shared/schemas/warehouse';
+import { Button } from '../../../components/ui/button';
+import { EmptyState, ErrorState, LoadingState } from '../../../components/ui/states';
+import { ApiError } from '../../../lib/api-client';
+import { useAdjustStock, type Adjustment } from '../api/adjust-stock';
+import { useBins } from '../api/get-bins';
+import { useLowStock } from '../api/get-low-stock';
+import { useStock } from '../api/get-stock';
+import { formatDateTime } from '../lib/age';
+import { normalisePartNumber } from '../lib/pick-progress';
+import { ErrorSummary, SelectField, summaryItems, TextField } from './fields';
+import { ScanField } from './scan-field';
+
+type StockDetail = z.infer<typeof StockDetailSchema>;
+type Bin = StockDetail['bins'][number];
+
+/** A bin's counts agree with its ledger when both on hand and reserved equal the sums of their movements. */
+export const ledgerAgrees = (b: Bin) => b.onHand === b.ledgerOnHand && b.reserved === b.ledgerReserved;
+
+const signed = (n: number) => (n > 0 ? `+${n}` : String(n));
+
+export function StockPage({ part, onLookUp }: { part: string | null; onLookUp: (partNumber: string | null) => void }) {
+  const [value, setValue] = useState(part ?? '');
+  const submit = (e: FormEvent) => {
+    e.preventDefault();
+    const p = normalisePartNumber(value);
+    setValue(p);
+    onLookUp(p || null);
+  };
+  return (
+    <div className="grid grid-cols-[minmax(0,1fr)] gap-8">
+      <form onSubmit={submit} role="search" aria-label="Look up a part's stock" className="grid gap-3 rounded-lg border-2 border-cast-line bg-white p-4 sm:grid-cols-[minmax(0,1fr)_auto] sm:items-end">
+        <ScanField id="stock-part" label="Part number" value={value} onChange={(e) => setValue(e.target.value)} hint="Scan or type, then Enter." />
+        <Button type="submit" size="lg" className="mb-7 sm:mb-7">
+          <Search aria-hidden className="size-5" />
+          Look up
+        </Button>
+      </form>
+      {part ? <PartStock key={part} partNumber={part} /> : null}
+      <LowStock onLookUp={(p) => (setValue(p), onLookUp(p))} />
+    </div>
+  );
+}
+
+function PartStock({ partNumber }: { partNumber: string }) {
+  const stock = useStock(partNumber);
+  if (stock.isPending) return <LoadingState label={`Looking up ${partNumber}…`} />;
+  if (stock.error)
+    return (
+      <ErrorState
+        title={stock.error instanceof ApiError && stock.error.isNotFound ? `There is no part ${partNumber}` : 'Stock did not load'}
+        message={stock.error.message}
+        onRetry={() => void stock.refetch()}
+      />
+    );
+  const s = stock.data;
+  const mismatched = s.bins.filter((b) => !ledgerAgrees(b));
+  const total = s.bins.reduce((acc, b) => ({ onHand: acc.onHand + b.onHand, reserved: acc.reserved + b.reserved }), { onHand: 0, reserved: 0 });
+  return (
+    <section aria-labelledby="part-stock-heading" className="grid grid-cols-[minmax(0,1fr)] gap-4">
+      <div>
+        <h2 id="part-stock-heading" className="part-no text-4xl">
+          {s.partNumber}
+        </h2>
+        <p className="text-xl font-semibold">{s.title}</p>
+        <p className="tabular text-lg text-cast">
+          {total.onHand} on hand · {total.reserved} reserved · {total.onHand - total.reserved} available
+        </p>
+      </div>
+      {mismatched.length === 0 ? (
+        <p role="status" className="inline-flex w-fit items-center gap-2 rounded-md border-2 border-machined bg-machined-tint px-3 py-2 text-lg font-semibold text-machined">
+          <CircleCheckBig aria-hidden className="size-6" />
+          Ledger agrees: every bin’s counts equal the sum of its movements.
+        </p>
+      ) : (
+        <div role="alert" className="flex gap-3 rounded-lg border-4 border-oxide bg-oxide-tint p-4">
+          <OctagonAlert aria-hidden className="size-10 shrink-0 text-oxide" />
+          <div>
+            <p className="text-2xl font-bold text-oxide">Ledger mismatch in {mismatched.map((b) => b.binCode).join(', ')}</p>
+            <p className="text-lg">The stock count and the movements ledger disagree. Do not adjust; tell the office so the cause is found first.</p>
+          </div>
+        </div>
+      )}
+      {s.bins.length === 0 ? (
+        <EmptyState title="Not stocked in any bin">Receive it on Goods in to give it a bin.</EmptyState>
+      ) : (
+        <div className="relative overflow-x-auto rounded-md border border-cast-line bg-white">
+          <table className="w-full text-left">
+            <caption className="sr-only">Bins holding {s.partNumber}, with the ledger sums beside the counts</caption>
+            <thead className="bg-panel">
+              <tr>
+                <th scope="col" className="px-3 py-2">Bin</th>
+                <th scope="col" className="px-3 py-2 text-right">On hand</th>
+                <th scope="col" className="px-3 py-2 text-right">Ledger on hand</th>
+                <th scope="col" className="px-3 py-2 text-right">Reserved</th>
+                <th scope="col" className="px-3 py-2 text-right">Ledger reserved</th>
+                <th scope="col" className="px-3 py-2">Check</th>
+              </tr>
+            </thead>
+            <tbody>
+              {s.bins.map((b) => (
+                <tr key={b.binCode} className={`border-t border-cast-line ${ledgerAgrees(b) ? '' : 'bg-oxide-tint'}`}>
+                  <td className="part-no px-3 py-2 text-2xl">{b.binCode}</td>
+                  <td className="tabular px-3 py-2 text-right text-xl font-bold">{b.onHand}</td>
+                  <td className="tabular px-3 py-2 text-right text-xl">{b.ledgerOnHand}</td>
+                  <td className="tabular px-3 py-2 text-right text-xl">{b.reserved}</td>
+                  <td className="tabular px-3 py-2 text-right text-xl">{b.ledgerReserved}</td>
+                  <td className="px-3 py-2">
+                    {ledgerAgrees(b) ? (
+                      <span className="inline-flex items-center gap-1 font-semibold text-machined">
+                        <CircleCheckBig aria-hidden className="size-5" />
+                        agrees
+                      </span>
+                    ) : (
+                      <span className="inline-flex items-center gap-1 font-bold text-oxide">
+                        <OctagonAlert aria-hidden className="size-5" />
+                        MISMATCH
+                      </span>
+                    )}
+                  </td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
+        </div>
+      )}
+      <AdjustForm detail={s} />
+      <Movements detail={s} />
+    </section>
+  );
+}
+
+const ADJ_FIELDS = [
+  { name: 'binCode', id: 'adj-bin', label: 'Bin' },
+  { name: 'delta', id: 'adj-delta', label: 'Change' },
+  { name: 'reason', id: 'adj-reason', label: 'Reason' },
+] as const;
+
+function AdjustForm({ detail }: { detail: StockDetail }) {
+  const bins = useBins();
+  const adjust = useAdjustStock();
+  const form = useForm<Adjustment>({
+    resolver: zodResolver(AdjustmentSchema),
+    defaultValues: { partNumber: detail.partNumber, binCode: detail.bins[0]?.binCode ?? '', reason: '' },
+  });
+  const [showSummary, setShowSummary] = useState(false);
+  const [formError, setFormError] = useState<string | null>(null);
+  const [done, setDone] = useState<string | null>(null);
+  const summaryRef = useRef<HTMLDivElement>(null);
+  const errors = form.formState.errors;
+  const focusSummary = () => requestAnimationFrame(() => summaryRef.current?.focus());
+  const held = new Set(detail.bins.map((b) => b.binCode));
+
+  const onSubmit = form.handleSubmit(
+    (values) => {
+      setShowSummary(false);
+      setFormError(null);
+      setDone(null);
+      adjust.mutate(values, {
+        onSuccess: (r) => {
+          setDone(`${signed(values.delta)} in ${values.binCode}: now ${r.onHand} on hand, ${r.reserved} reserved.`);
+          form.reset({ partNumber: detail.partNumber, binCode: values.binCode, reason: '' });
+        },
+        onError: (err) => {
+          setFormError(err.message);
+          setShowSummary(true);
+          focusSummary();
+        },
+      });
+    },
+    () => {
+      setFormError(null);
+      setShowSummary(true);
+      focusSummary();
+    },
+  );
+
+  return (
+    <form noValidate onSubmit={onSubmit} aria-labelledby="adj-heading" className="grid gap-4 rounded-lg border-2 border-cast-line bg-white p-4">
+      <h3 id="adj-heading" className="flex items-center gap-2 text-xl font-bold">
+        <SlidersHorizontal aria-hidden className="size-6 text-temper" />
+        Adjust stock
+      </h3>
+      <p className="flex items-start gap-2 text-cast">
+        <TriangleAlert aria-hidden className="mt-0.5 size-5 shrink-0 text-amber" />
+        Count the bin before adjusting. Every change is written to the ledger with your reason.
+      </p>
+      {showSummary && <ErrorSummary ref={summaryRef} items={summaryItems(errors, ADJ_FIELDS)} formError={formError ?? undefined} />}
+      {done && (
+        <p role="status" className="flex items-center gap-2 rounded-md border-2 border-machined bg-machined-tint p-3 text-lg font-semibold text-machined">
+          <CircleCheckBig aria-hidden className="size-6 shrink-0" />
+          Adjusted {detail.partNumber}: {done}
+        </p>
+      )}
+      <input type="hidden" {...form.register('partNumber')} />
+      <div className="grid gap-4 sm:grid-cols-3">
+        <SelectField id="adj-bin" label="Bin" error={errors.binCode?.message} {...form.register('binCode')}>
+          <option value="">Choose a bin</option>
+          {detail.bins.map((b) => (
+            <option key={b.binCode} value={b.binCode}>
+              {b.binCode} (holds {b.onHand})
+            </option>
+          ))}
+          {bins.data?.items
+            .filter((b) => !held.has(b.code))
+            .map((b) => (
+              <option key={b.code} value={b.code}>
+                {b.code} (empty)
+              </option>
+            ))}
+        </SelectField>
+        <TextField id="adj-delta" label="Change" inputMode="numeric" hint="Found more: 3. Damaged or missing: -2." error={errors.delta?.message} {...form.register('delta', { valueAsNumber: true })} />
+        <TextField id="adj-reason" label="Reason" maxLength={120} hint="e.g. cycle count, damaged in handling" error={errors.reason?.message} {...form.register('reason')} />
+      </div>
+      <div>
+        <Button type="submit" size="lg" variant="secondary" disabled={adjust.isPending}>
+          {adjust.isPending ? 'Recording…' : 'Record adjustment'}
+        </Button>
+      </div>
+    </form>
+  );
+}
+
+function Movements({ detail }: { detail: StockDetail }) {
+  return (
+    <section aria-labelledby="moves-heading">
+      <h3 id="moves-heading" className="mb-2 text-xl font-bold">
+        Last movements <span className="tabular font-normal text-cast">({detail.movements.length})</span>
+      </h3>
+      {detail.movements.length === 0 ? (
+        <EmptyState title="No movements yet" />
+      ) : (
+        <div className="relative max-h-[60vh] overflow-auto rounded-md border border-cast-line bg-white">
+          <table className="w-full text-left">
+            <caption className="sr-only">Ledger movements for {detail.partNumber}, newest first</caption>
+            <thead className="sticky top-0 bg-panel">
+              <tr>
+                <th scope="col" className="px-3 py-2">When</th>
+                <th scope="col" className="px-3 py-2">Bin</th>
+                <th scope="col" className="px-3 py-2">Kind</th>
+                <th scope="col" className="px-3 py-2 text-right">On hand</th>
+                <th scope="col" className="px-3 py-2 text-right">Reserved</th>
+                <th scope="col" className="px-3 py-2">Order</th>
+                <th scope="col" className="px-3 py-2">Note</th>
+              </tr>
+            </thead>
+            <tbody>
+              {detail.movements.map((m) => (
+                <tr key={m.id} className="border-t border-cast-line">
+                  <td className="whitespace-nowrap px-3 py-2">{formatDateTime(m.createdAt)}</td>
+                  <td className="part-no px-3 py-2">{m.binCode}</td>
+                  <td className="px-3 py-2 font-semibold">{m.kind}</td>
+                  <td className="tabular px-3 py-2 text-right">{m.onHandDelta === 0 ? '—' : signed(m.onHandDelta)}</td>
+                  <td className="tabular px-3 py-2 text-right">{m.reservedDelta === 0 ? '—' : signed(m.reservedDelta)}</td>
+                  <td className="part-no px-3 py-2">{m.orderNumber ?? '—'}</td>
+                  <td className="px-3 py-2 text-cast">{m.note ?? ''}</td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
+        </div>
+      )}
+    </section>
+  );
+}
+
+function LowStock({ onLookUp }: { onLookUp: (partNumber: string) => void }) {
+  const low = useLowStock();
+  return (
+    <section aria-labelledby="low-heading">
+      <h2 id="low-heading" className="mb-2 text-2xl font-bold">
+        Low stock
+      </h2>
+      <p className="mb-3 text-cast">Parts at or under their minimum, those with customers waiting first.</p>
+      {low.isPending ? (
+        <LoadingState label="Loading the low-stock list…" />
+      ) : low.error ? (
+        <ErrorState title="The low-stock list did not load" message={low.error.message} onRetry={() => void low.refetch()} />
+      ) : low.data.items.length === 0 ? (
+        <EmptyState title="Nothing is low">Every active part is above its minimum.</EmptyState>
+      ) : (
+        <div className="relative max-h-[60vh] overflow-auto rounded-md border border-cast-line bg-white">
+          <table className="w-full text-left">
+            <caption className="sr-only">Parts at or under their minimum stock</caption>
+            <thead className="sticky top-0 bg-panel">
+              <tr>
+                <th scope="col" className="px-3 py-2">Part number</th>
+                <th scope="col" className="px-3 py-2">Title</th>
+                <th scope="col" className="px-3 py-2 text-right">Available</th>
+                <th scope="col" className="px-3 py-2 text-right">On hand</th>
+                <th scope="col" className="px-3 py-2 text-right">Minimum</th>
+                <th scope="col" className="px-3 py-2 text-right">Back-orders waiting</th>
+              </tr>
+            </thead>
+            <tbody>
+              {low.data.items.map((i) => (
+                <tr key={i.partNumber} className="border-t border-cast-line">
+                  <td className="px-3 py-1">
+                    <button type="button" onClick={() => onLookUp(i.partNumber)} className="part-no min-h-12 text-lg text-temper underline-offset-2 hover:underline">
+                      {i.partNumber}
+                    </button>
+                  </td>
+                  <td className="px-3 py-1">{i.title}</td>
+                  <td className="tabular px-3 py-1 text-right font-semibold">
+                    <span className="inline-flex items-center gap-1 text-amber">
+                      <TriangleAlert aria-hidden className="size-4" />
+                      {i.available}
+                    </span>
+                  </td>
+                  <td className="tabular px-3 py-1 text-right">{i.onHand}</td>
+                  <td className="tabular px-3 py-1 text-right">{i.minStock}</td>
+                  <td className="tabular px-3 py-1 text-right">{i.waitingBackorders > 0 ? <span className="font-bold text-oxide">{i.waitingBackorders}</span> : '—'}</td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
+        </div>
+      )}
+    </section>
+  );
+}
