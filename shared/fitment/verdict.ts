@@ -53,8 +53,10 @@ function assessPoint(frame: FitmentFrame, point: OperatingPoint, context: Assess
       map.workCoefficient ?? DEFAULT_WORK_COEFFICIENT,
       frame.exducerMm,
     );
-  // Past choke no shaft speed delivers the flow; a number there would only mislead.
-  const shaftRpm = zone === 'choke' ? null : correctedRpm * speedCorrection;
+  // Past choke no shaft speed delivers the flow, and far past the top speed line the extrapolation means
+  // nothing; a number there would only mislead.
+  const estimate = correctedRpm * speedCorrection;
+  const shaftRpm = zone === 'choke' || (zone === 'overspeed' && estimate > 1.2 * frame.maxShaftRpm) ? null : estimate;
   return {
     rpm: point.rpm,
     zone,
