@@ -42,7 +42,8 @@ function useCatalogueQuery(): [PartsQuery, URLSearchParams, (changes: Record<str
       else next.set(k, v);
     }
     if (!('page' in changes)) next.delete('page');
-    setParams(next);
+    // Synchronously, so a filter control shows its new state at once instead of flicking back while the page updates.
+    setParams(next, { flushSync: true });
   };
   return [query, params, update];
 }

@@ -1,12 +1,12 @@
 import { zodResolver } from '@hookform/resolvers/zod';
-import { AlertOctagon } from 'lucide-react';
-import { useId, useRef, useState, type ReactNode } from 'react';
+import { useId, useRef, useState } from 'react';
 import { useForm, type FieldErrors } from 'react-hook-form';
 import { z } from 'zod';
 import { PAYMENT_TERMS_DAYS } from '../../../../shared/schemas/account-replies';
 import { DealerDecisionSchema, type DealerDecision } from '../../../../shared/schemas/accounts';
 import { DEALER_TIER_KEYS, DEALER_TIERS } from '../../../../shared/pricing';
 import { buttonClass } from '../../../components/ui/button';
+import { ErrorSummary, SelectField, summaryItems, TextAreaField, TextField } from '../../../components/ui/form';
 import { useDecideDealer } from '../api/decide-dealer';
 
 /** Dollars as typed ("7500", "7,500.00") to whole cents, without floating-point rounding. */
@@ -39,82 +39,16 @@ export interface DecisionDone {
   decision: DealerDecision;
 }
 
-const control = (invalid: boolean) => `min-h-11 w-full rounded-md border bg-white px-3 text-ink focus:border-temper ${invalid ? 'border-2 border-oxide' : 'border-cast-line'}`;
-
-function FieldMessage({ id, message }: { id: string; message?: string }) {
-  if (!message) return null;
-  return (
-    <p id={id} className="flex items-center gap-1 text-sm font-semibold text-oxide">
-      <AlertOctagon aria-hidden className="size-4 shrink-0" />
-      {message}
-    </p>
-  );
-}
-
-function Summary({ items, formError, summaryRef }: { items: Array<{ id: string; message: string }>; formError?: string; summaryRef: React.Ref<HTMLDivElement> }) {
-  if (items.length === 0 && !formError) return null;
-  return (
-    <div ref={summaryRef} tabIndex={-1} role="alert" className="rounded-md border-2 border-oxide bg-oxide-tint p-3">
-      <p className="flex items-center gap-1 font-semibold text-oxide">
-        <AlertOctagon aria-hidden className="size-4" />
-        {items.length ? 'Please check the form' : 'That did not work'}
-      </p>
-      {formError && <p>{formError}</p>}
-      <ul className="list-disc pl-5">
-        {items.map((i) => (
-          <li key={i.id}>
-            <a
-              href={`#${i.id}`}
-              onClick={(e) => {
-                e.preventDefault();
-                document.getElementById(i.id)?.focus();
-              }}
-              className="font-semibold text-oxide underline underline-offset-2"
-            >
-              {i.message}
-            </a>
-          </li>
-        ))}
-      </ul>
-    </div>
-  );
-}
-
 function useSummary<T extends Record<string, unknown>>(errors: FieldErrors<T>, fields: Array<{ name: keyof T & string; id: string; label: string }>) {
   const ref = useRef<HTMLDivElement>(null);
   const [shown, setShown] = useState(false);
-  const items = fields.flatMap((f) => {
-    const message = (errors as Record<string, { message?: unknown } | undefined>)[f.name]?.message;
-    return typeof message === 'string' ? [{ id: f.id, message: `${f.label}: ${message}` }] : [];
-  });
+  const items = summaryItems(errors, fields);
   const show = () => {
     setShown(true);
     requestAnimationFrame(() => ref.current?.focus());
   };
   return { ref, shown, show, hide: () => setShown(false), items };
 }
-
-function Labelled({ id, label, hint, error, children }: { id: string; label: string; hint?: string; error?: string; children: ReactNode }) {
-  return (
-    <div className="grid content-start gap-1">
-      <label htmlFor={id} className="font-semibold">
-        {label}
-      </label>
-      {children}
-      {hint && (
-        <p id={`${id}-hint`} className="text-sm text-cast">
-          {hint}
-        </p>
-      )}
-      <FieldMessage id={`${id}-error`} message={error} />
-    </div>
-  );
-}
-
-const aria = (id: string, error?: string, hint = false) => ({
-  'aria-invalid': error ? true : undefined,
-  'aria-describedby': [hint ? `${id}-hint` : '', error ? `${id}-error` : ''].filter(Boolean).join(' ') || undefined,
-});
 
 export function ApproveDealerForm({ dealerId, companyName, onDone }: { dealerId: number; companyName: string; onDone: (d: DecisionDone) => void }) {
   const base = useId();
@@ -148,43 +82,36 @@ export function ApproveDealerForm({ dealerId, companyName, onDone }: { dealerId:
   return (
     <form noValidate onSubmit={onSubmit} aria-label={`Approve ${companyName}`} className="grid content-start gap-3 rounded-md border border-machined/50 bg-white p-4">
       <h3 className="text-lg font-bold">Approve</h3>
-      {summary.shown && <Summary summaryRef={summary.ref} items={summary.items} formError={decide.isError ? decide.error.message : undefined} />}
-      <Labelled id={ids.tier} label="Trade tier" error={errors.tier?.message}>
-        <select id={ids.tier} defaultValue="" className={control(Boolean(errors.tier))} {...aria(ids.tier, errors.tier?.message)} {...form.register('tier')}>
-          <option value="" disabled>
-            Choose a tier
+      {summary.shown && <ErrorSummary variant="compact" ref={summary.ref} items={summary.items} formError={decide.isError ? decide.error.message : undefined} />}
+      <SelectField id={ids.tier} label="Trade tier" error={errors.tier?.message} defaultValue="" {...form.register('tier')}>
+        <option value="" disabled>
+          Choose a tier
+        </option>
+        {DEALER_TIER_KEYS.map((t) => (
+          <option key={t} value={t}>
+            {DEALER_TIERS[t].label} — {DEALER_TIERS[t].discountPct} % off
           </option>
-          {DEALER_TIER_KEYS.map((t) => (
-            <option key={t} value={t}>
-              {DEALER_TIERS[t].label} — {DEALER_TIERS[t].discountPct} % off
-            </option>
-          ))}
-        </select>
-      </Labelled>
-      <Labelled id={ids.creditLimit} label="Credit limit" hint="In dollars. Orders on account stop when the open balance would pass it." error={errors.creditLimit?.message}>
-        <div className="flex">
-          <span aria-hidden className="inline-flex items-center rounded-l-md border border-r-0 border-cast-line bg-panel px-3 font-semibold text-cast">
-            $
-          </span>
-          <input
-            id={ids.creditLimit}
-            inputMode="decimal"
-            autoComplete="off"
-            className={`${control(Boolean(errors.creditLimit))} tabular rounded-l-none`}
-            {...aria(ids.creditLimit, errors.creditLimit?.message, true)}
-            {...form.register('creditLimit')}
-          />
-        </div>
-      </Labelled>
-      <Labelled id={ids.paymentTermsDays} label="Payment terms" error={errors.paymentTermsDays?.message}>
-        <select id={ids.paymentTermsDays} className={control(Boolean(errors.paymentTermsDays))} {...aria(ids.paymentTermsDays, errors.paymentTermsDays?.message)} {...form.register('paymentTermsDays')}>
-          {PAYMENT_TERMS_DAYS.map((d) => (
-            <option key={d} value={String(d)}>
-              Net {d} days
-            </option>
-          ))}
-        </select>
-      </Labelled>
+        ))}
+      </SelectField>
+      <TextField
+        id={ids.creditLimit}
+        label="Credit limit"
+        hint="In dollars. Orders on account stop when the open balance would pass it."
+        error={errors.creditLimit?.message}
+        prefix="$"
+        affix="addon"
+        inputMode="decimal"
+        autoComplete="off"
+        className="tabular"
+        {...form.register('creditLimit')}
+      />
+      <SelectField id={ids.paymentTermsDays} label="Payment terms" error={errors.paymentTermsDays?.message} {...form.register('paymentTermsDays')}>
+        {PAYMENT_TERMS_DAYS.map((d) => (
+          <option key={d} value={String(d)}>
+            Net {d} days
+          </option>
+        ))}
+      </SelectField>
       <div>
         <button type="submit" className={buttonClass('primary')} disabled={decide.isPending}>
           {decide.isPending ? 'Approving…' : `Approve ${companyName}`}
@@ -216,10 +143,8 @@ export function DeclineDealerForm({ dealerId, companyName, onDone }: { dealerId:
   return (
     <form noValidate onSubmit={onSubmit} aria-label={`Decline ${companyName}`} className="grid content-start gap-3 rounded-md border border-oxide/40 bg-white p-4">
       <h3 className="text-lg font-bold">Decline</h3>
-      {summary.shown && <Summary summaryRef={summary.ref} items={summary.items} formError={decide.isError ? decide.error.message : undefined} />}
-      <Labelled id={id} label="Reason" hint="Sent to the applicant in the decision e-mail. Keep it short and factual." error={errors.reason?.message}>
-        <textarea id={id} rows={4} className={`${control(Boolean(errors.reason))} py-2`} {...aria(id, errors.reason?.message, true)} {...form.register('reason')} />
-      </Labelled>
+      {summary.shown && <ErrorSummary variant="compact" ref={summary.ref} items={summary.items} formError={decide.isError ? decide.error.message : undefined} />}
+      <TextAreaField id={id} label="Reason" hint="Sent to the applicant in the decision e-mail. Keep it short and factual." error={errors.reason?.message} rows={4} {...form.register('reason')} />
       <div>
         <button type="submit" className={buttonClass('secondary')} disabled={decide.isPending}>
           {decide.isPending ? 'Declining…' : `Decline ${companyName}`}

@@ -6,7 +6,7 @@ import { DELIVERY_ZONES } from '../../../../shared/pricing';
 import { buttonClass } from '../../../components/ui/button';
 import { ApiError } from '../../../lib/api-client';
 import { useApplyForTradeAccount } from '../api/apply-for-trade-account';
-import { ErrorSummary, SelectField, summaryItems, TextField } from './form-parts';
+import { ErrorSummary, SelectField, summaryItems, TextField } from '../../../components/ui/form';
 
 const FIELDS = [
   { name: 'companyName', id: 'apply-company', label: 'Company name' },

@@ -6,7 +6,7 @@ import { SignInSchema } from '../../../../shared/schemas/accounts';
 import { buttonClass } from '../../../components/ui/button';
 import { useRequestPasswordReset } from '../api/request-password-reset';
 import { authErrorMessage } from '../auth-errors';
-import { ErrorSummary, summaryItems, TextField } from './form-parts';
+import { ErrorSummary, summaryItems, TextField } from '../../../components/ui/form';
 
 const ResetRequestSchema = SignInSchema.pick({ email: true });
 const FIELDS = [{ name: 'email', id: 'forgot-email', label: 'E-mail address' }] as const;

@@ -6,7 +6,7 @@ import { PASSWORD_MIN, SignUpSchema } from '../../../../shared/schemas/accounts'
 import { buttonClass } from '../../../components/ui/button';
 import { useResetPassword } from '../api/reset-password';
 import { authErrorMessage } from '../auth-errors';
-import { ErrorSummary, summaryItems, TextField } from './form-parts';
+import { ErrorSummary, summaryItems, TextField } from '../../../components/ui/form';
 
 const NewPasswordSchema = z
   .object({ password: SignUpSchema.shape.password, confirm: z.string().min(1, 'type the new password again') })

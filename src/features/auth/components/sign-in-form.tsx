@@ -6,7 +6,7 @@ import { SignInSchema, type Me, type SignIn } from '../../../../shared/schemas/a
 import { Button, buttonClass } from '../../../components/ui/button';
 import { useSignIn } from '../api/sign-in';
 import { authErrorMessage } from '../auth-errors';
-import { ErrorSummary, summaryItems, TextField } from './form-parts';
+import { ErrorSummary, summaryItems, TextField } from '../../../components/ui/form';
 
 const FIELDS = [
   { name: 'email', id: 'sign-in-email', label: 'E-mail address' },

@@ -6,7 +6,7 @@ import { PASSWORD_MIN, SignUpSchema, type SignUp } from '../../../../shared/sche
 import { buttonClass } from '../../../components/ui/button';
 import { useSignUp } from '../api/sign-up';
 import { authErrorMessage } from '../auth-errors';
-import { ErrorSummary, summaryItems, TextField } from './form-parts';
+import { ErrorSummary, summaryItems, TextField } from '../../../components/ui/form';
 
 const FIELDS = [
   { name: 'name', id: 'sign-up-name', label: 'Your name' },

@@ -15,7 +15,7 @@ import { useCart } from '../api/get-cart';
 import { useSetDeliveryZone } from '../api/set-delivery-zone';
 import { CartTotals } from './cart-totals';
 import { blockedLines } from './cart-page';
-import { ErrorSummary, type SummaryItem } from './error-summary';
+import { ErrorSummary, type SummaryItem } from '../../../components/ui/form';
 
 interface CheckoutFormValues {
   method: 'card' | 'account';
@@ -48,7 +48,7 @@ function summaryOf(errors: FieldErrors<CheckoutFormValues>): SummaryItem[] {
     const e = get(p);
     if (!e?.message) return [];
     // A card choice is a radio group: link to its first option.
-    return [{ fieldId: p === 'paymentMethod' ? `${fieldId(p)}-0` : fieldId(p), message: e.message }];
+    return [{ id: p === 'paymentMethod' ? `${fieldId(p)}-0` : fieldId(p), message: e.message }];
   });
 }
 
@@ -235,7 +235,7 @@ function CheckoutFields({ me, cart: c, place, onPlaced }: { me: Me; cart: CartVi
   return (
     <div className="grid gap-8 lg:grid-cols-[minmax(0,1fr)_22rem]">
       <form onSubmit={onSubmit} noValidate className="grid content-start gap-6" aria-label="Checkout">
-        <ErrorSummary items={summary} focusKey={submitCount} />
+        <ErrorSummary variant="banner" title="Please fix these before you continue" items={summary} focusKey={submitCount} />
         {placeError && (
           <div role="alert" className="flex gap-3 rounded-md border-2 border-oxide bg-oxide-tint p-4">
             <OctagonAlert aria-hidden className="mt-0.5 size-5 shrink-0 text-oxide" />

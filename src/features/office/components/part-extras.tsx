@@ -12,7 +12,7 @@ import { useSetPartLinks } from '../api/set-part-links';
 import { useSupersedePart } from '../api/supersede-part';
 import { useUploadPartPhoto } from '../api/upload-part-photo';
 import { formatBytes } from '../lib/money';
-import { TextField } from './form-parts';
+import { TextField } from '../../../components/ui/form';
 
 function Panel({ title, children, id }: { title: string; children: ReactNode; id: string }) {
   return (

@@ -10,7 +10,7 @@ import { ApiError } from '../../../lib/api-client';
 import { useSavePart } from '../api/save-part';
 import { formatScaled, parseScaled } from '../lib/money';
 import { ALL_SPEC_KEYS, SPEC_FIELDS, specFieldId, specFieldsFor, type SpecField } from '../lib/spec-fields';
-import { ErrorSummary, SelectField, TextAreaField, TextField, type SummaryItem } from './form-parts';
+import { ErrorSummary, SelectField, TextAreaField, TextField, type SummaryItem } from '../../../components/ui/form';
 
 type FormInput = z.input<typeof PartFormSchema>;
 

@@ -1,10 +1,11 @@
 import { createColumnHelper, flexRender, getCoreRowModel, useReactTable, type SortingState } from '@tanstack/react-table';
-import { ArrowDown, ArrowUp, ArrowUpDown, Plus } from 'lucide-react';
+import { Plus } from 'lucide-react';
 import { useState, type FormEvent } from 'react';
 import { Link } from 'react-router-dom';
 import { categoryLabel, formatPrice } from '../../../../shared/catalog';
 import type { PartSummary } from '../../../../shared/schemas/parts';
 import { buttonClass } from '../../../components/ui/button';
+import { SortableColumnHeader } from '../../../components/ui/sort-header';
 import { EmptyState, ErrorState, LoadingState } from '../../../components/ui/states';
 import { OFFICE_PAGE_SIZE, useOfficeParts, type OfficeSort } from '../api/search-parts';
 
@@ -157,27 +158,9 @@ export function PartsTable({ q, onSearch }: { q: string; onSearch: (q: string) =
                 <thead className="sticky top-0 z-10 bg-panel">
                   {table.getHeaderGroups().map((hg) => (
                     <tr key={hg.id}>
-                      {hg.headers.map((h) => {
-                        const numeric = (h.column.columnDef.meta as { numeric?: boolean } | undefined)?.numeric;
-                        const sorted = h.column.getIsSorted();
-                        return (
-                          <th
-                            key={h.id}
-                            scope="col"
-                            aria-sort={sorted === 'asc' ? 'ascending' : sorted === 'desc' ? 'descending' : h.column.getCanSort() ? 'none' : undefined}
-                            className={`whitespace-nowrap border-b border-cast-line px-3 py-2 font-semibold ${numeric ? 'text-right' : ''}`}
-                          >
-                            {h.column.getCanSort() ? (
-                              <button type="button" onClick={h.column.getToggleSortingHandler()} className="inline-flex min-h-9 items-center gap-1 hover:text-temper">
-                                {flexRender(h.column.columnDef.header, h.getContext())}
-                                {sorted === 'asc' ? <ArrowUp aria-hidden className="size-4" /> : sorted === 'desc' ? <ArrowDown aria-hidden className="size-4" /> : <ArrowUpDown aria-hidden className="size-4 text-cast" />}
-                              </button>
-                            ) : (
-                              flexRender(h.column.columnDef.header, h.getContext())
-                            )}
-                          </th>
-                        );
-                      })}
+                      {hg.headers.map((h) => (
+                        <SortableColumnHeader key={h.id} header={h} unsortedAsNone />
+                      ))}
                     </tr>
                   ))}
                 </thead>

@@ -10,7 +10,7 @@ import { Button } from '../../../components/ui/button';
 import { ApiError } from '../../../lib/api-client';
 import { useCreateReturn } from '../api/create-return';
 import { checkPhotos, formatBytes, RETURN_PHOTO_TYPES } from '../lib/photo-checks';
-import { ErrorSummary, TextAreaField, TextField, type SummaryItem } from './form-parts';
+import { ErrorSummary, TextAreaField, TextField, type SummaryItem } from '../../../components/ui/form';
 
 type Line = OrderDetail['lines'][number];
 type FormInput = z.input<typeof ReturnRequestSchema>;

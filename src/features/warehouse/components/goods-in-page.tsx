@@ -11,7 +11,7 @@ import { useStock } from '../api/get-stock';
 import { useReceiveGoods, type GoodsIn } from '../api/receive-goods';
 import type { GoodsInReply } from '../api/reply-schemas';
 import { normalisePartNumber } from '../lib/pick-progress';
-import { ErrorSummary, SelectField, summaryItems, TextField } from './fields';
+import { ErrorSummary, SelectField, summaryItems, TextField } from '../../../components/ui/form';
 import { ScanField } from './scan-field';
 
 const FIELDS = [
@@ -89,7 +89,7 @@ export function GoodsInPage() {
           <PackagePlus aria-hidden className="size-7 text-temper" />
           Receive stock
         </h2>
-        {showSummary && <ErrorSummary ref={summaryRef} items={summaryItems(errors, FIELDS)} formError={formError ?? undefined} />}
+        {showSummary && <ErrorSummary variant="floor" ref={summaryRef} items={summaryItems(errors, FIELDS)} formError={formError ?? undefined} />}
         <ScanField
           id="gi-part"
           label="Part number"
@@ -130,7 +130,7 @@ export function GoodsInPage() {
           )}
         </div>
         <div className="grid gap-5 sm:grid-cols-2">
-          <SelectField id="gi-bin" label="Bin" error={errors.binCode?.message} hint={bins.error ? `Bins did not load: ${bins.error.message}` : 'Defaults to where the part already sits.'} {...form.register('binCode')}>
+          <SelectField variant="floor" id="gi-bin" label="Bin" error={errors.binCode?.message} hint={bins.error ? `Bins did not load: ${bins.error.message}` : 'Defaults to where the part already sits.'} {...form.register('binCode')}>
             <option value="">{bins.isPending ? 'Loading bins…' : 'Choose a bin'}</option>
             {bins.data?.items.map((b) => (
               <option key={b.code} value={b.code}>
@@ -138,9 +138,9 @@ export function GoodsInPage() {
               </option>
             ))}
           </SelectField>
-          <TextField id="gi-qty" label="Quantity received" inputMode="numeric" error={errors.quantity?.message} {...form.register('quantity', { valueAsNumber: true })} />
+          <TextField variant="floor" id="gi-qty" label="Quantity received" inputMode="numeric" error={errors.quantity?.message} {...form.register('quantity', { valueAsNumber: true })} />
         </div>
-        <TextField id="gi-note" label="Note" optional maxLength={120} hint="Supplier delivery note or carton count, up to 120 characters." error={errors.note?.message} {...form.register('note')} />
+        <TextField variant="floor" id="gi-note" label="Note" optional maxLength={120} hint="Supplier delivery note or carton count, up to 120 characters." error={errors.note?.message} {...form.register('note')} />
         <div>
           <Button type="submit" size="lg" disabled={receive.isPending}>
             <PackagePlus aria-hidden className="size-5" />

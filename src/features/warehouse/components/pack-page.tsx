@@ -12,7 +12,7 @@ import { useDispatchOrder } from '../api/dispatch-order';
 import { useOrder } from '../api/get-order';
 import { usePackOrder } from '../api/pack-order';
 import type { DispatchReply } from '../api/reply-schemas';
-import { ErrorSummary, SelectField, summaryItems, TextField } from './fields';
+import { ErrorSummary, SelectField, summaryItems, TextField } from '../../../components/ui/form';
 import { ScanField } from './scan-field';
 
 const PackDispatchFormSchema = PackSchema.extend({ carrier: DispatchSchema.shape.carrier, trackingNumber: DispatchSchema.shape.trackingNumber });
@@ -174,9 +174,10 @@ function PackForm({ order, onDispatched }: { order: OrderDetail; onDispatched: (
         <PackageCheck aria-hidden className="size-7 text-temper" />
         Pack and dispatch
       </h2>
-      {showSummary && <ErrorSummary ref={summaryRef} items={summaryItems(errors, FIELDS)} formError={formError ?? undefined} />}
+      {showSummary && <ErrorSummary variant="floor" ref={summaryRef} items={summaryItems(errors, FIELDS)} formError={formError ?? undefined} />}
       <div className="grid gap-5 sm:grid-cols-2">
         <TextField
+          variant="floor"
           id="pack-cartons"
           label="Cartons"
           inputMode="numeric"
@@ -186,6 +187,7 @@ function PackForm({ order, onDispatched }: { order: OrderDetail; onDispatched: (
           {...form.register('cartons', { valueAsNumber: true })}
         />
         <TextField
+          variant="floor"
           id="pack-weight"
           label="Packed weight"
           inputMode="decimal"
@@ -194,7 +196,7 @@ function PackForm({ order, onDispatched }: { order: OrderDetail; onDispatched: (
           hint={goodsKg > 0 ? `The goods weigh ${goodsKg} kg; weigh the packed cartons.` : 'Weigh the packed cartons.'}
           {...form.register('weightKg', { valueAsNumber: true })}
         />
-        <SelectField id="pack-carrier" label="Carrier" error={errors.carrier?.message} defaultValue="" {...form.register('carrier')}>
+        <SelectField variant="floor" id="pack-carrier" label="Carrier" error={errors.carrier?.message} defaultValue="" {...form.register('carrier')}>
           <option value="" disabled>
             Choose a carrier
           </option>

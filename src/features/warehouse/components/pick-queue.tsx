@@ -10,12 +10,13 @@ import {
   type RowSelectionState,
   type SortingState,
 } from '@tanstack/react-table';
-import { ArrowDown, ArrowUp, ArrowUpDown, CreditCard, Layers, Landmark, RefreshCw } from 'lucide-react';
+import { CreditCard, Layers, Landmark, RefreshCw } from 'lucide-react';
 import { useMemo, useRef, useState } from 'react';
 import { Link, useNavigate } from 'react-router-dom';
 import type { z } from 'zod';
 import type { PickQueueItemSchema } from '../../../../shared/schemas/warehouse';
 import { Button, buttonClass } from '../../../components/ui/button';
+import { SortableColumnHeader } from '../../../components/ui/sort-header';
 import { EmptyState, ErrorState, LoadingState } from '../../../components/ui/states';
 import { usePickQueue } from '../api/get-pick-queue';
 import { orderAge } from '../lib/age';
@@ -227,31 +228,9 @@ function QueueTable({ items, refreshing, onRefresh }: { items: QueueItem[]; refr
             <thead className="sticky top-0 z-10 bg-panel">
               {table.getHeaderGroups().map((hg) => (
                 <tr key={hg.id}>
-                  {hg.headers.map((h) => {
-                    const numeric = (h.column.columnDef.meta as { numeric?: boolean } | undefined)?.numeric;
-                    const sorted = h.column.getIsSorted();
-                    return (
-                      <th
-                        key={h.id}
-                        scope="col"
-                        aria-sort={sorted === 'asc' ? 'ascending' : sorted === 'desc' ? 'descending' : undefined}
-                        className={`whitespace-nowrap border-b border-cast-line px-2 py-1 font-semibold ${numeric ? 'text-right' : ''}`}
-                      >
-                        {h.column.getCanSort() ? (
-                          <button
-                            type="button"
-                            onClick={h.column.getToggleSortingHandler()}
-                            className={`inline-flex min-h-12 items-center gap-1 font-semibold hover:text-temper ${numeric ? 'flex-row-reverse' : ''}`}
-                          >
-                            {flexRender(h.column.columnDef.header, h.getContext())}
-                            {sorted === 'asc' ? <ArrowUp aria-hidden className="size-4 shrink-0" /> : sorted === 'desc' ? <ArrowDown aria-hidden className="size-4 shrink-0" /> : <ArrowUpDown aria-hidden className="size-4 shrink-0 text-cast" />}
-                          </button>
-                        ) : (
-                          flexRender(h.column.columnDef.header, h.getContext())
-                        )}
-                      </th>
-                    );
-                  })}
+                  {hg.headers.map((h) => (
+                    <SortableColumnHeader key={h.id} header={h} variant="floor" />
+                  ))}
                 </tr>
               ))}
             </thead>

@@ -11,7 +11,7 @@ import { useDecideReturn } from '../api/decide-return';
 import { useReturns, type ReturnFilter } from '../api/get-returns';
 import { formatDateTime } from '../lib/age';
 import { centsToDollarsInput, dollarsToCents } from '../lib/money';
-import { ErrorSummary, FieldShell, SelectField, summaryItems, TextAreaField, TextField } from './fields';
+import { ErrorSummary, FieldShell, SelectField, summaryItems, TextAreaField, TextField } from '../../../components/ui/form';
 
 const STATUS = {
   requested: { label: 'Requested', Icon: Clock, cls: 'text-amber' },
@@ -279,8 +279,8 @@ function DecisionFormView({ ret, onDecided }: { ret: ReturnView; onDecided: (r: 
       <h3 id="ret-decide-heading" className="text-xl font-bold">
         Grade and decide
       </h3>
-      {showSummary && <ErrorSummary ref={summaryRef} items={summaryItems(errors, FIELDS)} formError={formError ?? undefined} />}
-      <SelectField id="ret-grade" label="Condition" error={errors.conditionGrade?.message} {...form.register('conditionGrade')}>
+      {showSummary && <ErrorSummary variant="floor" ref={summaryRef} items={summaryItems(errors, FIELDS)} formError={formError ?? undefined} />}
+      <SelectField variant="floor" id="ret-grade" label="Condition" error={errors.conditionGrade?.message} {...form.register('conditionGrade')}>
         <option value="" disabled>
           Grade what came back
         </option>
@@ -306,7 +306,7 @@ function DecisionFormView({ ret, onDecided }: { ret: ReturnView; onDecided: (r: 
         )}
       </fieldset>
       {decision === 'full-refund' && (
-        <FieldShell id="ret-restock" label="Back on the shelf">
+        <FieldShell variant="floor" id="ret-restock" label="Back on the shelf">
           <label className="flex min-h-12 items-center gap-3">
             <input id="ret-restock" type="checkbox" className="size-6 accent-temper" aria-describedby="ret-restock-hint" {...form.register('restock')} />
             <span className="text-lg">Restock it</span>
@@ -318,6 +318,7 @@ function DecisionFormView({ ret, onDecided }: { ret: ReturnView; onDecided: (r: 
       )}
       {decision === 'partial-refund' && (
         <TextField
+          variant="floor"
           id="ret-amount"
           label="Refund amount"
           inputMode="decimal"
@@ -329,7 +330,7 @@ function DecisionFormView({ ret, onDecided }: { ret: ReturnView; onDecided: (r: 
         />
       )}
       {decision === 'reject' && (
-        <TextAreaField id="ret-reject" label="Reason for rejecting" maxLength={300} hint="The customer reads this in their e-mail." error={errors.rejectReason?.message} {...form.register('rejectReason')} />
+        <TextAreaField variant="floor" id="ret-reject" label="Reason for rejecting" maxLength={300} hint="The customer reads this in their e-mail." error={errors.rejectReason?.message} {...form.register('rejectReason')} />
       )}
       <div>
         <Button type="submit" size="lg" disabled={decide.isPending}>

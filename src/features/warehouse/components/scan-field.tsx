@@ -1,6 +1,6 @@
 import { ScanBarcode } from 'lucide-react';
 import { forwardRef, useEffect, useImperativeHandle, useRef, type InputHTMLAttributes, type ReactNode } from 'react';
-import { describedBy } from './fields';
+import { describedBy } from '../../../components/ui/form';
 
 const typing = (el: Element | null) => el instanceof HTMLInputElement || el instanceof HTMLTextAreaElement || el instanceof HTMLSelectElement || (el as HTMLElement | null)?.isContentEditable;
 

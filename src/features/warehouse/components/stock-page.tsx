@@ -13,7 +13,7 @@ import { useLowStock } from '../api/get-low-stock';
 import { useStock } from '../api/get-stock';
 import { formatDateTime } from '../lib/age';
 import { normalisePartNumber } from '../lib/pick-progress';
-import { ErrorSummary, SelectField, summaryItems, TextField } from './fields';
+import { ErrorSummary, SelectField, summaryItems, TextField } from '../../../components/ui/form';
 import { ScanField } from './scan-field';
 
 type StockDetail = z.infer<typeof StockDetailSchema>;
@@ -190,7 +190,7 @@ function AdjustForm({ detail }: { detail: StockDetail }) {
         <TriangleAlert aria-hidden className="mt-0.5 size-5 shrink-0 text-amber" />
         Count the bin before adjusting. Every change is written to the ledger with your reason.
       </p>
-      {showSummary && <ErrorSummary ref={summaryRef} items={summaryItems(errors, ADJ_FIELDS)} formError={formError ?? undefined} />}
+      {showSummary && <ErrorSummary variant="floor" ref={summaryRef} items={summaryItems(errors, ADJ_FIELDS)} formError={formError ?? undefined} />}
       {done && (
         <p role="status" className="flex items-center gap-2 rounded-md border-2 border-machined bg-machined-tint p-3 text-lg font-semibold text-machined">
           <CircleCheckBig aria-hidden className="size-6 shrink-0" />
@@ -199,7 +199,7 @@ function AdjustForm({ detail }: { detail: StockDetail }) {
       )}
       <input type="hidden" {...form.register('partNumber')} />
       <div className="grid gap-4 sm:grid-cols-3">
-        <SelectField id="adj-bin" label="Bin" error={errors.binCode?.message} {...form.register('binCode')}>
+        <SelectField variant="floor" id="adj-bin" label="Bin" error={errors.binCode?.message} {...form.register('binCode')}>
           <option value="">Choose a bin</option>
           {detail.bins.map((b) => (
             <option key={b.binCode} value={b.binCode}>
@@ -214,8 +214,8 @@ function AdjustForm({ detail }: { detail: StockDetail }) {
               </option>
             ))}
         </SelectField>
-        <TextField id="adj-delta" label="Change" inputMode="numeric" hint="Found more: 3. Damaged or missing: -2." error={errors.delta?.message} {...form.register('delta', { valueAsNumber: true })} />
-        <TextField id="adj-reason" label="Reason" maxLength={120} hint="e.g. cycle count, damaged in handling" error={errors.reason?.message} {...form.register('reason')} />
+        <TextField variant="floor" id="adj-delta" label="Change" inputMode="numeric" hint="Found more: 3. Damaged or missing: -2." error={errors.delta?.message} {...form.register('delta', { valueAsNumber: true })} />
+        <TextField variant="floor" id="adj-reason" label="Reason" maxLength={120} hint="e.g. cycle count, damaged in handling" error={errors.reason?.message} {...form.register('reason')} />
       </div>
       <div>
         <Button type="submit" size="lg" variant="secondary" disabled={adjust.isPending}>
