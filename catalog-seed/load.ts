@@ -94,6 +94,7 @@ export function loadCatalogue(db: Db, seed: CatalogueSeed): { parts: number } {
     // Opening stock enters through the ledger like any other goods-in.
     const openingRows = stockRows.map((s) => ({ partId: s.partId, binCode: s.binCode, kind: 'goods-in' as const, onHandDelta: s.onHand, note: 'opening stock' }));
     for (const group of chunks(openingRows, 400)) tx.insert(stockMovements).values(group).run();
+    tx.run(sql`UPDATE parts SET available = COALESCE((SELECT SUM(s.on_hand - s.reserved) FROM stock s WHERE s.part_id = parts.id), 0)`);
   });
   return { parts: seed.parts.length };
 }

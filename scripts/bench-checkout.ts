@@ -1,6 +1,7 @@
 import { section, summarize } from './bench-harness';
 import type { BenchEnv } from './bench-catalogues';
 import { signIn, type Client } from '../tests/support/session';
+import { setAvailable } from '../tests/support/stock';
 import { startTestApp } from '../tests/support/test-app';
 
 const BUYERS = 16;
@@ -25,10 +26,7 @@ export const checkoutSection = section<BenchEnv>('checkout', async (ctx, env) =>
       .prepare("SELECT p.part_number FROM parts p JOIN stock s ON s.part_id = p.id WHERE p.category = 'gaskets-fittings' AND p.status = 'active' GROUP BY p.id ORDER BY SUM(s.on_hand) DESC LIMIT 1")
       .pluck()
       .get() as string;
-    sqlite.prepare('UPDATE stock SET on_hand = on_hand + 100000 WHERE part_id = (SELECT id FROM parts WHERE part_number = ?)').run(plenty);
-    sqlite
-      .prepare("INSERT INTO stock_movements (part_id, bin_code, kind, on_hand_delta, note) SELECT part_id, bin_code, 'goods-in', 100000, 'bench stock' FROM stock WHERE part_id = (SELECT id FROM parts WHERE part_number = ?)")
-      .run(plenty);
+    setAvailable(t, plenty, 100_000);
 
     const checkout = async (c: Client, partNumber: string) => {
       const started = performance.now();
@@ -63,11 +61,8 @@ export const checkoutSection = section<BenchEnv>('checkout', async (ctx, env) =>
     const scarce = sqlite
       .prepare("SELECT p.id, p.part_number AS partNumber FROM parts p WHERE p.category = 'cartridges' AND p.status = 'active' ORDER BY p.id LIMIT 1")
       .get() as { id: number; partNumber: string };
-    const onHandBefore = sqlite.prepare('SELECT SUM(on_hand) FROM stock WHERE part_id = ?').pluck().get(scarce.id) as number;
-    const reservedBefore = sqlite.prepare('SELECT SUM(reserved) FROM stock WHERE part_id = ?').pluck().get(scarce.id) as number;
-    const free = onHandBefore - reservedBefore;
     const target = 5;
-    if (free > target) sqlite.prepare('UPDATE stock SET reserved = reserved + ? WHERE part_id = ? AND rowid = (SELECT min(rowid) FROM stock WHERE part_id = ?)').run(free - target, scarce.id, scarce.id);
+    setAvailable(t, scarce.partNumber, target);
     for (const c of buyers) await c.send('POST', '/api/cart/lines', { partNumber: scarce.partNumber, quantity: 1 });
     const results = await Promise.all(buyers.map((c) => c.send('POST', '/api/checkout', { method: 'card', paymentMethod: 'pm_card_visa', delivery: DELIVERY })));
     const sold = results.filter((r) => r.status === 201).length;

@@ -1,6 +1,10 @@
 import { sql } from 'drizzle-orm';
+import { CATEGORIES } from '../../shared/catalog';
 import { index, integer, primaryKey, real, sqliteTable, text, uniqueIndex } from 'drizzle-orm/sqlite-core';
 
+/** The order the shop lists categories in; the same expression sorts the catalogue and backs an index. */
+export const CATEGORY_ORDER_EXPR = `(CASE category ${CATEGORIES.map((c, i) => `WHEN '${c.slug}' THEN ${i}`).join(' ')} ELSE ${CATEGORIES.length} END)`;
+const CATEGORY_ORDER_SQL = sql.raw(CATEGORY_ORDER_EXPR);
 const stamp = (name: string) => text(name).notNull().default(sql`(strftime('%Y-%m-%dT%H:%M:%fZ','now'))`);
 const createdAt = () => stamp('created_at');
 
@@ -43,14 +47,19 @@ export const parts = sqliteTable(
     supersededBy: text('superseded_by'),
     images: text('images', { mode: 'json' }).$type<string[]>().notNull().default(sql`'[]'`),
     minStock: integer('min_stock').notNull().default(0),
+    /** On hand less reserved over all bins, kept by the stock service with every movement (a test checks it). */
+    available: integer('available').notNull().default(0),
     createdAt: createdAt(),
     updatedAt: stamp('updated_at'),
   },
   (t) => [
     uniqueIndex('parts_part_number_uq').on(t.partNumber),
     index('parts_normalized_number_idx').on(t.normalizedNumber),
-    index('parts_category_idx').on(t.category, t.frameCode),
-    index('parts_frame_idx').on(t.frameCode),
+    index('parts_frame_idx').on(t.frameCode, t.status, t.available),
+    // Covers the catalogue's counts and facets, so they scan an index instead of the table.
+    index('parts_listing_idx').on(t.category, t.frameCode, t.status, t.available),
+    // The catalogue's default order (category as the shop lists them, frame, number), so a page is read in order.
+    index('parts_browse_order_idx').on(sql`${CATEGORY_ORDER_SQL}`, t.frameCode, t.partNumber),
   ],
 );
 

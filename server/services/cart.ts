@@ -41,7 +41,7 @@ export function buyerOf(user: CurrentUser | null): Buyer {
 
 const PART_SELECT = `SELECT p.id, p.part_number AS partNumber, p.title, p.category, p.frame_code AS frameCode, p.status, p.superseded_by AS supersededBy,
   p.condition, p.price_cents AS priceCents, p.core_deposit_cents AS coreDepositCents, p.weight_grams AS weightGrams, s.flange_pattern AS flangePattern,
-  (SELECT COALESCE(SUM(st.on_hand - st.reserved), 0) FROM stock st WHERE st.part_id = p.id) AS available
+  p.available
   FROM parts p LEFT JOIN part_specs s ON s.part_id = p.id`;
 
 const MATCHING = new Set(['cartridges', 'compressor-housings', 'turbine-housings', 'gaskets-fittings', 'turbochargers']);

@@ -10,13 +10,14 @@ export type MovementKind = 'goods-in' | 'reserve' | 'release' | 'pick' | 'dispat
 export function createStockService(db: Db) {
   const sqlite = db.$client;
   const stmt = {
-    available: sqlite.prepare('SELECT COALESCE(SUM(on_hand - reserved), 0) AS n FROM stock WHERE part_id = ?'),
+    available: sqlite.prepare('SELECT available AS n FROM parts WHERE id = ?'),
     freeBins: sqlite.prepare(
       `SELECT s.bin_code AS binCode, s.on_hand - s.reserved AS free FROM stock s JOIN bins b ON b.code = s.bin_code
        WHERE s.part_id = ? AND s.on_hand - s.reserved > 0 ORDER BY b.walk_order`,
     ),
     ensureRow: sqlite.prepare('INSERT INTO stock (part_id, bin_code, on_hand, reserved) VALUES (?, ?, 0, 0) ON CONFLICT DO NOTHING'),
     apply: sqlite.prepare('UPDATE stock SET on_hand = on_hand + ?, reserved = reserved + ? WHERE part_id = ? AND bin_code = ?'),
+    applyPart: sqlite.prepare('UPDATE parts SET available = available + ? WHERE id = ?'),
     movement: sqlite.prepare(
       'INSERT INTO stock_movements (part_id, bin_code, kind, on_hand_delta, reserved_delta, order_id, note) VALUES (?, ?, ?, ?, ?, ?, ?)',
     ),
@@ -39,6 +40,7 @@ export function createStockService(db: Db) {
       throw new Error(`Stock for part ${partId} in ${binCode} would become on hand ${onHand}, reserved ${reserved}`);
     }
     stmt.apply.run(onHandDelta, reservedDelta, partId, binCode);
+    if (onHandDelta !== reservedDelta) stmt.applyPart.run(onHandDelta - reservedDelta, partId);
     stmt.movement.run(partId, binCode, kind, onHandDelta, reservedDelta, orderId, note);
   }
 

@@ -2,6 +2,7 @@ import Stripe from 'stripe';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { CartViewSchema, CheckoutResponseSchema, ImportPreviewSchema, OrderDetailSchema, type CartView } from '../../shared/schemas/orders';
 import { TEST_WEBHOOK_SECRET } from '../support/app-deps';
+import { setAvailable as setStock } from '../support/stock';
 import { startTestApp, type TestApp } from '../support/test-app';
 
 const PASSWORD = 'spoolyard-demo-1';
@@ -101,12 +102,7 @@ const available = (partNumber: string) =>
   one<{ n: number }>('SELECT COALESCE(SUM(s.on_hand - s.reserved), 0) AS n FROM stock s JOIN parts p ON p.id = s.part_id WHERE p.part_number = ?', partNumber).n;
 const orderRow = (number: string) => one<{ id: number; status: string; payment_state: string; payment_intent_id: string | null; total_cents: number }>('SELECT * FROM orders WHERE number = ?', number);
 
-/** Test setup only: leaves exactly `n` units free of a part (in its first bin). */
-function setAvailable(partNumber: string, n: number) {
-  const { id } = one<{ id: number }>('SELECT id FROM parts WHERE part_number = ?', partNumber);
-  t.db.$client.prepare('UPDATE stock SET on_hand = reserved WHERE part_id = ?').run(id);
-  t.db.$client.prepare('UPDATE stock SET on_hand = on_hand + ? WHERE part_id = ? AND bin_code = (SELECT min(bin_code) FROM stock WHERE part_id = ?)').run(n, id, id);
-}
+const setAvailable = (partNumber: string, n: number) => setStock(t, partNumber, n);
 
 async function waitForStatus(c: ReturnType<typeof client>, number: string, status: string) {
   for (let i = 0; i < 100; i++) {
