@@ -38,7 +38,7 @@ export const DeliverySchema = z.object({
   city: z.string().trim().min(2, 'town or city is required').max(60, 'town or city is too long'),
   postcode: z.string().trim().min(3, 'postcode is required').max(12, 'postcode is too long'),
   zone: z.enum(DELIVERY_ZONE_KEYS, { error: 'choose a delivery zone' }),
-});
+}, { error: 'enter a delivery address' });
 export type Delivery = z.infer<typeof DeliverySchema>;
 
 export const CheckoutSchema = z.discriminatedUnion(
