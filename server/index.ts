@@ -29,7 +29,7 @@ const payments = new Stripe(env.PAYMENTS_SECRET_KEY, {
 });
 const mailer = createMailer({ host: env.MAIL_HOST, port: env.MAIL_PORT, from: env.MAIL_FROM, ignoreTLS: env.NODE_ENV !== 'production' });
 const devTools = env.NODE_ENV !== 'production';
-const { app, auth } = createApp({
+const { app, auth, orders } = createApp({
   db,
   payments,
   mailer,
@@ -61,6 +61,12 @@ const server = app.listen(env.PORT, env.HOST, () => {
     for (const a of demoAccountList()) console.log(`  ${a.role.padEnd(22)} ${a.email.padEnd(28)} ${a.password}`);
   }
 });
+
+// Unpaid card orders give their stock back after 30 minutes.
+const sweep = setInterval(() => {
+  orders.expireUnpaid(30).catch((err: unknown) => console.warn('unpaid-order sweep failed:', (err as Error).message));
+}, 60_000);
+sweep.unref();
 
 function shutdown(signal: string) {
   console.log(`${signal}: shutting down`);

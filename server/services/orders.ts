@@ -396,7 +396,32 @@ export function createOrderService(deps: OrderServiceDeps) {
     return order;
   }
 
-  return { checkout, handlePaymentEvent, listOrders, orderDetail, reorder, ownOrder, orderForIntent, cancelUnpaid };
+  /**
+   * Card orders left unpaid (an authentication never finished, a tab closed) give their stock back after a while:
+   * the payment is cancelled with the provider first, so a late success cannot land on a cancelled order.
+   */
+  async function expireUnpaid(maxAgeMinutes: number) {
+    const cutoff = new Date(deps.now().getTime() - maxAgeMinutes * 60_000).toISOString();
+    const stale = sqlite
+      .prepare("SELECT id, number, payment_intent_id AS intent FROM orders WHERE status = 'pending_payment' AND created_at < ? ORDER BY id LIMIT 100")
+      .all(cutoff) as Array<{ id: number; number: string; intent: string | null }>;
+    let expired = 0;
+    for (const o of stale) {
+      if (o.intent) {
+        try {
+          const intent = await payments.paymentIntents.retrieve(o.intent);
+          if (intent.status === 'succeeded' || intent.status === 'processing') continue; // the webhook will settle it
+          if (intent.status !== 'canceled') await payments.paymentIntents.cancel(o.intent, {}, { idempotencyKey: `order-${o.number}-expire` });
+        } catch {
+          continue; // the payment service is unreachable: try again on the next sweep
+        }
+      }
+      if (cancelUnpaid(o.id, `Not paid within ${maxAgeMinutes} minutes; the stock went back on the shelf`)) expired++;
+    }
+    return expired;
+  }
+
+  return { checkout, handlePaymentEvent, listOrders, orderDetail, reorder, ownOrder, orderForIntent, cancelUnpaid, expireUnpaid };
 }
 
 export type OrderService = ReturnType<typeof createOrderService>;
