@@ -82,3 +82,22 @@ export const DealerAccountRowSchema = z.object({
   createdAt: z.string(),
 });
 export const DealerAccountsSchema = z.object({ items: z.array(DealerAccountRowSchema) });
+
+/** Recording that a dealer paid an on-account invoice (bank transfer reference, cheque number...). */
+export const InvoicePaymentSchema = z.object({
+  reference: z.string().trim().min(2, 'enter the payment reference').max(60, 'reference is too long'),
+});
+
+export const OpenInvoiceSchema = z.object({
+  number: z.string(),
+  createdAt: z.string(),
+  purchaseOrder: z.string().nullable(),
+  totalCents: z.number().int(),
+  creditedCents: z.number().int(),
+  openCents: z.number().int(),
+  termsDays: z.number().int().nullable(),
+  dueDate: z.string(),
+  creditNotes: z.string().nullable(),
+});
+export type OpenInvoice = z.infer<typeof OpenInvoiceSchema>;
+export const OpenInvoicesSchema = z.object({ items: z.array(OpenInvoiceSchema) });

@@ -9,6 +9,8 @@ import { ApiError } from '../../lib/api-client';
 import { useDealers } from '../../features/admin/api/get-dealers';
 import type { DecisionDone } from '../../features/admin/components/decision-forms';
 import { DealersTable } from '../../features/admin/components/dealers-table';
+import { OpenInvoices } from '../../features/admin/components/open-invoices';
+import { OfficeNav } from '../../features/office/components/office-shell';
 import { useMe } from '../../features/auth/api/get-me';
 import { signInHref } from '../../features/auth/next-path';
 
@@ -58,6 +60,7 @@ export function OfficeDealersRoute() {
 
   return (
     <div className="grid grid-cols-[minmax(0,1fr)] gap-5">
+      <OfficeNav />
       <div>
         <p className="text-sm font-semibold uppercase tracking-wider text-cast">Office</p>
         <h1 className="text-3xl font-bold">Dealer accounts</h1>
@@ -81,8 +84,34 @@ export function OfficeDealersRoute() {
       ) : dealers.data.items.length === 0 ? (
         <EmptyState title="No dealer accounts yet">Applications made from the account page show up here.</EmptyState>
       ) : (
-        <DealersTable items={dealers.data.items} onDecided={setDone} />
+        <>
+          <DealersTable items={dealers.data.items} onDecided={setDone} />
+          <InvoicesForDealer dealers={dealers.data.items.filter((d) => d.status === 'approved')} />
+        </>
       )}
+    </div>
+  );
+}
+
+/** Pick an approved dealer to see and settle its open on-account invoices. */
+function InvoicesForDealer({ dealers }: { dealers: Array<{ id: number; companyName: string; openBalanceCents: number }> }) {
+  const [chosen, setChosen] = useState<number | null>(null);
+  if (dealers.length === 0) return null;
+  const id = chosen ?? (dealers.find((d) => d.openBalanceCents > 0) ?? dealers[0]!).id;
+  const dealer = dealers.find((d) => d.id === id)!;
+  return (
+    <div className="grid gap-3">
+      <label className="grid max-w-md gap-1">
+        <span className="font-semibold">Dealer for open invoices</span>
+        <select value={id} onChange={(e) => setChosen(Number(e.target.value))} className="min-h-10 rounded border border-cast-line bg-white px-2">
+          {dealers.map((d) => (
+            <option key={d.id} value={d.id}>
+              {d.companyName} — open {formatPrice(d.openBalanceCents)}
+            </option>
+          ))}
+        </select>
+      </label>
+      <OpenInvoices dealerId={dealer.id} companyName={dealer.companyName} />
     </div>
   );
 }

@@ -1,4 +1,4 @@
-import { Circle, CircleCheck, CircleX, ClipboardList, Clock, FileText, Hourglass, Package, Truck, Undo2, type LucideIcon } from 'lucide-react';
+import { Banknote, Circle, CircleCheck, CircleX, ClipboardList, Clock, FileText, Hourglass, Package, PackageCheck, Truck, Undo2, type LucideIcon } from 'lucide-react';
 import { ORDER_STATUS_LABELS } from '../../../../shared/schemas/orders';
 
 type Tone = 'temper' | 'amber' | 'machined' | 'oxide' | 'cast';
@@ -15,6 +15,11 @@ export const STATUS_META: Record<string, { label: string; Icon: LucideIcon; tone
   back_ordered: { label: ORDER_STATUS_LABELS.back_ordered, Icon: Clock, tone: 'amber' },
   cancelled: { label: ORDER_STATUS_LABELS.cancelled, Icon: CircleX, tone: 'oxide' },
   returned: { label: ORDER_STATUS_LABELS.returned, Icon: Undo2, tone: 'cast' },
+  // Timeline events that are not order states.
+  stock_arrived: { label: 'Stock arrived', Icon: PackageCheck, tone: 'machined' },
+  return_requested: { label: 'Return requested', Icon: Undo2, tone: 'temper' },
+  return_rejected: { label: 'Return not accepted', Icon: CircleX, tone: 'oxide' },
+  invoice_paid: { label: 'Invoice paid', Icon: Banknote, tone: 'machined' },
 };
 
 export function statusMeta(status: string) {
