@@ -49,3 +49,13 @@ test('a part number typed without dashes finds the part first, and filters stay 
   await page.getByRole('button', { name: /Ball bearing.*remove filter/ }).click();
   await expect(page).not.toHaveURL(/bearing=ball/);
 });
+
+test('the counter pages fit a phone screen without scrolling sideways', async ({ page }) => {
+  await page.setViewportSize({ width: 390, height: 844 });
+  for (const path of ['/', '/catalogue?category=turbochargers', '/catalogue?q=ball%20bearing%20cartridge%2060', '/parts/VC-C60-2003', '/fitment']) {
+    await page.goto(path);
+    await expect(page.getByRole('heading', { level: 1 })).toBeVisible();
+    const overflow = await page.evaluate(() => document.documentElement.scrollWidth - window.innerWidth);
+    expect(overflow, path).toBeLessThanOrEqual(0);
+  }
+});

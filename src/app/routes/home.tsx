@@ -8,7 +8,7 @@ import { useFrames } from '../../features/catalog/api/get-frames';
 export function HomeRoute() {
   const frames = useFrames();
   return (
-    <div className="grid gap-10">
+    <div className="grid grid-cols-[minmax(0,1fr)] gap-10">
       <section className="grid gap-6 rounded-lg bg-white p-6 shadow-sm ring-1 ring-cast-line md:grid-cols-[3fr_2fr]">
         <div>
           <h1 className="text-3xl font-bold leading-tight">Turbo parts, checked to fit before you buy.</h1>
