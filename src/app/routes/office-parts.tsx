@@ -10,7 +10,7 @@ export function OfficePartsRoute() {
   const q = params.get('q') ?? '';
   return (
     <OfficeGate access={officeAccess(me)}>
-      <div className="grid gap-5">
+      <div className="grid grid-cols-[minmax(0,1fr)] gap-5">
         <OfficeNav />
         <div>
           <h1 className="text-2xl font-bold">Catalogue upkeep</h1>

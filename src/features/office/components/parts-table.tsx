@@ -106,7 +106,7 @@ export function PartsTable({ q, onSearch }: { q: string; onSearch: (q: string) =
   };
 
   return (
-    <div className="grid gap-4">
+    <div className="grid grid-cols-[minmax(0,1fr)] gap-4">
       <div className="flex flex-wrap items-end justify-between gap-3">
         <form role="search" aria-label="Search parts" onSubmit={submit} className="flex w-full max-w-lg items-end gap-2">
           <div className="grid flex-1 gap-1">
@@ -152,7 +152,7 @@ export function PartsTable({ q, onSearch }: { q: string; onSearch: (q: string) =
               {q ? ` matching “${q}”` : ''}
               {parts.isFetching ? ' · updating…' : ''}
             </p>
-            <div className="max-h-[70vh] overflow-auto rounded-lg bg-white ring-1 ring-cast-line">
+            <div className="relative max-h-[70vh] overflow-auto rounded-lg bg-white ring-1 ring-cast-line">
               <table className="w-full border-collapse text-left">
                 <caption className="sr-only">Parts, sortable by part number, title and price</caption>
                 <thead className="sticky top-0 z-10 bg-panel">

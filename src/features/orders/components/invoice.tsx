@@ -30,7 +30,7 @@ export function Invoice({ number }: { number: string }) {
   const o = order.data;
   const account = o.paymentMethod === 'account';
   return (
-    <div className="grid gap-4">
+    <div className="grid grid-cols-[minmax(0,1fr)] gap-4">
       <style>{'@page { size: A4; margin: 14mm; } @media print { html, body { background: #fff; } }'}</style>
       <div className="no-print flex flex-wrap items-center gap-3">
         <Button onClick={() => window.print()}>
@@ -41,7 +41,7 @@ export function Invoice({ number }: { number: string }) {
           Back to the order
         </Link>
       </div>
-      <article aria-label={`${account ? 'Invoice' : 'Receipt'} ${o.number}`} className="mx-auto grid w-full max-w-3xl gap-6 bg-white p-8 text-ink shadow-sm ring-1 ring-cast-line print:max-w-none print:p-0 print:shadow-none print:ring-0">
+      <article aria-label={`${account ? 'Invoice' : 'Receipt'} ${o.number}`} className="mx-auto grid w-full max-w-3xl gap-6 overflow-x-auto bg-white p-4 sm:p-8 text-ink shadow-sm ring-1 ring-cast-line print:max-w-none print:p-0 print:shadow-none print:ring-0">
         <header className="flex flex-wrap justify-between gap-6 border-b-2 border-ink pb-4">
           <div>
             <p className="text-2xl font-bold">{DISTRIBUTOR.name}</p>
