@@ -2,6 +2,7 @@ import fs from 'node:fs';
 import path from 'node:path';
 import cookieParser from 'cookie-parser';
 import express from 'express';
+import helmet from 'helmet';
 import { rateLimit } from 'express-rate-limit';
 import { toNodeHandler } from 'better-auth/node';
 import type Stripe from 'stripe';
@@ -96,6 +97,30 @@ export function createApp(deps: AppDeps) {
 
   const app = express();
   app.disable('x-powered-by');
+  // The usual security headers; the page loads only its own scripts. Inline styles stay allowed for SVG charts
+  // and for caught e-mails shown in a sandboxed frame.
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        directives: {
+          defaultSrc: ["'self'"],
+          scriptSrc: ["'self'"],
+          styleSrc: ["'self'", "'unsafe-inline'"],
+          imgSrc: ["'self'", 'data:', 'blob:'],
+          fontSrc: ["'self'", 'data:'],
+          connectSrc: ["'self'"],
+          frameSrc: ["'self'"],
+          objectSrc: ["'none'"],
+          baseUri: ["'self'"],
+          formAction: ["'self'"],
+          frameAncestors: ["'none'"],
+          upgradeInsecureRequests: config.publicUrl.startsWith('https://') ? [] : null,
+        },
+      },
+      crossOriginEmbedderPolicy: false,
+      hsts: config.publicUrl.startsWith('https://'),
+    }),
+  );
   app.set('query parser', 'simple');
   app.set('trust proxy', 'loopback');
 

@@ -19,9 +19,14 @@ const list = async (qs: string) => {
 const sql = <T>(query: string, ...params: unknown[]) => t.db.$client.prepare(query).all(...params) as T[];
 
 describe('GET /api/health', () => {
-  it('answers ok', async () => {
+  it('answers ok, with the usual security headers', async () => {
     const res = await t.get('/api/health');
     expect(res).toMatchObject({ status: 200, body: { ok: true } });
+    expect(res.headers.get('x-content-type-options')).toBe('nosniff');
+    const csp = res.headers.get('content-security-policy') ?? '';
+    expect(csp).toContain("script-src 'self'");
+    expect(csp).toContain("frame-ancestors 'none'");
+    expect(res.headers.get('x-powered-by')).toBeNull();
   });
 });
 

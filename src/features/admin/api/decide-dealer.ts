@@ -11,6 +11,9 @@ export function useDecideDealer() {
   const client = useQueryClient();
   return useMutation({
     mutationFn: decideDealer,
-    onSuccess: () => client.invalidateQueries({ queryKey: adminKeys.dealers() }),
+    // Not awaited: the form that asked must hear of its success before the refreshed list can unmount it.
+    onSuccess: () => {
+      void client.invalidateQueries({ queryKey: adminKeys.dealers() });
+    },
   });
 }
