@@ -75,7 +75,7 @@ export function createApp(deps: AppDeps) {
   const trustedOrigins = [new URL(config.publicUrl).origin, ...(config.trustedOrigins ?? [])];
 
   const search = createSearchService(db);
-  search.rebuild();
+  search.rebuild({ ifStale: true });
   const catalog = createCatalogService(db, search);
   const stock = createStockService(db);
   const cart = createCartService(db, search, { taxRatePct: config.taxRatePct });

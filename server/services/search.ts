@@ -163,8 +163,18 @@ export function createSearchService(db: Db) {
   }
 
   /** Rebuilds the whole index: at start and after bulk changes. */
-  function rebuild() {
-    writeIndexRows();
+  /** What the index was built from: the catalogue's size and its latest change. */
+  const signature = () =>
+    JSON.stringify(sqlite.prepare('SELECT count(*) AS n, max(updated_at) AS at, (SELECT count(*) FROM part_aliases) AS aliases FROM parts').get());
+  const builtFrom = () => sqlite.prepare("SELECT value FROM meta WHERE key = 'search_index'").pluck().get() as string | undefined;
+
+  function rebuild(options: { ifStale?: boolean } = {}) {
+    const now = signature();
+    // At start the index on disk is reused when the catalogue has not changed since it was written.
+    if (!options.ifStale || builtFrom() !== now) {
+      writeIndexRows();
+      sqlite.prepare("INSERT INTO meta (key, value) VALUES ('search_index', ?) ON CONFLICT (key) DO UPDATE SET value = excluded.value").run(now);
+    }
     docs.clear();
     loadDocs();
     loadVocabulary();
@@ -173,7 +183,9 @@ export function createSearchService(db: Db) {
   /** Refreshes the index for parts that changed. */
   function refresh(ids: number[]) {
     if (ids.length === 0) return;
+    const wasCurrent = builtFrom() !== undefined;
     writeIndexRows(ids);
+    if (wasCurrent) sqlite.prepare("UPDATE meta SET value = ? WHERE key = 'search_index'").run(signature());
     loadDocs(ids);
     loadVocabulary();
   }

@@ -1,5 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { PartDetailSchema, PartsListResponseSchema, FramesResponseSchema, type PartsListResponse } from '../../shared/schemas/parts';
+import { createSearchService } from '../../server/services/search';
 import { startTestApp, type TestApp } from '../support/test-app';
 
 let t: TestApp;
@@ -252,6 +253,21 @@ describe('search', () => {
     for (const p of r.items) expect([p.frameCode, p.specs.bearing]).toEqual(['VB36', 'journal']);
     const none = await list('?q=qqqqzzzz');
     expect(none).toMatchObject({ total: 0, items: [] });
+  });
+
+  it('reuses the index on disk at start unless the catalogue changed since it was written', () => {
+    const sqlite = t.db.$client;
+    // A title edited without marking the part changed is invisible to the check, so the index on disk is reused…
+    sqlite.prepare("UPDATE parts SET title = 'Flange gasket wallabyfoil' WHERE part_number = 'VC-G36-5001'").run();
+    const reused = createSearchService(t.db);
+    reused.rebuild({ ifStale: true });
+    expect(reused.search('wallabyfoil')).toEqual([]);
+    expect(reused.search('VC-C60-2003')[0]?.reasons[0]?.kind).toBe('part-number');
+    // …and a change marked as one (as every catalogue edit is) makes the next start rebuild it.
+    sqlite.prepare("UPDATE parts SET updated_at = strftime('%Y-%m-%dT%H:%M:%fZ','now', '+1 second') WHERE part_number = 'VC-G36-5001'").run();
+    const rebuilt = createSearchService(t.db);
+    rebuilt.rebuild({ ifStale: true });
+    expect(rebuilt.search('wallabyfoil')).toHaveLength(1);
   });
 
   it('follows catalogue changes when the index is refreshed', async () => {
