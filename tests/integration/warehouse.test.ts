@@ -302,3 +302,42 @@ describe('price imports', () => {
     expect((await dealer.upload('/api/admin/price-imports', form)).status).toBe(403);
   });
 });
+
+describe('roles on the warehouse and back-office routes', () => {
+  const routes: Array<[method: string, path: string, body?: unknown]> = [
+    ['GET', '/api/warehouse/pick-queue'],
+    ['GET', '/api/warehouse/orders/SY-100001/pick-list'],
+    ['GET', '/api/warehouse/pick-list?orders=SY-100001'],
+    ['POST', '/api/warehouse/orders/SY-100001/picks', { lineId: 1, scannedPartNumber: 'VC-G30-5001', quantity: 1 }],
+    ['POST', '/api/warehouse/orders/SY-100001/pack', { cartons: 1, weightKg: 1 }],
+    ['POST', '/api/warehouse/orders/SY-100001/dispatch', { carrier: 'Tern Parcel', trackingNumber: 'TP-1' }],
+    ['POST', '/api/warehouse/goods-in', { partNumber: 'VC-G30-5001', binCode: 'A-01-1', quantity: 1 }],
+    ['POST', '/api/warehouse/adjustments', { partNumber: 'VC-G30-5001', binCode: 'A-01-1', delta: 1, reason: 'count' }],
+    ['GET', '/api/warehouse/low-stock'],
+    ['GET', '/api/warehouse/stock/VC-G30-5001'],
+    ['GET', '/api/warehouse/bins'],
+    ['GET', '/api/warehouse/returns'],
+    ['POST', '/api/warehouse/returns/1/receive', { decision: 'reject', conditionGrade: 'scrap', rejectReason: 'no' }],
+    ['GET', '/api/admin/parts/VC-G30-5001'],
+    ['POST', '/api/admin/parts/VC-G30-5001/supersede', { replacedBy: 'VC-G30-5002' }],
+    ['PUT', '/api/admin/parts/VC-G30-5001/links', { partNumbers: [] }],
+    ['GET', '/api/admin/price-imports/1'],
+    ['POST', '/api/admin/price-imports/1/apply'],
+    ['GET', '/api/admin/dealers'],
+    ['GET', '/api/admin/dealers/1/invoices'],
+  ];
+
+  it.each(routes)('%s %s: 401 signed out, 403 for a buyer, never reached by the wrong role', async (method, path, body) => {
+    const anonymous = await t.send(method, path, body, { origin: t.url });
+    expect(anonymous.status).toBe(401);
+    const asBuyer = await retail.send(method, path, body);
+    expect(asBuyer.status).toBe(403);
+    if (path.startsWith('/api/admin')) expect((await floor.send(method, path, body)).status).toBe(403);
+  });
+
+  it('keeps buyers’ returns and photos to themselves', async () => {
+    expect((await t.get('/api/returns')).status).toBe(401);
+    expect((await floor.upload('/api/returns', new FormData())).status).toBe(403);
+    expect((await retail.get('/api/returns/photos/00000000000000000000000000000000.png')).status).toBe(404);
+  });
+});
