@@ -104,12 +104,13 @@ export function createApp(deps: AppDeps) {
       contentSecurityPolicy: {
         directives: {
           defaultSrc: ["'self'"],
-          scriptSrc: ["'self'"],
+          // Live mode loads the payment provider's card form from its own host (its documented origins, from memory).
+          scriptSrc: ["'self'", ...(config.paymentsMode === 'live' ? ['https://js.stripe.com'] : [])],
           styleSrc: ["'self'", "'unsafe-inline'"],
           imgSrc: ["'self'", 'data:', 'blob:'],
           fontSrc: ["'self'", 'data:'],
-          connectSrc: ["'self'"],
-          frameSrc: ["'self'"],
+          connectSrc: ["'self'", ...(config.paymentsMode === 'live' ? ['https://api.stripe.com'] : [])],
+          frameSrc: ["'self'", ...(config.paymentsMode === 'live' ? ['https://js.stripe.com', 'https://hooks.stripe.com'] : [])],
           objectSrc: ["'none'"],
           baseUri: ["'self'"],
           formAction: ["'self'"],

@@ -240,7 +240,7 @@ export function createOrderService(deps: OrderServiceDeps) {
         stmt.setState.run('pending_payment', 'requires_action', placed.orderId);
         return {
           status: 201,
-          body: { order: { number: placed.number, status: 'pending_payment', totalCents: placed.totalCents }, nextAction: { type: 'authenticate', paymentIntentId: intent.id } },
+          body: { order: { number: placed.number, status: 'pending_payment', totalCents: placed.totalCents }, nextAction: { type: 'authenticate', paymentIntentId: intent.id, clientSecret: confirmed.client_secret } },
         };
       }
       return { status: 201, body: { order: { number: placed.number, status: 'pending_payment', totalCents: placed.totalCents }, nextAction: null } };

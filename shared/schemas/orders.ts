@@ -164,7 +164,7 @@ export type OrderDetail = z.infer<typeof OrderDetailSchema>;
 
 export const CheckoutResponseSchema = z.object({
   order: z.object({ number: z.string(), status: z.enum(ORDER_STATUS_KEYS), totalCents: z.number().int() }),
-  nextAction: z.object({ type: z.literal('authenticate'), paymentIntentId: z.string() }).nullable().optional(),
+  nextAction: z.object({ type: z.literal('authenticate'), paymentIntentId: z.string(), clientSecret: z.string().nullable().optional() }).nullable().optional(),
 });
 export type CheckoutResponse = z.infer<typeof CheckoutResponseSchema>;
 

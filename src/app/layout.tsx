@@ -1,10 +1,10 @@
 import { Inbox, Search, ShoppingCart } from 'lucide-react';
-import { useEffect, useState, type FormEvent } from 'react';
-import { RouterProvider as AriaRouterProvider } from 'react-aria-components';
-import { Link, NavLink, Outlet, useHref, useLocation, useNavigate, useNavigation, useSearchParams, type NavigateOptions } from 'react-router-dom';
+import { lazy, Suspense, useEffect, useState, type FormEvent } from 'react';
+import { Link, NavLink, Outlet, useLocation, useNavigate, useNavigation, useSearchParams, type NavigateOptions } from 'react-router-dom';
 import { useMe } from '../features/auth/api/get-me';
 import { useSignOut } from '../features/auth/api/sign-out';
-import { AccountMenu } from '../features/auth/components/account-menu';
+// The account menu (and the accessible-menu library it needs) loads only for signed-in users.
+const AccountMenu = lazy(() => import('../features/auth/components/account-menu').then((m) => ({ default: m.AccountMenu })));
 import { signInHref } from '../features/auth/next-path';
 import type { Role } from '../features/auth/roles';
 import { useCart } from '../features/cart/api/get-cart';
@@ -128,16 +128,18 @@ function AccountArea() {
   }
   return (
     <>
-      <AccountMenu
-        user={user}
-        signingOut={signOut.isPending}
-        onSignOut={() =>
-          signOut.mutate(undefined, {
-            // The sign-out hook resets every cached query, the cart included.
-            onSuccess: () => navigate('/'),
-          })
-        }
-      />
+      <Suspense fallback={<span className="inline-block min-h-11 w-40" aria-hidden />}>
+        <AccountMenu
+          user={user}
+          signingOut={signOut.isPending}
+          onSignOut={() =>
+            signOut.mutate(undefined, {
+              // The sign-out hook resets every cached query, the cart included.
+              onSuccess: () => navigate('/'),
+            })
+          }
+        />
+      </Suspense>
       {signOut.isError && (
         <p role="alert" className="basis-full text-right text-sm font-semibold text-oxide">
           Sign-out did not go through. Try again.
@@ -149,7 +151,6 @@ function AccountArea() {
 
 export function Layout() {
   const navigation = useNavigation();
-  const navigate = useNavigate();
   const location = useLocation();
   const me = useMe();
   const role = me.data?.user?.role;
@@ -159,7 +160,6 @@ export function Layout() {
   // Development tools are on when the server lists its test payment methods or demo accounts.
   const devTools = Boolean(me.data?.payments.testMethods || me.data?.demoAccounts);
   return (
-    <AriaRouterProvider navigate={navigate} useHref={useHref}>
       <div className="flex min-h-screen flex-col">
         <a href="#main" className="sr-only focus:not-sr-only focus:absolute focus:left-2 focus:top-2 focus:z-50 focus:rounded focus:bg-white focus:p-2">
           Skip to content
@@ -215,6 +215,5 @@ export function Layout() {
           </div>
         </footer>
       </div>
-    </AriaRouterProvider>
   );
 }

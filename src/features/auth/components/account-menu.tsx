@@ -1,5 +1,6 @@
 import { ChevronDown, UserRound } from 'lucide-react';
-import { Button, Header, Menu, MenuItem, MenuSection, MenuTrigger, Popover, Separator } from 'react-aria-components';
+import { Button, Header, Menu, MenuItem, MenuSection, MenuTrigger, Popover, RouterProvider as AriaRouterProvider, Separator } from 'react-aria-components';
+import { useHref, useNavigate } from 'react-router-dom';
 import type { Me } from '../../../../shared/schemas/accounts';
 import { ROLE_LABELS } from '../roles';
 
@@ -11,55 +12,59 @@ const itemClass =
 /** The signed-in person's menu: who they are, where their things are, and sign-out. */
 export function AccountMenu({ user, onSignOut, signingOut }: { user: User; onSignOut: () => void; signingOut: boolean }) {
   const trade = user.role === 'dealer';
+  const navigate = useNavigate();
   return (
-    <MenuTrigger>
-      <Button
-        aria-label={`Account menu for ${user.name}, ${ROLE_LABELS[user.role]}`}
-        className="inline-flex min-h-11 max-w-56 items-center gap-2 rounded-md border border-cast-line bg-white px-3 text-left text-ink outline-none hover:border-temper data-[focus-visible]:outline-3 data-[focus-visible]:outline-offset-2 data-[focus-visible]:outline-temper"
-      >
-        <UserRound aria-hidden className="size-5 shrink-0 text-temper" />
-        <span className="grid min-w-0 leading-tight">
-          <span className="truncate font-semibold">{user.name}</span>
-          <span className="truncate text-xs text-cast">{ROLE_LABELS[user.role]}</span>
-        </span>
-        <ChevronDown aria-hidden className="size-4 shrink-0" />
-      </Button>
-      <Popover placement="bottom end" className="min-w-60 rounded-md border border-cast-line bg-white p-1 shadow-lg outline-none">
-        <Menu aria-label="Account" className="outline-none">
-          <MenuSection>
-            <Header className="px-3 py-2">
-              <span className="block font-semibold">{user.name}</span>
-              <span className="block text-sm text-cast">
-                {ROLE_LABELS[user.role]}
-                {user.dealer?.status === 'approved' ? ` · ${user.dealer.companyName}` : ''}
-              </span>
-            </Header>
-            <MenuItem href="/account" className={itemClass}>
-              Account
-            </MenuItem>
-            <MenuItem href="/orders" className={itemClass}>
-              Orders
-            </MenuItem>
-            {trade && (
-              <MenuItem href="/trade/quick-order" className={itemClass}>
-                Quick order
+    // Menu links navigate inside the app instead of reloading the page.
+    <AriaRouterProvider navigate={navigate} useHref={useHref}>
+      <MenuTrigger>
+        <Button
+          aria-label={`Account menu for ${user.name}, ${ROLE_LABELS[user.role]}`}
+          className="inline-flex min-h-11 max-w-56 items-center gap-2 rounded-md border border-cast-line bg-white px-3 text-left text-ink outline-none hover:border-temper data-[focus-visible]:outline-3 data-[focus-visible]:outline-offset-2 data-[focus-visible]:outline-temper"
+        >
+          <UserRound aria-hidden className="size-5 shrink-0 text-temper" />
+          <span className="grid min-w-0 leading-tight">
+            <span className="truncate font-semibold">{user.name}</span>
+            <span className="truncate text-xs text-cast">{ROLE_LABELS[user.role]}</span>
+          </span>
+          <ChevronDown aria-hidden className="size-4 shrink-0" />
+        </Button>
+        <Popover placement="bottom end" className="min-w-60 rounded-md border border-cast-line bg-white p-1 shadow-lg outline-none">
+          <Menu aria-label="Account" className="outline-none">
+            <MenuSection>
+              <Header className="px-3 py-2">
+                <span className="block font-semibold">{user.name}</span>
+                <span className="block text-sm text-cast">
+                  {ROLE_LABELS[user.role]}
+                  {user.dealer?.status === 'approved' ? ` · ${user.dealer.companyName}` : ''}
+                </span>
+              </Header>
+              <MenuItem href="/account" className={itemClass}>
+                Account
               </MenuItem>
-            )}
-            {trade && (
-              <MenuItem href="/trade/stock-list" className={itemClass}>
-                Stock list
+              <MenuItem href="/orders" className={itemClass}>
+                Orders
               </MenuItem>
-            )}
-            <MenuItem href="/fitment/saved" className={itemClass}>
-              Saved checks
+              {trade && (
+                <MenuItem href="/trade/quick-order" className={itemClass}>
+                  Quick order
+                </MenuItem>
+              )}
+              {trade && (
+                <MenuItem href="/trade/stock-list" className={itemClass}>
+                  Stock list
+                </MenuItem>
+              )}
+              <MenuItem href="/fitment/saved" className={itemClass}>
+                Saved checks
+              </MenuItem>
+            </MenuSection>
+            <Separator className="my-1 border-t border-cast-line" />
+            <MenuItem id="sign-out" onAction={onSignOut} isDisabled={signingOut} className={itemClass}>
+              {signingOut ? 'Signing out…' : 'Sign out'}
             </MenuItem>
-          </MenuSection>
-          <Separator className="my-1 border-t border-cast-line" />
-          <MenuItem id="sign-out" onAction={onSignOut} isDisabled={signingOut} className={itemClass}>
-            {signingOut ? 'Signing out…' : 'Sign out'}
-          </MenuItem>
-        </Menu>
-      </Popover>
-    </MenuTrigger>
+          </Menu>
+        </Popover>
+      </MenuTrigger>
+    </AriaRouterProvider>
   );
 }

@@ -1,6 +1,6 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { CircleCheck, CreditCard, FileText, LoaderCircle, OctagonAlert, ShieldCheck } from 'lucide-react';
-import { useState } from 'react';
+import { lazy, Suspense, useRef, useState } from 'react';
 import { useForm, type FieldError, type FieldErrors, type Resolver } from 'react-hook-form';
 import { Link } from 'react-router-dom';
 import { formatPrice } from '../../../../shared/catalog';
@@ -16,6 +16,10 @@ import { useSetDeliveryZone } from '../api/set-delivery-zone';
 import { CartTotals } from './cart-totals';
 import { blockedLines } from './cart-page';
 import { ErrorSummary, type SummaryItem } from '../../../components/ui/form';
+import type { LiveCardHandle } from './live-card';
+
+// Loaded only in live mode, so test mode never fetches the provider's script.
+const LiveCard = lazy(() => import('./live-card'));
 
 interface CheckoutFormValues {
   method: 'card' | 'account';
@@ -184,6 +188,9 @@ function CheckoutFields({ me, cart: c, place, onPlaced }: { me: Me; cart: CartVi
   const user = me.user!;
   const dealer = user.role === 'dealer' && user.dealer?.status === 'approved' ? user.dealer : null;
   const testMethods = me.payments.testMethods ?? [];
+  const live = me.payments.mode === 'live';
+  const liveCard = useRef<LiveCardHandle | null>(null);
+  const [liveError, setLiveError] = useState<string | null>(null);
   const setZone = useSetDeliveryZone();
   const [submitCount, setSubmitCount] = useState(0);
 
@@ -207,10 +214,17 @@ function CheckoutFields({ me, cart: c, place, onPlaced }: { me: Me; cart: CartVi
   const summary = summaryOf(errors);
   const placeError = place.error instanceof ApiError ? place.error : place.error ? new ApiError(0, place.error.message) : null;
 
-  const onSubmit = handleSubmit(
+  const submitForm = handleSubmit(
     (values) => {
       place.mutate(toPayload(values), {
-        onSuccess: (res) => {
+        onSuccess: async (res) => {
+          if (live && res.nextAction?.clientSecret && liveCard.current) {
+            // Live mode: the provider's script runs the card issuer's check; the webhook then settles the order.
+            const done = await liveCard.current.handleNextAction(res.nextAction.clientSecret);
+            if (done.error) setLiveError(done.error);
+            onPlaced(res.order.number);
+            return;
+          }
           if (!res.nextAction) onPlaced(res.order.number);
         },
         onError: (err) => {
@@ -225,6 +239,21 @@ function CheckoutFields({ me, cart: c, place, onPlaced }: { me: Me; cart: CartVi
     },
     () => setSubmitCount((n) => n + 1),
   );
+
+  // In live mode the card becomes a payment method in the provider's form first; its id is what we send.
+  const onSubmit = async (e: React.FormEvent<HTMLFormElement>) => {
+    e.preventDefault();
+    setLiveError(null);
+    if (live && form.getValues('method') === 'card' && liveCard.current) {
+      const pm = await liveCard.current.createPaymentMethod();
+      if ('error' in pm) {
+        setLiveError(pm.error);
+        return;
+      }
+      form.setValue('paymentMethod', pm.id);
+    }
+    await submitForm(e);
+  };
 
   const zoneField = register('delivery.zone', {
     onChange: (e: { target: { value: string } }) => {
@@ -277,8 +306,17 @@ function CheckoutFields({ me, cart: c, place, onPlaced }: { me: Me; cart: CartVi
 
         {method === 'card' && (
           <fieldset className="grid gap-2" aria-describedby="test-card-hint">
-            <legend className="mb-1 text-lg font-bold">Test card</legend>
-            {testMethods.length > 0 ? (
+            <legend className="mb-1 text-lg font-bold">{live ? 'Card' : 'Test card'}</legend>
+            {live ? (
+              <Suspense fallback={<p className="text-sm text-cast">Loading the secure card form…</p>}>
+                <LiveCard publishableKey={me.payments.publishableKey} handle={liveCard} />
+                {liveError && (
+                  <p role="alert" className="text-sm font-semibold text-oxide">
+                    {liveError}
+                  </p>
+                )}
+              </Suspense>
+            ) : testMethods.length > 0 ? (
               <>
                 <p id="test-card-hint" className="text-sm text-cast">
                   Test mode: the payment provider's card form cannot load here, so choose one of its test cards. No money moves.
