@@ -83,7 +83,7 @@ export function createApp(deps: AppDeps) {
   const orders = createOrderService({ db, stock, cart, payments: deps.payments, notify: notifications.orders, taxRatePct: config.taxRatePct, now });
   const returnPhotosDir = path.join(config.uploadsDir, 'returns');
   const partPhotosDir = path.join(config.uploadsDir, 'parts');
-  const warehouse = createWarehouseService({ db, stock, notify: notifications.warehouse, search });
+  const warehouse = createWarehouseService({ db, stock, notify: notifications.warehouse });
   const returns = createReturnsService({ db, stock, payments: deps.payments, notify: notifications.returns, photosDir: returnPhotosDir, taxRatePct: config.taxRatePct });
   const catalogAdmin = createCatalogAdmin({ db, refreshSearch: (ids) => search.refresh(ids), rebuildSearch: () => search.rebuild() });
   const auth = createAuth({

@@ -30,7 +30,6 @@ interface Candidate {
   doc: Doc;
   tier: number;
   reasons: MatchReason[];
-  ftsRank: number;
 }
 
 const WORD_LIMIT = 300;
@@ -91,7 +90,8 @@ export function createSearchService(db: Db) {
     oneEdit: sqlite.prepare('SELECT id, normalized_number AS number FROM parts WHERE normalized_number IN (SELECT value FROM json_each(?))'),
     aliasOneEdit: sqlite.prepare('SELECT part_id AS id, alias, kind FROM part_aliases WHERE normalized_alias IN (SELECT value FROM json_each(?))'),
     near: sqlite.prepare(`SELECT part_id AS id, kind, number FROM numbers_tri WHERE numbers_tri MATCH ? ORDER BY rank LIMIT ${NEAR_LIMIT}`),
-    words: sqlite.prepare(`SELECT part_id AS id, 0 AS rank FROM parts_fts WHERE parts_fts MATCH ? LIMIT ${WORD_LIMIT}`),
+    // No ORDER BY rank: scoring every match is what costs; fuse.js ranks the candidates instead.
+    words: sqlite.prepare(`SELECT part_id AS id FROM parts_fts WHERE parts_fts MATCH ? LIMIT ${WORD_LIMIT}`),
   };
 
   function loadDocs(ids?: number[]) {
@@ -205,16 +205,15 @@ export function createSearchService(db: Db) {
     if (q.length === 0) return [];
     const n = normalizePartNumber(q);
     const candidates = new Map<number, Candidate>();
-    const note = (id: number, tier: number, reason: MatchReason, ftsRank = 0) => {
+    const note = (id: number, tier: number, reason: MatchReason) => {
       const doc = docs.get(id);
       if (!doc) return;
       const c = candidates.get(id);
       if (!c) {
-        candidates.set(id, { doc, tier, reasons: [reason], ftsRank });
+        candidates.set(id, { doc, tier, reasons: [reason] });
         return;
       }
       c.tier = Math.min(c.tier, tier);
-      c.ftsRank = Math.min(c.ftsRank, ftsRank);
       if (!c.reasons.some((r) => r.kind === reason.kind)) c.reasons.push(reason);
     };
 
@@ -266,16 +265,16 @@ export function createSearchService(db: Db) {
       // Whole words known to the catalogue match exactly (cheap); the last word may be a prefix, as it may still
       // be being typed. Unknown words are corrected against the catalogue's vocabulary.
       const term = (w: string, last: boolean) => (last && !vocabulary.has(w) && !/\d/.test(w) ? ftsTerm(w) : `"${w.replace(/"/g, '')}"`);
-      const found = stmt.words.all(ws.map((w, i) => term(w, i === ws.length - 1)).join(' AND ')) as Array<{ id: number; rank: number }>;
-      for (const r of found) note(r.id, 2, { kind: 'words', text: `Matches “${ws.join(' ')}”` }, r.rank);
+      const found = stmt.words.all(ws.map((w, i) => term(w, i === ws.length - 1)).join(' AND ')) as Array<{ id: number }>;
+      for (const r of found) note(r.id, 2, { kind: 'words', text: `Matches “${ws.join(' ')}”` });
       if (found.length === 0) {
         const corrected = ws.map((w) => correctWord(w) ?? w);
         const changed = corrected.some((w, i) => w !== ws[i]);
         const terms = corrected.map((w, i) => term(w, i === corrected.length - 1));
-        const tryAnd = changed ? (stmt.words.all(terms.join(' AND ')) as Array<{ id: number; rank: number }>) : [];
-        const rows = tryAnd.length > 0 || terms.length === 1 ? tryAnd : (stmt.words.all(terms.join(' OR ')) as Array<{ id: number; rank: number }>);
+        const tryAnd = changed ? (stmt.words.all(terms.join(' AND ')) as Array<{ id: number }>) : [];
+        const rows = tryAnd.length > 0 || terms.length === 1 ? tryAnd : (stmt.words.all(terms.join(' OR ')) as Array<{ id: number }>);
         const text = changed ? `Matches “${corrected.join(' ')}” (did you mean?)` : `Matches some of “${ws.join(' ')}”`;
-        for (const r of rows) note(r.id, tryAnd.length > 0 ? 3 : 5, { kind: 'corrected-words', text }, r.rank);
+        for (const r of rows) note(r.id, tryAnd.length > 0 ? 3 : 5, { kind: 'corrected-words', text });
       }
     }
 
