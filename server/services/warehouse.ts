@@ -28,7 +28,7 @@ interface LineRow {
 
 const PICKABLE: OrderStatus[] = ['paid', 'on_account', 'picking', 'back_ordered', 'packed'];
 
-export function createWarehouseService(deps: { db: Db; stock: StockService; notify: WarehouseNotifier}) {
+export function createWarehouseService(deps: { db: Db; stock: StockService; notify: WarehouseNotifier }) {
   const { db, stock, notify } = deps;
   const sqlite = db.$client;
   const stmt = {
