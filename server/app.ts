@@ -152,7 +152,8 @@ export function createApp(deps: AppDeps) {
   app.get('/api/parts/photos/:name', (req, res) => {
     const file = storedPath(partPhotosDir, String(req.params.name));
     if (!file) throw new HttpError(404, 'No such photo');
-    res.sendFile(file, { headers: { 'Cache-Control': 'public, max-age=86400', 'X-Content-Type-Options': 'nosniff' } });
+    // The uploads folder may sit under a dot-folder (.tmp in tests); storedPath has already checked the name.
+    res.sendFile(file, { dotfiles: 'allow', headers: { 'Cache-Control': 'public, max-age=86400', 'X-Content-Type-Options': 'nosniff' } });
   });
   app.use('/api/parts', partsRouter(catalog));
   app.use('/api/frames', framesRouter(catalog));

@@ -35,7 +35,7 @@ export function returnsRouter(deps: { returns: ReturnsService; photosDir: string
     const name = String(req.params.name);
     const file = storedPath(deps.photosDir, name);
     if (!file || !deps.returns.photoAllowed(user, name)) throw new HttpError(404, 'No such photo');
-    res.sendFile(file, { headers: { 'Cache-Control': 'private, max-age=3600', 'X-Content-Type-Options': 'nosniff' } });
+    res.sendFile(file, { dotfiles: 'allow', headers: { 'Cache-Control': 'private, max-age=3600', 'X-Content-Type-Options': 'nosniff' } });
   });
   return router;
 }

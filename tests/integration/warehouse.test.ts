@@ -205,6 +205,10 @@ describe('returns and refunds', () => {
     const ret = created.body as { id: number; maxRefundCents: number; photos: string[] };
     expect(ret.maxRefundCents).toBeLessThanOrEqual(order.totalCents);
     expect(ret.photos).toHaveLength(1);
+    // The warehouse and the buyer see the photo; another buyer does not.
+    expect((await floor.get(`/api/returns/photos/${ret.photos[0]}`)).status).toBe(200);
+    expect((await retail.get(`/api/returns/photos/${ret.photos[0]}`)).status).toBe(200);
+    expect((await dealer.get(`/api/returns/photos/${ret.photos[0]}`)).status).toBe(404);
 
     const tooMuch = await floor.send('POST', `/api/warehouse/returns/${ret.id}/receive`, { decision: 'partial-refund', conditionGrade: 'damaged', amountCents: ret.maxRefundCents + 1 });
     expect(tooMuch.status).toBe(400);
@@ -339,5 +343,27 @@ describe('roles on the warehouse and back-office routes', () => {
     expect((await t.get('/api/returns')).status).toBe(401);
     expect((await floor.upload('/api/returns', new FormData())).status).toBe(403);
     expect((await retail.get('/api/returns/photos/00000000000000000000000000000000.png')).status).toBe(404);
+  });
+});
+
+describe('part photos', () => {
+  it('are uploaded by the office, listed on the part and served as images; other files are refused', async () => {
+    const png = Buffer.from('89504e470d0a1a0a0000000d49484452000000010000000108060000001f15c4890000000d4944415478da63f8ffff3f0005fe02fea7d6a4530000000049454e44ae426082', 'hex');
+    const form = new FormData();
+    form.append('photo', new Blob([png], { type: 'image/png' }), 'housing.png');
+    const res = await admin.upload('/api/admin/parts/VC-H42-3001/photos', form);
+    expect(res.status, JSON.stringify(res.body)).toBe(201);
+    const [name] = (res.body as { images: string[] }).images;
+    expect(name).toMatch(/^[a-f0-9]{32}\.png$/);
+    const part = (await t.get('/api/parts/VC-H42-3001')).body as { images: string[] };
+    expect(part.images).toContain(name);
+    const image = await fetch(`${t.url}/api/parts/photos/${name}`);
+    expect(image.status).toBe(200);
+    expect(image.headers.get('content-type')).toBe('image/png');
+    expect(Buffer.from(await image.arrayBuffer()).equals(png)).toBe(true);
+    expect((await t.get('/api/parts/photos/..%2F..%2Fpackage.json')).status).toBe(404);
+    const bad = new FormData();
+    bad.append('photo', new Blob(['GIF89a'], { type: 'image/gif' }), 'x.gif');
+    expect((await admin.upload('/api/admin/parts/VC-H42-3001/photos', bad)).status).toBe(415);
   });
 });

@@ -83,7 +83,8 @@ export async function startTestApp(options: StartOptions = {}): Promise<TestApp>
       publicUrl: url,
       ...(payments ? { paymentsApiUrl: payments.url } : {}),
       ...(mail ? { mailInboxUrl: mail.httpUrl } : {}),
-      uploadsDir: path.join(dir, 'uploads'),
+      // Under a dot-folder on purpose, as the end-to-end server's is.
+      uploadsDir: path.join(dir, '.uploads'),
       ...options.config,
     }),
     ...options.deps,

@@ -76,6 +76,22 @@ export function PartRoute() {
           <p className="part-no text-lg text-cast">{p.partNumber}</p>
           <h1 className="text-3xl font-bold leading-tight">{p.title}</h1>
           <p className="mt-3 text-lg">{p.description}</p>
+          {p.images.length > 0 && (
+            <ul aria-label="Photos" className="mt-4 flex flex-wrap gap-3">
+              {p.images.map((name, i) => (
+                <li key={name}>
+                  <a href={`/api/parts/photos/${encodeURIComponent(name)}`} target="_blank" rel="noreferrer" className="block rounded-md ring-1 ring-cast-line hover:ring-temper">
+                    <img
+                      src={`/api/parts/photos/${encodeURIComponent(name)}`}
+                      alt={`${p.title}, photo ${i + 1} of ${p.images.length}`}
+                      loading="lazy"
+                      className="size-36 rounded-md bg-white object-contain"
+                    />
+                  </a>
+                </li>
+              ))}
+            </ul>
+          )}
           {(p.crossReferences.length > 0 || p.earlierNumbers.length > 0) && (
             <dl className="mt-3 grid gap-1 text-sm">
               {p.earlierNumbers.length > 0 && (
@@ -162,10 +178,7 @@ export function PartRoute() {
             </tbody>
           </table>
         </div>
-        <div className="grid content-start gap-3">
-          <h2 className="text-xl font-bold">Before you fit it</h2>
-          <PartCautions category={p.category} />
-        </div>
+        <PartCautions category={p.category} />
       </section>
 
       {p.goesWith.length > 0 && (

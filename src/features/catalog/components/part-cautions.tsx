@@ -6,7 +6,8 @@ export function PartCautions({ category }: { category: string }) {
   const hot = rotating || category === 'turbine-housings' || category === 'gaskets-fittings';
   if (!hot && category !== 'gauges-sensors') return null;
   return (
-    <div className="grid gap-3">
+    <div className="grid content-start gap-3">
+      <h2 className="text-xl font-bold">Before you fit it</h2>
       {hot && (
         <Caution title="Hot parts">
           Turbine housings and exhaust parts run far above the temperature that burns skin and can ignite fuel or oil. Let the engine
