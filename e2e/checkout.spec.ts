@@ -16,8 +16,7 @@ async function signUpFresh(page: Page, baseURL: string | undefined, label: strin
 }
 
 async function addPartFromItsPage(page: Page) {
-  // TODO: start at the fitment check (/fitment) once that screen offers "add to cart" for a candidate; until then the
-  // buyer adds the part from its part page.
+  // These checkout specs start from the part page; retail-journey.spec.ts starts from the fitment check.
   await page.goto(`/parts/${PART}`);
   await expect(page.getByRole('heading', { level: 1 })).toBeVisible();
   await page.getByRole('button', { name: 'Add to cart' }).click();
