@@ -1,6 +1,7 @@
 import { createBrowserRouter, RouterProvider, type RouteObject } from 'react-router-dom';
 import { Layout } from './layout';
 import { RouteError } from './route-error';
+import { LoadingState } from '../components/ui/states';
 
 type Loader = () => Promise<Record<string, unknown>>;
 
@@ -15,6 +16,12 @@ const router = createBrowserRouter([
   {
     element: <Layout />,
     errorElement: <RouteError />,
+    // Shown while the first page's code arrives.
+    hydrateFallbackElement: (
+      <div className="mx-auto max-w-6xl px-4 py-10">
+        <LoadingState label="Loading Spoolyard…" />
+      </div>
+    ),
     children: [
       { index: true, lazy: async () => ({ Component: (await import('./routes/home')).HomeRoute }) },
       page('catalogue', () => import('./routes/catalogue'), 'CatalogueRoute'),
