@@ -6,11 +6,11 @@ export const DEMO_PASSWORD = 'spoolyard-demo-1';
 /** One account per role, a second dealer, and a pending trade application; all invented, at the reserved .test domain. */
 export const DEMO_ACCOUNTS = [
   { role: 'customer', email: 'retail@spoolyard.test', name: 'Robin Ashdown' },
-  { role: 'dealer', email: 'dealer@spoolyard.test', name: 'Morgan Tillbrook', dealer: { companyName: 'Tillbrook Boost Works', tier: 'preferred', creditLimitCents: 2_500_000, paymentTermsDays: 30, zone: 'national', line1: '14 Kiln Lane', city: 'Eastmere', postcode: 'EM4 2QT' } },
+  { role: 'dealer', email: 'dealer@spoolyard.test', name: 'Morgan Tillbrook', dealer: { companyName: 'Tillbrook Boost Works', tier: 'preferred', creditLimitCents: 2_500_000, paymentTermsDays: 30, zone: 'national', line1: '14 Kiln Lane', city: 'Emberleigh', postcode: 'EM4 2QT' } },
   { role: 'dealer', email: 'dealer2@spoolyard.test', name: 'Sam Okonedo-Hale', dealer: { companyName: 'Quayside Marine Engines', tier: 'standard', creditLimitCents: 500_000, paymentTermsDays: 14, zone: 'remote', line1: '3 Slipway Road', city: 'Port Fennick', postcode: 'PF1 8LD' } },
   { role: 'warehouse', email: 'warehouse@spoolyard.test', name: 'Jo Ferrand' },
   { role: 'admin', email: 'admin@spoolyard.test', name: 'Alex Varga-Moor' },
-  { role: 'customer', email: 'applicant@spoolyard.test', name: 'Casey Penhallow', application: { companyName: 'Penhallow Performance', line1: '88 Mill Street', city: 'Westholm', postcode: 'WH9 3AB' } },
+  { role: 'customer', email: 'applicant@spoolyard.test', name: 'Casey Penhallow', application: { companyName: 'Penhallow Performance', line1: '88 Mill Street', city: 'Wickerholt', postcode: 'WH9 3AB' } },
 ] as const;
 
 export function demoAccountList() {

@@ -8,19 +8,19 @@ test('a buyer searches from the home page with a typo, opens the part and reads 
 
   // "cartrige" is misspelt; the search reads it as "cartridge" and says so.
   const search = page.getByRole('searchbox', { name: 'Search the catalogue' });
-  await search.fill('ball bearing cartrige 60');
+  await search.fill('ball bearing cartrige fuller');
   await search.press('Enter');
   await expect(page).toHaveURL(/\/catalogue\?q=ball/);
   await expect(page.getByRole('heading', { name: /Results for/ })).toBeVisible();
   const first = page.getByRole('list', { name: 'Parts found' }).getByRole('listitem').first();
-  await expect(first).toContainText('VF60');
+  await expect(first).toContainText('FUL');
   await expect(first).toContainText('ball bearing');
   await expect(first).toContainText('did you mean');
   await axe();
   await keepScreenshot(page, 'catalogue-search-typo');
 
   await first.getByRole('link').first().click();
-  await expect(page).toHaveURL(/\/parts\/VC-C60-/);
+  await expect(page).toHaveURL(/\/parts\/FUL-20-/);
   await expect(page.getByRole('heading', { level: 1 })).toContainText('cartridge, ball bearing');
   const specs = page.getByRole('table');
   await expect(specs.getByRole('row', { name: /Bearing/ })).toContainText('Ball bearing');
@@ -33,8 +33,8 @@ test('a buyer searches from the home page with a typo, opens the part and reads 
 });
 
 test('a part number typed without dashes finds the part first, and filters stay in the address', async ({ page }) => {
-  await page.goto('/catalogue?q=vct421001');
-  await expect(page.getByRole('list', { name: 'Parts found' }).getByRole('listitem').first()).toContainText('VC-T42-1001');
+  await page.goto('/catalogue?q=chs100201');
+  await expect(page.getByRole('list', { name: 'Parts found' }).getByRole('listitem').first()).toContainText('CHS-10-0201');
   await expect(page.getByRole('list', { name: 'Parts found' }).getByRole('listitem').first()).toContainText('Exact part number');
 
   await page.goto('/catalogue');
@@ -52,7 +52,7 @@ test('a part number typed without dashes finds the part first, and filters stay 
 
 test('the counter pages fit a phone screen without scrolling sideways', async ({ page }) => {
   await page.setViewportSize({ width: 390, height: 844 });
-  for (const path of ['/', '/catalogue?category=turbochargers', '/catalogue?q=ball%20bearing%20cartridge%2060', '/parts/VC-C60-2003', '/fitment']) {
+  for (const path of ['/', '/catalogue?category=turbochargers', '/catalogue?q=ball%20bearing%20cartridge%20ful', '/parts/FUL-20-0203', '/fitment']) {
     await page.goto(path);
     await expect(page.getByRole('heading', { level: 1 })).toBeVisible();
     const overflow = await page.evaluate(() => document.documentElement.scrollWidth - window.innerWidth);

@@ -2,8 +2,8 @@ import type { APIRequestContext, Page } from '@playwright/test';
 import { test, expect } from './fixtures';
 import { keepScreenshot } from './support/screens';
 
-// An in-stock new turbocharger from the demo catalogue (VA30 frame).
-const PART = 'VC-T30-1001';
+// An in-stock new turbocharger from the demo catalogue (AWL frame).
+const PART = 'AWL-10-0201';
 
 async function signUpFresh(page: Page, baseURL: string | undefined, label: string): Promise<string> {
   const email = `${label}-${Date.now()}-${Math.floor(Math.random() * 1e6)}@spoolyard.test`;
@@ -26,7 +26,7 @@ async function addPartFromItsPage(page: Page) {
 async function fillDelivery(page: Page) {
   await page.getByLabel('Name or company').fill('Dana Whitcombe');
   await page.getByLabel('Street address').fill('22 Boiler Yard');
-  await page.getByLabel('Town or city').fill('Eastmere');
+  await page.getByLabel('Town or city').fill('Emberleigh');
   await page.getByLabel('Postcode').fill('EM2 7RD');
   await page.getByLabel('Delivery zone').selectOption('local');
 }
@@ -84,7 +84,7 @@ test('a new retail buyer adds a part, pays by test card and sees the order paid'
 
   await page.goto(`/orders/${orderNumber}/invoice`);
   await expect(page.getByRole('heading', { name: 'Receipt' })).toBeVisible();
-  await expect(page.getByRole('article').getByText('Unit 7, Foundry Row, Millbrook', { exact: true })).toBeVisible();
+  await expect(page.getByRole('article').getByText('Unit 7, Foundry Row, Quenchfold', { exact: true })).toBeVisible();
   await keepScreenshot(page, 'checkout-receipt');
 });
 

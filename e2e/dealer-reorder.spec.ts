@@ -1,8 +1,8 @@
 import { test, expect } from './fixtures';
 import { keepScreenshot } from './support/screens';
 
-// Row 2 is superseded (replaced by VC-T30-1003), row 3 is a typo the buyer fixes, row 4 has a bad quantity and is dropped.
-const STOCK_LIST = ['part,qty', 'VC-G30-5001,6', 'VC-T30-1503,1', 'VC-T30-100,2', 'VC-G30-5002,2.5', ''].join('\n');
+// Row 2 is superseded (replaced by AWL-10-0203), row 3 is a typo the buyer fixes, row 4 has a bad quantity and is dropped.
+const STOCK_LIST = ['part,qty', 'FLG-50-0201,6', 'AWL-10-0103,1', 'AWL-10-020,2', 'AWL-50-0201,2.5', ''].join('\n');
 
 test('a dealer uploads a stock list, fixes a bad row and checks out on account with a PO number', async ({ page, login, axe }) => {
   await login('dealer');
@@ -14,7 +14,7 @@ test('a dealer uploads a stock list, fixes a bad row and checks out on account w
   const preview = page.getByRole('table', { name: 'Rows in the uploaded stock list' });
   await expect(preview).toBeVisible();
   await expect(preview.getByText('Replaced')).toBeVisible();
-  await expect(preview.getByText('No part VC-T30-100')).toBeVisible();
+  await expect(preview.getByText('No part AWL-10-020')).toBeVisible();
   await expect(preview.getByText('is not a whole number')).toBeVisible();
   await expect(page.getByRole('button', { name: 'Add 2 valid lines to cart' })).toBeVisible();
   await axe();
@@ -22,7 +22,7 @@ test('a dealer uploads a stock list, fixes a bad row and checks out on account w
 
   // Fix the typo in row 3 and check it again.
   await page.getByRole('button', { name: 'Fix row 3' }).click();
-  await page.locator('#row-3-part').fill('VC-T30-1001');
+  await page.locator('#row-3-part').fill('AWL-10-0201');
   await page.getByRole('button', { name: 'Check again' }).click();
   await expect(page.getByRole('button', { name: 'Add 3 valid lines to cart' })).toBeVisible();
   await page.getByRole('button', { name: 'Drop row 4' }).click();
@@ -31,7 +31,7 @@ test('a dealer uploads a stock list, fixes a bad row and checks out on account w
   await expect(page.getByRole('status').filter({ hasText: '3 lines added to your cart' })).toBeVisible();
 
   await page.goto('/cart');
-  await expect(page.getByRole('link', { name: 'VC-T30-1003' })).toBeVisible();
+  await expect(page.getByRole('link', { name: 'AWL-10-0203' })).toBeVisible();
   await expect(page.getByText('Preferred trade −15%').first()).toBeVisible();
   await axe();
   await keepScreenshot(page, 'dealer-cart');

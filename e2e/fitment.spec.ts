@@ -22,14 +22,14 @@ test.describe('fitment check', () => {
     const candidates = frames.locator(':scope > li');
     await expect(candidates).toHaveCount(10);
     const best = candidates.first();
-    await expect(best).toContainText('VC42');
+    await expect(best).toContainText('CHS');
     await expect(best).toContainText('Fits');
     await expect(frames).toContainText('Too small');
     await expect(frames).toContainText('go bigger');
     await expect(frames).toContainText('Too large');
     await expect(frames).toContainText('go smaller');
 
-    const map = page.getByRole('img', { name: /Compressor map, VC42 Chisel/ });
+    const map = page.getByRole('img', { name: /Compressor map, CHS Chisel/ });
     await expect(map).toBeVisible();
     await expect(map.locator('[data-series="surge-line"]')).toHaveCount(1);
     await expect(map.locator('[data-series="choke-line"]')).toHaveCount(1);
@@ -45,11 +45,11 @@ test.describe('fitment check', () => {
     await axe();
     await keepScreenshot(page, 'fitment-results');
 
-    await page.getByRole('button', { name: 'Show on the map for VD48' }).click();
-    await expect(page.getByRole('img', { name: /Compressor map, VD48 Drift/ })).toBeVisible();
+    await page.getByRole('button', { name: 'Show on the map for DRF' }).click();
+    await expect(page.getByRole('img', { name: /Compressor map, DRF Drift/ })).toBeVisible();
 
     await page.getByRole('radio', { name: /Imperial/ }).check();
-    await expect(page.getByRole('img', { name: /Compressor map, VD48/ }).getByText(/Corrected air flow \(lb\/min/)).toBeVisible();
+    await expect(page.getByRole('img', { name: /Compressor map, DRF/ }).getByText(/Corrected air flow \(lb\/min/)).toBeVisible();
     await expect(page.getByLabel('Power wanted')).toHaveValue('300');
 
     await page.getByLabel('Save this check as').fill('customer’s 2.0 L street car');
@@ -61,7 +61,7 @@ test.describe('fitment check', () => {
 
     await page.goto('/fitment/saved');
     const saved = page.getByRole('listitem').filter({ hasText: 'customer’s 2.0 L street car' });
-    await expect(saved).toContainText(/2\.0 L petrol, 224 kW at 6500 rpm, street — best fit VC42 Chisel \(fits\)/);
+    await expect(saved).toContainText(/2\.0 L petrol, 224 kW at 6500 rpm, street — best fit CHS Chisel \(fits\)/);
     await axe();
     await saved.getByRole('link', { name: /Open/ }).click();
     await expect(page.getByRole('heading', { name: 'What your engine needs' })).toBeVisible();
@@ -74,8 +74,8 @@ test.describe('fitment check', () => {
   });
 
   test('a part page link preselects its frame; bad input gets a summary linking to each field', async ({ page, axe }) => {
-    await page.goto('/fitment?frame=VD48');
-    await expect(page.getByRole('note')).toContainText('Checking frame VD48');
+    await page.goto('/fitment?frame=DRF');
+    await expect(page.getByRole('note')).toContainText('Checking frame DRF');
     await page.getByLabel('Engine displacement').fill('');
     await page.getByLabel('Peak-power rpm').fill('99');
     await page.getByRole('button', { name: 'Check fitment' }).click();
@@ -89,8 +89,8 @@ test.describe('fitment check', () => {
     await page.getByLabel('Engine displacement').fill('122');
     await page.getByLabel('Peak-power rpm').fill('6500');
     await page.getByRole('button', { name: 'Check fitment' }).click();
-    await expect(page.getByRole('img', { name: /Compressor map, VD48 Drift/ })).toBeVisible();
+    await expect(page.getByRole('img', { name: /Compressor map, DRF Drift/ })).toBeVisible();
     await expect(page.getByRole('link', { name: 'Sign in to save' }).first()).toHaveAttribute('href', '/sign-in');
-    await expect(page.getByRole('link', { name: /Complete turbochargers/ })).toHaveAttribute('href', '/catalogue?frame=VD48&category=turbochargers');
+    await expect(page.getByRole('link', { name: /Complete turbochargers/ })).toHaveAttribute('href', '/catalogue?frame=DRF&category=turbochargers');
   });
 });

@@ -10,14 +10,14 @@ test('an admin imports a price list with a bad row, fixes it inline, applies it,
   await keepScreenshot(page, 'office-price-import-upload');
 
   // Two good rows changing real demo prices, one row whose price is not an amount.
-  const csv = ['part_number,price', 'VC-G30-5001,15.75', 'VC-G30-5002,7.25', 'VC-G30-5003,abc'].join('\n');
+  const csv = ['part_number,price', 'FLG-50-0201,15.75', 'AWL-50-0201,7.25', 'AWL-50-0202,abc'].join('\n');
   await page.getByLabel('CSV file').setInputFiles({ name: 'spring-prices.csv', mimeType: 'text/csv', buffer: Buffer.from(csv) });
   await page.getByRole('button', { name: 'Upload and preview' }).click();
 
   await expect(page.getByRole('heading', { name: /Preview: spring-prices\.csv/ })).toBeVisible();
   await expect(page.getByText('Price changed', { exact: true }).locator('..')).toContainText('2');
   await expect(page.getByText('In error', { exact: true }).locator('..')).toContainText('1');
-  const errorRow = page.getByRole('row', { name: /VC-G30-5003/ });
+  const errorRow = page.getByRole('row', { name: /AWL-50-0202/ });
   await expect(errorRow).toContainText('abc');
   await expect(errorRow).toContainText(/not an amount/);
   const apply = page.getByRole('button', { name: /^Apply/ });
@@ -33,8 +33,8 @@ test('an admin imports a price list with a bad row, fixes it inline, applies it,
   await expect(page.getByText('In error', { exact: true }).locator('..')).toContainText('0');
   await expect(page.getByText('Price changed', { exact: true }).locator('..')).toContainText('3');
   await page.getByRole('button', { name: /All listed/ }).click();
-  await expect(page.getByRole('row', { name: /VC-G30-5001/ })).toContainText('$13.99');
-  await expect(page.getByRole('row', { name: /VC-G30-5001/ })).toContainText('$15.75');
+  await expect(page.getByRole('row', { name: /FLG-50-0201/ })).toContainText('$13.99');
+  await expect(page.getByRole('row', { name: /FLG-50-0201/ })).toContainText('$15.75');
   await expect(apply).toBeEnabled();
   await apply.click();
 
@@ -42,7 +42,7 @@ test('an admin imports a price list with a bad row, fixes it inline, applies it,
   await axe();
   await keepScreenshot(page, 'office-price-import-applied');
 
-  await page.goto('/parts/VC-G30-5001');
+  await page.goto('/parts/FLG-50-0201');
   await expect(page.getByRole('heading', { level: 1 })).toBeVisible();
   await expect(page.getByText('$15.75', { exact: true }).first()).toBeVisible();
 });
@@ -50,14 +50,14 @@ test('an admin imports a price list with a bad row, fixes it inline, applies it,
 test('an admin finds a part in the office catalogue and opens its edit form; a dealer is refused', async ({ page, login, axe, browser, baseURL }) => {
   await login('admin');
   await page.goto('/office/parts');
-  await page.getByLabel('Find a part').fill('VC-T42-1001X');
+  await page.getByLabel('Find a part').fill('CHS-10-0201-XCH');
   await page.getByRole('button', { name: 'Search', exact: true }).last().click();
-  await expect(page).toHaveURL(/q=VC-T42-1001X/);
-  await expect(page.getByRole('table').getByRole('link', { name: 'VC-T42-1001X', exact: true })).toBeVisible();
+  await expect(page).toHaveURL(/q=CHS-10-0201-XCH/);
+  await expect(page.getByRole('table').getByRole('link', { name: 'CHS-10-0201-XCH', exact: true })).toBeVisible();
   await axe();
   await keepScreenshot(page, 'office-parts');
 
-  await page.getByRole('table').getByRole('link', { name: 'VC-T42-1001X', exact: true }).click();
+  await page.getByRole('table').getByRole('link', { name: 'CHS-10-0201-XCH', exact: true }).click();
   await expect(page.getByRole('heading', { level: 1 })).toContainText('exchange unit');
   await expect(page.getByLabel('Turbine A/R')).toHaveValue('0.48');
   // Gauge fields do not apply to a turbocharger.

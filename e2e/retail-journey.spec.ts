@@ -24,9 +24,9 @@ test('a retail buyer signs up, checks fitment, adds the part, pays by test card 
   await page.getByLabel('Application', { exact: true }).selectOption('street');
   await page.getByRole('button', { name: 'Check fitment' }).click();
   const best = page.getByRole('list', { name: 'Frames, best fit first' }).locator(':scope > li').first();
-  await expect(best).toContainText('VA30');
+  await expect(best).toContainText('AWL');
   await expect(best).toContainText('Fits');
-  await expect(page.getByRole('img', { name: /Compressor map, VA30/ })).toBeVisible();
+  await expect(page.getByRole('img', { name: /Compressor map, AWL/ })).toBeVisible();
 
   await page.getByLabel('Save this check as').fill('my 0.5 L street build');
   await page.getByRole('button', { name: 'Save check' }).click();
@@ -39,7 +39,7 @@ test('a retail buyer signs up, checks fitment, adds the part, pays by test card 
   await page.getByRole('link', { name: 'Go to checkout' }).click();
   await page.getByLabel('Name or company').fill('Ellis Varnham');
   await page.getByLabel('Street address').fill('5 Coil Street');
-  await page.getByLabel('Town or city').fill('Westholm');
+  await page.getByLabel('Town or city').fill('Wickerholt');
   await page.getByLabel('Postcode').fill('WH2 4PP');
   await page.getByLabel('Delivery zone').selectOption('national');
   await page.getByLabel('Test card ending 4242 - payment succeeds').check();

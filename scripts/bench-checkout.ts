@@ -5,7 +5,7 @@ import { setAvailable } from '../tests/support/stock';
 import { startTestApp } from '../tests/support/test-app';
 
 const BUYERS = 16;
-const DELIVERY = { name: 'Bench Buyer', line1: '1 Load Street', city: 'Millbrook', postcode: 'MB1 1AA', zone: 'local' };
+const DELIVERY = { name: 'Bench Buyer', line1: '1 Load Street', city: 'Quenchfold', postcode: 'QF1 1AA', zone: 'local' };
 
 /**
  * Checkout throughput through the real app and the payments fake on 127.0.0.1, bounded in time, and a stampede

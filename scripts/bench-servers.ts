@@ -25,7 +25,7 @@ const ports: Record<string, number> = {};
 const bare = express();
 bare.disable('x-powered-by');
 bare.get('/bare', (_req, res) => {
-  res.json({ ok: true, items: [{ partNumber: 'VC-X00-0000', priceCents: 100 }] });
+  res.json({ ok: true, items: [{ partNumber: 'QQQ-00-0000', priceCents: 100 }] });
 });
 servers.push(await listen(bare));
 ports.bareJson = portOf(servers.at(-1)!);

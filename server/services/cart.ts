@@ -22,6 +22,8 @@ interface PartLookup {
   coreDepositCents: number;
   weightGrams: number;
   flangePattern: string | null;
+  mounting: string | null;
+  photo: string | null;
   available: number;
 }
 
@@ -41,7 +43,7 @@ export function buyerOf(user: CurrentUser | null): Buyer {
 
 const PART_SELECT = `SELECT p.id, p.part_number AS partNumber, p.title, p.category, p.frame_code AS frameCode, p.status, p.superseded_by AS supersededBy,
   p.condition, p.price_cents AS priceCents, p.core_deposit_cents AS coreDepositCents, p.weight_grams AS weightGrams, s.flange_pattern AS flangePattern,
-  p.available
+  s.mounting, json_extract(p.images, '$[0]') AS photo, p.available
   FROM parts p LEFT JOIN part_specs s ON s.part_id = p.id`;
 
 const MATCHING = new Set(['cartridges', 'compressor-housings', 'turbine-housings', 'gaskets-fittings', 'turbochargers']);
@@ -60,7 +62,7 @@ export function compatibilityWarnings(lines: Array<{ lineId: number; partNumber:
   const turbineFlanges = new Set(lines.filter((l) => (l.category === 'turbine-housings' || l.category === 'turbochargers') && l.flangePattern).map((l) => l.flangePattern));
   for (const g of lines.filter((l) => l.category === 'gaskets-fittings' && l.flangePattern)) {
     if (turbineFlanges.size > 0 && !turbineFlanges.has(g.flangePattern)) {
-      warnings.push({ lineId: g.lineId, message: `${g.partNumber} is a ${g.flangePattern} gasket, but the turbine flange in your cart is ${[...turbineFlanges].join(' / ')}.` });
+      warnings.push({ lineId: g.lineId, message: `${g.partNumber} is for a ${g.flangePattern} flange, but the turbine flange in your cart is ${[...turbineFlanges].join(' / ')}.` });
     }
   }
   return warnings;
@@ -183,6 +185,8 @@ export function createCartService(db: Db, search: SearchService, config: { taxRa
         coreDepositCents: priced.lineCoreDepositCents,
         weightGrams: priced.lineWeightGrams,
         fitment: r.fitmentId ? { id: r.fitmentId, name: r.fitmentName ?? '', summary: r.fitmentSummary ?? '' } : null,
+        specs: { mounting: r.mounting },
+        photo: r.photo,
       };
     });
     const { lines: _pricedLines, ...sums } = totals;

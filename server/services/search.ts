@@ -21,8 +21,8 @@ interface Doc {
   title: string;
   status: string;
   supersededBy: string | null;
-  /** The frame's size figure (VF60 → "60"), which is how people name a frame in words. */
-  frameSize: string;
+  /** The frame's code in lower case ("ful"), which is how people name a frame in a search. */
+  frameCode: string;
   aliases: Array<{ alias: string; normalized: string; kind: 'cross-reference' | 'superseded' }>;
 }
 
@@ -97,7 +97,7 @@ export function createSearchService(db: Db) {
   function loadDocs(ids?: number[]) {
     const where = ids ? `WHERE p.id IN (${ids.map(() => '?').join(',')})` : '';
     const rows = sqlite
-      .prepare(`SELECT p.id, p.part_number AS partNumber, p.normalized_number AS normalizedNumber, p.title, p.status, p.superseded_by AS supersededBy, COALESCE(substr(p.frame_code, 3), '') AS frameSize FROM parts p ${where}`)
+      .prepare(`SELECT p.id, p.part_number AS partNumber, p.normalized_number AS normalizedNumber, p.title, p.status, p.superseded_by AS supersededBy, lower(COALESCE(p.frame_code, '')) AS frameCode FROM parts p ${where}`)
       .all(...(ids ?? [])) as Array<Omit<Doc, 'aliases'>>;
     const aliasRows = sqlite
       .prepare(`SELECT a.part_id AS id, a.alias, a.normalized_alias AS normalized, a.kind FROM part_aliases a ${ids ? `WHERE a.part_id IN (${ids.map(() => '?').join(',')})` : ''}`)
@@ -235,7 +235,7 @@ export function createSearchService(db: Db) {
     }
     const hasDigits = /\d/.test(n);
     const oneToken = !/\s/.test(q);
-    // A number typed in pieces ("vc c60 2003") is still a number; a phrase with words is not.
+    // A number typed in pieces ("ful 20 0203") is still a number; a phrase with words is not.
     const numberLike = hasDigits && (oneToken || q.split(/\s+/).every((w) => /\d/.test(w) || w.length <= 3));
     const exactHit = [...candidates.values()].some((c) => c.tier <= 1);
     // A number typed exactly needs no near misses or word search; that keeps the common case cheap.
@@ -297,9 +297,9 @@ export function createSearchService(db: Db) {
         })
       : new Fuse(ranked, { includeScore: true, ignoreLocation: true, threshold: 0.6, useTokenSearch: true, keys: [{ name: 'title', getFn: (c) => c.doc.title }] });
     const score = new Map<number, number>();
-    // People name a frame by its size ("cartridge 60"): a word equal to the frame's size figure counts for more.
-    const sizes = new Set(ws);
-    for (const r of fuse.search(numberQuery ? n : q.slice(0, 100))) score.set(r.item.doc.id, (r.score ?? 1) - (!numberQuery && sizes.has(r.item.doc.frameSize) ? 0.2 : 0));
+    // People name a frame by its code ("ful cartridge"): a word equal to the part's frame code counts for more.
+    const typed = new Set(ws);
+    for (const r of fuse.search(numberQuery ? n : q.slice(0, 100))) score.set(r.item.doc.id, (r.score ?? 1) - (!numberQuery && typed.has(r.item.doc.frameCode) ? 0.2 : 0));
     const statusPenalty = (d: Doc) => (d.status === 'active' ? 0 : 0.05);
     list.sort((a, b) => {
       if (a.tier !== b.tier) return a.tier - b.tier;

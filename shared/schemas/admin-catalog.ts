@@ -1,3 +1,4 @@
+import { FRAME_CODE_EXAMPLE, FRAME_CODE_PATTERN, PART_NUMBER_EXAMPLE, PART_NUMBER_PATTERN } from '../part-number';
 import { z } from 'zod';
 import { BEARINGS, CATEGORY_SLUGS } from '../catalog';
 
@@ -34,10 +35,10 @@ export const PartFormSchema = z
       .string()
       .trim()
       .toUpperCase()
-      .regex(/^[A-Z0-9][A-Z0-9-]{3,30}$/, 'part number uses letters, digits and dashes, 4–31 characters'),
+      .regex(PART_NUMBER_PATTERN, `part number in our numbering: frame code, category group and line, serial, e.g. ${PART_NUMBER_EXAMPLE} (add -XCH for an exchange unit)`),
     title: z.string().trim().min(5, 'title is too short').max(140, 'title is too long'),
     category: z.enum(CATEGORY_SLUGS, { error: 'choose a category' }),
-    frameCode: z.string().trim().regex(/^[A-Z]{2}\d{2,3}$/, 'frame code such as VC42').nullable(),
+    frameCode: z.string().trim().regex(FRAME_CODE_PATTERN, `frame code of three letters, such as ${FRAME_CODE_EXAMPLE}`).nullable(),
     condition: z.enum(['new', 'exchange']),
     status: z.enum(['active', 'discontinued']),
     priceCents: z.number().int('price must be whole cents').min(1, 'price must be above 0').max(100_000_000),

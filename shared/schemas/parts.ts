@@ -1,3 +1,4 @@
+import { FRAME_CODE_EXAMPLE, FRAME_CODE_PATTERN } from '../part-number';
 import { z } from 'zod';
 import { BEARINGS, CATEGORY_SLUGS, PART_STATUSES } from '../catalog';
 
@@ -18,7 +19,7 @@ export const PartsQuerySchema = z
   .object({
     q: z.string().trim().max(QUERY_MAX_LENGTH, `search must be at most ${QUERY_MAX_LENGTH} characters`).optional(),
     category: z.enum(CATEGORY_SLUGS, { error: `category must be one of ${CATEGORY_SLUGS.join(', ')}` }).optional(),
-    frame: z.string().trim().regex(/^[A-Z]{2}\d{2,3}$/, 'frame must be a frame code such as VC42').optional(),
+    frame: z.string().trim().regex(FRAME_CODE_PATTERN, `frame must be a frame code of three letters, such as ${FRAME_CODE_EXAMPLE}`).optional(),
     bearing: z.enum(BEARINGS, { error: 'bearing must be journal or ball' }).optional(),
     minHp: optionalNumber('minimum power', 0, 5000),
     maxHp: optionalNumber('maximum power', 0, 5000),
@@ -53,6 +54,12 @@ export const SpecsSchema = z.object({
 });
 export type Specs = z.infer<typeof SpecsSchema>;
 
+/** The specs a line needs for its drawing (shared/part-illustration.ts), sent where lines carry no full specs. */
+export const IllustrationSpecsSchema = SpecsSchema.pick({ mounting: true });
+
+/** Stored name of a part's first uploaded photo (served at /api/parts/photos/:name), or null for none. */
+export const PhotoNameSchema = z.string().nullable();
+
 export const StockStateSchema = z.enum(['in-stock', 'low', 'out-of-stock', 'discontinued']);
 
 export const MatchReasonSchema = z.object({ kind: z.string(), text: z.string() });
@@ -70,6 +77,7 @@ export const PartSummarySchema = z.object({
   supersededBy: z.string().nullable(),
   stock: z.object({ available: z.number().int(), state: StockStateSchema }),
   specs: SpecsSchema,
+  photo: PhotoNameSchema,
   matched: z.array(MatchReasonSchema).optional(),
 });
 export type PartSummary = z.infer<typeof PartSummarySchema>;

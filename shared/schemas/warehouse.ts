@@ -1,7 +1,9 @@
 import { z } from 'zod';
+import { CATEGORY_SLUGS } from '../catalog';
 import { ORDER_STATUS_KEYS } from './orders';
+import { IllustrationSpecsSchema, PhotoNameSchema } from './parts';
 
-export const CARRIERS = ['Ridgeway Freight', 'Tern Parcel', 'Hollis Overnight', 'Customer collect'] as const;
+export const CARRIERS = ['Cobbleline Freight', 'Tern Parcel', 'Nightjar Overnight', 'Customer collect'] as const;
 
 const partNumber = z.string().trim().min(2, 'scan or type a part number').max(40, 'part number is too long');
 const binCode = z.string().trim().regex(/^[A-Z]-\d{2}-\d$/, 'bin code looks like A-01-2');
@@ -50,6 +52,9 @@ export const PickLineSchema = z.object({
   orderNumber: z.string(),
   partNumber: z.string(),
   title: z.string(),
+  category: z.enum(CATEGORY_SLUGS),
+  specs: IllustrationSpecsSchema,
+  photo: PhotoNameSchema,
   binCode: z.string().nullable(),
   walkOrder: z.number().int().nullable(),
   quantity: z.number().int(),

@@ -209,7 +209,7 @@ export function Layout() {
         <footer className="no-print border-t border-cast-line bg-panel">
           <div className="mx-auto grid max-w-6xl gap-2 px-4 py-6 text-sm text-cast sm:grid-cols-2">
             <p>
-              <span className="font-semibold text-ink">Spoolyard Turbo Supply</span> · Unit 7, Foundry Row, Millbrook · trade counter Mon–Fri 8:00–17:00
+              <span className="font-semibold text-ink">Spoolyard Turbo Supply</span> · Unit 7, Foundry Row, Quenchfold · trade counter Mon–Fri 8:00–17:00
             </p>
             <p className="sm:text-right">Vanecraft is our house brand. Fitting advice is general: have your installation checked by a licensed mechanic.</p>
           </div>

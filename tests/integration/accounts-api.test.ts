@@ -99,7 +99,7 @@ describe('cross-site requests', () => {
   it('refuses a POST from another site even with a valid session cookie', async () => {
     const cookie = await signedIn('retail@spoolyard.test');
     const evil = { origin: 'https://evil.example', cookie };
-    const cart = await t.send('POST', '/api/cart/lines', { partNumber: 'VC-T00000', quantity: 1 }, evil);
+    const cart = await t.send('POST', '/api/cart/lines', { partNumber: 'QQQ-00-0000', quantity: 1 }, evil);
     expect(cart.status).toBe(403);
     const before = t.db.$client.prepare('SELECT COUNT(*) AS n FROM dealer_accounts').get() as { n: number };
     const apply = await t.send('POST', '/api/account/dealer-applications', application, evil);
@@ -107,7 +107,7 @@ describe('cross-site requests', () => {
     const after = t.db.$client.prepare('SELECT COUNT(*) AS n FROM dealer_accounts').get() as { n: number };
     expect(after.n).toBe(before.n);
     // Browsers mark a cross-site fetch even when they leave Origin out.
-    const marked = await t.send('POST', '/api/cart/lines', { partNumber: 'VC-T00000', quantity: 1 }, { cookie, 'sec-fetch-site': 'cross-site' });
+    const marked = await t.send('POST', '/api/cart/lines', { partNumber: 'QQQ-00-0000', quantity: 1 }, { cookie, 'sec-fetch-site': 'cross-site' });
     expect(marked.status).toBe(403);
   });
 });

@@ -38,7 +38,7 @@ describe('GET /api/frames', () => {
     const { items } = FramesResponseSchema.parse(res.body);
     expect(items).toHaveLength(10);
     const first = items[0]!;
-    expect(first).toMatchObject({ code: 'VA30', name: 'Awl', powerBandHp: [60, 120], maxFlowLbMin: 12, inducerMm: 30, exducerMm: 41 });
+    expect(first).toMatchObject({ code: 'AWL', name: 'Awl', powerBandHp: [60, 120], maxFlowLbMin: 12, inducerMm: 30, exducerMm: 41 });
     expect(first.maxShaftRpm).toBeGreaterThan(200_000);
     expect(first.maxPressureRatio).toBeGreaterThan(2);
     expect(items.at(-1)!.powerBandHp[1]).toBeGreaterThanOrEqual(2000);
@@ -66,11 +66,11 @@ describe('GET /api/parts', () => {
   });
 
   it('filters by category, frame and bearing together', async () => {
-    const r = await list('?category=cartridges&frame=VF60&bearing=ball');
+    const r = await list('?category=cartridges&frame=FUL&bearing=ball');
     expect(r.total).toBeGreaterThan(0);
     for (const p of r.items) {
       expect(p.category).toBe('cartridges');
-      expect(p.frameCode).toBe('VF60');
+      expect(p.frameCode).toBe('FUL');
       expect(p.specs.bearing).toBe('ball');
     }
     // The category facet ignores its own filter, so the other categories of this frame still show.
@@ -80,7 +80,7 @@ describe('GET /api/parts', () => {
   it('filters by the frame power band and by stock', async () => {
     const r = await list('?minHp=1800&category=turbochargers&pageSize=100');
     expect(r.total).toBeGreaterThan(0);
-    expect(new Set(r.items.map((p) => p.frameCode))).toEqual(new Set(['VK106']));
+    expect(new Set(r.items.map((p) => p.frameCode))).toEqual(new Set(['KRF']));
     const inStock = await list('?inStock=true&pageSize=100');
     for (const p of inStock.items) expect(p.stock.available).toBeGreaterThan(0);
     const all = await list('');
@@ -150,9 +150,9 @@ describe('GET /api/parts/:partNumber', () => {
   });
 
   it('finds a part by its number typed without dashes and in lower case', async () => {
-    const res = await t.get('/api/parts/vct421001');
+    const res = await t.get('/api/parts/chs100201');
     expect(res.status).toBe(200);
-    expect(PartDetailSchema.parse(res.body).partNumber).toBe('VC-T42-1001');
+    expect(PartDetailSchema.parse(res.body).partNumber).toBe('CHS-10-0201');
   });
 
   it('answers a superseded number with the part and what replaces it', async () => {
@@ -170,9 +170,9 @@ describe('GET /api/parts/:partNumber', () => {
   });
 
   it('answers 404 with the error shape for an unknown part', async () => {
-    const res = await t.get('/api/parts/VC-Z99-0000');
+    const res = await t.get('/api/parts/QQQ-90-0000');
     expect(res.status).toBe(404);
-    expect((res.body as { error: { message: string } }).error.message).toMatch(/VC-Z99-0000/);
+    expect((res.body as { error: { message: string } }).error.message).toMatch(/QQQ-90-0000/);
   });
 
   it('answers unknown API routes with 404 JSON', async () => {
@@ -191,22 +191,22 @@ describe('search', () => {
   const first = (r: PartsListResponse) => r.items[0]!;
 
   it('ranks the exact part number first, however it is typed', async () => {
-    for (const typed of ['VC-C60-2003', 'vcc602003', 'vc c60 2003', 'VC-C60-2003 ']) {
+    for (const typed of ['FUL-20-0203', 'ful200203', 'ful 20 0203', 'FUL-20-0203 ']) {
       const r = await list(`?q=${encodeURIComponent(typed)}`);
-      expect(first(r).partNumber, typed).toBe('VC-C60-2003');
+      expect(first(r).partNumber, typed).toBe('FUL-20-0203');
       expect(first(r).matched?.[0]?.kind).toBe('part-number');
     }
   });
 
   it('finds a number with a digit swapped or dropped and says it is close', async () => {
-    // VC-C48-2003 with two digits swapped, and with one digit dropped.
-    for (const typed of ['VC-C48-2030', 'VCC48203', 'vc-c84-2003']) {
+    // DRF-20-0203 with two digits swapped, and with one digit dropped.
+    for (const typed of ['DRF-20-0230', 'DRF20203', 'drf-02-0203']) {
       const r = await list(`?q=${typed}`);
       const numbers = r.items.slice(0, 5).map((p) => p.partNumber);
-      expect(numbers, typed).toContain('VC-C48-2003');
+      expect(numbers, typed).toContain('DRF-20-0203');
     }
-    const r = await list('?q=VC-C48-2030');
-    const hit = r.items.find((p) => p.partNumber === 'VC-C48-2003');
+    const r = await list('?q=DRF-20-0230');
+    const hit = r.items.find((p) => p.partNumber === 'DRF-20-0203');
     expect(hit?.matched?.map((m) => m.kind)).toContain('near-number');
   });
 
@@ -231,12 +231,12 @@ describe('search', () => {
   });
 
   it('finds parts by words, with numbers among them', async () => {
-    const r = await list(`?q=${encodeURIComponent('ball bearing cartridge 60')}`);
+    const r = await list(`?q=${encodeURIComponent('ball bearing cartridge ful')}`);
     expect(r.total).toBeGreaterThan(0);
     const top = first(r);
     expect(top.category).toBe('cartridges');
     expect(top.specs.bearing).toBe('ball');
-    expect(top.frameCode).toBe('VF60');
+    expect(top.frameCode).toBe('FUL');
     expect(top.matched?.[0]?.kind).toBe('words');
   });
 
@@ -248,9 +248,9 @@ describe('search', () => {
   });
 
   it('combines a search with filters and answers nothing found as an empty list', async () => {
-    const r = await list(`?q=turbocharger&frame=VB36&bearing=journal`);
+    const r = await list(`?q=turbocharger&frame=BUR&bearing=journal`);
     expect(r.total).toBeGreaterThan(0);
-    for (const p of r.items) expect([p.frameCode, p.specs.bearing]).toEqual(['VB36', 'journal']);
+    for (const p of r.items) expect([p.frameCode, p.specs.bearing]).toEqual(['BUR', 'journal']);
     const none = await list('?q=qqqqzzzz');
     expect(none).toMatchObject({ total: 0, items: [] });
   });
@@ -258,23 +258,23 @@ describe('search', () => {
   it('reuses the index on disk at start unless the catalogue changed since it was written', () => {
     const sqlite = t.db.$client;
     // A title edited without marking the part changed is invisible to the check, so the index on disk is reused…
-    sqlite.prepare("UPDATE parts SET title = 'Flange gasket wallabyfoil' WHERE part_number = 'VC-G36-5001'").run();
+    sqlite.prepare("UPDATE parts SET title = 'Flange gasket wallabyfoil' WHERE part_number = 'BUR-50-0201'").run();
     const reused = createSearchService(t.db);
     reused.rebuild({ ifStale: true });
     expect(reused.search('wallabyfoil')).toEqual([]);
-    expect(reused.search('VC-C60-2003')[0]?.reasons[0]?.kind).toBe('part-number');
+    expect(reused.search('FUL-20-0203')[0]?.reasons[0]?.kind).toBe('part-number');
     // …and a change marked as one (as every catalogue edit is) makes the next start rebuild it.
-    sqlite.prepare("UPDATE parts SET updated_at = strftime('%Y-%m-%dT%H:%M:%fZ','now', '+1 second') WHERE part_number = 'VC-G36-5001'").run();
+    sqlite.prepare("UPDATE parts SET updated_at = strftime('%Y-%m-%dT%H:%M:%fZ','now', '+1 second') WHERE part_number = 'BUR-50-0201'").run();
     const rebuilt = createSearchService(t.db);
     rebuilt.rebuild({ ifStale: true });
     expect(rebuilt.search('wallabyfoil')).toHaveLength(1);
   });
 
   it('follows catalogue changes when the index is refreshed', async () => {
-    const [row] = sql<{ id: number }>("SELECT id FROM parts WHERE part_number = 'VC-G30-5001'");
+    const [row] = sql<{ id: number }>("SELECT id FROM parts WHERE part_number = 'FLG-50-0201'");
     t.db.$client.prepare("UPDATE parts SET title = 'Flange gasket quokkafoil' WHERE id = ?").run(row!.id);
     expect((await list('?q=quokkafoil')).total).toBe(0);
     t.app.search.refresh([row!.id]);
-    expect(first(await list('?q=quokkafoil')).partNumber).toBe('VC-G30-5001');
+    expect(first(await list('?q=quokkafoil')).partNumber).toBe('FLG-50-0201');
   });
 });

@@ -6,14 +6,14 @@ import { setAvailable as setStock } from '../support/stock';
 import { startTestApp, type TestApp } from '../support/test-app';
 
 const PASSWORD = 'spoolyard-demo-1';
-// Demo catalogue parts (catalog-seed): a new VA30 turbocharger, its exchange unit, a gasket, and a superseded number.
-const TURBO = 'VC-T30-1001';
-const EXCHANGE = 'VC-T30-1001X';
-const GASKET = 'VC-G30-5001';
-const SUPERSEDED = 'VC-T30-1503';
-const SUPERSEDED_BY = 'VC-T30-1003';
+// Demo catalogue parts (catalog-seed): a new AWL turbocharger, its exchange unit, a gasket, and a superseded number.
+const TURBO = 'AWL-10-0201';
+const EXCHANGE = 'AWL-10-0201-XCH';
+const GASKET = 'FLG-50-0201';
+const SUPERSEDED = 'AWL-10-0103';
+const SUPERSEDED_BY = 'AWL-10-0203';
 
-const DELIVERY = { name: 'Robin Ashdown', line1: '5 Gauge Street', city: 'Eastmere', postcode: 'EM1 1AA', zone: 'national' } as const;
+const DELIVERY = { name: 'Robin Ashdown', line1: '5 Gauge Street', city: 'Emberleigh', postcode: 'EM1 1AA', zone: 'national' } as const;
 
 let t: TestApp;
 beforeAll(async () => {
@@ -195,6 +195,7 @@ describe('pricing per role and tier', () => {
 describe('checkout on account', () => {
   it('refuses an order that would take the dealer over the credit limit', async () => {
     const dealer2 = await as('dealer2@spoolyard.test');
+    setAvailable(TURBO, 10);
     const before = available(TURBO);
     const cart = await dealer2.add(TURBO, 9); // 9 × 575.99 alone is 5,183.91: over the 5,000.00 limit
     expect(cart.totals.totalCents).toBeGreaterThan(500_000);
@@ -332,14 +333,14 @@ describe('CSV stock-list import', () => {
 
   it('checks every row with a message a person can act on', async () => {
     const retail = await as('retail@spoolyard.test');
-    const csv = ['part,qty', `${TURBO},1`, 'VC-T30-100,1', `${SUPERSEDED},1`, `${GASKET},2.5`, `${GASKET},abc`, `${GASKET},0`, `${TURBO},500`, ',3'].join('\n');
+    const csv = ['part,qty', `${TURBO},1`, 'AWL-10-020,1', `${SUPERSEDED},1`, `${GASKET},2.5`, `${GASKET},abc`, `${GASKET},0`, `${TURBO},500`, ',3'].join('\n');
     const res = await upload(retail, csv);
     expect(res.status, JSON.stringify(res.body)).toBe(200);
     const { rows, validCount, errorCount } = ImportPreviewSchema.parse(res.body);
     expect([validCount, errorCount]).toEqual([2, 6]);
     const [ok, unknown, replaced, fraction, letters, zero, tooMany, empty] = rows;
     expect(ok).toMatchObject({ status: 'ok', partNumber: TURBO, quantity: 1 });
-    expect(unknown).toMatchObject({ status: 'error', message: expect.stringMatching(/^No part VC-T30-100\. Did you mean VC-T30-/) });
+    expect(unknown).toMatchObject({ status: 'error', message: expect.stringMatching(/^No part AWL-10-020\. Did you mean AWL-10-02/) });
     expect(unknown!.suggestions.length).toBeGreaterThan(0);
     expect(replaced).toMatchObject({ status: 'replaced', partNumber: SUPERSEDED_BY, message: expect.stringContaining(`${SUPERSEDED} is superseded by ${SUPERSEDED_BY}`) });
     expect(fraction).toMatchObject({ status: 'error', message: 'Quantity “2.5” is not a whole number' });
@@ -375,16 +376,16 @@ describe('reorder', () => {
   it('rebuilds the cart from a past order, replacing a part superseded since, with a notice', async () => {
     const dealer = await as('dealer@spoolyard.test');
     await dealer.add(GASKET, 2);
-    await dealer.add('VC-G30-5003', 1);
+    await dealer.add('AWL-50-0202', 1);
     const placed = CheckoutResponseSchema.parse((await dealer.call('POST', '/api/checkout', { method: 'account', purchaseOrder: 'TBW-REORDER' })).body);
     // After the order, the catalogue supersedes one of its parts.
-    t.db.$client.prepare("UPDATE parts SET status = 'superseded', superseded_by = ? WHERE part_number = ?").run(GASKET, 'VC-G30-5003');
+    t.db.$client.prepare("UPDATE parts SET status = 'superseded', superseded_by = ? WHERE part_number = ?").run(GASKET, 'AWL-50-0202');
     const res = await dealer.call('POST', `/api/orders/${placed.order.number}/reorder`);
     expect(res.status).toBe(201);
-    expect(res.body).toMatchObject({ added: 2, notices: [`VC-G30-5003 is superseded: ${GASKET} was added instead.`] });
+    expect(res.body).toMatchObject({ added: 2, notices: [`AWL-50-0202 is superseded: ${GASKET} was added instead.`] });
     const cart = await dealer.cart();
     expect(cart.lines.map((l) => [l.partNumber, l.quantity])).toEqual([[GASKET, 3]]);
-    t.db.$client.prepare("UPDATE parts SET status = 'active', superseded_by = NULL WHERE part_number = ?").run('VC-G30-5003');
+    t.db.$client.prepare("UPDATE parts SET status = 'active', superseded_by = NULL WHERE part_number = ?").run('AWL-50-0202');
     await dealer.emptyCart();
   });
 });

@@ -44,11 +44,11 @@ describe('POST /api/fitment', () => {
     expect(body.cautions).toEqual([...FITMENT_CAUTIONS]);
   });
 
-  it('ranks the smallest frame, VA30, first for about 100 hp from a 0.5 L petrol engine (common practice)', async () => {
+  it('ranks the smallest frame, AWL, first for about 100 hp from a 0.5 L petrol engine (common practice)', async () => {
     const res = await t.send('POST', '/api/fitment', { displacementL: 0.5, powerHp: 100, rpm: 9000, fuel: 'petrol', application: 'street' });
     expect(res.status).toBe(200);
     const body = FitmentResponseSchema.parse(res.body);
-    expect(body.candidates[0]).toMatchObject({ frameCode: 'VA30', verdict: 'fits' });
+    expect(body.candidates[0]).toMatchObject({ frameCode: 'AWL', verdict: 'fits' });
   });
 
   it('takes power in kW as well as hp and answers the same check', async () => {
@@ -94,7 +94,7 @@ describe('GET /api/fitment/frames', () => {
     const res = await t.get('/api/fitment/frames');
     expect(res.status).toBe(200);
     const { items } = FitmentFrameMapsResponseSchema.parse(res.body);
-    expect(items.map((f) => f.code)).toContain('VA30');
+    expect(items.map((f) => f.code)).toContain('AWL');
     for (const f of items) {
       expect(f.map.surgeLine.length).toBeGreaterThanOrEqual(2);
       expect(f.map.maxShaftRpm).toBe(f.maxShaftRpm);

@@ -39,8 +39,8 @@ function orderMail() {
     placedAt: new Date('2025-03-04T10:00:00Z'),
     lines: [
       {
-        partNumber: 'VC-C62003',
-        title: 'Vanecraft 62 cartridge, ball bearing',
+        partNumber: 'GIM-20-0203',
+        title: 'Vanecraft Gimlet (GIM) cartridge, ball bearing',
         category: 'cartridges',
         quantity: 1,
         unitPriceCents: 61900,
@@ -83,10 +83,10 @@ describe('mailer over SMTP', () => {
       orderNumber: 'SY-2002',
       customerName: 'Sam Ferrow',
       dispatchedAt: new Date('2025-06-12T15:00:00Z'),
-      carrier: 'Millbrook Freight',
+      carrier: 'Cobbleline Freight',
       trackingNumber: 'MF987654321',
       cartons: 1,
-      lines: [{ partNumber: 'VC-G1003', title: 'Turbine inlet flange gasket', category: 'gaskets-fittings', quantity: 2 }],
+      lines: [{ partNumber: 'FLG-50-0203', title: 'Turbine inlet flange gasket', category: 'gaskets-fittings', quantity: 2 }],
       deliveryAddress: { name: 'Sam Ferrow', lines: ['2 Mill Yard'], city: 'Ashcombe', postalCode: '00043' },
       orderUrl: 'http://127.0.0.1:5173/orders/SY-2002',
     });

@@ -17,13 +17,13 @@ const availableOf = (partNumber: string) => t.db.$client.prepare('SELECT availab
 describe('unpaid card orders', () => {
   it('give their stock back and cancel the payment once they are too old, and leave fresh ones alone', async () => {
     const buyer = await signIn(t, 'retail@spoolyard.test');
-    const part = 'VC-G36-5001';
+    const part = 'BUR-50-0201';
     const before = availableOf(part);
     await buyer.send('POST', '/api/cart/lines', { partNumber: part, quantity: 2 });
     const res = await buyer.send('POST', '/api/checkout', {
       method: 'card',
       paymentMethod: 'pm_card_authenticationRequired',
-      delivery: { name: 'Robin Ashdown', line1: '1 Test Street', city: 'Millbrook', postcode: 'MB1 1AA', zone: 'local' },
+      delivery: { name: 'Robin Ashdown', line1: '1 Test Street', city: 'Quenchfold', postcode: 'QF1 1AA', zone: 'local' },
     });
     expect(res.status).toBe(201);
     const { order, nextAction } = res.body as { order: { number: string }; nextAction: { paymentIntentId: string } };

@@ -50,7 +50,7 @@ async function cardOrder(client: Client, lines: Array<{ partNumber: string; quan
   const res = await client.send('POST', '/api/checkout', {
     method: 'card',
     paymentMethod: 'pm_card_visa',
-    delivery: { name: 'Robin Ashdown', line1: '1 Test Street', city: 'Millbrook', postcode: 'MB1 1AA', zone: 'local' },
+    delivery: { name: 'Robin Ashdown', line1: '1 Test Street', city: 'Quenchfold', postcode: 'QF1 1AA', zone: 'local' },
   });
   expect(res.status, JSON.stringify(res.body)).toBe(201);
   const number = (res.body as { order: { number: string } }).order.number;
@@ -269,8 +269,8 @@ describe('price imports', () => {
   const price = (n: string) => one<{ p: number }>('SELECT price_cents AS p FROM parts WHERE part_number = ?', n).p;
 
   it('previews a diff, applies nothing while a row is in error, then applies all in one go', async () => {
-    const before = price('VC-G30-5001');
-    const csv = ['part_number,price', 'VC-G30-5001,19.95', 'VC-G30-5002,abc', `VC-G36-5001,${(price('VC-G36-5001') / 100).toFixed(2)}`].join('\n');
+    const before = price('FLG-50-0201');
+    const csv = ['part_number,price', 'FLG-50-0201,19.95', 'AWL-50-0201,abc', `BUR-50-0201,${(price('BUR-50-0201') / 100).toFixed(2)}`].join('\n');
     const res = await upload(csv);
     expect(res.status, JSON.stringify(res.body)).toBe(201);
     const imp = res.body as { id: number; counts: Record<string, number>; rows: Array<{ row: number; status: string; oldPriceCents: number | null; newPriceCents: number | null; message: string | null }> };
@@ -281,28 +281,28 @@ describe('price imports', () => {
 
     const refused = await admin.send('POST', `/api/admin/price-imports/${imp.id}/apply`);
     expect(refused.status).toBe(409);
-    expect(price('VC-G30-5001')).toBe(before);
+    expect(price('FLG-50-0201')).toBe(before);
 
-    const fixed = await admin.send('PUT', `/api/admin/price-imports/${imp.id}/rows/${bad.row}`, { input: { part_number: 'VC-G30-5002', price: '12.50' } });
+    const fixed = await admin.send('PUT', `/api/admin/price-imports/${imp.id}/rows/${bad.row}`, { input: { part_number: 'AWL-50-0201', price: '12.50' } });
     expect((fixed.body as { counts: Record<string, number> }).counts.error).toBe(0);
     const applied = await admin.send('POST', `/api/admin/price-imports/${imp.id}/apply`);
     expect(applied.status).toBe(200);
-    expect(price('VC-G30-5001')).toBe(1995);
-    expect(price('VC-G30-5002')).toBe(1250);
-    const listed = (await t.get('/api/parts?q=VC-G30-5001')).body as { items: Array<{ partNumber: string; priceCents: number }> };
-    expect(listed.items[0]).toMatchObject({ partNumber: 'VC-G30-5001', priceCents: 1995 });
+    expect(price('FLG-50-0201')).toBe(1995);
+    expect(price('AWL-50-0201')).toBe(1250);
+    const listed = (await t.get('/api/parts?q=FLG-50-0201')).body as { items: Array<{ partNumber: string; priceCents: number }> };
+    expect(listed.items[0]).toMatchObject({ partNumber: 'FLG-50-0201', priceCents: 1995 });
     expect((await admin.send('POST', `/api/admin/price-imports/${imp.id}/apply`)).status).toBe(409);
   });
 
   it('adds a new part from a row that describes it, and refuses non-CSV uploads and other roles', async () => {
-    const res = await upload('part_number,price,title,category,weight_kg,frame\nVC-G42-5990,24.00,VC42 test flange gasket,gaskets-fittings,0.08,VC42\n');
+    const res = await upload('part_number,price,title,category,weight_kg,frame\nCHS-50-0990,24.00,CHS test flange gasket,gaskets-fittings,0.08,CHS\n');
     const imp = res.body as { id: number; counts: Record<string, number> };
     expect(imp.counts.new).toBe(1);
     expect((await admin.send('POST', `/api/admin/price-imports/${imp.id}/apply`)).status).toBe(200);
-    expect((await t.get('/api/parts/VC-G42-5990')).status).toBe(200);
+    expect((await t.get('/api/parts/CHS-50-0990')).status).toBe(200);
     expect((await upload('not,a,price,list', 'prices.exe')).status).toBe(415);
     const form = new FormData();
-    form.set('file', new Blob(['part_number,price\nVC-G30-5001,1.00'], { type: 'text/csv' }), 'p.csv');
+    form.set('file', new Blob(['part_number,price\nFLG-50-0201,1.00'], { type: 'text/csv' }), 'p.csv');
     expect((await dealer.upload('/api/admin/price-imports', form)).status).toBe(403);
   });
 });
@@ -312,19 +312,19 @@ describe('roles on the warehouse and back-office routes', () => {
     ['GET', '/api/warehouse/pick-queue'],
     ['GET', '/api/warehouse/orders/SY-100001/pick-list'],
     ['GET', '/api/warehouse/pick-list?orders=SY-100001'],
-    ['POST', '/api/warehouse/orders/SY-100001/picks', { lineId: 1, scannedPartNumber: 'VC-G30-5001', quantity: 1 }],
+    ['POST', '/api/warehouse/orders/SY-100001/picks', { lineId: 1, scannedPartNumber: 'FLG-50-0201', quantity: 1 }],
     ['POST', '/api/warehouse/orders/SY-100001/pack', { cartons: 1, weightKg: 1 }],
     ['POST', '/api/warehouse/orders/SY-100001/dispatch', { carrier: 'Tern Parcel', trackingNumber: 'TP-1' }],
-    ['POST', '/api/warehouse/goods-in', { partNumber: 'VC-G30-5001', binCode: 'A-01-1', quantity: 1 }],
-    ['POST', '/api/warehouse/adjustments', { partNumber: 'VC-G30-5001', binCode: 'A-01-1', delta: 1, reason: 'count' }],
+    ['POST', '/api/warehouse/goods-in', { partNumber: 'FLG-50-0201', binCode: 'A-01-1', quantity: 1 }],
+    ['POST', '/api/warehouse/adjustments', { partNumber: 'FLG-50-0201', binCode: 'A-01-1', delta: 1, reason: 'count' }],
     ['GET', '/api/warehouse/low-stock'],
-    ['GET', '/api/warehouse/stock/VC-G30-5001'],
+    ['GET', '/api/warehouse/stock/FLG-50-0201'],
     ['GET', '/api/warehouse/bins'],
     ['GET', '/api/warehouse/returns'],
     ['POST', '/api/warehouse/returns/1/receive', { decision: 'reject', conditionGrade: 'scrap', rejectReason: 'no' }],
-    ['GET', '/api/admin/parts/VC-G30-5001'],
-    ['POST', '/api/admin/parts/VC-G30-5001/supersede', { replacedBy: 'VC-G30-5002' }],
-    ['PUT', '/api/admin/parts/VC-G30-5001/links', { partNumbers: [] }],
+    ['GET', '/api/admin/parts/FLG-50-0201'],
+    ['POST', '/api/admin/parts/FLG-50-0201/supersede', { replacedBy: 'AWL-50-0201' }],
+    ['PUT', '/api/admin/parts/FLG-50-0201/links', { partNumbers: [] }],
     ['GET', '/api/admin/price-imports/1'],
     ['POST', '/api/admin/price-imports/1/apply'],
     ['GET', '/api/admin/dealers'],
@@ -351,11 +351,11 @@ describe('part photos', () => {
     const png = Buffer.from('89504e470d0a1a0a0000000d49484452000000010000000108060000001f15c4890000000d4944415478da63f8ffff3f0005fe02fea7d6a4530000000049454e44ae426082', 'hex');
     const form = new FormData();
     form.append('photo', new Blob([png], { type: 'image/png' }), 'housing.png');
-    const res = await admin.upload('/api/admin/parts/VC-H42-3001/photos', form);
+    const res = await admin.upload('/api/admin/parts/CHS-30-0201/photos', form);
     expect(res.status, JSON.stringify(res.body)).toBe(201);
     const [name] = (res.body as { images: string[] }).images;
     expect(name).toMatch(/^[a-f0-9]{32}\.png$/);
-    const part = (await t.get('/api/parts/VC-H42-3001')).body as { images: string[] };
+    const part = (await t.get('/api/parts/CHS-30-0201')).body as { images: string[] };
     expect(part.images).toContain(name);
     const image = await fetch(`${t.url}/api/parts/photos/${name}`);
     expect(image.status).toBe(200);
@@ -364,6 +364,6 @@ describe('part photos', () => {
     expect((await t.get('/api/parts/photos/..%2F..%2Fpackage.json')).status).toBe(404);
     const bad = new FormData();
     bad.append('photo', new Blob(['GIF89a'], { type: 'image/gif' }), 'x.gif');
-    expect((await admin.upload('/api/admin/parts/VC-H42-3001/photos', bad)).status).toBe(415);
+    expect((await admin.upload('/api/admin/parts/CHS-30-0201/photos', bad)).status).toBe(415);
   });
 });

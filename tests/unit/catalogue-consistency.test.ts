@@ -1,10 +1,14 @@
 import { describe, expect, it } from 'vitest';
-import { FRAMES, maxShaftRpmFor } from '../../catalog-seed/frames';
-import { generateCatalogue } from '../../catalog-seed/generate';
+import { FRAMES, flangeInletMm, isVBand, maxShaftRpmFor } from '../../catalog-seed/frames';
+import { generateCatalogue, type PartSeed } from '../../catalog-seed/generate';
 import { CATEGORY_SLUGS, trimPct } from '../../shared/catalog';
+import { parsePartNumber } from '../../shared/part-number';
 
 const catalogue = generateCatalogue();
 const active = catalogue.parts.filter((p) => p.status !== 'superseded');
+const onSale = catalogue.parts.filter((p) => p.status === 'active');
+const byNumber = new Map(catalogue.parts.map((p) => [p.partNumber, p]));
+const linked = (p: PartSeed) => p.goesWith.map((n) => byNumber.get(n)!);
 
 describe('demo frames', () => {
   it('span a small frame for about 100 hp to a large one for about 2000 hp that weighs about 40 kg (common practice)', () => {
@@ -64,7 +68,7 @@ describe('trim', () => {
 describe('demo catalogue', () => {
   it('has at least 400 parts across the six categories', () => {
     expect(active.length).toBeGreaterThanOrEqual(400);
-    for (const slug of CATEGORY_SLUGS) expect(active.filter((p) => p.category === slug).length, slug).toBeGreaterThan(10);
+    for (const slug of CATEGORY_SLUGS) expect(active.filter((p) => p.category === slug).length, slug).toBeGreaterThanOrEqual(20);
   });
 
   it('makes compressor housings of aluminium and turbine housings of cast iron or steel', () => {
@@ -82,19 +86,26 @@ describe('demo catalogue', () => {
     }
   });
 
-  it('has the four kinds of gauge and sensor, with shaft-speed sensors as dash gauge and logger', () => {
-    const gauges = active.filter((p) => p.category === 'gauges-sensors');
+  it('has the four kinds of sensor, each as a dash gauge and as a plug-in logger, with their fittings', () => {
+    const gauges = onSale.filter((p) => p.category === 'gauges-sensors');
     expect(new Set(gauges.map((g) => g.specs.gaugeType))).toEqual(new Set(['boost', 'egt', 'oil-pressure', 'shaft-speed']));
-    const speed = gauges.filter((g) => g.specs.gaugeType === 'shaft-speed');
-    expect(speed.some((g) => /dash gauge/.test(g.specs.mounting ?? ''))).toBe(true);
-    expect(speed.some((g) => /logger/.test(g.specs.mounting ?? ''))).toBe(true);
+    for (const type of ['boost', 'egt', 'oil-pressure', 'shaft-speed']) {
+      const kind = gauges.filter((g) => g.specs.gaugeType === type);
+      expect(kind.some((g) => /dash (gauge|pod)/.test(g.specs.mounting ?? '')), type).toBe(true);
+      expect(kind.some((g) => /plug-in logger/.test(g.specs.mounting ?? '')), type).toBe(true);
+    }
+    for (const fitting of ['weld bung', 'T-adaptor', 'sensor boss']) expect(gauges.some((g) => g.title.includes(fitting)), fitting).toBe(true);
   });
 
   it('has superseded numbers that point at a live part, cross-references, and parts out of stock', () => {
     const numbers = new Set(catalogue.parts.map((p) => p.partNumber));
     const superseded = catalogue.parts.filter((p) => p.status === 'superseded');
     expect(superseded.length).toBeGreaterThan(10);
-    for (const s of superseded) expect(numbers.has(s.supersededBy!)).toBe(true);
+    for (const s of superseded) {
+      expect(numbers.has(s.supersededBy!)).toBe(true);
+      // An earlier number reads as an older revision: a lower serial than the number that replaced it.
+      expect(parsePartNumber(s.partNumber)!.serial, s.partNumber).toBeLessThan(parsePartNumber(s.supersededBy!)!.serial);
+    }
     expect(active.filter((p) => p.aliases.some((a) => a.kind === 'cross-reference')).length).toBeGreaterThan(10);
     expect(active.filter((p) => p.stock.length === 0).length).toBeGreaterThan(5);
     expect(new Set(catalogue.parts.map((p) => p.partNumber)).size).toBe(catalogue.parts.length);
@@ -106,5 +117,86 @@ describe('demo catalogue', () => {
     const big = generateCatalogue({ parts: 5000 });
     expect(big.parts.length).toBe(5000);
     expect(new Set(big.parts.map((p) => p.partNumber)).size).toBe(5000);
+  });
+});
+
+describe('demo catalogue hangs together', () => {
+  it('links both ways, between parts on sale only', () => {
+    let links = 0;
+    for (const p of catalogue.parts) {
+      for (const n of p.goesWith) {
+        const other = byNumber.get(n);
+        expect(other, `${p.partNumber} → ${n}`).toBeDefined();
+        expect(other!.goesWith, `${n} → ${p.partNumber}`).toContain(p.partNumber);
+        expect(p.status, p.partNumber).toBe('active');
+        expect(other!.status, n).toBe('active');
+        links++;
+      }
+    }
+    expect(links).toBeGreaterThan(1000);
+  });
+
+  it('sends discontinued parts to a replacement on sale with a higher serial', () => {
+    const discontinued = catalogue.parts.filter((p) => p.status === 'discontinued');
+    expect(discontinued.length).toBeGreaterThan(2);
+    for (const d of discontinued) {
+      const r = byNumber.get(d.supersededBy ?? '');
+      expect(r?.status, d.partNumber).toBe('active');
+      expect(parsePartNumber(r!.partNumber)!.serial).toBeGreaterThan(parsePartNumber(d.partNumber)!.serial);
+    }
+  });
+
+  const units = onSale.filter((p) => p.category === 'turbochargers' || p.category === 'cartridges');
+  it("links every water-cooled unit to its frame's water line kit", () => {
+    const water = units.filter((p) => p.specs.cooling === 'oil and water');
+    expect(water.length).toBeGreaterThan(80);
+    for (const u of water) expect(linked(u).some((x) => x.title.includes('water line kit') && x.frameCode === u.frameCode), u.partNumber).toBe(true);
+  });
+
+  it("links every ball-bearing unit to its frame's oil feed restrictor (their text says they need one)", () => {
+    const ball = units.filter((p) => p.specs.bearing === 'ball');
+    expect(ball.length).toBeGreaterThan(70);
+    for (const u of ball) expect(linked(u).some((x) => x.title.includes('oil feed restrictor') && x.frameCode === u.frameCode), u.partNumber).toBe(true);
+  });
+
+  it('links every housing to the cartridges it fits, compressor housings by their inducer bore', () => {
+    for (const h of onSale.filter((p) => p.category === 'compressor-housings' || p.category === 'turbine-housings')) {
+      const carts = linked(h).filter((x) => x.category === 'cartridges');
+      expect(carts.length, h.partNumber).toBeGreaterThan(0);
+      for (const c of carts) {
+        expect(c.frameCode, h.partNumber).toBe(h.frameCode);
+        if (h.category === 'compressor-housings') expect(c.specs.inducerMm, `${h.partNumber} ↔ ${c.partNumber}`).toBe(h.specs.inducerMm);
+      }
+    }
+  });
+
+  it('states the turbine inlet the flange names, and seals V-band joints with no flat gasket', () => {
+    for (const h of onSale.filter((p) => p.category === 'turbine-housings')) {
+      expect(h.specs.inletMm, h.partNumber).toBe(flangeInletMm(h.specs.flangePattern!));
+      expect(h.title).toContain(h.specs.flangePattern!);
+    }
+    for (const g of onSale.filter((p) => p.category === 'gaskets-fittings' && p.specs.flangePattern && isVBand(p.specs.flangePattern))) {
+      expect(g.title, g.partNumber).not.toMatch(/\bgasket\b(?! and seal kit)/);
+    }
+  });
+
+  it('sells each part under one number: no two parts on sale alike', () => {
+    const seen = new Map<string, string>();
+    for (const p of onSale) {
+      const key = [p.category, p.condition, p.frameCode, p.title, JSON.stringify(p.specs)].join('|');
+      expect(seen.get(key), `${p.partNumber} duplicates ${seen.get(key)}`).toBeUndefined();
+      seen.set(key, p.partNumber);
+    }
+    // Parts made for a flange pattern exist once per pattern, whichever frames share it.
+    const inletSeals = onSale.filter((p) => p.category === 'gaskets-fittings' && p.title.includes('turbine inlet'));
+    expect(inletSeals.length).toBe(new Set(FRAMES.map((f) => f.flangePattern)).size);
+  });
+
+  it('writes whole sentences: no doubled spaces, no empty words', () => {
+    for (const p of catalogue.parts) {
+      for (const text of [p.title, p.description]) {
+        expect(text, p.partNumber).not.toMatch(/ {2}| [,.;]|\(\s*\)|undefined|null|NaN/);
+      }
+    }
   });
 });

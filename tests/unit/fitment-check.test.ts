@@ -15,28 +15,28 @@ const check = (body: FitmentRequestInput, list: readonly FitmentFrame[] = frames
   runFitmentCheck(FitmentRequestSchema.parse(body), list);
 
 describe('trade facts (common practice)', () => {
-  it('about 100 hp from a 0.5 L petrol street engine at 9000 rpm: the smallest frame, VA30, is the best fit', () => {
+  it('about 100 hp from a 0.5 L petrol street engine at 9000 rpm: the smallest frame, AWL, is the best fit', () => {
     const result = check({ displacementL: 0.5, powerHp: 100, rpm: 9000, fuel: 'petrol', application: 'street' });
     const [best, ...rest] = result.candidates;
-    expect(best?.frameCode).toBe('VA30');
+    expect(best?.frameCode).toBe('AWL');
     expect(best?.verdict).toBe('fits');
     for (const other of rest) expect(['too-large', 'marginal']).toContain(other.verdict);
   });
 
-  it('about 2000 hp in petrol drag racing (8.0 L at 7500 rpm): only the largest frame, VK106, fits or is marginal', () => {
+  it('about 2000 hp in petrol drag racing (8.0 L at 7500 rpm): only the largest frame, KRF, fits or is marginal', () => {
     const result = check({ displacementL: 8.0, powerHp: 2000, rpm: 7500, fuel: 'petrol', application: 'drag' });
     const usable = result.candidates.filter((candidate) => candidate.verdict === 'fits' || candidate.verdict === 'marginal');
-    expect(usable.map((candidate) => candidate.frameCode)).toEqual(['VK106']);
-    expect(result.candidates[0]?.frameCode).toBe('VK106');
-    const nextLargest = result.candidates.find((candidate) => candidate.frameCode === 'VJ88');
+    expect(usable.map((candidate) => candidate.frameCode)).toEqual(['KRF']);
+    expect(result.candidates[0]?.frameCode).toBe('KRF');
+    const nextLargest = result.candidates.find((candidate) => candidate.frameCode === 'JIG');
     expect(nextLargest?.verdict).toBe('too-small');
   });
 
   it('continuous duty keeps more shaft-speed margin than drag: the same engine and frame is judged harder for marine', () => {
-    // 3.0 L petrol, 700 hp at 7000 rpm needs the VG67 near the top of its speed range.
+    // 3.0 L petrol, 700 hp at 7000 rpm needs the GIM near the top of its speed range.
     const body = { displacementL: 3.0, powerHp: 700, rpm: 7000, fuel: 'petrol', intercooled: true } as const;
-    const drag = check({ ...body, application: 'drag' }).candidates.find((c) => c.frameCode === 'VG67');
-    const marine = check({ ...body, application: 'marine' }).candidates.find((c) => c.frameCode === 'VG67');
+    const drag = check({ ...body, application: 'drag' }).candidates.find((c) => c.frameCode === 'GIM');
+    const marine = check({ ...body, application: 'marine' }).candidates.find((c) => c.frameCode === 'GIM');
     expect(drag?.verdict).toBe('fits');
     expect(marine?.verdict).not.toBe('fits');
     expect(marine?.reasons.join(' ')).toMatch(/marine use/);
@@ -44,10 +44,10 @@ describe('trade facts (common practice)', () => {
 
   it('a frame that is too small says so at the rpm and flow where it runs out, in plain words', () => {
     const result = check({ displacementL: 3.0, powerHp: 420, rpm: 7000, fuel: 'petrol', application: 'street' });
-    const small = result.candidates.find((candidate) => candidate.frameCode === 'VC42');
+    const small = result.candidates.find((candidate) => candidate.frameCode === 'CHS');
     expect(small?.verdict).toBe('too-small');
     expect(small?.reasons[0]).toMatch(/^at \d+ rpm the engine needs \d+ lb\/min at a pressure ratio of \d\.\d\d[,;] /);
-    const large = result.candidates.find((candidate) => candidate.frameCode === 'VK106');
+    const large = result.candidates.find((candidate) => candidate.frameCode === 'KRF');
     expect(large?.verdict).toBe('too-large');
     expect(large?.reasons[0]).toMatch(/surge/);
   });

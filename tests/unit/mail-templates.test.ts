@@ -69,7 +69,7 @@ function createAddress(overrides: Partial<MailAddress> = {}): MailAddress {
 
 function createOrderLine(overrides: Partial<OrderConfirmationLine> = {}): OrderConfirmationLine {
   return {
-    partNumber: 'VC-G1003',
+    partNumber: 'FLG-50-0203',
     title: 'Turbine inlet flange gasket',
     category: 'gaskets-fittings',
     quantity: 4,
@@ -98,8 +98,8 @@ function createDealerOrder(): OrderConfirmationData {
     customerName: 'Sam Ferrow',
     lines: [
       createOrderLine({
-        partNumber: 'VC-T61001X',
-        title: 'Vanecraft 61 turbocharger, journal bearing (exchange unit)',
+        partNumber: 'FUL-10-0201-XCH',
+        title: 'Vanecraft Fuller (FUL) turbocharger, journal bearing (exchange unit)',
         category: 'turbochargers',
         quantity: 3,
         unitPriceCents: 84900,
@@ -156,7 +156,7 @@ describe('order confirmation', () => {
     const mail = renderOrderConfirmation(createOrderConfirmation());
     expectWellFormedParts(mail);
     expect(mail.subject).toBe('Order SY-1042 confirmed');
-    expectInBoth(mail, 'SY-1042', 'VC-G1003', 'Turbine inlet flange gasket', '$6.50', '$26.00', '$12.50', '$3.11', '$41.61');
+    expectInBoth(mail, 'SY-1042', 'FLG-50-0203', 'Turbine inlet flange gasket', '$6.50', '$26.00', '$12.50', '$3.11', '$41.61');
     expectInBoth(mail, '14 Kiln Lane', 'Ashcombe 00042', 'Card ending 4242, paid');
     expect(mail.text).toContain(`See your order: ${BASE}/orders/SY-1042`);
     expect(mail.html).toContain(`href="${BASE}/orders/SY-1042"`);
@@ -178,7 +178,7 @@ describe('order confirmation', () => {
     expect(mail.text).toContain('BACK-ORDER: 2 ship now, 1 on back-order until stock arrives');
     expect(mail.html).toMatch(/Back-order<\/span> 2 ship now, 1 on back-order/);
     // The back-order mark sits on the turbocharger line, not on the gasket.
-    const gasketBlock = mail.text.slice(mail.text.indexOf('VC-G1003'), mail.text.indexOf('TOTALS'));
+    const gasketBlock = mail.text.slice(mail.text.indexOf('FLG-50-0203'), mail.text.indexOf('TOTALS'));
     expect(gasketBlock).not.toContain('BACK-ORDER');
   });
 
@@ -307,8 +307,8 @@ describe('back-order notice', () => {
     customerName: 'Sam Ferrow',
     cause: 'short-pick',
     lines: [
-      { partNumber: 'VC-C62003', title: 'Vanecraft 62 cartridge, ball bearing', orderedQuantity: 3, backOrderedQuantity: 2, expectedDate: new Date('2025-06-10T00:00:00Z') },
-      { partNumber: 'VC-G1003', title: 'Turbine inlet flange gasket', orderedQuantity: 5, backOrderedQuantity: 5 },
+      { partNumber: 'GIM-20-0203', title: 'Vanecraft Gimlet (GIM) cartridge, ball bearing', orderedQuantity: 3, backOrderedQuantity: 2, expectedDate: new Date('2025-06-10T00:00:00Z') },
+      { partNumber: 'FLG-50-0203', title: 'Turbine inlet flange gasket', orderedQuantity: 5, backOrderedQuantity: 5 },
     ],
     orderUrl: `${BASE}/orders/SY-1044`,
   };
@@ -317,7 +317,7 @@ describe('back-order notice', () => {
     const mail = renderBackOrderNotice(data);
     expectWellFormedParts(mail);
     expect(mail.subject).toBe('Order SY-1044: 7 items on back-order');
-    expectInBoth(mail, 'VC-C62003', 'VC-G1003', 'Jun 10, 2025', 'awaiting stock', 'fewer on the shelf');
+    expectInBoth(mail, 'GIM-20-0203', 'FLG-50-0203', 'Jun 10, 2025', 'awaiting stock', 'fewer on the shelf');
     expect(mail.text).toContain('BACK-ORDER: 2 of 3 waiting, expected Jun 10, 2025');
     expect(mail.text).toContain('BACK-ORDER: 5 of 5 waiting, awaiting stock');
     expect(mail.html.match(/Back-order<\/span>/g)).toHaveLength(2);
@@ -336,13 +336,13 @@ describe('dispatch notice', () => {
       orderNumber: 'SY-1045',
       customerName: SCRIPT_NAME,
       dispatchedAt: new Date('2025-06-12T15:00:00Z'),
-      carrier: 'Millbrook Freight',
-      trackingNumber: 'MF123456789',
-      trackingUrl: `${BASE}/track/MF123456789`,
+      carrier: 'Cobbleline Freight',
+      trackingNumber: 'CF123456789',
+      trackingUrl: `${BASE}/track/CF123456789`,
       cartons: 2,
       weightKg: 18.4,
-      lines: [{ partNumber: 'VC-T61001', title: 'Vanecraft 61 turbocharger, journal bearing', category: 'turbochargers', quantity: 1 }],
-      stillBackOrdered: [{ partNumber: 'VC-G1003', title: 'Turbine inlet flange gasket', quantity: 2 }],
+      lines: [{ partNumber: 'FUL-10-0201', title: 'Vanecraft Fuller (FUL) turbocharger, journal bearing', category: 'turbochargers', quantity: 1 }],
+      stillBackOrdered: [{ partNumber: 'FLG-50-0203', title: 'Turbine inlet flange gasket', quantity: 2 }],
       deliveryAddress: createAddress(),
       orderUrl: `${BASE}/orders/SY-1045`,
       ...overrides,
@@ -352,17 +352,17 @@ describe('dispatch notice', () => {
   it('gives carrier, tracking number, cartons and lines in both parts', () => {
     const mail = renderDispatchNotice(createDispatch());
     expectWellFormedParts(mail);
-    expect(mail.subject).toBe('Order SY-1045 is on its way: Millbrook Freight MF123456789');
-    expectInBoth(mail, 'Millbrook Freight', 'MF123456789', 'Cartons', '18.4 kg', 'VC-T61001', 'Jun 12, 2025', '14 Kiln Lane');
+    expect(mail.subject).toBe('Order SY-1045 is on its way: Cobbleline Freight CF123456789');
+    expectInBoth(mail, 'Cobbleline Freight', 'CF123456789', 'Cartons', '18.4 kg', 'FUL-10-0201', 'Jun 12, 2025', '14 Kiln Lane');
     expect(mail.text).toContain('BACK-ORDER: 2 to follow when stock arrives');
-    expect(mail.html).toContain(`href="${BASE}/track/MF123456789"`);
+    expect(mail.html).toContain(`href="${BASE}/track/CF123456789"`);
     expect(mail.html).not.toContain('<script');
   });
 
   it('carries the fitting caution for a turbocharger and not for gaskets alone', () => {
     expectInBoth(renderDispatchNotice(createDispatch()), FITTING_CAUTION_TEXT);
     const gaskets = renderDispatchNotice(
-      createDispatch({ lines: [{ partNumber: 'VC-G1003', title: 'Turbine inlet flange gasket', category: 'gaskets-fittings', quantity: 2 }] }),
+      createDispatch({ lines: [{ partNumber: 'FLG-50-0203', title: 'Turbine inlet flange gasket', category: 'gaskets-fittings', quantity: 2 }] }),
     );
     expect(gaskets.text).not.toContain(FITTING_CAUTION_TEXT);
     expect(gaskets.html).not.toContain('Prime the oil supply');
@@ -375,8 +375,8 @@ describe('return decision', () => {
       customerName: 'Sam Ferrow',
       returnReference: 'RT-0311',
       orderNumber: 'SY-1046',
-      partNumber: 'VC-T61001X',
-      title: 'Vanecraft 61 turbocharger (exchange unit)',
+      partNumber: 'FUL-10-0201-XCH',
+      title: 'Vanecraft Fuller (FUL) turbocharger (exchange unit)',
       quantity: 1,
       conditionGrade: 'rebuildable, housing intact',
       outcome,

@@ -40,8 +40,8 @@ describe('freight', () => {
 
 describe('order totals', () => {
   const lines = [
-    { partNumber: 'VC-T42-1001X', quantity: 1, retailUnitCents: 80_499, coreDepositCents: 25_000, weightGrams: 8_000 },
-    { partNumber: 'VC-G42-5003', quantity: 2, retailUnitCents: 4_599, coreDepositCents: 0, weightGrams: 180 },
+    { partNumber: 'CHS-10-0201-XCH', quantity: 1, retailUnitCents: 80_499, coreDepositCents: 25_000, weightGrams: 8_000 },
+    { partNumber: 'CHS-50-0202', quantity: 2, retailUnitCents: 4_599, coreDepositCents: 0, weightGrams: 180 },
   ];
   it('add goods, core deposits, freight and tax on goods and freight (deposits are not taxed)', () => {
     const t = priceOrder(lines, { kind: 'retail' }, 'national', 8);

@@ -1,7 +1,7 @@
 import { escapeHtml } from './escape-html';
 
 export const DISTRIBUTOR_NAME = 'Spoolyard Turbo Supply';
-export const DISTRIBUTOR_ADDRESS = 'Unit 7, Foundry Row, Millbrook';
+export const DISTRIBUTOR_ADDRESS = 'Unit 7, Foundry Row, Quenchfold';
 
 /** Palette from the design notes; mail clients ignore stylesheets, so these go inline. */
 export const MAIL_COLOURS = {

@@ -301,7 +301,7 @@ export function PartFormView({ part, onSaved }: { part?: AdminPart; onSaved: (pa
         <TextField
           id="part-partNumber"
           label="Part number"
-          hint={part ? 'The part number cannot change: supersede the part by a new one instead.' : 'Letters, digits and dashes, e.g. VC-T42-1001.'}
+          hint={part ? 'The part number cannot change: supersede the part by a new one instead.' : 'Frame code, category group and line, serial, e.g. CHS-50-0901; add -XCH for an exchange unit.'}
           error={fieldError('partNumber')}
           readOnly={Boolean(part)}
           autoComplete="off"
@@ -321,7 +321,7 @@ export function PartFormView({ part, onSaved }: { part?: AdminPart; onSaved: (pa
           id="part-frameCode"
           label="Frame code"
           optional
-          hint="The Vanecraft frame it belongs to, e.g. VC42. Leave empty for universal parts."
+          hint="The Vanecraft frame it belongs to, e.g. CHS. Leave empty for universal parts."
           error={fieldError('frameCode')}
           autoComplete="off"
           className="uppercase"

@@ -6,16 +6,16 @@ import { useUploadPriceImport, type UploadProgress } from '../api/upload-price-i
 import { formatBytes } from '../lib/money';
 
 const EXAMPLE = `part_number,price,core_deposit,title,category,weight_kg,frame
-VC-G30-5001,14.25,,,,,
-VC-T42-1001X,1189.00,250.00,,,,
-VC-N99-0001,42.50,,Oil feed line 300 mm,gaskets-fittings,0.2,VC42`;
+FLG-50-0201,14.25,,,,,
+CHS-10-0201-XCH,1189.00,250.00,,,,
+CHS-50-0901,42.50,,Oil feed line 300 mm,gaskets-fittings,0.2,CHS`;
 
 const COLUMNS: Array<[string, string]> = [
   ['part_number', 'Required. The part to price; a number we do not have yet creates a new part.'],
   ['price', 'Required. Retail price in dollars, e.g. 123.45.'],
   ['core_deposit', 'Optional. Dollars; exchange units only.'],
   ['title, category, weight_kg', 'Needed only for a new part. Category is one of the catalogue slugs, e.g. gaskets-fittings.'],
-  ['frame', 'Optional, new parts only: the frame code, e.g. VC42.'],
+  ['frame', 'Optional, new parts only: the frame code, e.g. CHS.'],
 ];
 
 export function PriceImportUpload({ onUploaded }: { onUploaded: (result: PriceImport) => void }) {

@@ -8,7 +8,7 @@ import { OrderLinesTable, OrderTotals } from './order-lines';
 import { formatDate, statusMeta } from './order-status';
 
 /** The distributor's own details, printed at the head of every invoice. */
-export const DISTRIBUTOR = { name: 'Spoolyard Turbo Supply', address: 'Unit 7, Foundry Row, Millbrook', email: 'orders@spoolyard.test' } as const;
+export const DISTRIBUTOR = { name: 'Spoolyard Turbo Supply', address: 'Unit 7, Foundry Row, Quenchfold', email: 'orders@spoolyard.test' } as const;
 
 function dueDate(createdAt: string, days: number) {
   const d = new Date(createdAt);

@@ -16,8 +16,8 @@ interface PreviewRow {
 }
 
 const EXAMPLE = `part,qty
-VC-T30-1001,2
-VC-G30-5001,10`;
+AWL-10-0201,2
+FLG-50-0201,10`;
 
 function RowEditor({ row, onChecked, onCancel }: { row: PreviewRow; onChecked: (r: OrderRowResult) => void; onCancel: () => void }) {
   const [partNumber, setPartNumber] = useState(row.result.input.partNumber);

@@ -9,7 +9,7 @@ import { useOrder } from '../api/get-order';
 import { usePickList } from '../api/get-pick-list';
 import { formatDate } from '../lib/age';
 
-export const DISTRIBUTOR = { name: 'Spoolyard Turbo Supply', address: 'Unit 7, Foundry Row, Millbrook' } as const;
+export const DISTRIBUTOR = { name: 'Spoolyard Turbo Supply', address: 'Unit 7, Foundry Row, Quenchfold' } as const;
 
 export function PackingSlipPage({ number }: { number: string }) {
   const order = useOrder(number);
