@@ -15,13 +15,13 @@ import { useRunFitmentCheck } from '../../features/fitment/api/run-fitment-check
 import { FitmentForm, formValuesFor } from '../../features/fitment/components/fitment-form';
 import { FitmentCautions, FitmentResults } from '../../features/fitment/components/fitment-results';
 import { useUnitSystem } from '../../features/fitment/lib/use-unit-system';
+import { FRAME_CODE_PATTERN } from '../../../shared/part-number';
 
-const FRAME_CODE = /^[A-Z]{2}\d{2,3}$/;
 
 export function FitmentRoute() {
   const [params] = useSearchParams();
   const frameParam = params.get('frame')?.toUpperCase() ?? null;
-  const cameFrom = frameParam && FRAME_CODE.test(frameParam) ? frameParam : null;
+  const cameFrom = frameParam && FRAME_CODE_PATTERN.test(frameParam) ? frameParam : null;
   const savedParam = params.get('saved');
   const savedId = savedParam && /^\d{1,12}$/.test(savedParam) ? Number(savedParam) : null;
 
