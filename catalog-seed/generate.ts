@@ -8,7 +8,7 @@ import {
   parsePartNumber,
 } from '../shared/part-number';
 import { type CategorySlug, trimPct } from '../shared/catalog';
-import { FRAMES, HOUSE_BRAND, type FrameSeed, flangeInletMm, isVBand, maxShaftRpmFor } from './frames';
+import { FRAMES, HOUSE_BRAND, type FrameSeed, flangeInletMm, isVBand, turbineHousingArs } from './frames';
 
 export interface SpecSeed {
   compressorAr?: number;
@@ -137,7 +137,7 @@ function frameParts(b: Builder, f: FrameSeed, index: number) {
   const turboBase = 640 * sizeFactor ** 1.25;
   const line = `${HOUSE_BRAND} ${f.name} (${f.code})`;
   const wheelText = `${f.inducerMm} mm inducer, ${f.exducerMm} mm exducer compressor wheel (${trim} trim)`;
-  const shaftText = `rated to ${maxShaftRpmFor(f.exducerMm).toLocaleString('en-US')} rpm`;
+  const shaftText = `rated to ${f.maxShaftRpm.toLocaleString('en-US')} rpm`;
   const bandText = `for about ${f.powerBandHp[0]}–${f.powerBandHp[1]} hp`;
   const wastegate = index <= 4 ? 'internal' : 'external';
   const turbineMaterial = index >= 6 ? 'cast stainless steel' : 'cast iron';
@@ -237,7 +237,7 @@ function frameParts(b: Builder, f: FrameSeed, index: number) {
 
   // Turbine housings: cast iron or cast stainless steel, by A/R; the inlet is the frame's flange.
   const inletJoint = isVBand(f.flangePattern) ? `${f.flangePattern} clamp` : `${f.flangePattern} flange`;
-  for (const tar of [...f.turbineArOptions, Math.round((f.turbineArOptions.at(-1) ?? 1) * 1.15 * 100) / 100]) {
+  for (const tar of turbineHousingArs(f)) {
     for (const material of ['cast iron', 'cast stainless steel']) {
       const steel = material !== 'cast iron';
       add(b, {

@@ -3,7 +3,6 @@ import type { Db } from '../server/db/client';
 import { bins, frames, partAliases, partLinks, parts, partSpecs, stock, stockMovements } from '../server/db/schema';
 import { normalizePartNumber } from '../shared/part-number';
 import { buildCompressorMap } from '../shared/fitment/compressor-map';
-import { maxShaftRpmFor } from './frames';
 import type { CatalogueSeed } from './generate';
 
 function chunks<T>(rows: T[], size: number): T[][] {
@@ -21,7 +20,6 @@ export function catalogueIsEmpty(db: Db): boolean {
 export function loadCatalogue(db: Db, seed: CatalogueSeed): { parts: number } {
   db.transaction((tx) => {
     for (const f of seed.frames) {
-      const maxShaftRpm = maxShaftRpmFor(f.exducerMm);
       tx.insert(frames)
         .values({
           code: f.code,
@@ -33,17 +31,11 @@ export function loadCatalogue(db: Db, seed: CatalogueSeed): { parts: number } {
           powerMaxHp: f.powerBandHp[1],
           maxFlowLbMin: f.maxFlowLbMin,
           maxPressureRatio: f.maxPressureRatio,
-          maxShaftRpm,
+          maxShaftRpm: f.maxShaftRpm,
           weightKg: f.weightKg,
           flangePattern: f.flangePattern,
           bearingOptions: f.bearingOptions,
-          compressorMap: buildCompressorMap({
-            inducerMm: f.inducerMm,
-            exducerMm: f.exducerMm,
-            maxFlowLbMin: f.maxFlowLbMin,
-            maxPressureRatio: f.maxPressureRatio,
-            maxShaftRpm,
-          }),
+          compressorMap: buildCompressorMap(f),
         })
         .run();
     }

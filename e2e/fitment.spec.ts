@@ -22,14 +22,14 @@ test.describe('fitment check', () => {
     const candidates = frames.locator(':scope > li');
     await expect(candidates).toHaveCount(10);
     const best = candidates.first();
-    await expect(best).toContainText('CHS');
+    await expect(best).toContainText('DRF');
     await expect(best).toContainText('Fits');
     await expect(frames).toContainText('Too small');
     await expect(frames).toContainText('go bigger');
     await expect(frames).toContainText('Too large');
     await expect(frames).toContainText('go smaller');
 
-    const map = page.getByRole('img', { name: /Compressor map, CHS Chisel/ });
+    const map = page.getByRole('img', { name: /Compressor map, DRF Drift/ });
     await expect(map).toBeVisible();
     await expect(map.locator('[data-series="surge-line"]')).toHaveCount(1);
     await expect(map.locator('[data-series="choke-line"]')).toHaveCount(1);
@@ -45,11 +45,11 @@ test.describe('fitment check', () => {
     await axe();
     await keepScreenshot(page, 'fitment-results');
 
-    await page.getByRole('button', { name: 'Show on the map for DRF' }).click();
-    await expect(page.getByRole('img', { name: /Compressor map, DRF Drift/ })).toBeVisible();
+    await page.getByRole('button', { name: 'Show on the map for EDG' }).click();
+    await expect(page.getByRole('img', { name: /Compressor map, EDG Edger/ })).toBeVisible();
 
     await page.getByRole('radio', { name: /Imperial/ }).check();
-    await expect(page.getByRole('img', { name: /Compressor map, DRF/ }).getByText(/Corrected air flow \(lb\/min/)).toBeVisible();
+    await expect(page.getByRole('img', { name: /Compressor map, EDG/ }).getByText(/Corrected air flow \(lb\/min/)).toBeVisible();
     await expect(page.getByLabel('Power wanted')).toHaveValue('300');
 
     await page.getByLabel('Save this check as').fill('customer’s 2.0 L street car');
@@ -61,7 +61,7 @@ test.describe('fitment check', () => {
 
     await page.goto('/fitment/saved');
     const saved = page.getByRole('listitem').filter({ hasText: 'customer’s 2.0 L street car' });
-    await expect(saved).toContainText(/2\.0 L petrol, 224 kW at 6500 rpm, street — best fit CHS Chisel \(fits\)/);
+    await expect(saved).toContainText(/2\.0 L petrol, 224 kW at 6500 rpm, street — best fit DRF Drift \(fits\)/);
     await axe();
     await saved.getByRole('link', { name: /Open/ }).click();
     await expect(page.getByRole('heading', { name: 'What your engine needs' })).toBeVisible();

@@ -36,6 +36,7 @@ interface PartRow {
   rangeText: string | null;
   mounting: string | null;
   connection: string | null;
+  photo: string | null;
 }
 
 // Kept on the part by the stock service, so lists and facets need no sum over the bins.
@@ -46,7 +47,7 @@ const SELECT_SUMMARY = `SELECT p.id, p.part_number AS partNumber, p.title, p.cat
   p.min_stock AS minStock, ${AVAILABLE} AS available,
   s.compressor_ar AS compressorAr, s.turbine_ar AS turbineAr, s.trim_pct AS trimPct, s.inducer_mm AS inducerMm, s.exducer_mm AS exducerMm,
   s.flange_pattern AS flangePattern, s.inlet_mm AS inletMm, s.outlet_mm AS outletMm, s.material, s.bearing, s.wastegate, s.cooling,
-  s.gauge_type AS gaugeType, s.range_text AS rangeText, s.mounting, s.connection`;
+  s.gauge_type AS gaugeType, s.range_text AS rangeText, s.mounting, s.connection, json_extract(p.images, '$[0]') AS photo`;
 
 const FROM = 'FROM parts p LEFT JOIN part_specs s ON s.part_id = p.id LEFT JOIN frames f ON f.code = p.frame_code';
 
@@ -83,6 +84,7 @@ function toSummary(r: PartRow): PartSummary {
     supersededBy: r.supersededBy,
     stock: { available, state: stockState(available, r.minStock, r.status) },
     specs,
+    photo: r.photo,
   };
 }
 

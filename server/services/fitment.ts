@@ -13,6 +13,7 @@ interface FrameRow {
   name: string;
   inducerMm: number;
   exducerMm: number;
+  turbineWheelMm: number;
   powerMinHp: number;
   powerMaxHp: number;
   maxFlowLbMin: number;
@@ -59,7 +60,7 @@ export function createFitmentService(db: Db) {
   const sqlite = db.$client;
   const stmt = {
     frames: sqlite.prepare(
-      `SELECT code, name, inducer_mm AS inducerMm, exducer_mm AS exducerMm, power_min_hp AS powerMinHp, power_max_hp AS powerMaxHp,
+      `SELECT code, name, inducer_mm AS inducerMm, exducer_mm AS exducerMm, turbine_wheel_mm AS turbineWheelMm, power_min_hp AS powerMinHp, power_max_hp AS powerMaxHp,
               max_flow_lb_min AS maxFlowLbMin, max_pressure_ratio AS maxPressureRatio, max_shaft_rpm AS maxShaftRpm,
               bearing_options AS bearingOptions, compressor_map AS compressorMap
        FROM frames ORDER BY max_flow_lb_min`,
@@ -73,6 +74,11 @@ export function createFitmentService(db: Db) {
        FROM saved_fitments WHERE id = ? AND user_id = ?`,
     ),
     count: sqlite.prepare('SELECT count(*) FROM saved_fitments WHERE user_id = ?').pluck(),
+    // The turbine housings the catalogue sells for each frame: the matching recommends only what can be ordered.
+    housings: sqlite.prepare(
+      `SELECT DISTINCT p.frame_code AS frameCode, s.turbine_ar AS ar FROM parts p JOIN part_specs s ON s.part_id = p.id
+       WHERE p.category = 'turbine-housings' AND p.status = 'active' AND s.turbine_ar IS NOT NULL ORDER BY s.turbine_ar`,
+    ),
     insert: sqlite.prepare('INSERT INTO saved_fitments (user_id, name, input, summary, best_frame_code) VALUES (?, ?, ?, ?, ?)'),
     remove: sqlite.prepare('DELETE FROM saved_fitments WHERE id = ? AND user_id = ?'),
   };
@@ -82,6 +88,7 @@ export function createFitmentService(db: Db) {
   function frames() {
     if (cache) return cache;
     const rows = stmt.frames.all() as FrameRow[];
+    const housingRows = stmt.housings.all() as Array<{ frameCode: string; ar: number }>;
     const list = rows.map((r): { frame: FitmentFrame; map: FitmentFrameMap } => {
       const parsed = CompressorMapSchema.safeParse(JSON.parse(r.compressorMap));
       if (!parsed.success) throw new Error(`frame ${r.code} has a compressor map that does not parse: ${parsed.error.message}`);
@@ -99,6 +106,8 @@ export function createFitmentService(db: Db) {
           maxShaftRpm: r.maxShaftRpm,
           bearingOptions,
           map: parsed.data,
+          turbineWheelMm: r.turbineWheelMm,
+          turbineArOptions: housingRows.filter((h) => h.frameCode === r.code).map((h) => h.ar),
         },
         map: { code: r.code, name: r.name, powerBandHp, maxShaftRpm: r.maxShaftRpm, bearingOptions, map: parsed.data },
       };

@@ -202,11 +202,19 @@ export function createOrderService(deps: OrderServiceDeps) {
     const order = stmt.byId.get(orderId) as OrderRow;
     if (order.status !== 'pending_payment') return false;
     const restoreTo = cart.cartId({ userId: order.userId }, true)!;
-    for (const l of stmt.orderLines.all(orderId) as Array<{ partId: number; quantity: number }>) {
+    // The lines go back as they were: quantity, the fitment check they were bought for, and the back-order tick
+    // (a line that went on back-order had it ticked; the saved check is only kept if it still exists).
+    const lines = sqlite
+      .prepare(
+        `SELECT l.part_id AS partId, l.quantity, l.quantity_backordered AS backordered, f.id AS fitmentId
+         FROM order_lines l LEFT JOIN saved_fitments f ON f.id = l.fitment_id WHERE l.order_id = ?`,
+      )
+      .all(orderId) as Array<{ partId: number; quantity: number; backordered: number; fitmentId: number | null }>;
+    for (const l of lines) {
       stock.release(orderId, l.partId, Infinity, 'payment not completed');
       sqlite
-        .prepare('INSERT INTO cart_lines (cart_id, part_id, quantity) VALUES (?, ?, ?) ON CONFLICT (cart_id, part_id) DO NOTHING')
-        .run(restoreTo, l.partId, l.quantity);
+        .prepare('INSERT INTO cart_lines (cart_id, part_id, quantity, fitment_id, allow_backorder) VALUES (?, ?, ?, ?, ?) ON CONFLICT (cart_id, part_id) DO NOTHING')
+        .run(restoreTo, l.partId, l.quantity, l.fitmentId, l.backordered > 0 ? 1 : 0);
     }
     stmt.setState.run('cancelled', 'failed', orderId);
     stmt.event.run(orderId, 'cancelled', note);

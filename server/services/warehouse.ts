@@ -19,6 +19,9 @@ interface LineRow {
   partNumber: string;
   normalizedNumber: string;
   title: string;
+  category: PickLine['category'];
+  mounting: string | null;
+  photo: string | null;
   quantity: number;
   backordered: number;
   picked: number;
@@ -35,13 +38,15 @@ export function createWarehouseService(deps: { db: Db; stock: StockService; noti
     order: sqlite.prepare('SELECT id, number, status, payment_method AS paymentMethod FROM orders WHERE number = ?'),
     lines: sqlite.prepare(
       `SELECT l.id AS lineId, l.order_id AS orderId, o.number AS orderNumber, l.part_id AS partId, l.part_number AS partNumber, p.normalized_number AS normalizedNumber,
-              l.title, l.quantity, l.quantity_backordered AS backordered, l.quantity_picked AS picked, l.quantity_dispatched AS dispatched, l.fitment_summary AS fitmentSummary
-       FROM order_lines l JOIN orders o ON o.id = l.order_id JOIN parts p ON p.id = l.part_id WHERE l.order_id = ? ORDER BY l.id`,
+              l.title, p.category, s.mounting, json_extract(p.images, '$[0]') AS photo,
+              l.quantity, l.quantity_backordered AS backordered, l.quantity_picked AS picked, l.quantity_dispatched AS dispatched, l.fitment_summary AS fitmentSummary
+       FROM order_lines l JOIN orders o ON o.id = l.order_id JOIN parts p ON p.id = l.part_id LEFT JOIN part_specs s ON s.part_id = p.id WHERE l.order_id = ? ORDER BY l.id`,
     ),
     line: sqlite.prepare(
       `SELECT l.id AS lineId, l.order_id AS orderId, o.number AS orderNumber, l.part_id AS partId, l.part_number AS partNumber, p.normalized_number AS normalizedNumber,
-              l.title, l.quantity, l.quantity_backordered AS backordered, l.quantity_picked AS picked, l.quantity_dispatched AS dispatched, l.fitment_summary AS fitmentSummary
-       FROM order_lines l JOIN orders o ON o.id = l.order_id JOIN parts p ON p.id = l.part_id WHERE l.id = ? AND l.order_id = ?`,
+              l.title, p.category, s.mounting, json_extract(p.images, '$[0]') AS photo,
+              l.quantity, l.quantity_backordered AS backordered, l.quantity_picked AS picked, l.quantity_dispatched AS dispatched, l.fitment_summary AS fitmentSummary
+       FROM order_lines l JOIN orders o ON o.id = l.order_id JOIN parts p ON p.id = l.part_id LEFT JOIN part_specs s ON s.part_id = p.id WHERE l.id = ? AND l.order_id = ?`,
     ),
     setStatus: sqlite.prepare("UPDATE orders SET status = ?, updated_at = strftime('%Y-%m-%dT%H:%M:%fZ','now') WHERE id = ?"),
     event: sqlite.prepare('INSERT INTO order_events (order_id, status, note) VALUES (?, ?, ?)'),
@@ -63,6 +68,9 @@ export function createWarehouseService(deps: { db: Db; stock: StockService; noti
       orderNumber: l.orderNumber,
       partNumber: l.partNumber,
       title: l.title,
+      category: l.category,
+      specs: { mounting: l.mounting },
+      photo: l.photo,
       binCode: bin,
       walkOrder: walk,
       quantity: l.quantity,

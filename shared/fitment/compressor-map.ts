@@ -1,39 +1,33 @@
 import type { CompressorMap, EfficiencyIsland, MapPoint, SpeedLine } from '../schemas/compressor-map';
-import { CP_AIR_J_PER_KG_K, ISENTROPIC_EXPONENT, REFERENCE_TEMPERATURE_K } from './gas';
+import {
+  BEST_POINT_N,
+  EFFICIENCY_FALL_N,
+  EFFICIENCY_FALL_X,
+  bestPointX,
+  chokeFlowLbMin,
+  efficiencyOnMap,
+  frameRatings,
+  peakEfficiency,
+  surgePressureRatio,
+  type WheelShape,
+} from './frame-family';
+import { CP_AIR_J_PER_KG_K, ISENTROPIC_EXPONENT, REFERENCE_PRESSURE_KPA, REFERENCE_TEMPERATURE_K } from './gas';
 import { tipSpeedMs } from './shaft-speed';
-
-/** What the generator needs from a frame; FrameSeed plus its maximum shaft speed satisfies it. */
-export interface CompressorMapInput {
-  inducerMm: number;
-  exducerMm: number;
-  maxFlowLbMin: number;
-  maxPressureRatio: number;
-  maxShaftRpm: number;
-}
 
 /**
  * The invented map is laid out in two coordinates: n = N/N_max along the speed lines' order and x ∈ [0, 1] from
- * the surge end (x = 0) to the choke end (x = 1) of each speed line. Constants are chosen so the result looks like
- * a radial compressor with a backswept wheel; they are not taken from any product.
+ * the surge end (x = 0) to the choke end (x = 1) of each speed line. The surge end of every speed line follows
+ * the Euler work equation at the family's work coefficient and the map's own efficiency there
+ * (frame-family.ts); flow capacity follows the inducer area. The remaining shape constants make it look like a
+ * radial compressor with a backswept wheel; they are not taken from any product.
  */
 const LOWEST_SPEED_FRACTION = 0.3;
-/**
- * The catalogue rates a frame's flow at its power band's top (10 hp per lb/min, in actual flow). On a warm day with
- * an intake loss the same engine needs about 5 % more corrected flow, so full choke is placed 10 % past the rated
- * flow: a band-top engine then runs just inside choke, where the low-efficiency edge of the map lies.
- */
-const CHOKE_OVER_RATED_FLOW = 1.1;
 /** Surge flow as a share of the speed line's choke flow: wide at low speed, narrower at the top (≈ 0.45). */
 const SURGE_SHARE_LOW = 0.28;
 const SURGE_SHARE_RISE = 0.17;
 /** Speed lines fall by this share of their pressure rise from surge to choke, steepest at the choke end. */
 const SPEED_LINE_DROP = 0.3;
 const SPEED_LINE_SHAPE_EXPONENT = 3;
-/** Efficiency falls off as a paraboloid in (x, n) around the best point. */
-const EFFICIENCY_FALL_X = 0.4;
-const EFFICIENCY_FALL_N = 0.45;
-const BEST_POINT_N = 0.68;
-const BEST_POINT_X = 0.38;
 const ISLAND_LEVELS = [0.6, 0.64, 0.68, 0.72, 0.75, 0.77];
 const POINTS_PER_SPEED_LINE = 14;
 const POINTS_PER_ISLAND = 48;
@@ -47,34 +41,29 @@ const clamp = (value: number, low: number, high: number) => Math.min(high, Math.
 interface MapModel {
   chokeFlowAt(n: number): number;
   surgeFlowAt(n: number): number;
-  surgePrAt(n: number): number;
   point(x: number, n: number): MapPoint;
   efficiency(x: number, n: number): number;
   peakEfficiency: number;
   bestX: number;
 }
 
-function mapModel(input: CompressorMapInput): MapModel {
-  const chokeTop = input.maxFlowLbMin * CHOKE_OVER_RATED_FLOW;
-  // Constant-efficiency Euler scaling: the isentropic head at surge grows with U², i.e. with n².
-  const headAtTop = input.maxPressureRatio ** ISENTROPIC_EXPONENT - 1;
-  const trim = (input.inducerMm / input.exducerMm) ** 2;
-  // Larger wheels run at higher Reynolds number and smaller relative clearances: a few points more efficient.
-  const peakEfficiency = 0.7 + 0.08 * clamp((input.exducerMm - 40) / 100, 0, 1);
-  // A larger trim moves the best point towards the choke side.
-  const bestX = clamp(BEST_POINT_X + (trim - 0.56), 0.25, 0.5);
-
+function mapModel(shape: WheelShape): MapModel {
+  const chokeTop = chokeFlowLbMin(shape.inducerMm);
   const chokeFlowAt = (n: number) => chokeTop * Math.sin((Math.PI / 2) * n);
   const surgeFlowAt = (n: number) => chokeFlowAt(n) * (SURGE_SHARE_LOW + SURGE_SHARE_RISE * n * n);
-  const surgePrAt = (n: number) => (1 + headAtTop * n * n) ** (1 / ISENTROPIC_EXPONENT);
   const point = (x: number, n: number): MapPoint => {
     const flow = surgeFlowAt(n) + x * (chokeFlowAt(n) - surgeFlowAt(n));
-    const pr = 1 + (surgePrAt(n) - 1) * (1 - SPEED_LINE_DROP * x ** SPEED_LINE_SHAPE_EXPONENT);
+    const pr = 1 + (surgePressureRatio(shape, n) - 1) * (1 - SPEED_LINE_DROP * x ** SPEED_LINE_SHAPE_EXPONENT);
     return { flowLbMin: round(flow, 3), pressureRatio: round(pr, 4) };
   };
-  const efficiency = (x: number, n: number) =>
-    peakEfficiency - EFFICIENCY_FALL_X * (x - bestX) ** 2 - EFFICIENCY_FALL_N * (n - BEST_POINT_N) ** 2;
-  return { chokeFlowAt, surgeFlowAt, surgePrAt, point, efficiency, peakEfficiency, bestX };
+  return {
+    chokeFlowAt,
+    surgeFlowAt,
+    point,
+    efficiency: (x, n) => efficiencyOnMap(shape, x, n),
+    peakEfficiency: peakEfficiency(shape.exducerMm),
+    bestX: bestPointX(shape),
+  };
 }
 
 /** Closer lines near the top, where they crowd together and a frame's limits are read. */
@@ -106,14 +95,15 @@ function island(model: MapModel, level: number): EfficiencyIsland {
 }
 
 /**
- * A deterministic, physically plausible invented compressor map for a frame, in corrected flow (lb/min at
+ * A deterministic, physically plausible invented compressor map for a frame's wheel, in corrected flow (lb/min at
  * 288.15 K, 101.325 kPa) and pressure ratio. The top speed line is the frame's maximum shaft speed and reaches
  * its maximum pressure ratio at surge.
  */
-export function buildCompressorMap(input: CompressorMapInput): CompressorMap {
-  const model = mapModel(input);
-  const rpms = speedLineRpms(input.maxShaftRpm);
-  const fractions = rpms.map((rpm) => rpm / input.maxShaftRpm);
+export function buildCompressorMap(shape: WheelShape): CompressorMap {
+  const model = mapModel(shape);
+  const ratings = frameRatings(shape);
+  const rpms = speedLineRpms(ratings.maxShaftRpm);
+  const fractions = rpms.map((rpm) => rpm / ratings.maxShaftRpm);
 
   const speedLines: SpeedLine[] = rpms.map((rpm, index) => {
     const n = fractions[index] ?? 1;
@@ -136,11 +126,13 @@ export function buildCompressorMap(input: CompressorMapInput): CompressorMap {
     island(model, level),
   );
 
-  const topTipSpeed = tipSpeedMs(input.exducerMm, input.maxShaftRpm);
-  const efficiencyAtTopSurge = model.efficiency(0, 1);
+  // The work coefficient the top surge point implies, from its pressure ratio and efficiency: SURGE_WORK_COEFFICIENT
+  // by construction; stored so the Euler fallback uses the same figure.
+  const topTipSpeed = tipSpeedMs(shape.exducerMm, ratings.maxShaftRpm);
+  const topSurge = model.point(0, 1);
   const workCoefficient =
-    (CP_AIR_J_PER_KG_K * REFERENCE_TEMPERATURE_K * (input.maxPressureRatio ** ISENTROPIC_EXPONENT - 1)) /
-    efficiencyAtTopSurge /
+    (CP_AIR_J_PER_KG_K * REFERENCE_TEMPERATURE_K * (topSurge.pressureRatio ** ISENTROPIC_EXPONENT - 1)) /
+    model.efficiency(0, 1) /
     (topTipSpeed * topTipSpeed);
 
   return {
@@ -148,9 +140,13 @@ export function buildCompressorMap(input: CompressorMapInput): CompressorMap {
     chokeLine,
     speedLines,
     efficiencyIslands,
-    maxPressureRatio: input.maxPressureRatio,
-    maxShaftRpm: input.maxShaftRpm,
+    maxPressureRatio: topSurge.pressureRatio,
+    maxShaftRpm: ratings.maxShaftRpm,
     peakEfficiency: round(model.peakEfficiency, 4),
     workCoefficient: round(workCoefficient, 4),
+    referenceTemperatureK: REFERENCE_TEMPERATURE_K,
+    referencePressureKpa: REFERENCE_PRESSURE_KPA,
+    wheel: shape.wheel,
+    tipSpeedLimitMs: round(ratings.tipSpeedLimitMs, 1),
   };
 }

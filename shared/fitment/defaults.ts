@@ -40,6 +40,13 @@ export interface ApplicationDefaults {
   minSurgeMargin: number;
   /** Least flow margin from choke or the top speed line at the same pressure ratio. */
   minChokeMargin: number;
+  /**
+   * Most exhaust-manifold pressure a housing may need, as a multiple of boost pressure at peak power: racing wants the
+   * engine to breathe out freely, the road and the water accept more for earlier boost (common practice).
+   */
+  maxBackPressureRatio: number;
+  /** Specific output this kind of use usually survives, hp per litre on petrol (common practice; from memory). */
+  typicalHpPerLitre: number;
   /** Weights in the ranking score (see verdict.ts). */
   weights: { efficiency: number; surge: number; choke: number; shaftSpeed: number; response: number };
   label: string;
@@ -54,6 +61,8 @@ export const APPLICATION_DEFAULTS: Record<Application, ApplicationDefaults> = {
     minShaftSpeedMargin: 0.05,
     minSurgeMargin: 0.1,
     minChokeMargin: 0.03,
+    maxBackPressureRatio: 1.9,
+    typicalHpPerLitre: 160,
     weights: { efficiency: 1, surge: 0.6, choke: 0.2, shaftSpeed: 0.3, response: 1 },
     label: 'street',
   },
@@ -65,6 +74,8 @@ export const APPLICATION_DEFAULTS: Record<Application, ApplicationDefaults> = {
     minShaftSpeedMargin: 0.08,
     minSurgeMargin: 0.1,
     minChokeMargin: 0.05,
+    maxBackPressureRatio: 1.6,
+    typicalHpPerLitre: 220,
     weights: { efficiency: 1, surge: 0.3, choke: 0.4, shaftSpeed: 0.5, response: 0.4 },
     label: 'circuit',
   },
@@ -76,6 +87,8 @@ export const APPLICATION_DEFAULTS: Record<Application, ApplicationDefaults> = {
     minShaftSpeedMargin: 0.02,
     minSurgeMargin: 0.05,
     minChokeMargin: 0,
+    maxBackPressureRatio: 1.5,
+    typicalHpPerLitre: 350,
     weights: { efficiency: 1.2, surge: 0.2, choke: 0.2, shaftSpeed: 0.2, response: 0.1 },
     label: 'drag racing',
   },
@@ -87,6 +100,8 @@ export const APPLICATION_DEFAULTS: Record<Application, ApplicationDefaults> = {
     minShaftSpeedMargin: 0.06,
     minSurgeMargin: 0.12,
     minChokeMargin: 0.05,
+    maxBackPressureRatio: 1.9,
+    typicalHpPerLitre: 140,
     weights: { efficiency: 1, surge: 0.5, choke: 0.3, shaftSpeed: 0.4, response: 0.7 },
     label: 'off-road',
   },
@@ -98,6 +113,8 @@ export const APPLICATION_DEFAULTS: Record<Application, ApplicationDefaults> = {
     minShaftSpeedMargin: 0.1,
     minSurgeMargin: 0.1,
     minChokeMargin: 0.08,
+    maxBackPressureRatio: 1.6,
+    typicalHpPerLitre: 120,
     weights: { efficiency: 1, surge: 0.3, choke: 0.5, shaftSpeed: 0.6, response: 0.2 },
     label: 'marine',
   },
@@ -124,3 +141,22 @@ export const DEFAULT_INTERCOOLED = true;
  * quoted on this basis (1 lb/min per 10 hp), so other fuels are compared through their airflow.
  */
 export const PETROL_RATING_AIR_LB_PER_HP_H = 6.0;
+
+/** Diesels make less per litre for the same survival (common practice): the petrol figures above times this. */
+export const DIESEL_SPECIFIC_OUTPUT_SHARE = 0.6;
+
+/**
+ * Charge temperature in the manifold above which each fuel loses knock or smoke margin and the tune must pull
+ * timing or fuel (common practice; from memory).
+ */
+export const CHARGE_TEMP_LIMIT_C: Record<Fuel, number> = { petrol: 60, e85: 75, methanol: 90, diesel: 80 };
+/** Above this pressure ratio without a charge cooler the charge gets hot enough to matter (common practice). */
+export const NO_INTERCOOLER_PR_LIMIT = 1.6;
+/** Injectors are sized to run at most at about 80 % duty cycle at peak power (common practice). */
+export const INJECTOR_DUTY_CYCLE = 0.8;
+/** Beyond this per injector the fuel system needs more than common street injectors (common practice). */
+export const LARGE_INJECTOR_CC_MIN = 550;
+/** A compressor outlet hotter than this strains hoses and couplers before the charge cooler (common practice). */
+export const HOT_OUTLET_C = 180;
+/** Fuel densities, kg/L, for injector flow (handbook values from memory: petrol 0.74, E85 0.78, methanol 0.79, diesel 0.83). */
+export const FUEL_DENSITY_KG_L: Record<Fuel, number> = { petrol: 0.74, e85: 0.78, methanol: 0.79, diesel: 0.83 };

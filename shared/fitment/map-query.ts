@@ -198,10 +198,47 @@ const OUTER_FALL_POINTS = 0.04;
 
 /**
  * Isentropic efficiency at a map point, interpolated between the islands by distance to their contours; null
- * off the map (surge, choke, overspeed or above the maximum pressure ratio).
+ * off the map (surge, choke, overspeed or above the maximum pressure ratio). Read through a table per map
+ * (efficiencyGrid), since the contour distances are the costly part of a fitment check.
  */
 export function efficiencyAt(map: CompressorMap, flowLbMin: number, pr: number): number | null {
   if (mapZoneAt(map, flowLbMin, pr) !== 'inside') return null;
+  const grid = efficiencyGrid(map);
+  const gu = (flowLbMin / grid.maxFlow) * GRID_STEPS;
+  const gv = ((Math.max(pr, 1) - 1) / grid.prSpan) * GRID_STEPS;
+  const i = Math.min(GRID_STEPS - 1, Math.max(0, Math.floor(gu)));
+  const j = Math.min(GRID_STEPS - 1, Math.max(0, Math.floor(gv)));
+  const fu = Math.min(1, Math.max(0, gu - i));
+  const fv = Math.min(1, Math.max(0, gv - j));
+  const at = (a: number, b: number) => grid.values[a * (GRID_STEPS + 1) + b]!;
+  return (
+    at(i, j) * (1 - fu) * (1 - fv) + at(i + 1, j) * fu * (1 - fv) + at(i, j + 1) * (1 - fu) * fv + at(i + 1, j + 1) * fu * fv
+  );
+}
+
+/** 64 steps a side: within 0.1 point of the contour interpolation on the demo maps (tests/unit/fitment-map.test.ts). */
+const GRID_STEPS = 64;
+const gridCache = new WeakMap<CompressorMap, { maxFlow: number; prSpan: number; values: Float64Array }>();
+
+function efficiencyGrid(map: CompressorMap) {
+  const cached = gridCache.get(map);
+  if (cached) return cached;
+  const maxFlow = Math.max(...map.chokeLine.map((point) => point.flowLbMin), 1e-9);
+  const prSpan = Math.max(map.maxPressureRatio - 1, 1e-9);
+  const values = new Float64Array((GRID_STEPS + 1) * (GRID_STEPS + 1));
+  for (let a = 0; a <= GRID_STEPS; a += 1) {
+    for (let b = 0; b <= GRID_STEPS; b += 1) {
+      // Nodes just off the map take the contour rule's value there, so points near the edge interpolate smoothly.
+      values[a * (GRID_STEPS + 1) + b] = contourEfficiency(map, (a / GRID_STEPS) * maxFlow, 1 + (b / GRID_STEPS) * prSpan);
+    }
+  }
+  const built = { maxFlow, prSpan, values };
+  gridCache.set(map, built);
+  return built;
+}
+
+/** The contour interpolation itself, defined anywhere on the plane. */
+export function contourEfficiency(map: CompressorMap, flowLbMin: number, pr: number): number {
   const { normalise, islands } = normalisedIslands(map);
   const p = normalise({ flowLbMin, pressureRatio: Math.max(pr, 1) });
   let innermost = -1;
@@ -209,13 +246,13 @@ export function efficiencyAt(map: CompressorMap, flowLbMin: number, pr: number):
     if (isInside(island.polygon, p)) innermost = index;
   });
   const outer = islands[0];
-  if (!outer) return map.peakEfficiency ?? null;
+  if (!outer) return map.peakEfficiency ?? 0.7;
   if (innermost < 0) {
     const distance = distanceToBoundary(outer.polygon, p);
     return outer.efficiency - OUTER_FALL_POINTS * Math.min(1, distance / OUTER_FALL_DISTANCE);
   }
   const containing = islands[innermost];
-  if (!containing) return null;
+  if (!containing) return outer.efficiency;
   const inner = islands[innermost + 1];
   const toOwn = distanceToBoundary(containing.polygon, p);
   if (inner) {

@@ -93,8 +93,9 @@ export function operatingLine(
   peakPowerHp: number,
   peakPowerRpm: number,
   fullBoostRpm: number,
+  count = OPERATING_LINE_POINTS,
 ): OperatingPoint[] {
-  return operatingLineRpms(fullBoostRpm, peakPowerRpm).map((rpm) => {
+  return operatingLineRpms(fullBoostRpm, peakPowerRpm, count).map((rpm) => {
     const breathing = relativeTorqueAt(rpm, fullBoostRpm, peakPowerRpm) / TORQUE_AT_PEAK_POWER_SHARE;
     const atRpm = { ...conditions, volumetricEfficiency: conditions.volumetricEfficiency * breathing };
     return engineOperatingPoint(atRpm, rpm, powerHpAt(rpm, peakPowerHp, fullBoostRpm, peakPowerRpm));

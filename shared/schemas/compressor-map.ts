@@ -33,6 +33,12 @@ export const CompressorMapSchema = z.object({
   peakEfficiency: z.number().gt(0).lt(1).optional(),
   /** Δh₀/U² (slip and backsweep together), used for the Euler relation off the speed lines. */
   workCoefficient: z.number().gt(0).lt(1.2).optional(),
+  /** The inlet conditions the corrected flows and speeds refer to. */
+  referenceTemperatureK: z.number().positive().default(288.15),
+  referencePressureKpa: z.number().positive().default(101.325),
+  /** Compressor-wheel material, which sets the tip-speed limit. */
+  wheel: z.enum(['cast', 'milled']).optional(),
+  tipSpeedLimitMs: z.number().positive().optional(),
 });
 
 export type MapPoint = z.infer<typeof MapPointSchema>;

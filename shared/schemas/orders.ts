@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { DEALER_TIER_KEYS, DELIVERY_ZONE_KEYS } from '../pricing';
+import { IllustrationSpecsSchema, PhotoNameSchema } from './parts';
 
 export const QUANTITY_MAX = 999;
 export const CART_LINES_MAX = 200;
@@ -83,6 +84,8 @@ export const CartLineViewSchema = z.object({
   coreDepositCents: z.number().int(),
   weightGrams: z.number().int(),
   fitment: z.object({ id: z.number().int(), name: z.string(), summary: z.string() }).nullable(),
+  specs: IllustrationSpecsSchema,
+  photo: PhotoNameSchema,
 });
 export type CartLineView = z.infer<typeof CartLineViewSchema>;
 

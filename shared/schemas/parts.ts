@@ -54,6 +54,12 @@ export const SpecsSchema = z.object({
 });
 export type Specs = z.infer<typeof SpecsSchema>;
 
+/** The specs a line needs for its drawing (shared/part-illustration.ts), sent where lines carry no full specs. */
+export const IllustrationSpecsSchema = SpecsSchema.pick({ mounting: true });
+
+/** Stored name of a part's first uploaded photo (served at /api/parts/photos/:name), or null for none. */
+export const PhotoNameSchema = z.string().nullable();
+
 export const StockStateSchema = z.enum(['in-stock', 'low', 'out-of-stock', 'discontinued']);
 
 export const MatchReasonSchema = z.object({ kind: z.string(), text: z.string() });
@@ -71,6 +77,7 @@ export const PartSummarySchema = z.object({
   supersededBy: z.string().nullable(),
   stock: z.object({ available: z.number().int(), state: StockStateSchema }),
   specs: SpecsSchema,
+  photo: PhotoNameSchema,
   matched: z.array(MatchReasonSchema).optional(),
 });
 export type PartSummary = z.infer<typeof PartSummarySchema>;

@@ -1,5 +1,7 @@
 import { z } from 'zod';
+import { CATEGORY_SLUGS } from '../catalog';
 import { ORDER_STATUS_KEYS } from './orders';
+import { IllustrationSpecsSchema, PhotoNameSchema } from './parts';
 
 export const CARRIERS = ['Cobbleline Freight', 'Tern Parcel', 'Nightjar Overnight', 'Customer collect'] as const;
 
@@ -50,6 +52,9 @@ export const PickLineSchema = z.object({
   orderNumber: z.string(),
   partNumber: z.string(),
   title: z.string(),
+  category: z.enum(CATEGORY_SLUGS),
+  specs: IllustrationSpecsSchema,
+  photo: PhotoNameSchema,
   binCode: z.string().nullable(),
   walkOrder: z.number().int().nullable(),
   quantity: z.number().int(),

@@ -38,7 +38,7 @@ describe('GET /api/frames', () => {
     const { items } = FramesResponseSchema.parse(res.body);
     expect(items).toHaveLength(10);
     const first = items[0]!;
-    expect(first).toMatchObject({ code: 'AWL', name: 'Awl', powerBandHp: [60, 120], maxFlowLbMin: 12, inducerMm: 30, exducerMm: 41 });
+    expect(first).toMatchObject({ code: 'AWL', name: 'Awl', powerBandHp: [80, 150], maxFlowLbMin: 14.9, inducerMm: 30, exducerMm: 41 });
     expect(first.maxShaftRpm).toBeGreaterThan(200_000);
     expect(first.maxPressureRatio).toBeGreaterThan(2);
     expect(items.at(-1)!.powerBandHp[1]).toBeGreaterThanOrEqual(2000);

@@ -240,6 +240,22 @@ describe('checkout by card', () => {
     expect(orderRow(orders[0]!.number).status).toBe('cancelled');
   });
 
+  it('a declined card gives the lines back with the fitment check they were bought for', async () => {
+    const { c } = await freshCustomer();
+    const saved = await c.call('POST', '/api/fitments', {
+      name: 'shop car',
+      input: { displacementL: 0.5, powerHp: 100, rpm: 9000, fuel: 'petrol', application: 'street' },
+    });
+    expect(saved.status).toBe(201);
+    const fitmentId = (saved.body as { id: number }).id;
+    expect((await c.call('POST', '/api/cart/lines', { partNumber: TURBO, quantity: 1, fitmentId })).status).toBe(201);
+    const res = await c.call('POST', '/api/checkout', { method: 'card', paymentMethod: 'pm_card_chargeDeclined', delivery: DELIVERY });
+    expect(res.status).toBe(402);
+    const [line] = (await c.cart()).lines;
+    expect(line).toMatchObject({ partNumber: TURBO, quantity: 1, fitment: { id: fitmentId, name: 'shop car' } });
+    await c.emptyCart();
+  });
+
   it('pays through the webhook; the same event ten times changes the order once', async () => {
     const { c, email } = await freshCustomer();
     await c.add(GASKET, 1);

@@ -48,7 +48,22 @@ describe('POST /api/fitment', () => {
     const res = await t.send('POST', '/api/fitment', { displacementL: 0.5, powerHp: 100, rpm: 9000, fuel: 'petrol', application: 'street' });
     expect(res.status).toBe(200);
     const body = FitmentResponseSchema.parse(res.body);
-    expect(body.candidates[0]).toMatchObject({ frameCode: 'AWL', verdict: 'fits' });
+    expect(body.candidates[0]).toMatchObject({ frameCode: 'AWL', layout: 'single' });
+    expect(['fits', 'marginal']).toContain(body.candidates[0]?.verdict);
+    // The recommended turbine housing is one the catalogue sells for that frame.
+    const sold = t.db.$client
+      .prepare("SELECT s.turbine_ar FROM parts p JOIN part_specs s ON s.part_id = p.id WHERE p.category = 'turbine-housings' AND p.frame_code = 'AWL' AND p.status = 'active'")
+      .pluck()
+      .all() as number[];
+    expect(sold).toContain(body.candidates[0]?.turbine?.housingAr);
+    expect(body.candidates[0]?.housings.map((h) => h.housingAr).sort()).toEqual([...new Set(sold)].sort());
+  });
+
+  it('refuses an engine beyond any engine (over 1,000 hp per litre) with a 400 naming the value and its unit', async () => {
+    const res = await t.send('POST', '/api/fitment', { displacementL: 0.1147, displacementUnit: 'in3', powerHp: 260, rpm: 6500, fuel: 'petrol', application: 'street' });
+    expect(res.status).toBe(400);
+    const body = res.body as { error: { fieldErrors?: Record<string, string[]> } };
+    expect(body.error.fieldErrors?.displacementL?.[0]).toMatch(/7 cubic inches .* hp per litre/);
   });
 
   it('takes power in kW as well as hp and answers the same check', async () => {

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { FRAMES, flangeInletMm, isVBand, maxShaftRpmFor } from '../../catalog-seed/frames';
+import { FRAMES, flangeInletMm, isVBand } from '../../catalog-seed/frames';
 import { generateCatalogue, type PartSeed } from '../../catalog-seed/generate';
 import { CATEGORY_SLUGS, trimPct } from '../../shared/catalog';
 import { parsePartNumber } from '../../shared/part-number';
@@ -31,19 +31,14 @@ describe('demo frames', () => {
     }
   });
 
-  it('keep compressor tip speed at the rated shaft speed near 540 m/s, a common-practice limit for cast aluminium wheels', () => {
-    for (const f of FRAMES) {
-      const tip = (Math.PI * (f.exducerMm / 1000) * maxShaftRpmFor(f.exducerMm)) / 60;
-      expect(tip, f.code).toBeGreaterThan(520);
-      expect(tip, f.code).toBeLessThan(560);
-    }
-  });
-
-  it('grow in flow, pressure ratio and weight from the smallest to the largest', () => {
+  it('grow in flow and weight from the smallest to the largest, at a single-stage pressure ratio of about 4 (common practice)', () => {
     for (let i = 1; i < FRAMES.length; i++) {
       expect(FRAMES[i]!.maxFlowLbMin).toBeGreaterThan(FRAMES[i - 1]!.maxFlowLbMin);
-      expect(FRAMES[i]!.maxPressureRatio).toBeGreaterThanOrEqual(FRAMES[i - 1]!.maxPressureRatio);
       expect(FRAMES[i]!.weightKg).toBeGreaterThan(FRAMES[i - 1]!.weightKg);
+    }
+    for (const f of FRAMES) {
+      expect(f.maxPressureRatio, f.code).toBeGreaterThan(3.6);
+      expect(f.maxPressureRatio, f.code).toBeLessThan(4.8);
     }
   });
 });

@@ -2,6 +2,7 @@ import { ArrowRight, Gauge } from 'lucide-react';
 import { Link, useParams, useSearchParams } from 'react-router-dom';
 import { categoryLabel, formatPrice } from '../../../shared/catalog';
 import { buttonClass } from '../../components/ui/button';
+import { PartPicture, partPhotoUrl } from '../../components/illustrations/part-picture';
 import { ApiError } from '../../lib/api-client';
 import { ErrorState, LoadingState } from '../../components/ui/states';
 import { useMe } from '../../features/auth/api/get-me';
@@ -36,6 +37,8 @@ export function PartRoute() {
   }
   const p = part.data;
   const rows = specRows(p.specs);
+  const first = p.images[0];
+  const pictureSize = 'size-28 sm:size-40 lg:size-48';
 
   return (
     <article className="grid gap-8">
@@ -72,48 +75,63 @@ export function PartRoute() {
       )}
 
       <header className="grid gap-6 md:grid-cols-[3fr_2fr]">
-        <div>
-          <p className="part-no text-lg text-cast">{p.partNumber}</p>
-          <h1 className="text-3xl font-bold leading-tight">{p.title}</h1>
-          <p className="mt-3 text-lg">{p.description}</p>
-          {p.images.length > 0 && (
-            <ul aria-label="Photos" className="mt-4 flex flex-wrap gap-3">
-              {p.images.map((name, i) => (
-                <li key={name}>
-                  <a href={`/api/parts/photos/${encodeURIComponent(name)}`} target="_blank" rel="noreferrer" className="block rounded-md ring-1 ring-cast-line hover:ring-temper">
-                    <img
-                      src={`/api/parts/photos/${encodeURIComponent(name)}`}
-                      alt={`${p.title}, photo ${i + 1} of ${p.images.length}`}
-                      loading="lazy"
-                      className="size-36 rounded-md bg-white object-contain"
-                    />
-                  </a>
-                </li>
-              ))}
-            </ul>
+        <div className="grid content-start gap-4 sm:grid-cols-[auto_minmax(0,1fr)] sm:gap-6">
+          {/* The first photo takes the drawing's place and opens full size; the others follow the description. */}
+          {first ? (
+            <a
+              href={partPhotoUrl(first)}
+              target="_blank"
+              rel="noreferrer"
+              className={`${pictureSize} block overflow-hidden rounded-md bg-white ring-1 ring-cast-line hover:ring-2 hover:ring-temper`}
+            >
+              <img src={partPhotoUrl(first)} alt={`${p.title}, photo 1 of ${p.images.length}`} className="size-full object-contain" />
+            </a>
+          ) : (
+            <PartPicture part={p} photo={null} className={pictureSize} />
           )}
-          {(p.crossReferences.length > 0 || p.earlierNumbers.length > 0) && (
-            <dl className="mt-3 grid gap-1 text-sm">
-              {p.earlierNumbers.length > 0 && (
-                <div className="flex gap-2">
-                  <dt className="font-semibold">Earlier numbers:</dt>
-                  <dd className="part-no">{p.earlierNumbers.join(', ')}</dd>
-                </div>
-              )}
-              {p.crossReferences.length > 0 && (
-                <div className="flex gap-2">
-                  <dt className="font-semibold">Cross-references:</dt>
-                  <dd>
-                    {p.crossReferences.map((x) => (
-                      <span key={x.number} className="part-no mr-2">
-                        {x.number}
-                      </span>
-                    ))}
-                  </dd>
-                </div>
-              )}
-            </dl>
-          )}
+          <div className="min-w-0">
+            <p className="part-no text-lg text-cast">{p.partNumber}</p>
+            <h1 className="text-3xl font-bold leading-tight">{p.title}</h1>
+            <p className="mt-3 text-lg">{p.description}</p>
+            {p.images.length > 1 && (
+              <ul aria-label="More photos" className="mt-4 flex flex-wrap gap-3">
+                {p.images.slice(1).map((name, i) => (
+                  <li key={name}>
+                    <a href={partPhotoUrl(name)} target="_blank" rel="noreferrer" className="block rounded-md ring-1 ring-cast-line hover:ring-temper">
+                      <img
+                        src={partPhotoUrl(name)}
+                        alt={`${p.title}, photo ${i + 2} of ${p.images.length}`}
+                        loading="lazy"
+                        className="size-36 rounded-md bg-white object-contain"
+                      />
+                    </a>
+                  </li>
+                ))}
+              </ul>
+            )}
+            {(p.crossReferences.length > 0 || p.earlierNumbers.length > 0) && (
+              <dl className="mt-3 grid gap-1 text-sm">
+                {p.earlierNumbers.length > 0 && (
+                  <div className="flex gap-2">
+                    <dt className="font-semibold">Earlier numbers:</dt>
+                    <dd className="part-no">{p.earlierNumbers.join(', ')}</dd>
+                  </div>
+                )}
+                {p.crossReferences.length > 0 && (
+                  <div className="flex gap-2">
+                    <dt className="font-semibold">Cross-references:</dt>
+                    <dd>
+                      {p.crossReferences.map((x) => (
+                        <span key={x.number} className="part-no mr-2">
+                          {x.number}
+                        </span>
+                      ))}
+                    </dd>
+                  </div>
+                )}
+              </dl>
+            )}
+          </div>
         </div>
         <div className="grid content-start gap-3 rounded-lg bg-white p-5 shadow-sm ring-1 ring-cast-line">
           <p className="tabular text-3xl font-bold">{formatPrice(p.priceCents)}</p>

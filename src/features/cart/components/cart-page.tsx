@@ -4,6 +4,7 @@ import { formatPrice } from '../../../../shared/catalog';
 import { DEALER_TIERS, DELIVERY_ZONE_KEYS, DELIVERY_ZONES, type DeliveryZone } from '../../../../shared/pricing';
 import type { CartLineView, CartView } from '../../../../shared/schemas/orders';
 import { buttonClass } from '../../../components/ui/button';
+import { PartPicture } from '../../../components/illustrations/part-picture';
 import { Caution } from '../../../components/ui/caution';
 import { EmptyState, ErrorState, LoadingState } from '../../../components/ui/states';
 import { useCart } from '../api/get-cart';
@@ -47,21 +48,24 @@ function CartLine({ line, cart }: { line: CartLineView; cart: CartView }) {
   const error = update.error ?? remove.error;
   return (
     <li className="grid gap-3 border-b border-cast-line py-4 md:grid-cols-[minmax(0,1fr)_auto_7.5rem_6.5rem_auto] md:items-start md:gap-x-3" aria-label={`${line.partNumber} ${line.title}`}>
-      <div className="grid min-w-0 gap-1">
-        <Link to={`/parts/${encodeURIComponent(line.partNumber)}`} className="part-no text-temper hover:underline">
-          {line.partNumber}
-        </Link>
-        <p className="font-semibold leading-snug">{line.title}</p>
-        <LineAvailability line={line} dealer={dealer} busy={busy} onBackorder={(allow) => update.mutate({ id: line.id, allowBackorder: allow })} />
-        {line.fitment ? (
-          <p className="inline-flex items-start gap-1 text-sm">
-            <Gauge aria-hidden className="mt-0.5 size-4 shrink-0 text-temper" />
-            <span>
-              Chosen for fitment check <span className="font-semibold">{line.fitment.name}</span>
-              {line.fitment.summary && <span className="text-cast"> · {line.fitment.summary}</span>}
-            </span>
-          </p>
-        ) : null}
+      <div className="flex min-w-0 items-start gap-3">
+        <PartPicture part={line} photo={line.photo} className="size-14 md:size-16" />
+        <div className="grid min-w-0 gap-1">
+          <Link to={`/parts/${encodeURIComponent(line.partNumber)}`} className="part-no text-temper hover:underline">
+            {line.partNumber}
+          </Link>
+          <p className="font-semibold leading-snug">{line.title}</p>
+          <LineAvailability line={line} dealer={dealer} busy={busy} onBackorder={(allow) => update.mutate({ id: line.id, allowBackorder: allow })} />
+          {line.fitment ? (
+            <p className="inline-flex items-start gap-1 text-sm">
+              <Gauge aria-hidden className="mt-0.5 size-4 shrink-0 text-temper" />
+              <span>
+                Chosen for fitment check <span className="font-semibold">{line.fitment.name}</span>
+                {line.fitment.summary && <span className="text-cast"> · {line.fitment.summary}</span>}
+              </span>
+            </p>
+          ) : null}
+        </div>
       </div>
       <div>
         <p className="text-sm text-cast md:sr-only">Quantity</p>

@@ -2,13 +2,15 @@ import { Link } from 'react-router-dom';
 import { categoryLabel, formatPrice } from '../../../../shared/catalog';
 import type { PartSummary } from '../../../../shared/schemas/parts';
 import { dealerUnitPriceCents, type DealerTier } from '../../../../shared/pricing';
+import { PartPicture } from '../../../components/illustrations/part-picture';
 import { specSummary } from './spec-rows';
 import { StockBadge } from './stock-badge';
 
 /** A part in a list; with a trade tier, the dealer's price leads and the retail price is shown beside it. */
 export function PartListItem({ part, tradeTier }: { part: PartSummary; tradeTier?: DealerTier | null }) {
   return (
-    <li className="grid gap-2 border-b border-cast-line py-4 sm:grid-cols-[1fr_auto] sm:gap-6">
+    <li className="grid grid-cols-[3.5rem_minmax(0,1fr)] gap-x-3 gap-y-2 border-b border-cast-line py-4 sm:grid-cols-[4.5rem_minmax(0,1fr)_auto] sm:gap-x-5">
+      <PartPicture part={part} photo={part.photo} className="size-14 sm:size-18" />
       <div className="min-w-0">
         <p className="flex flex-wrap items-baseline gap-x-3 text-sm text-cast">
           <span className="part-no text-ink">{part.partNumber}</span>
@@ -30,7 +32,7 @@ export function PartListItem({ part, tradeTier }: { part: PartSummary; tradeTier
           </p>
         )}
       </div>
-      <div className="flex items-baseline gap-4 sm:flex-col sm:items-end sm:gap-1">
+      <div className="col-start-2 flex flex-wrap items-baseline gap-x-4 gap-y-1 sm:col-start-3 sm:flex-col sm:flex-nowrap sm:items-end sm:gap-1">
         {tradeTier ? (
           <span className="text-right">
             <span className="tabular block text-xl font-bold">

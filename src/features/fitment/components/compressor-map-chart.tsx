@@ -29,6 +29,7 @@ const ZONE_WORDS: Record<MapZone, string> = {
   choke: 'past choke',
   overspeed: 'over the shaft-speed limit',
   'above-max-pr': 'above the top pressure ratio',
+  'below-map': 'below the lowest speed line',
 };
 
 /** Ticks at 1, 2, 2.5 or 5 × 10ⁿ from `min`, between `fewest` and `most` of them, ending as little past `max` as can be. */

@@ -1,6 +1,6 @@
 import { useEffect, useRef } from 'react';
 import { APPLICATION_DEFAULTS } from '../../../../shared/fitment/defaults';
-import type { FitmentRequest, FitmentResponse } from '../../../../shared/schemas/fitment';
+import type { FitmentCaution, FitmentRequest, FitmentResponse } from '../../../../shared/schemas/fitment';
 import type { SavedFitment } from '../../../../shared/schemas/saved-fitments';
 import { Caution } from '../../../components/ui/caution';
 import { ErrorState, LoadingState } from '../../../components/ui/states';
@@ -29,12 +29,12 @@ function Figure({ label, value, detail }: { label: string; value: string; detail
 }
 
 /** The cautions shown beside every result. */
-export function FitmentCautions({ cautions }: { cautions: readonly string[] }) {
+export function FitmentCautions({ cautions }: { cautions: readonly FitmentCaution[] }) {
   return (
     <Caution title="Before you buy or fit">
       <ul className="mt-1 list-disc space-y-1 pl-5">
         {cautions.map((c) => (
-          <li key={c}>{c}</li>
+          <li key={c.code}>{c.message}</li>
         ))}
       </ul>
     </Caution>

@@ -3,6 +3,7 @@ import { useEffect, useRef, useState, type FormEvent } from 'react';
 import { Link, useNavigate } from 'react-router-dom';
 import { PickSchema, type PickLine, type PickList } from '../../../../shared/schemas/warehouse';
 import { Button, buttonClass } from '../../../components/ui/button';
+import { PartPicture } from '../../../components/illustrations/part-picture';
 import { EmptyState, ErrorState, LoadingState } from '../../../components/ui/states';
 import { ApiError } from '../../../lib/api-client';
 import { usePickList } from '../api/get-pick-list';
@@ -289,11 +290,15 @@ function CurrentLineCard({ line, batch }: { line: PickLine; batch: boolean }) {
           </p>
         </div>
       </div>
-      <div>
-        <p className="text-sm font-semibold uppercase tracking-wider text-cast">Part number</p>
-        <p className="part-no text-4xl leading-tight">{line.partNumber}</p>
-        <p className="text-xl font-semibold">{line.title}</p>
-        {batch && <p className="mt-1 text-lg">For order <span className="part-no">{line.orderNumber}</span></p>}
+      <div className="flex items-start gap-4">
+        <div className="min-w-0 grow">
+          <p className="text-sm font-semibold uppercase tracking-wider text-cast">Part number</p>
+          <p className="part-no text-4xl leading-tight">{line.partNumber}</p>
+          <p className="text-xl font-semibold">{line.title}</p>
+          {batch && <p className="mt-1 text-lg">For order <span className="part-no">{line.orderNumber}</span></p>}
+        </div>
+        {/* Beside the big part number only where there is room for both; the line list shows it on a phone. */}
+        <PartPicture part={line} photo={line.photo} className="hidden size-24 sm:block" />
       </div>
       {line.fitmentSummary && <Fitment summary={line.fitmentSummary} />}
     </div>
@@ -317,11 +322,15 @@ function LineRow({ line, current, batch, onChoose }: { line: PickLine; current: 
     <li
       aria-current={current ? 'step' : undefined}
       aria-label={`${line.binCode ?? 'no bin'} ${line.partNumber}`}
-      className={`grid grid-cols-[5.5rem_minmax(0,1fr)_auto] items-center gap-3 rounded-md border-2 p-3 ${
+      className={`grid grid-cols-[5.5rem_minmax(0,1fr)_auto] items-center gap-3 rounded-md border-2 p-3 sm:grid-cols-[5.5rem_3.5rem_minmax(0,1fr)_auto] lg:grid-cols-[5.5rem_minmax(0,1fr)_auto] ${
         current ? 'border-temper bg-temper-tint/50' : done ? 'border-cast-line bg-panel/60' : 'border-cast-line bg-white'
       }`}
     >
-      <span className="part-no text-2xl">{line.binCode ?? '—'}</span>
+      {/* The drawing sits under the bin code where the row is narrow (a phone, the half-width column on a wide screen). */}
+      <div className="grid justify-items-start gap-2 sm:contents lg:grid">
+        <span className="part-no text-2xl">{line.binCode ?? '—'}</span>
+        <PartPicture part={line} photo={line.photo} className="size-14" />
+      </div>
       <div className="min-w-0">
         <p className="part-no text-xl">{line.partNumber}</p>
         <p className="truncate">{line.title}</p>
