@@ -5,6 +5,8 @@ import { keepScreenshot } from './support/screens';
 const STOCK_LIST = ['part,qty', 'FLG-50-0201,6', 'AWL-10-0103,1', 'AWL-10-020,2', 'AWL-50-0201,2.5', ''].join('\n');
 
 test('a dealer uploads a stock list, fixes a bad row and checks out on account with a PO number', async ({ page, login, axe }) => {
+  // The longest journey (upload, fix, cart, checkout, invoice, reorder): more time on a busy two-core machine.
+  test.slow();
   await login('dealer');
   await page.goto('/trade/stock-list');
   await expect(page.getByRole('heading', { name: 'Upload a stock list' })).toBeVisible();
