@@ -13,7 +13,8 @@ export default defineConfig({
   workers: 1,
   retries: ci ? 1 : 0,
   forbidOnly: ci,
-  timeout: 30_000,
+  // Journeys run a server, a browser and axe on two cores: a minute each leaves room for a busy machine.
+  timeout: 60_000,
   expect: { timeout: 5_000 },
   reporter: [['list'], ['json', { outputFile: process.env.PLAYWRIGHT_JSON_OUTPUT_NAME ?? 'test-results/report.json' }]],
   use: {
