@@ -1,3 +1,4 @@
+import { formatMoney } from './format';
 /** Catalogue vocabulary shared by client and server. */
 export const CATEGORIES = [
   { slug: 'turbochargers', label: 'Turbochargers', blurb: 'Complete units, new or remanufactured on exchange.' },
@@ -31,9 +32,8 @@ export function stockState(available: number, minStock: number, status: PartStat
   return 'in-stock';
 }
 
-export function formatPrice(cents: number, currency = 'USD'): string {
-  return new Intl.NumberFormat('en-US', { style: 'currency', currency }).format(cents / 100);
-}
+/** Prices as everywhere else (shared/format.ts). */
+export const formatPrice = (cents: number): string => formatMoney(cents);
 
 /** Compressor trim from the wheel diameters: 100·(inducer/exducer)², to one decimal (the trade's definition). */
 export function trimPct(inducerMm: number, exducerMm: number): number {

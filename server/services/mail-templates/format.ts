@@ -1,11 +1,10 @@
+import { formatDate, formatMoney } from '../../../shared/format';
 import type { MailAddress } from './types';
-
-const USD = new Intl.NumberFormat('en-US', { style: 'currency', currency: 'USD' });
 
 /** Integer cents as US dollars, e.g. 123450 -> "$1,234.50". Fractions of a cent mean a bug upstream. */
 export function money(cents: number): string {
   if (!Number.isSafeInteger(cents)) throw new RangeError(`Money must be whole cents, got ${cents}`);
-  return USD.format(cents / 100);
+  return formatMoney(cents);
 }
 
 /** A discount shown as taken off: "-$12.00", never "--" or "-$0.00". */
@@ -17,9 +16,9 @@ export function percent(value: number): string {
   return `${new Intl.NumberFormat('en-US', { maximumFractionDigits: 2 }).format(value)}%`;
 }
 
-/** Calendar dates are formatted in UTC so the same order date reads the same on every server. */
+/** Calendar dates as on every screen (shared/format.ts: UTC, so the same order date reads the same everywhere). */
 export function calendarDate(date: Date): string {
-  return new Intl.DateTimeFormat('en-US', { dateStyle: 'medium', timeZone: 'UTC' }).format(date);
+  return formatDate(date);
 }
 
 export function duration(minutes: number): string {

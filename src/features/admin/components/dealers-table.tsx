@@ -12,6 +12,7 @@ import { ArrowDown, ArrowUp, ArrowUpDown, BadgeCheck, ChevronDown, ChevronRight,
 import { Fragment, useEffect, useRef, useState } from 'react';
 import { z } from 'zod';
 import { formatPrice } from '../../../../shared/catalog';
+import { formatDate } from '../../../../shared/format';
 import type { DealerAccountRowSchema } from '../../../../shared/schemas/accounts';
 import { DEALER_TIERS } from '../../../../shared/pricing';
 import { ApproveDealerForm, DeclineDealerForm, type DecisionDone } from './decision-forms';
@@ -120,7 +121,7 @@ function ReviewPanel({ dealer, onDone, onClose }: { dealer: DealerRow; onDone: (
             Review: {dealer.companyName}
           </h2>
           <p className="text-sm text-cast">
-            Applied {new Date(dealer.createdAt).toLocaleDateString('en-US', { dateStyle: 'medium' })} · {dealer.contactName}, {dealer.phone}, {dealer.city} ·{' '}
+            Applied {formatDate(dealer.createdAt)} · {dealer.contactName}, {dealer.phone}, {dealer.city} ·{' '}
             <span className="break-all">{dealer.email}</span>
           </p>
         </div>

@@ -4,19 +4,12 @@ import { useForm, type FieldErrors } from 'react-hook-form';
 import { z } from 'zod';
 import { PAYMENT_TERMS_DAYS } from '../../../../shared/schemas/account-replies';
 import { DealerDecisionSchema, type DealerDecision } from '../../../../shared/schemas/accounts';
+import { parseMoneyToCents } from '../../../../shared/format';
 import { DEALER_TIER_KEYS, DEALER_TIERS } from '../../../../shared/pricing';
 import { buttonClass } from '../../../components/ui/button';
 import { ErrorSummary, SelectField, summaryItems, TextAreaField, TextField } from '../../../components/ui/form';
 import { useDecideDealer } from '../api/decide-dealer';
 
-/** Dollars as typed ("7500", "7,500.00") to whole cents, without floating-point rounding. */
-export function dollarsToCents(input: string): number | null {
-  const m = /^\s*\$?\s*(\d{1,3}(?:,\d{3})+|\d+)(?:\.(\d{1,2}))?\s*$/.exec(input);
-  if (!m) return null;
-  const whole = Number(m[1]!.replace(/,/g, ''));
-  const fraction = Number((m[2] ?? '').padEnd(2, '0'));
-  return whole * 100 + fraction;
-}
 
 const ApproveFormSchema = z.object({
   tier: z.enum(DEALER_TIER_KEYS, { error: 'choose a trade tier' }),
@@ -24,8 +17,8 @@ const ApproveFormSchema = z.object({
     .string()
     .trim()
     .min(1, 'enter a credit limit in dollars')
-    .refine((v) => dollarsToCents(v) !== null, 'enter dollars and cents, for example 7500 or 7,500.00')
-    .refine((v) => (dollarsToCents(v) ?? 0) <= 1_000_000_00, 'credit limit is too high (at most $1,000,000)'),
+    .refine((v) => parseMoneyToCents(v) !== null, 'enter dollars and cents, for example 7500 or 7,500.00')
+    .refine((v) => (parseMoneyToCents(v) ?? 0) <= 1_000_000_00, 'credit limit is too high (at most $1,000,000)'),
   paymentTermsDays: z.enum(PAYMENT_TERMS_DAYS.map(String) as [string, ...string[]], { error: 'choose payment terms' }),
 });
 type ApproveForm = z.infer<typeof ApproveFormSchema>;
@@ -68,7 +61,7 @@ export function ApproveDealerForm({ dealerId, companyName, onDone }: { dealerId:
       const decision = DealerDecisionSchema.parse({
         decision: 'approve',
         tier: values.tier,
-        creditLimitCents: dollarsToCents(values.creditLimit),
+        creditLimitCents: parseMoneyToCents(values.creditLimit),
         paymentTermsDays: Number(values.paymentTermsDays),
       });
       decide.mutate({ id: dealerId, decision }, { onSuccess: () => onDone({ dealerId, companyName, decision }), onError: summary.show });

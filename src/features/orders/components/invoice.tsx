@@ -5,7 +5,8 @@ import { ErrorState, LoadingState } from '../../../components/ui/states';
 import { ApiError } from '../../../lib/api-client';
 import { useOrder } from '../api/get-order';
 import { OrderLinesTable, OrderTotals } from './order-lines';
-import { formatDate, statusMeta } from './order-status';
+import { formatDate } from '../../../../shared/format';
+import { statusMeta } from './order-status';
 
 /** The distributor's own details, printed at the head of every invoice. */
 export const DISTRIBUTOR = { name: 'Spoolyard Turbo Supply', address: 'Unit 7, Foundry Row, Quenchfold', email: 'orders@spoolyard.test' } as const;

@@ -6,7 +6,8 @@ import { ErrorState, LoadingState } from '../../../components/ui/states';
 import { ApiError } from '../../../lib/api-client';
 import { PAYMENT_POLL_LIMIT, PAYMENT_POLL_MS, useOrder } from '../api/get-order';
 import { OrderLinesTable, OrderTotals, zoneLabel } from './order-lines';
-import { formatDateTime, OrderStatusBadge } from './order-status';
+import { formatDateTime } from '../../../../shared/format';
+import { OrderStatusBadge } from './order-status';
 import { OrderTimeline } from './order-timeline';
 import { ReorderButton } from './reorder-button';
 

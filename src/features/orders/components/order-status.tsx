@@ -48,12 +48,4 @@ export function OrderStatusBadge({ status }: { status: string }) {
   );
 }
 
-export function formatDateTime(iso: string) {
-  const d = new Date(iso);
-  return Number.isNaN(d.getTime()) ? iso : d.toLocaleString('en-GB', { dateStyle: 'medium', timeStyle: 'short' });
-}
 
-export function formatDate(iso: string) {
-  const d = new Date(iso);
-  return Number.isNaN(d.getTime()) ? iso : d.toLocaleDateString('en-GB', { dateStyle: 'medium' });
-}

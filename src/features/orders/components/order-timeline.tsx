@@ -1,5 +1,6 @@
 import type { OrderDetail } from '../../../../shared/schemas/orders';
-import { formatDateTime, statusMeta, toneClass } from './order-status';
+import { formatDateTime } from '../../../../shared/format';
+import { statusMeta, toneClass } from './order-status';
 
 const FULFILMENT = ['picking', 'packed', 'dispatched'] as const;
 

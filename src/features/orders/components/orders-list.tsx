@@ -4,7 +4,8 @@ import { formatPrice } from '../../../../shared/catalog';
 import { EmptyState, ErrorState, LoadingState } from '../../../components/ui/states';
 import { ApiError } from '../../../lib/api-client';
 import { useOrders } from '../api/get-orders';
-import { formatDate, OrderStatusBadge } from './order-status';
+import { formatDate } from '../../../../shared/format';
+import { OrderStatusBadge } from './order-status';
 import { ReorderButton } from './reorder-button';
 
 export function OrdersList({ onReorderAdded, trade }: { onReorderAdded: () => void; trade: boolean }) {

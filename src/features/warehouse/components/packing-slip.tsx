@@ -7,7 +7,7 @@ import { ErrorState, LoadingState } from '../../../components/ui/states';
 import { ApiError } from '../../../lib/api-client';
 import { useOrder } from '../api/get-order';
 import { usePickList } from '../api/get-pick-list';
-import { formatDate } from '../lib/age';
+import { formatDate } from '../../../../shared/format';
 
 export const DISTRIBUTOR = { name: 'Spoolyard Turbo Supply', address: 'Unit 7, Foundry Row, Quenchfold' } as const;
 

@@ -9,7 +9,7 @@ import { Button } from '../../../components/ui/button';
 import { EmptyState, ErrorState, LoadingState } from '../../../components/ui/states';
 import { useDecideReturn } from '../api/decide-return';
 import { useReturns, type ReturnFilter } from '../api/get-returns';
-import { formatDateTime } from '../lib/age';
+import { formatDateTime } from '../../../../shared/format';
 import { centsToDollarsInput, dollarsToCents } from '../lib/money';
 import { ErrorSummary, FieldShell, SelectField, summaryItems, TextAreaField, TextField } from '../../../components/ui/form';
 

@@ -11,7 +11,7 @@ import { useAdjustStock, type Adjustment } from '../api/adjust-stock';
 import { useBins } from '../api/get-bins';
 import { useLowStock } from '../api/get-low-stock';
 import { useStock } from '../api/get-stock';
-import { formatDateTime } from '../lib/age';
+import { formatDateTime } from '../../../../shared/format';
 import { normalisePartNumber } from '../lib/pick-progress';
 import { ErrorSummary, SelectField, summaryItems, TextField } from '../../../components/ui/form';
 import { ScanField } from './scan-field';

@@ -8,13 +8,3 @@ export function orderAge(createdAt: string, now: number = Date.now()): string {
   if (hours < 48) return `${hours} h`;
   return `${Math.floor(hours / 24)} d`;
 }
-
-export const formatDateTime = (iso: string): string => {
-  const d = new Date(iso);
-  return Number.isNaN(d.getTime()) ? iso : d.toLocaleString('en-US', { dateStyle: 'medium', timeStyle: 'short' });
-};
-
-export const formatDate = (iso: string): string => {
-  const d = new Date(iso);
-  return Number.isNaN(d.getTime()) ? iso : d.toLocaleDateString('en-US', { dateStyle: 'long' });
-};
