@@ -33,6 +33,7 @@ import { createCatalogService } from './services/catalog';
 import type { MailerPort } from './services/mailer';
 import { createNotifications } from './services/notifications';
 import { createOrderService } from './services/orders';
+import { createDealerAccountsService } from './services/dealer-accounts';
 import { createSearchService } from './services/search';
 import { createStockService } from './services/stock';
 
@@ -80,6 +81,10 @@ export function createApp(deps: AppDeps) {
   const stock = createStockService(db);
   const cart = createCartService(db, search, { taxRatePct: config.taxRatePct });
   const notifications = createNotifications({ db, mailer: deps.mailer, publicUrl: config.publicUrl, track: deps.trackMail });
+  const dealers = createDealerAccountsService({
+    db,
+    notify: { applied: (id) => notifications.dealerApplied(id), decided: (id, decision) => notifications.dealerDecided(id, decision) },
+  });
   const orders = createOrderService({ db, stock, cart, payments: deps.payments, notify: notifications.orders, taxRatePct: config.taxRatePct, now });
   const returnPhotosDir = path.join(config.uploadsDir, 'returns');
   const partPhotosDir = path.join(config.uploadsDir, 'parts');
@@ -160,14 +165,13 @@ export function createApp(deps: AppDeps) {
   app.use(
     '/api/account',
     accountRouter({
-      db,
+      dealers,
       payments: {
         mode: config.paymentsMode,
         publishableKey: config.publishableKey,
         ...(config.devTools ? { testMethods: Object.values(TEST_CARDS).map((c) => ({ id: c.id, label: c.label })) } : {}),
       },
       ...(config.devTools && config.demoAccounts ? { demoAccounts: config.demoAccounts } : {}),
-      onDealerApplied: (id) => notifications.dealerApplied(id),
     }),
   );
   app.use('/api/fitment', fitmentRouter({ db }));
@@ -178,7 +182,7 @@ export function createApp(deps: AppDeps) {
   app.use('/api/warehouse', warehouseRouter({ db, warehouse, returns }));
   app.use('/api/returns', returnsRouter({ returns, photosDir: returnPhotosDir }));
   app.use('/api/admin', adminCatalogRouter({ admin: catalogAdmin, photosDir: partPhotosDir }));
-  app.use('/api/admin/dealers', adminDealersRouter({ db, onDecision: (e) => notifications.dealerDecided(e.dealerAccountId, e.decision) }));
+  app.use('/api/admin/dealers', adminDealersRouter(dealers));
   if (config.devTools) app.use('/api/dev', devRouter({ mailInboxUrl: config.mailInboxUrl, paymentsApiUrl: config.paymentsApiUrl, orders }));
   app.use('/api', apiNotFound);
 
@@ -190,5 +194,5 @@ export function createApp(deps: AppDeps) {
     });
   }
   app.use(createErrorHandler(log));
-  return { app, search, catalog, stock, cart, orders, auth, notifications, warehouse, returns, catalogAdmin };
+  return { app, search, catalog, stock, cart, orders, dealers, auth, notifications, warehouse, returns, catalogAdmin };
 }

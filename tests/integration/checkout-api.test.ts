@@ -201,7 +201,7 @@ describe('checkout on account', () => {
     expect(cart.totals.totalCents).toBeGreaterThan(500_000);
     const res = await dealer2.call('POST', '/api/checkout', { method: 'account', purchaseOrder: 'QME-1' });
     expect(res.status).toBe(409);
-    expect((res.body as { error: { message: string } }).error.message).toMatch(/over your credit limit of \$5000\.00/);
+    expect((res.body as { error: { message: string } }).error.message).toMatch(/over your credit limit of \$5,000\.00/);
     expect(available(TURBO)).toBe(before);
     expect((await dealer2.cart()).lines).toHaveLength(1);
     expect(sql('SELECT 1 FROM orders WHERE purchase_order = ?', 'QME-1')).toHaveLength(0);

@@ -32,7 +32,7 @@ describe('dealer invoices', () => {
     const number = (first.body as { order: { number: string } }).order.number;
     const refused = await accountOrder(turbo, 1);
     expect(refused.status).toBe(409);
-    expect((refused.body as { error: { message: string } }).error.message).toMatch(/credit limit of \$5000\.00/);
+    expect((refused.body as { error: { message: string } }).error.message).toMatch(/credit limit of \$5,000\.00/);
 
     const open = await admin.get(`/api/admin/dealers/${dealerId}/invoices`);
     const items = (open.body as { items: Array<{ number: string; dueDate: string; termsDays: number; openCents: number }> }).items;

@@ -1,0 +1,214 @@
+import { and, desc, eq, inArray, isNotNull, sql } from 'drizzle-orm';
+import type { z } from 'zod';
+import type { Db } from '../db/client';
+import { creditNotes, dealerAccounts, dealerMembers, orderEvents, orders, user } from '../db/schema';
+import { invoiceDueDate, invoiceOpenCents, isOpenInvoice, openBalanceCents, type CreditOrder } from '../../shared/credit';
+import type { DealerAccountRowSchema, DealerApplication, DealerDecision, OpenInvoice } from '../../shared/schemas/accounts';
+
+/** What the trade-account flow tells people; mail in the app. */
+export interface DealerNotifier {
+  applied(dealerAccountId: number): void;
+  decided(dealerAccountId: number, decision: DealerDecision['decision']): void;
+}
+
+/**
+ * A request the rules turn down. Routes answer it (404 for not-found, 409 for a conflict), so this service
+ * needs nothing from the HTTP layer.
+ */
+export type Refusal = { refused: 'not-found' | 'conflict'; message: string };
+
+type DealerStatus = (typeof dealerAccounts.$inferSelect)['status'];
+type DealerAccountRow = z.infer<typeof DealerAccountRowSchema>;
+
+/** The database or the transaction a query runs in: better-sqlite3 has one connection, so both see the same data. */
+type Query = Pick<Db, 'select'>;
+
+/** The same expression as the schema's timestamp defaults. */
+const now = sql<string>`strftime('%Y-%m-%dT%H:%M:%fZ','now')`;
+
+/** The order columns the credit rule in shared/credit.ts reads. */
+const creditColumns = {
+  paymentMethod: orders.paymentMethod,
+  paymentState: orders.paymentState,
+  status: orders.status,
+  totalCents: orders.totalCents,
+  refundedCents: orders.refundedCents,
+};
+
+/** A dealer's open balance; order placement calls this inside its transaction to check the credit limit. */
+export function dealerOpenBalance(q: Query, dealerAccountId: number): number {
+  return openBalanceCents(q.select(creditColumns).from(orders).where(eq(orders.dealerAccountId, dealerAccountId)).all());
+}
+
+const refuse = (refused: Refusal['refused'], message: string): Refusal => ({ refused, message });
+
+export function createDealerAccountsService(deps: { db: Db; notify: DealerNotifier }) {
+  const { db, notify } = deps;
+
+  /** Every trade account with its open balance, pending applications first. */
+  function list(): DealerAccountRow[] {
+    const accounts = db
+      .select({
+        id: dealerAccounts.id,
+        companyName: dealerAccounts.companyName,
+        contactName: dealerAccounts.contactName,
+        email: user.email,
+        phone: dealerAccounts.phone,
+        city: dealerAccounts.city,
+        status: dealerAccounts.status,
+        tier: dealerAccounts.tier,
+        creditLimitCents: dealerAccounts.creditLimitCents,
+        paymentTermsDays: dealerAccounts.paymentTermsDays,
+        createdAt: dealerAccounts.createdAt,
+      })
+      .from(dealerAccounts)
+      .innerJoin(dealerMembers, eq(dealerMembers.dealerAccountId, dealerAccounts.id))
+      .innerJoin(user, eq(user.id, dealerMembers.userId))
+      .groupBy(dealerAccounts.id)
+      .orderBy(sql`case ${dealerAccounts.status} when 'pending' then 0 else 1 end`, desc(dealerAccounts.id))
+      .all();
+    const byDealer = new Map<number, CreditOrder[]>();
+    const dealerOrders = db
+      .select({ dealerAccountId: orders.dealerAccountId, ...creditColumns })
+      .from(orders)
+      .where(isNotNull(orders.dealerAccountId))
+      .all();
+    for (const { dealerAccountId, ...order } of dealerOrders) {
+      if (dealerAccountId === null) continue;
+      const held = byDealer.get(dealerAccountId);
+      if (held) held.push(order);
+      else byDealer.set(dealerAccountId, [order]);
+    }
+    return accounts.map((a) => ({ ...a, openBalanceCents: openBalanceCents(byDealer.get(a.id) ?? []) }));
+  }
+
+  function openBalance(dealerAccountId: number): number {
+    return dealerOpenBalance(db, dealerAccountId);
+  }
+
+  /** Open invoices of a dealer, oldest first, with their due dates from the payment terms. */
+  function openInvoices(dealerAccountId: number): OpenInvoice[] | Refusal {
+    const found = db.select({ id: dealerAccounts.id }).from(dealerAccounts).where(eq(dealerAccounts.id, dealerAccountId)).get();
+    if (!found) return refuse('not-found', 'No such dealer account');
+    const open = db
+      .select({
+        id: orders.id,
+        number: orders.number,
+        createdAt: orders.createdAt,
+        purchaseOrder: orders.purchaseOrder,
+        termsDays: orders.paymentTermsDays,
+        ...creditColumns,
+      })
+      .from(orders)
+      .where(eq(orders.dealerAccountId, dealerAccountId))
+      .orderBy(orders.id)
+      .all()
+      .filter(isOpenInvoice);
+    const notes = new Map<number, string[]>();
+    if (open.length > 0) {
+      const rows = db
+        .select({ orderId: creditNotes.orderId, number: creditNotes.number })
+        .from(creditNotes)
+        .where(inArray(creditNotes.orderId, open.map((o) => o.id)))
+        .orderBy(creditNotes.id)
+        .all();
+      for (const n of rows) notes.set(n.orderId, [...(notes.get(n.orderId) ?? []), n.number]);
+    }
+    return open.map((o) => ({
+      number: o.number,
+      createdAt: o.createdAt,
+      purchaseOrder: o.purchaseOrder,
+      totalCents: o.totalCents,
+      creditedCents: o.refundedCents,
+      openCents: invoiceOpenCents(o),
+      termsDays: o.termsDays,
+      dueDate: invoiceDueDate(o.createdAt, o.termsDays),
+      creditNotes: notes.get(o.id)?.join(', ') ?? null,
+    }));
+  }
+
+  /** The office records a dealer's payment of an on-account invoice; it then no longer counts against the limit. */
+  function recordInvoicePaid(dealerAccountId: number, number: string, reference: string): { number: string; paymentState: 'paid' } | Refusal {
+    return db.transaction((tx): { number: string; paymentState: 'paid' } | Refusal => {
+      const order = tx
+        .select({ id: orders.id, paymentState: orders.paymentState })
+        .from(orders)
+        .where(and(eq(orders.number, number), eq(orders.dealerAccountId, dealerAccountId), eq(orders.paymentMethod, 'account')))
+        .get();
+      if (!order) return refuse('not-found', 'No such invoice on this account');
+      if (order.paymentState !== 'on_account') return refuse('conflict', 'This invoice is already paid');
+      tx.update(orders).set({ paymentState: 'paid', updatedAt: now }).where(eq(orders.id, order.id)).run();
+      tx.insert(orderEvents).values({ orderId: order.id, status: 'invoice_paid', note: `Payment received, reference ${reference}` }).run();
+      return { number, paymentState: 'paid' };
+    });
+  }
+
+  /** Approving sets tier, limit and terms and makes the members dealers; an approved account is not declined. */
+  function decide(dealerAccountId: number, input: DealerDecision): { id: number; status: 'approved' | 'declined' } | Refusal {
+    const result = db.transaction((tx): { id: number; status: 'approved' | 'declined' } | Refusal => {
+      const dealer = tx.select({ status: dealerAccounts.status }).from(dealerAccounts).where(eq(dealerAccounts.id, dealerAccountId)).get();
+      if (!dealer) return refuse('not-found', 'No such dealer account');
+      if (input.decision === 'approve') {
+        tx.update(dealerAccounts)
+          .set({
+            status: 'approved',
+            tier: input.tier,
+            creditLimitCents: input.creditLimitCents,
+            paymentTermsDays: input.paymentTermsDays,
+            declineReason: null,
+            decidedAt: now,
+          })
+          .where(eq(dealerAccounts.id, dealerAccountId))
+          .run();
+        const members = tx.select({ userId: dealerMembers.userId }).from(dealerMembers).where(eq(dealerMembers.dealerAccountId, dealerAccountId));
+        tx.update(user)
+          .set({ role: 'dealer' })
+          .where(and(inArray(user.id, members), eq(user.role, 'customer')))
+          .run();
+        return { id: dealerAccountId, status: 'approved' };
+      }
+      if (dealer.status === 'approved') return refuse('conflict', 'An approved account is not declined; change its terms instead');
+      tx.update(dealerAccounts).set({ status: 'declined', declineReason: input.reason, decidedAt: now }).where(eq(dealerAccounts.id, dealerAccountId)).run();
+      return { id: dealerAccountId, status: 'declined' };
+    });
+    if (!('refused' in result)) notify.decided(dealerAccountId, input.decision);
+    return result;
+  }
+
+  /** Why this user may not apply for a trade account, or null when they may. */
+  function applicationRefusal(applicant: { role: string; dealer: { status: DealerStatus } | null }): Refusal | null {
+    if (applicant.role !== 'customer') return refuse('conflict', 'This account cannot apply for a trade account');
+    if (applicant.dealer) return refuse('conflict', applicant.dealer.status === 'pending' ? 'Your application is already with us' : 'You already have a trade account');
+    return null;
+  }
+
+  /** A customer applies: the account is made pending with them as its member, and the office is told. */
+  function apply(applicant: { id: string; role: string; dealer: { status: DealerStatus } | null }, input: DealerApplication): { id: number; status: 'pending' } | Refusal {
+    const refusal = applicationRefusal(applicant);
+    if (refusal) return refusal;
+    const id = db.transaction((tx) => {
+      const row = tx
+        .insert(dealerAccounts)
+        .values({
+          companyName: input.companyName,
+          contactName: input.contactName,
+          phone: input.phone,
+          taxNumber: input.taxNumber ?? null,
+          addressLine1: input.addressLine1,
+          city: input.city,
+          postcode: input.postcode,
+          deliveryZone: input.deliveryZone,
+        })
+        .returning({ id: dealerAccounts.id })
+        .get();
+      tx.insert(dealerMembers).values({ userId: applicant.id, dealerAccountId: row.id }).run();
+      return row.id;
+    });
+    notify.applied(id);
+    return { id, status: 'pending' };
+  }
+
+  return { list, openBalance, openInvoices, recordInvoicePaid, decide, applicationRefusal, apply };
+}
+
+export type DealerAccountsService = ReturnType<typeof createDealerAccountsService>;

@@ -1,0 +1,218 @@
+import { eq, sql } from 'drizzle-orm';
+import type { Db } from '../../db/client';
+import { cartLines, dealerAccounts, orderEvents, orderLines, orders, parts, savedFitments } from '../../db/schema';
+import { HttpError } from '../../middleware/errors';
+import type { CurrentUser } from '../../middleware/session';
+import { checkCredit } from '../../../shared/credit';
+import { DELIVERY_ZONE_KEYS, priceOrder, type DeliveryZone } from '../../../shared/pricing';
+import type { Checkout, OrderStatus } from '../../../shared/schemas/orders';
+import { buyerOf, type CartOwner, type CartService } from '../cart';
+import { dealerOpenBalance } from '../dealer-accounts';
+import type { StockService } from '../stock';
+import { findOrder, type Query } from './order-reads';
+
+type PaymentState = (typeof orders.$inferSelect)['paymentState'];
+
+/** The same expression as the schema's timestamp defaults. */
+const now = sql<string>`strftime('%Y-%m-%dT%H:%M:%fZ','now')`;
+
+export function setOrderState(q: Query, orderId: number, status: OrderStatus, paymentState: PaymentState) {
+  q.update(orders).set({ status, paymentState, updatedAt: now }).where(eq(orders.id, orderId)).run();
+}
+
+export function addOrderEvent(q: Query, orderId: number, status: string, note: string | null) {
+  q.insert(orderEvents).values({ orderId, status, note }).run();
+}
+
+const isDeliveryZone = (zone: string | undefined): zone is DeliveryZone => DELIVERY_ZONE_KEYS.some((k) => k === zone);
+
+export interface OrderPlacementDeps {
+  db: Db;
+  stock: StockService;
+  cart: CartService;
+  taxRatePct: number;
+}
+
+export function createOrderPlacement(deps: OrderPlacementDeps) {
+  const { db, stock, cart } = deps;
+
+  function cartLinesOf(q: Query, cartId: number) {
+    return q
+      .select({
+        lineId: cartLines.id,
+        partId: parts.id,
+        partNumber: parts.partNumber,
+        title: parts.title,
+        status: parts.status,
+        quantity: cartLines.quantity,
+        allowBackorder: cartLines.allowBackorder,
+        priceCents: parts.priceCents,
+        coreDepositCents: parts.coreDepositCents,
+        weightGrams: parts.weightGrams,
+        fitmentId: cartLines.fitmentId,
+        fitmentName: savedFitments.name,
+        fitmentSummary: savedFitments.summary,
+      })
+      .from(cartLines)
+      .innerJoin(parts, eq(parts.id, cartLines.partId))
+      .leftJoin(savedFitments, eq(savedFitments.id, cartLines.fitmentId))
+      .where(eq(cartLines.cartId, cartId))
+      .orderBy(cartLines.id)
+      .all();
+  }
+
+  function dealerAddress(q: Query, dealerId: number | null) {
+    if (!dealerId) return null;
+    const found = q
+      .select({ name: dealerAccounts.companyName, line1: dealerAccounts.addressLine1, city: dealerAccounts.city, postcode: dealerAccounts.postcode })
+      .from(dealerAccounts)
+      .where(eq(dealerAccounts.id, dealerId))
+      .get();
+    return found ?? null;
+  }
+
+  /** Places the order in one immediate transaction: stock is checked and reserved, so a last unit is sold once. */
+  const placeOrder = (user: CurrentUser, cartId: number, input: Checkout) =>
+    db.transaction(
+      (tx) => {
+        const lines = cartLinesOf(tx, cartId);
+        if (lines.length === 0) throw new HttpError(409, 'Your cart is empty');
+        const buyer = buyerOf(user);
+        const dealer = buyer.kind === 'dealer' ? user.dealer : null;
+        if (input.method === 'account' && !dealer) throw new HttpError(403, 'Ordering on account needs an approved trade account');
+
+        const backorders = new Map<number, number>();
+        for (const l of lines) {
+          const available = Math.max(0, stock.available(l.partId));
+          if (l.quantity <= available) continue;
+          const short = l.quantity - available;
+          if (dealer && l.allowBackorder && l.status !== 'discontinued') {
+            backorders.set(l.lineId, short);
+          } else {
+            throw new HttpError(
+              409,
+              available === 0
+                ? `${l.partNumber} is out of stock${dealer ? ': remove it or allow a back-order' : ''}`
+                : `Only ${available} of ${l.partNumber} available${dealer ? ': lower the quantity or allow a back-order for the rest' : ': lower the quantity'}`,
+            );
+          }
+        }
+
+        const dealerZone = dealer?.deliveryZone;
+        const zone: DeliveryZone = input.delivery?.zone ?? (isDeliveryZone(dealerZone) ? dealerZone : 'national');
+        const totals = priceOrder(
+          lines.map((l) => ({ partNumber: l.partNumber, quantity: l.quantity, retailUnitCents: l.priceCents, coreDepositCents: l.coreDepositCents, weightGrams: l.weightGrams })),
+          buyer,
+          zone,
+          deps.taxRatePct,
+        );
+
+        if (input.method === 'account' && dealer) {
+          const credit = checkCredit({ openBalanceCents: dealerOpenBalance(tx, dealer.id), orderCents: totals.totalCents, creditLimitCents: dealer.creditLimitCents });
+          if (!credit.fits) throw new HttpError(409, credit.message);
+        }
+
+        const delivery = input.delivery ?? dealerAddress(tx, dealer?.id ?? null);
+        if (!delivery) throw new HttpError(400, 'A delivery address is needed', { delivery: ['enter a delivery address'] });
+        const next = tx
+          .select({ id: sql<number>`coalesce(max(${orders.id}), 0) + 1` })
+          .from(orders)
+          .get();
+        const number = `SY-${100000 + (next?.id ?? 1)}`;
+        const status: OrderStatus = input.method === 'account' ? 'on_account' : 'pending_payment';
+        const { id: orderId } = tx
+          .insert(orders)
+          .values({
+            number,
+            userId: user.id,
+            dealerAccountId: dealer?.id ?? null,
+            status,
+            paymentMethod: input.method,
+            paymentState: input.method === 'account' ? 'on_account' : 'awaiting',
+            purchaseOrder: input.method === 'account' ? input.purchaseOrder : null,
+            paymentTermsDays: dealer && input.method === 'account' ? dealer.paymentTermsDays : null,
+            goodsCents: totals.goodsCents,
+            discountCents: totals.discountCents,
+            coreDepositCents: totals.coreDepositCents,
+            freightCents: totals.freightCents,
+            taxCents: totals.taxCents,
+            totalCents: totals.totalCents,
+            weightGrams: totals.weightGrams,
+            deliveryZone: zone,
+            shipName: delivery.name,
+            shipLine1: delivery.line1,
+            shipCity: delivery.city,
+            shipPostcode: delivery.postcode,
+            email: user.email,
+          })
+          .returning({ id: orders.id })
+          .get();
+        tx.insert(orderLines)
+          .values(
+            lines.map((l, i) => ({
+              orderId,
+              partId: l.partId,
+              partNumber: l.partNumber,
+              title: l.title,
+              quantity: l.quantity,
+              quantityBackordered: backorders.get(l.lineId) ?? 0,
+              unitPriceCents: totals.lines[i]!.unitCents,
+              retailUnitPriceCents: l.priceCents,
+              coreDepositCents: l.coreDepositCents,
+              weightGrams: l.weightGrams,
+              fitmentId: l.fitmentId,
+              fitmentSummary: l.fitmentId ? `${l.fitmentName ?? 'Saved check'}: ${l.fitmentSummary ?? ''}`.trim() : null,
+            })),
+          )
+          .run();
+        for (const l of lines) {
+          const wanted = l.quantity - (backorders.get(l.lineId) ?? 0);
+          if (stock.reserve(l.partId, wanted, orderId) !== wanted) throw new Error(`Reservation mismatch on ${l.partNumber}`);
+        }
+        addOrderEvent(tx, orderId, 'placed', input.method === 'account' ? `Purchase order ${input.purchaseOrder}` : null);
+        if (input.method === 'account' && dealer) addOrderEvent(tx, orderId, 'on_account', `Payment terms ${dealer.paymentTermsDays} days`);
+        if (backorders.size > 0) addOrderEvent(tx, orderId, 'back_ordered', `${[...backorders.values()].reduce((a, b) => a + b, 0)} units wait for stock`);
+        tx.delete(cartLines).where(eq(cartLines.cartId, cartId)).run();
+        return { orderId, number, status, totalCents: totals.totalCents, backordered: backorders.size > 0 };
+      },
+      { behavior: 'immediate' },
+    );
+
+  /** The buyer's cart becomes an order; an empty or missing cart is refused before anything is written. */
+  function placeFromCart(user: CurrentUser, owner: CartOwner, input: Checkout) {
+    const cartId = cart.cartId(owner, false);
+    if (!cartId) throw new HttpError(409, 'Your cart is empty');
+    return placeOrder(user, cartId, input);
+  }
+
+  /** A card order that will not be paid: stock goes back, the lines go back into the cart, the order is cancelled. */
+  const cancelUnpaid = (orderId: number, note: string) =>
+    db.transaction((tx) => {
+      const order = findOrder(tx, eq(orders.id, orderId));
+      if (!order || order.status !== 'pending_payment') return false;
+      const restoreTo = cart.cartId({ userId: order.userId }, true)!;
+      // The lines go back as they were: quantity, the fitment check they were bought for, and the back-order tick
+      // (a line that went on back-order had it ticked; the saved check is only kept if it still exists).
+      const lines = tx
+        .select({ partId: orderLines.partId, quantity: orderLines.quantity, backordered: orderLines.quantityBackordered, fitmentId: savedFitments.id })
+        .from(orderLines)
+        .leftJoin(savedFitments, eq(savedFitments.id, orderLines.fitmentId))
+        .where(eq(orderLines.orderId, orderId))
+        .orderBy(orderLines.id)
+        .all();
+      for (const l of lines) {
+        stock.release(orderId, l.partId, Infinity, 'payment not completed');
+        tx.insert(cartLines)
+          .values({ cartId: restoreTo, partId: l.partId, quantity: l.quantity, fitmentId: l.fitmentId, allowBackorder: l.backordered > 0 })
+          .onConflictDoNothing({ target: [cartLines.cartId, cartLines.partId] })
+          .run();
+      }
+      setOrderState(tx, orderId, 'cancelled', 'failed');
+      addOrderEvent(tx, orderId, 'cancelled', note);
+      return true;
+    });
+
+  return { placeFromCart, cancelUnpaid };
+}
+
+export type OrderPlacement = ReturnType<typeof createOrderPlacement>;

@@ -1,0 +1,169 @@
+import { count, desc, eq, sql, type SQL } from 'drizzle-orm';
+import type { Db } from '../../db/client';
+import { dealerAccounts, orderEvents, orderLines, orders, parts } from '../../db/schema';
+import { HttpError } from '../../middleware/errors';
+import type { CurrentUser } from '../../middleware/session';
+import type { OrderDetail, OrderSummary } from '../../../shared/schemas/orders';
+import type { CartService } from '../cart';
+
+/** The database or the transaction a query runs in: better-sqlite3 has one connection, so both see the same data. */
+export type Query = Pick<Db, 'select' | 'insert' | 'update'>;
+
+/** What the order flow reads of an order to decide what may happen to it. */
+const headerColumns = {
+  id: orders.id,
+  number: orders.number,
+  userId: orders.userId,
+  status: orders.status,
+  paymentMethod: orders.paymentMethod,
+  paymentState: orders.paymentState,
+  paymentIntentId: orders.paymentIntentId,
+  totalCents: orders.totalCents,
+  refundedCents: orders.refundedCents,
+};
+
+/** One order's header by id, number or payment intent; the other modules of the order flow share it. */
+export function findOrder(q: Query, where: SQL) {
+  return q.select(headerColumns).from(orders).where(where).get();
+}
+
+export type OrderHeader = NonNullable<ReturnType<typeof findOrder>>;
+
+export function createOrderReads(deps: { db: Db; cart: CartService }) {
+  const { db, cart } = deps;
+
+  /** A signed-in user's own order; someone else's answers 404 exactly like a missing one. */
+  function ownOrder(user: CurrentUser, number: string): OrderHeader {
+    const order = findOrder(db, eq(orders.number, number));
+    const allowed = order && (order.userId === user.id || user.role === 'admin' || user.role === 'warehouse');
+    if (!order || !allowed) throw new HttpError(404, `No order ${number}`);
+    return order;
+  }
+
+  function listOrders(user: CurrentUser): OrderSummary[] {
+    return db
+      .select({
+        number: orders.number,
+        status: orders.status,
+        paymentMethod: orders.paymentMethod,
+        paymentState: orders.paymentState,
+        purchaseOrder: orders.purchaseOrder,
+        totalCents: orders.totalCents,
+        createdAt: orders.createdAt,
+        lineCount: count(orderLines.id),
+        hasBackorder: sql<boolean>`max(${orderLines.quantityBackordered} > 0)`.mapWith((v: number) => v === 1),
+      })
+      .from(orders)
+      .innerJoin(orderLines, eq(orderLines.orderId, orders.id))
+      .where(eq(orders.userId, user.id))
+      .groupBy(orders.id)
+      .orderBy(desc(orders.id))
+      .limit(200)
+      .all();
+  }
+
+  function orderDetail(user: CurrentUser, number: string): OrderDetail {
+    const { id } = ownOrder(user, number);
+    const found = db
+      .select({ order: orders, companyName: dealerAccounts.companyName })
+      .from(orders)
+      .leftJoin(dealerAccounts, eq(dealerAccounts.id, orders.dealerAccountId))
+      .where(eq(orders.id, id))
+      .get();
+    if (!found) throw new HttpError(404, `No order ${number}`);
+    const { order: o, companyName } = found;
+    const lines = db
+      .select({
+        id: orderLines.id,
+        partNumber: orderLines.partNumber,
+        title: orderLines.title,
+        quantity: orderLines.quantity,
+        quantityBackordered: orderLines.quantityBackordered,
+        quantityPicked: orderLines.quantityPicked,
+        unitPriceCents: orderLines.unitPriceCents,
+        coreDepositCents: orderLines.coreDepositCents,
+        lineCents: sql<number>`${orderLines.unitPriceCents} * ${orderLines.quantity}`,
+        fitmentSummary: orderLines.fitmentSummary,
+        category: parts.category,
+        condition: parts.condition,
+      })
+      .from(orderLines)
+      .innerJoin(parts, eq(parts.id, orderLines.partId))
+      .where(eq(orderLines.orderId, id))
+      .orderBy(orderLines.id)
+      .all();
+    const timeline = db
+      .select({ status: orderEvents.status, note: orderEvents.note, at: orderEvents.createdAt })
+      .from(orderEvents)
+      .where(eq(orderEvents.orderId, id))
+      .orderBy(orderEvents.id)
+      .all();
+    return {
+      number: o.number,
+      status: o.status,
+      paymentMethod: o.paymentMethod,
+      paymentState: o.paymentState,
+      purchaseOrder: o.purchaseOrder,
+      totalCents: o.totalCents,
+      createdAt: o.createdAt,
+      lineCount: lines.length,
+      hasBackorder: lines.some((l) => l.quantityBackordered > 0),
+      email: o.email,
+      paymentTermsDays: o.paymentTermsDays,
+      lines,
+      totals: {
+        goodsCents: o.goodsCents,
+        discountCents: o.discountCents,
+        coreDepositCents: o.coreDepositCents,
+        freightCents: o.freightCents,
+        taxCents: o.taxCents,
+        totalCents: o.totalCents,
+        weightGrams: o.weightGrams,
+        refundedCents: o.refundedCents,
+      },
+      delivery: { name: o.shipName, line1: o.shipLine1, city: o.shipCity, postcode: o.shipPostcode, zone: o.deliveryZone },
+      dispatch: { carrier: o.carrier, trackingNumber: o.trackingNumber, cartons: o.cartons },
+      timeline,
+      dealer: companyName ? { companyName } : null,
+    };
+  }
+
+  /** Rebuilds the cart from a past order; superseded parts are replaced by what supersedes them, with a notice. */
+  function reorder(user: CurrentUser, number: string) {
+    const { id } = ownOrder(user, number);
+    const lines = db
+      .select({ partNumber: orderLines.partNumber, quantity: orderLines.quantity })
+      .from(orderLines)
+      .where(eq(orderLines.orderId, id))
+      .orderBy(orderLines.id)
+      .all();
+    const notices: string[] = [];
+    const addable: Array<{ partNumber: string; quantity: number }> = [];
+    for (const l of lines) {
+      const resolved = cart.resolvePart(l.partNumber);
+      if (!resolved) {
+        notices.push(`${l.partNumber} is no longer in the catalogue and was left out.`);
+        continue;
+      }
+      if (resolved.part.status === 'discontinued' && resolved.part.available <= 0) {
+        notices.push(`${resolved.part.partNumber} is discontinued and out of stock, so it was left out.`);
+        continue;
+      }
+      // The line is added under its new number, so addLines cannot see the supersession: say so here.
+      if (resolved.replacedFrom) notices.push(`${l.partNumber} is superseded: ${resolved.part.partNumber} was added instead.`);
+      addable.push({ partNumber: resolved.part.partNumber, quantity: l.quantity });
+    }
+    const view = addable.length ? cart.addLines({ userId: user.id }, user, addable) : cart.view({ userId: user.id }, user);
+    return { added: addable.length, notices: [...view.notices, ...notices] };
+  }
+
+  function orderForIntent(user: CurrentUser, intentId: string): OrderHeader {
+    const order = findOrder(db, eq(orders.paymentIntentId, intentId));
+    if (!order || order.userId !== user.id) throw new HttpError(404, 'No such payment');
+    return order;
+  }
+
+  return { ownOrder, listOrders, orderDetail, reorder, orderForIntent };
+}
+
+export type OrderReads = ReturnType<typeof createOrderReads>;
