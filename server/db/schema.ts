@@ -1,5 +1,6 @@
 import { sql } from 'drizzle-orm';
 import { CATEGORIES } from '../../shared/catalog';
+import { CONDITION_GRADE_KEYS } from '../../shared/schemas/warehouse';
 import { index, integer, primaryKey, real, sqliteTable, text, uniqueIndex } from 'drizzle-orm/sqlite-core';
 
 /** The order the shop lists categories in; the same expression sorts the catalogue and backs an index. */
@@ -393,7 +394,7 @@ export const returns = sqliteTable(
     quantity: integer('quantity').notNull(),
     reason: text('reason').notNull(),
     status: text('status', { enum: ['requested', 'refunded', 'credited', 'rejected'] }).notNull().default('requested'),
-    conditionGrade: text('condition_grade'),
+    conditionGrade: text('condition_grade', { enum: CONDITION_GRADE_KEYS }),
     decision: text('decision'),
     refundCents: integer('refund_cents').notNull().default(0),
     rejectReason: text('reject_reason'),

@@ -1,5 +1,6 @@
 import { Router } from 'express';
 import type { Db } from '../db/client';
+import { bins } from '../db/schema';
 import { AdjustmentSchema, DispatchSchema, GoodsInSchema, PackSchema, PickSchema, ReturnDecisionSchema } from '../../shared/schemas/warehouse';
 import { HttpError, parseOr400 } from '../middleware/errors';
 import { requireRole } from '../middleware/session';
@@ -54,7 +55,7 @@ export function warehouseRouter(deps: { db: Db; warehouse: WarehouseService; ret
     res.json(warehouse.stockDetail(String(req.params.partNumber).slice(0, 40)));
   });
   router.get('/bins', (_req, res) => {
-    res.json({ items: deps.db.$client.prepare('SELECT code, zone, walk_order AS walkOrder FROM bins ORDER BY walk_order').all() });
+    res.json({ items: deps.db.select({ code: bins.code, zone: bins.zone, walkOrder: bins.walkOrder }).from(bins).orderBy(bins.walkOrder).all() });
   });
   router.get('/returns', (req, res) => {
     res.json({ items: returns.listAll(req.query.status === 'all' ? 'all' : 'requested') });

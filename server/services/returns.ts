@@ -1,7 +1,9 @@
 import fs from 'node:fs';
 import path from 'node:path';
 import type Stripe from 'stripe';
+import { and, desc, eq, ne, sql, type SQL } from 'drizzle-orm';
 import type { Db } from '../db/client';
+import { creditNotes, orderEvents, orderLines, orders, parts, returnPhotos, returns } from '../db/schema';
 import { HttpError } from '../middleware/errors';
 import type { CurrentUser } from '../middleware/session';
 import type { ReturnDecision, ReturnRequest, ReturnView } from '../../shared/schemas/warehouse';
@@ -12,50 +14,57 @@ export interface ReturnsNotifier {
   returnDecided(returnId: number): void;
 }
 
-interface ReturnRow {
-  id: number;
-  reference: string;
-  orderId: number;
-  orderNumber: string;
-  orderLineId: number;
-  userId: string;
-  partId: number;
-  partNumber: string;
-  title: string;
-  quantity: number;
-  kind: ReturnView['kind'];
-  reason: string;
-  status: ReturnView['status'];
-  conditionGrade: ReturnView['conditionGrade'];
-  decision: string | null;
-  refundCents: number;
-  rejectReason: string | null;
-  creditNoteNumber: string | null;
-  paymentMethod: 'card' | 'account';
-  paymentState: string;
-  paymentIntentId: string | null;
-  dealerAccountId: number | null;
-  orderTotalCents: number;
-  orderRefundedCents: number;
-  unitPriceCents: number;
-  lineCoreDepositCents: number;
-  customer: string;
-  createdAt: string;
-  decidedAt: string | null;
-}
+/** The same expression as the schema's timestamp defaults. */
+const now = sql<string>`strftime('%Y-%m-%dT%H:%M:%fZ','now')`;
 
-const SELECT = `SELECT r.id, r.reference, r.order_id AS orderId, o.number AS orderNumber, r.order_line_id AS orderLineId, r.user_id AS userId, l.part_id AS partId,
-  l.part_number AS partNumber, l.title, r.quantity, r.kind, r.reason, r.status, r.condition_grade AS conditionGrade, r.decision, r.refund_cents AS refundCents,
-  r.reject_reason AS rejectReason, c.number AS creditNoteNumber, o.payment_method AS paymentMethod, o.payment_state AS paymentState,
-  o.payment_intent_id AS paymentIntentId, o.dealer_account_id AS dealerAccountId, o.total_cents AS orderTotalCents, o.refunded_cents AS orderRefundedCents,
-  l.unit_price_cents AS unitPriceCents, l.core_deposit_cents AS lineCoreDepositCents, o.ship_name AS customer, r.created_at AS createdAt, r.decided_at AS decidedAt
-  FROM returns r JOIN orders o ON o.id = r.order_id JOIN order_lines l ON l.id = r.order_line_id LEFT JOIN credit_notes c ON c.return_id = r.id`;
+/** The database or the transaction a query runs in: better-sqlite3 has one connection, so both see the same data. */
+type DbOrTx = Pick<Db, 'select' | 'insert' | 'update'>;
+
+const returnColumns = {
+  id: returns.id,
+  reference: returns.reference,
+  orderId: returns.orderId,
+  orderNumber: orders.number,
+  orderLineId: returns.orderLineId,
+  userId: returns.userId,
+  partId: orderLines.partId,
+  partNumber: orderLines.partNumber,
+  title: orderLines.title,
+  quantity: returns.quantity,
+  kind: returns.kind,
+  reason: returns.reason,
+  status: returns.status,
+  conditionGrade: returns.conditionGrade,
+  decision: returns.decision,
+  refundCents: returns.refundCents,
+  rejectReason: returns.rejectReason,
+  creditNoteNumber: creditNotes.number,
+  paymentMethod: orders.paymentMethod,
+  paymentState: orders.paymentState,
+  paymentIntentId: orders.paymentIntentId,
+  dealerAccountId: orders.dealerAccountId,
+  orderTotalCents: orders.totalCents,
+  orderRefundedCents: orders.refundedCents,
+  unitPriceCents: orderLines.unitPriceCents,
+  lineCoreDepositCents: orderLines.coreDepositCents,
+  customer: orders.shipName,
+  createdAt: returns.createdAt,
+  decidedAt: returns.decidedAt,
+};
+
+function returnRows(q: DbOrTx, where: SQL | undefined) {
+  return q
+    .select(returnColumns)
+    .from(returns)
+    .innerJoin(orders, eq(orders.id, returns.orderId))
+    .innerJoin(orderLines, eq(orderLines.id, returns.orderLineId))
+    .leftJoin(creditNotes, eq(creditNotes.returnId, returns.id))
+    .where(where);
+}
+type ReturnRow = NonNullable<ReturnType<ReturnType<typeof returnRows>['get']>>;
 
 export function createReturnsService(deps: { db: Db; stock: StockService; payments: Stripe; notify: ReturnsNotifier; photosDir: string; taxRatePct: number }) {
   const { db, stock, payments } = deps;
-  const sqlite = db.$client;
-  const byId = sqlite.prepare(`${SELECT} WHERE r.id = ?`);
-  const photosOf = sqlite.prepare('SELECT stored_name AS name FROM return_photos WHERE return_id = ? ORDER BY id').pluck();
 
   /** The most a return can refund: the line's value with tax and deposit, capped by what is left of the payment. */
   function limits(r: ReturnRow) {
@@ -65,6 +74,15 @@ export function createReturnsService(deps: { db: Db; stock: StockService; paymen
     const left = Math.max(0, paid - r.orderRefundedCents);
     return { full: Math.min(lineValue, left), core: Math.min(r.quantity * r.lineCoreDepositCents, left), max: Math.min(lineValue, left) };
   }
+
+  const photosOf = (returnId: number) =>
+    db
+      .select({ name: returnPhotos.storedName })
+      .from(returnPhotos)
+      .where(eq(returnPhotos.returnId, returnId))
+      .orderBy(returnPhotos.id)
+      .all()
+      .map((p) => p.name);
 
   function view(r: ReturnRow): ReturnView {
     const l = limits(r);
@@ -86,86 +104,121 @@ export function createReturnsService(deps: { db: Db; stock: StockService; paymen
       paymentMethod: r.paymentMethod,
       maxRefundCents: r.status === 'requested' ? l.max : 0,
       coreDepositCents: r.quantity * r.lineCoreDepositCents,
-      photos: photosOf.all(r.id) as string[],
+      photos: photosOf(r.id),
       customer: r.customer,
       createdAt: r.createdAt,
       decidedAt: r.decidedAt,
     };
   }
 
-  const get = (id: number) => {
-    const r = byId.get(id) as ReturnRow | undefined;
+  const get = (q: DbOrTx, id: number) => {
+    const r = returnRows(q, eq(returns.id, id)).get();
     if (!r) throw new HttpError(404, 'No such return');
     return r;
   };
 
-  const create = sqlite.transaction((user: CurrentUser, input: ReturnRequest, photos: StoredImage[]) => {
-    const line = sqlite
-      .prepare(
-        `SELECT l.id, l.quantity_dispatched AS dispatched, p.condition, o.id AS orderId, o.user_id AS userId, o.status
-         FROM order_lines l JOIN orders o ON o.id = l.order_id JOIN parts p ON p.id = l.part_id WHERE l.id = ? AND o.number = ?`,
-      )
-      .get(input.lineId, input.orderNumber) as { id: number; dispatched: number; condition: string; orderId: number; userId: string; status: string } | undefined;
-    if (!line || line.userId !== user.id) throw new HttpError(404, `No such line on order ${input.orderNumber}`);
-    if (input.kind === 'core' && line.condition !== 'exchange') throw new HttpError(409, 'Only exchange units come back as cores');
-    const already = sqlite.prepare("SELECT COALESCE(SUM(quantity), 0) FROM returns WHERE order_line_id = ? AND status <> 'rejected'").pluck().get(line.id) as number;
-    const left = line.dispatched - already;
-    if (left <= 0) throw new HttpError(409, line.dispatched === 0 ? 'This line has not been dispatched yet' : 'Everything on this line is already being returned');
-    if (input.quantity > left) throw new HttpError(409, `At most ${left} of this line can come back`);
-    const id = (sqlite.prepare('SELECT COALESCE(MAX(id), 0) + 1 FROM returns').pluck().get() as number);
-    sqlite
-      .prepare('INSERT INTO returns (id, reference, order_id, order_line_id, user_id, kind, quantity, reason) VALUES (?, ?, ?, ?, ?, ?, ?, ?)')
-      .run(id, `RT-${String(5000 + id)}`, line.orderId, line.id, user.id, input.kind, input.quantity, input.reason);
-    for (const p of photos) sqlite.prepare('INSERT INTO return_photos (return_id, stored_name, mime_type, bytes) VALUES (?, ?, ?, ?)').run(id, p.storedName, p.mimeType, p.bytes);
-    sqlite.prepare('INSERT INTO order_events (order_id, status, note) VALUES (?, ?, ?)').run(line.orderId, 'return_requested', `RT-${5000 + id}: ${input.quantity} × ${input.kind}`);
-    return id;
-  });
+  const create = (user: CurrentUser, input: ReturnRequest, photos: StoredImage[]) =>
+    db.transaction((tx) => {
+      const line = tx
+        .select({ id: orderLines.id, dispatched: orderLines.quantityDispatched, condition: parts.condition, orderId: orders.id, userId: orders.userId })
+        .from(orderLines)
+        .innerJoin(orders, eq(orders.id, orderLines.orderId))
+        .innerJoin(parts, eq(parts.id, orderLines.partId))
+        .where(and(eq(orderLines.id, input.lineId), eq(orders.number, input.orderNumber)))
+        .get();
+      if (!line || line.userId !== user.id) throw new HttpError(404, `No such line on order ${input.orderNumber}`);
+      if (input.kind === 'core' && line.condition !== 'exchange') throw new HttpError(409, 'Only exchange units come back as cores');
+      const already = tx
+        .select({ n: sql<number>`coalesce(sum(${returns.quantity}), 0)` })
+        .from(returns)
+        .where(and(eq(returns.orderLineId, line.id), ne(returns.status, 'rejected')))
+        .get();
+      const left = line.dispatched - (already?.n ?? 0);
+      if (left <= 0) throw new HttpError(409, line.dispatched === 0 ? 'This line has not been dispatched yet' : 'Everything on this line is already being returned');
+      if (input.quantity > left) throw new HttpError(409, `At most ${left} of this line can come back`);
+      const id = tx.select({ next: sql<number>`coalesce(max(${returns.id}), 0) + 1` }).from(returns).get()?.next ?? 1;
+      tx.insert(returns)
+        .values({ id, reference: `RT-${String(5000 + id)}`, orderId: line.orderId, orderLineId: line.id, userId: user.id, kind: input.kind, quantity: input.quantity, reason: input.reason })
+        .run();
+      if (photos.length > 0) {
+        tx.insert(returnPhotos)
+          .values(photos.map((p) => ({ returnId: id, storedName: p.storedName, mimeType: p.mimeType, bytes: p.bytes })))
+          .run();
+      }
+      tx.insert(orderEvents)
+        .values({ orderId: line.orderId, status: 'return_requested', note: `RT-${5000 + id}: ${input.quantity} × ${input.kind}` })
+        .run();
+      return id;
+    });
 
   function request(user: CurrentUser, input: ReturnRequest, photos: StoredImage[]) {
     try {
-      return view(get(create(user, input, photos)));
+      return view(get(db, create(user, input, photos)));
     } catch (err) {
       for (const p of photos) fs.rmSync(path.join(deps.photosDir, p.storedName), { force: true });
       throw err;
     }
   }
 
-  const record = sqlite.transaction((id: number, d: ReturnDecision, amount: number, refundId: string | null) => {
-    const r = get(id);
-    if (r.status !== 'requested') throw new HttpError(409, `${r.reference} was already decided`);
-    let status: ReturnView['status'] = 'rejected';
-    if (d.decision !== 'reject') {
-      if (r.paymentMethod === 'card') {
-        status = 'refunded';
-      } else {
-        status = 'credited';
-        const n = (sqlite.prepare('SELECT COALESCE(MAX(id), 0) + 1 FROM credit_notes').pluck().get() as number);
-        sqlite.prepare('INSERT INTO credit_notes (number, dealer_account_id, order_id, return_id, amount_cents) VALUES (?, ?, ?, ?, ?)').run(`CN-${7000 + n}`, r.dealerAccountId, r.orderId, r.id, amount);
+  const record = (id: number, d: ReturnDecision, amount: number, refundId: string | null) =>
+    db.transaction((tx) => {
+      const r = get(tx, id);
+      if (r.status !== 'requested') throw new HttpError(409, `${r.reference} was already decided`);
+      let status: ReturnView['status'] = 'rejected';
+      if (d.decision !== 'reject') {
+        if (r.paymentMethod === 'card') {
+          status = 'refunded';
+        } else {
+          status = 'credited';
+          if (r.dealerAccountId === null) throw new Error(`${r.reference} is on an account order without a dealer account`);
+          const n = tx.select({ next: sql<number>`coalesce(max(${creditNotes.id}), 0) + 1` }).from(creditNotes).get()?.next ?? 1;
+          tx.insert(creditNotes).values({ number: `CN-${7000 + n}`, dealerAccountId: r.dealerAccountId, orderId: r.orderId, returnId: r.id, amountCents: amount }).run();
+        }
+        tx.update(orders)
+          .set({ refundedCents: sql`${orders.refundedCents} + ${amount}` })
+          .where(eq(orders.id, r.orderId))
+          .run();
+        if (r.paymentMethod === 'card') {
+          tx.update(orders)
+            .set({ paymentState: sql`case when ${orders.refundedCents} >= ${orders.totalCents} then 'refunded' else 'partially_refunded' end` })
+            .where(eq(orders.id, r.orderId))
+            .run();
+        }
+        if (d.decision === 'full-refund' && d.restock && d.conditionGrade === 'as-new') {
+          const bin = stock.defaultBin(r.partId) ?? 'A-01-1';
+          stock.returnIn(r.partId, bin, r.quantity, r.orderId, `${r.reference} back to stock`);
+        }
       }
-      sqlite.prepare('UPDATE orders SET refunded_cents = refunded_cents + ? WHERE id = ?').run(amount, r.orderId);
-      if (r.paymentMethod === 'card') {
-        sqlite.prepare("UPDATE orders SET payment_state = CASE WHEN refunded_cents >= total_cents THEN 'refunded' ELSE 'partially_refunded' END WHERE id = ?").run(r.orderId);
-      }
-      if (d.decision === 'full-refund' && d.restock && d.conditionGrade === 'as-new') {
-        const bin = stock.defaultBin(r.partId) ?? 'A-01-1';
-        stock.returnIn(r.partId, bin, r.quantity, r.orderId, `${r.reference} back to stock`);
-      }
-    }
-    sqlite
-      .prepare("UPDATE returns SET status = ?, condition_grade = ?, decision = ?, refund_cents = ?, reject_reason = ?, payment_refund_id = ?, decided_at = strftime('%Y-%m-%dT%H:%M:%fZ','now') WHERE id = ?")
-      .run(status, d.conditionGrade, d.decision, amount, d.decision === 'reject' ? d.rejectReason : null, refundId, id);
-    const note = d.decision === 'reject' ? `${r.reference} rejected` : `${r.reference}: ${status === 'credited' ? 'credit note' : 'refund'} of $${(amount / 100).toFixed(2)}`;
-    sqlite.prepare('INSERT INTO order_events (order_id, status, note) VALUES (?, ?, ?)').run(r.orderId, d.decision === 'reject' ? 'return_rejected' : 'returned', note);
-    const fully = sqlite.prepare('SELECT refunded_cents >= total_cents FROM orders WHERE id = ?').pluck().get(r.orderId) as number;
-    if (fully) sqlite.prepare("UPDATE orders SET status = 'returned' WHERE id = ?").run(r.orderId);
-  });
+      tx.update(returns)
+        .set({
+          status,
+          conditionGrade: d.conditionGrade,
+          decision: d.decision,
+          refundCents: amount,
+          rejectReason: d.decision === 'reject' ? d.rejectReason : null,
+          paymentRefundId: refundId,
+          decidedAt: now,
+        })
+        .where(eq(returns.id, id))
+        .run();
+      const note = d.decision === 'reject' ? `${r.reference} rejected` : `${r.reference}: ${status === 'credited' ? 'credit note' : 'refund'} of $${(amount / 100).toFixed(2)}`;
+      tx.insert(orderEvents)
+        .values({ orderId: r.orderId, status: d.decision === 'reject' ? 'return_rejected' : 'returned', note })
+        .run();
+      const paidBack = tx
+        .select({ fully: sql<number>`${orders.refundedCents} >= ${orders.totalCents}` })
+        .from(orders)
+        .where(eq(orders.id, r.orderId))
+        .get();
+      if (paidBack?.fully) tx.update(orders).set({ status: 'returned' }).where(eq(orders.id, r.orderId)).run();
+    });
 
   /**
    * Grades a received return and settles it. Card refunds go through the payment service with an idempotency key
    * per return, so a repeated request refunds once; the amount never exceeds what is left of the payment.
    */
   async function decide(id: number, d: ReturnDecision): Promise<ReturnView> {
-    const r = get(id);
+    const r = get(db, id);
     if (r.status !== 'requested') throw new HttpError(409, `${r.reference} was already decided`);
     const l = limits(r);
     let amount = 0;
@@ -194,22 +247,29 @@ export function createReturnsService(deps: { db: Db; stock: StockService; paymen
     }
     record(id, d, amount, refundId);
     deps.notify.returnDecided(id);
-    return view(get(id));
+    return view(get(db, id));
   }
 
   function listOwn(user: CurrentUser) {
-    return (sqlite.prepare(`${SELECT} WHERE r.user_id = ? ORDER BY r.id DESC`).all(user.id) as ReturnRow[]).map(view);
+    return returnRows(db, eq(returns.userId, user.id)).orderBy(desc(returns.id)).all().map(view);
   }
   function listAll(status: 'requested' | 'all') {
-    const where = status === 'requested' ? "WHERE r.status = 'requested'" : '';
-    return (sqlite.prepare(`${SELECT} ${where} ORDER BY r.status <> 'requested', r.id`).all() as ReturnRow[]).map(view);
+    return returnRows(db, status === 'requested' ? eq(returns.status, 'requested') : undefined)
+      .orderBy(ne(returns.status, 'requested'), returns.id)
+      .all()
+      .map(view);
   }
   function photoAllowed(user: CurrentUser, storedName: string) {
-    const owner = sqlite.prepare('SELECT r.user_id FROM return_photos p JOIN returns r ON r.id = p.return_id WHERE p.stored_name = ?').pluck().get(storedName) as string | undefined;
+    const owner = db
+      .select({ userId: returns.userId })
+      .from(returnPhotos)
+      .innerJoin(returns, eq(returns.id, returnPhotos.returnId))
+      .where(eq(returnPhotos.storedName, storedName))
+      .get()?.userId;
     return owner !== undefined && (owner === user.id || user.role === 'warehouse' || user.role === 'admin');
   }
 
-  return { request, decide, listOwn, listAll, photoAllowed, get: (id: number) => view(get(id)), row: get };
+  return { request, decide, listOwn, listAll, photoAllowed, get: (id: number) => view(get(db, id)), row: (id: number) => get(db, id) };
 }
 
 export type ReturnsService = ReturnType<typeof createReturnsService>;

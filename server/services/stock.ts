@@ -1,6 +1,8 @@
+import { and, eq, gt, sql } from 'drizzle-orm';
 import type { Db } from '../db/client';
+import { bins, parts, stock, stockMovements } from '../db/schema';
 
-export type MovementKind = 'goods-in' | 'reserve' | 'release' | 'pick' | 'dispatch' | 'adjustment' | 'return';
+export type MovementKind = (typeof stockMovements.$inferSelect)['kind'];
 
 /**
  * Stock per part and bin changes only here, and every change writes a ledger row in the same statement group.
@@ -8,51 +10,88 @@ export type MovementKind = 'goods-in' | 'reserve' | 'release' | 'pick' | 'dispat
  * together or not at all.
  */
 export function createStockService(db: Db) {
-  const sqlite = db.$client;
+  const param = { partId: sql.placeholder('partId'), binCode: sql.placeholder('binCode'), orderId: sql.placeholder('orderId') };
+  const free = sql<number>`${stock.onHand} - ${stock.reserved}`;
+  const held = sql<number>`sum(${stockMovements.reservedDelta})`;
+  const thisBin = and(eq(stock.partId, param.partId), eq(stock.binCode, param.binCode));
+
+  // Prepared once: every checkout, payment webhook and dispatch runs these inside its write transaction, which
+  // holds SQLite's single write lock, so building and compiling them per call would cut order throughput.
   const stmt = {
-    available: sqlite.prepare('SELECT available AS n FROM parts WHERE id = ?'),
-    freeBins: sqlite.prepare(
-      `SELECT s.bin_code AS binCode, s.on_hand - s.reserved AS free FROM stock s JOIN bins b ON b.code = s.bin_code
-       WHERE s.part_id = ? AND s.on_hand - s.reserved > 0 ORDER BY b.walk_order`,
-    ),
-    ensureRow: sqlite.prepare('INSERT INTO stock (part_id, bin_code, on_hand, reserved) VALUES (?, ?, 0, 0) ON CONFLICT DO NOTHING'),
-    apply: sqlite.prepare('UPDATE stock SET on_hand = on_hand + ?, reserved = reserved + ? WHERE part_id = ? AND bin_code = ?'),
-    applyPart: sqlite.prepare('UPDATE parts SET available = available + ? WHERE id = ?'),
-    movement: sqlite.prepare(
-      'INSERT INTO stock_movements (part_id, bin_code, kind, on_hand_delta, reserved_delta, order_id, note) VALUES (?, ?, ?, ?, ?, ?, ?)',
-    ),
-    heldForOrder: sqlite.prepare(
-      `SELECT bin_code AS binCode, SUM(reserved_delta) AS held FROM stock_movements
-       WHERE order_id = ? AND part_id = ? GROUP BY bin_code HAVING SUM(reserved_delta) > 0`,
-    ),
-    row: sqlite.prepare('SELECT on_hand AS onHand, reserved FROM stock WHERE part_id = ? AND bin_code = ?'),
-    defaultBin: sqlite.prepare(
-      `SELECT s.bin_code AS binCode FROM stock s JOIN bins b ON b.code = s.bin_code WHERE s.part_id = ? ORDER BY b.walk_order LIMIT 1`,
-    ),
+    available: db.select({ n: parts.available }).from(parts).where(eq(parts.id, param.partId)).prepare(),
+    freeBins: db
+      .select({ binCode: stock.binCode, free })
+      .from(stock)
+      .innerJoin(bins, eq(bins.code, stock.binCode))
+      .where(and(eq(stock.partId, param.partId), gt(free, 0)))
+      .orderBy(bins.walkOrder)
+      .prepare(),
+    ensureRow: db.insert(stock).values({ partId: param.partId, binCode: param.binCode, onHand: 0, reserved: 0 }).onConflictDoNothing().prepare(),
+    apply: db
+      .update(stock)
+      .set({ onHand: sql`${stock.onHand} + ${sql.placeholder('onHandDelta')}`, reserved: sql`${stock.reserved} + ${sql.placeholder('reservedDelta')}` })
+      .where(thisBin)
+      .prepare(),
+    applyPart: db
+      .update(parts)
+      .set({ available: sql`${parts.available} + ${sql.placeholder('delta')}` })
+      .where(eq(parts.id, param.partId))
+      .prepare(),
+    movement: db
+      .insert(stockMovements)
+      .values({
+        partId: param.partId,
+        binCode: param.binCode,
+        kind: sql.placeholder('kind'),
+        onHandDelta: sql.placeholder('onHandDelta'),
+        reservedDelta: sql.placeholder('reservedDelta'),
+        orderId: param.orderId,
+        note: sql.placeholder('note'),
+      })
+      .prepare(),
+    heldForOrder: db
+      .select({ binCode: stockMovements.binCode, held })
+      .from(stockMovements)
+      .where(and(eq(stockMovements.orderId, param.orderId), eq(stockMovements.partId, param.partId)))
+      .groupBy(stockMovements.binCode)
+      .having(gt(held, 0))
+      .prepare(),
+    row: db.select({ onHand: stock.onHand, reserved: stock.reserved }).from(stock).where(thisBin).prepare(),
+    defaultBin: db
+      .select({ binCode: stock.binCode })
+      .from(stock)
+      .innerJoin(bins, eq(bins.code, stock.binCode))
+      .where(eq(stock.partId, param.partId))
+      .orderBy(bins.walkOrder)
+      .limit(1)
+      .prepare(),
   };
 
   function move(partId: number, binCode: string, kind: MovementKind, onHandDelta: number, reservedDelta: number, orderId: number | null, note: string | null) {
-    stmt.ensureRow.run(partId, binCode);
-    const current = stmt.row.get(partId, binCode) as { onHand: number; reserved: number };
+    stmt.ensureRow.run({ partId, binCode });
+    const current = stmt.row.get({ partId, binCode });
+    if (!current) throw new Error(`No stock row for part ${partId} in ${binCode}`);
     const onHand = current.onHand + onHandDelta;
     const reserved = current.reserved + reservedDelta;
     if (onHand < 0 || reserved < 0 || reserved > onHand) {
       throw new Error(`Stock for part ${partId} in ${binCode} would become on hand ${onHand}, reserved ${reserved}`);
     }
-    stmt.apply.run(onHandDelta, reservedDelta, partId, binCode);
-    if (onHandDelta !== reservedDelta) stmt.applyPart.run(onHandDelta - reservedDelta, partId);
-    stmt.movement.run(partId, binCode, kind, onHandDelta, reservedDelta, orderId, note);
+    stmt.apply.run({ onHandDelta, reservedDelta, partId, binCode });
+    if (onHandDelta !== reservedDelta) stmt.applyPart.run({ delta: onHandDelta - reservedDelta, partId });
+    stmt.movement.run({ partId, binCode, kind, onHandDelta, reservedDelta, orderId, note });
   }
 
   return {
     available(partId: number): number {
-      return (stmt.available.get(partId) as { n: number }).n;
+      const part = stmt.available.get({ partId });
+      if (!part) throw new Error(`No part ${partId}`);
+      return part.n;
     },
 
     /** Reserves up to `quantity` from the bins in walk order; answers how many it could reserve. */
     reserve(partId: number, quantity: number, orderId: number): number {
       let left = quantity;
-      for (const bin of stmt.freeBins.all(partId) as Array<{ binCode: string; free: number }>) {
+      for (const bin of stmt.freeBins.all({ partId })) {
         if (left <= 0) break;
         const take = Math.min(left, bin.free);
         move(partId, bin.binCode, 'reserve', 0, take, orderId, null);
@@ -62,14 +101,14 @@ export function createStockService(db: Db) {
     },
 
     /** Stock held for an order line, per bin in walk order. */
-    heldFor(orderId: number, partId: number): Array<{ binCode: string; held: number }> {
-      return stmt.heldForOrder.all(orderId, partId) as Array<{ binCode: string; held: number }>;
+    heldFor(orderId: number, partId: number) {
+      return stmt.heldForOrder.all({ orderId, partId });
     },
 
     /** Gives back what an order holds of a part (all of it, or `quantity`). */
     release(orderId: number, partId: number, quantity = Infinity, note: string | null = null): number {
       let released = 0;
-      for (const bin of stmt.heldForOrder.all(orderId, partId) as Array<{ binCode: string; held: number }>) {
+      for (const bin of stmt.heldForOrder.all({ orderId, partId })) {
         const give = Math.min(quantity - released, bin.held);
         if (give <= 0) break;
         move(partId, bin.binCode, 'release', 0, -give, orderId, note);
@@ -81,7 +120,7 @@ export function createStockService(db: Db) {
     /** Stock leaves the building: on hand and reserved fall together, once, for what the order holds. */
     dispatch(orderId: number, partId: number): number {
       let total = 0;
-      for (const bin of stmt.heldForOrder.all(orderId, partId) as Array<{ binCode: string; held: number }>) {
+      for (const bin of stmt.heldForOrder.all({ orderId, partId })) {
         move(partId, bin.binCode, 'dispatch', -bin.held, -bin.held, orderId, null);
         total += bin.held;
       }
@@ -90,7 +129,7 @@ export function createStockService(db: Db) {
 
     /** A record that a line was picked from a bin; it moves no quantity (dispatch does). */
     recordPick(orderId: number, partId: number, binCode: string, quantity: number) {
-      stmt.movement.run(partId, binCode, 'pick', 0, 0, orderId, `picked ${quantity}`);
+      stmt.movement.run({ partId, binCode, kind: 'pick', onHandDelta: 0, reservedDelta: 0, orderId, note: `picked ${quantity}` });
     },
 
     goodsIn(partId: number, binCode: string, quantity: number, note: string | null = null) {
@@ -106,7 +145,7 @@ export function createStockService(db: Db) {
     },
 
     defaultBin(partId: number): string | null {
-      return (stmt.defaultBin.get(partId) as { binCode: string } | undefined)?.binCode ?? null;
+      return stmt.defaultBin.get({ partId })?.binCode ?? null;
     },
   };
 }
