@@ -25,7 +25,7 @@ import type { FitmentFrame } from './frame';
 import { operatingLine, type EngineConditions } from './operating-line';
 import { compressorInletKpa } from './pressure-ratio';
 import { DEFAULT_TURBINE_EFFICIENCY, EXHAUST_SYSTEM_LOSS_KPA, TURBINE_INLET_C } from './turbine';
-import { assessFrame, isUsable, LITTLE_BOOST_PR, rankCandidates, type AssessmentContext } from './verdict';
+import { assessFrame, BAND_TOLERANCE, isUsable, LITTLE_BOOST_PR, rankCandidates, type AssessmentContext } from './verdict';
 
 /** Shown beside every result. */
 export const FITMENT_CAUTIONS: readonly FitmentCaution[] = [
@@ -162,7 +162,11 @@ function evaluate(
   const turbine = { turbine: options.turbine ?? true };
   const singles = frames.map((frame) => assessFrame(frame, 'single', context, turbine));
   const wantTwins = options.twins ?? (resolved.displacementL >= TWIN_FROM_LITRES || !singles.some(isUsable));
-  const twins = wantTwins ? frames.map((frame) => assessFrame(frame, 'twin', context, turbine)).filter(isUsable) : [];
+  // Only usable twins are offered, and a frame far outside its band cannot be one: skip those.
+  const perUnit = petrolEquivalentHp(peak.correctedFlowLbMin / 2);
+  const twins = wantTwins
+    ? frames.filter((frame) => nearBand(frame, perUnit)).map((frame) => assessFrame(frame, 'twin', context, turbine)).filter(isUsable)
+    : [];
   const candidates = rankCandidates([...singles, ...twins]);
 
   const fuelFlowLbH = resolved.powerHp * resolved.bsfc;
@@ -195,11 +199,21 @@ function evaluate(
   };
 }
 
+/** Within the band's tolerance: outside it a frame is ruled too small or too large whatever its map says. */
+const nearBand = (frame: FitmentFrame, equivalentHp: number) =>
+  equivalentHp <= frame.powerBandHp[1] * (1 + BAND_TOLERANCE) && equivalentHp >= frame.powerBandHp[0] * (1 - BAND_TOLERANCE);
+
 /** Whether any frame, single or twin, serves: compressor side only, a short line, stopping at the first that does. */
 function anyUsable(resolved: Resolved, frames: readonly FitmentFrame[]): boolean {
   const context = assessmentContext(resolved, 3);
-  for (const layout of ['single', 'twin'] as const) {
-    for (const frame of frames) if (isUsable(assessFrame(frame, layout, context, { turbine: false }))) return true;
+  const peakFlow = context.line[context.line.length - 1]?.correctedFlowLbMin ?? 0;
+  for (const [layout, units] of [['single', 1], ['twin', 2]] as const) {
+    for (const frame of frames) {
+      // Outside its band by more than the tolerance a frame is ruled out anyway: skip the map work.
+      const equivalent = petrolEquivalentHp(peakFlow / units);
+      if (!nearBand(frame, equivalent)) continue;
+      if (isUsable(assessFrame(frame, layout, context, { turbine: false }))) return true;
+    }
   }
   return false;
 }

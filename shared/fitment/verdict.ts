@@ -22,7 +22,7 @@ import { balanceTurbine, expansionRatioFor, turbinePowerW, turbineThroatAreaM2, 
 /** Below this pressure ratio the engine barely needs a compressor at all. */
 export const LITTLE_BOOST_PR = 1.1;
 /** Outside the rated power band by more than this share, a frame is ruled too small or too large. */
-const BAND_TOLERANCE = 0.15;
+export const BAND_TOLERANCE = 0.15;
 /**
  * Graded margins: a point a little past a limit is marginal, not a cliff. Past surge by up to 4 % of flow on the
  * boost segment (8 % while spooling, where the wastegate is shut and the excursion is brief), past choke by up to
