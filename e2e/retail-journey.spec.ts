@@ -1,9 +1,9 @@
 import { test, expect } from './fixtures';
 import { keepScreenshot } from './support/screens';
 
-// The retail buyer's whole journey: sign up, check fitment, add the part the check chose, pay by test card,
+// The retail buyer's whole journey: sign up, check fitment, add the build the check chose, pay by test card,
 // see the order paid and the confirmation in the development inbox.
-test('a retail buyer signs up, checks fitment, adds the part, pays by test card and finds the confirmation e-mail', async ({ page, axe }) => {
+test('a retail buyer signs up, checks fitment, adds the build, pays by test card and finds the confirmation e-mail', async ({ page, axe }) => {
   test.setTimeout(60_000);
   const email = `journey-${Date.now()}@spoolyard.test`;
   await page.goto('/sign-up');
@@ -13,29 +13,29 @@ test('a retail buyer signs up, checks fitment, adds the part, pays by test card 
   await page.getByRole('button', { name: 'Create account' }).click();
   await expect(page.getByRole('heading', { name: 'Your account' })).toBeVisible();
 
-  // A small 0.5 L petrol engine for about 100 hp: the smallest frame is the fit (common practice).
+  // A 2.0 L petrol street engine for 300 hp: the check answers with a build on DRF, bought as one.
   await page.goto('/fitment');
   await page.getByRole('radio', { name: /Imperial/ }).check();
-  // 0.5 L is 30.5 cubic inches.
-  await page.getByLabel('Engine displacement').fill('30.5');
-  await page.getByLabel('Power wanted').fill('100');
-  await page.getByLabel('Peak-power rpm').fill('9000');
+  // 2.0 L is 122 cubic inches.
+  await page.getByRole('radio', { name: /cubic inches/ }).check();
+  await page.getByLabel('Engine displacement').fill('122');
+  await page.getByLabel('Power wanted').fill('300');
+  await page.getByLabel('Peak-power rpm').fill('6500');
   await page.getByLabel('Fuel', { exact: true }).selectOption('petrol');
   await page.getByLabel('Application', { exact: true }).selectOption('street');
   await page.getByRole('button', { name: 'Check fitment' }).click();
-  const best = page.getByRole('list', { name: 'Frames, best fit first' }).locator(':scope > li').first();
-  await expect(best).toContainText('AWL');
-  await expect(best).toContainText('Fits');
-  await expect(page.getByRole('img', { name: /Compressor map, AWL/ })).toBeVisible();
+  const sheet = page.getByRole('region', { name: 'DRF Drift, single turbocharger' });
+  await expect(sheet).toContainText('Recommended build');
+  await expect(page.getByRole('img', { name: /Compressor map, DRF/ })).toBeVisible();
 
-  await page.getByLabel('Save this check as').fill('my 0.5 L street build');
+  await page.getByLabel('Save this check as').fill('my 2.0 L street build');
   await page.getByRole('button', { name: 'Save check' }).click();
-  await expect(page.getByText('Saved as “my 0.5 L street build”')).toBeVisible();
-  await page.getByRole('button', { name: /^Add to cart/ }).first().click();
-  await expect(page.getByRole('status').filter({ hasText: 'is in your cart' })).toContainText('my 0.5 L street build');
+  await expect(page.getByText('Saved as “my 2.0 L street build”')).toBeVisible();
+  await page.getByRole('button', { name: 'Add the whole build to the cart' }).click();
+  await expect(page.getByRole('status').filter({ hasText: 'The build is in your cart' })).toContainText('my 2.0 L street build');
 
   await page.goto('/cart');
-  await expect(page.getByText('my 0.5 L street build').first()).toBeVisible();
+  await expect(page.getByText('my 2.0 L street build').first()).toBeVisible();
   await page.getByRole('link', { name: 'Go to checkout' }).click();
   await page.getByLabel('Name or company').fill('Ellis Varnham');
   await page.getByLabel('Street address').fill('5 Coil Street');
@@ -48,7 +48,7 @@ test('a retail buyer signs up, checks fitment, adds the part, pays by test card 
   await expect(page).toHaveURL(/\/orders\/SY-\d+/);
   const orderNumber = page.url().match(/SY-\d+/)![0];
   await expect(page.getByText('Thank you: payment received')).toBeVisible({ timeout: 10_000 });
-  await expect(page.getByText('my 0.5 L street build').first()).toBeVisible();
+  await expect(page.getByText('my 2.0 L street build').first()).toBeVisible();
 
   await page.goto('/dev/inbox');
   const inbox = page.getByRole('list', { name: 'Caught messages, newest first' });

@@ -21,6 +21,7 @@ import { partsRouter } from './routes/parts';
 import { webhooksRouter } from './routes/webhooks';
 import { warehouseRouter } from './routes/warehouse';
 import { returnsRouter } from './routes/returns';
+import { shaftLogsRouter } from './routes/shaft-logs';
 import { adminCatalogRouter } from './routes/admin-catalog';
 import { createWarehouseService } from './services/warehouse';
 import { createReturnsService } from './services/returns';
@@ -34,6 +35,8 @@ import type { MailerPort } from './services/mailer';
 import { createNotifications } from './services/notifications';
 import { createOrderService } from './services/orders';
 import { createDealerAccountsService } from './services/dealer-accounts';
+import { createFitmentService } from './services/fitment';
+import { createShaftLogService } from './services/shaft-logs';
 import { createSearchService } from './services/search';
 import { createStockService } from './services/stock';
 
@@ -90,6 +93,7 @@ export function createApp(deps: AppDeps) {
   const partPhotosDir = path.join(config.uploadsDir, 'parts');
   const warehouse = createWarehouseService({ db, stock, notify: notifications.warehouse });
   const returns = createReturnsService({ db, stock, payments: deps.payments, notify: notifications.returns, photosDir: returnPhotosDir, taxRatePct: config.taxRatePct });
+  const shaftLogs = createShaftLogService({ db, fitment: createFitmentService(db) });
   const catalogAdmin = createCatalogAdmin({ db, refreshSearch: (ids) => search.refresh(ids), rebuildSearch: () => search.rebuild() });
   const auth = createAuth({
     db,
@@ -175,6 +179,7 @@ export function createApp(deps: AppDeps) {
     }),
   );
   app.use('/api/fitment', fitmentRouter({ db }));
+  app.use('/api/fitments/:fitmentId/shaft-logs', shaftLogsRouter(shaftLogs));
   app.use('/api/fitments', savedFitmentsRouter({ db }));
   app.use('/api/cart', cartRouter(cart));
   app.use('/api/checkout', checkoutRouter(orders, cart));
@@ -194,5 +199,5 @@ export function createApp(deps: AppDeps) {
     });
   }
   app.use(createErrorHandler(log));
-  return { app, search, catalog, stock, cart, orders, dealers, auth, notifications, warehouse, returns, catalogAdmin };
+  return { app, search, catalog, stock, cart, orders, dealers, auth, notifications, warehouse, returns, catalogAdmin, shaftLogs };
 }

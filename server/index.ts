@@ -3,6 +3,7 @@ import Stripe from 'stripe';
 import { demoAccountList, seedDemoAccounts } from '../catalog-seed/accounts';
 import { generateCatalogue } from '../catalog-seed/generate';
 import { catalogueIsEmpty, loadCatalogue } from '../catalog-seed/load';
+import { seedDemoShaftLogs } from '../catalog-seed/seed-shaft-logs';
 import { createApp } from './app';
 import { openDatabase } from './db/client';
 import { parseEnv, publicUrl } from './env';
@@ -53,6 +54,12 @@ const { app, auth, orders } = createApp({
 if (env.SEED_DEMO) {
   const made = await seedDemoAccounts(auth, db);
   if (made > 0) console.log(`Seeded ${made} demo accounts`);
+  // Optional demo data: a failure here is reported but does not keep the shop from starting.
+  try {
+    if (seedDemoShaftLogs(db)) console.log('Seeded the demo dealer’s logged fitment check');
+  } catch (err) {
+    console.warn('The demo shaft-speed logs were not seeded:', (err as Error).message);
+  }
 }
 const server = app.listen(env.PORT, env.HOST, () => {
   console.log(`Spoolyard is running at ${publicUrl(env)}/`);

@@ -1,7 +1,8 @@
 import { sql } from 'drizzle-orm';
 import { CATEGORIES } from '../../shared/catalog';
+import { BOOST_UNITS, SHAFT_LOG_MAX_ROWS } from '../../shared/schemas/shaft-logs';
 import { CONDITION_GRADE_KEYS } from '../../shared/schemas/warehouse';
-import { index, integer, primaryKey, real, sqliteTable, text, uniqueIndex } from 'drizzle-orm/sqlite-core';
+import { check, index, integer, primaryKey, real, sqliteTable, text, uniqueIndex } from 'drizzle-orm/sqlite-core';
 
 /** The order the shop lists categories in; the same expression sorts the catalogue and backs an index. */
 export const CATEGORY_ORDER_EXPR = `(CASE category ${CATEGORIES.map((c, i) => `WHEN '${c.slug}' THEN ${i}`).join(' ')} ELSE ${CATEGORIES.length} END)`;
@@ -231,6 +232,34 @@ export const savedFitments = sqliteTable(
     createdAt: createdAt(),
   },
   (t) => [index('saved_fitments_user_idx').on(t.userId)],
+);
+
+/* Shaft-speed logs from a plug-in logger, laid on a saved check's compressor map; they go with their check. */
+export const shaftLogs = sqliteTable(
+  'shaft_logs',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    savedFitmentId: integer('saved_fitment_id')
+      .notNull()
+      .references(() => savedFitments.id, { onDelete: 'cascade' }),
+    frameCode: text('frame_code')
+      .notNull()
+      .references(() => frames.code),
+    name: text('name').notNull(),
+    boostUnit: text('boost_unit', { enum: BOOST_UNITS }).notNull(),
+    rowCount: integer('row_count').notNull(),
+    durationS: real('duration_s').notNull(),
+    /** The rows as read (boost in kPa gauge), parsed with ShaftLogRowSchema when read back. Map points are worked out
+     * on each read, so they follow today's maps. */
+    rows: text('rows', { mode: 'json' }).$type<unknown>().notNull(),
+    createdAt: createdAt(),
+  },
+  (t) => [
+    index('shaft_logs_fitment_idx').on(t.savedFitmentId, t.createdAt),
+    check('shaft_logs_boost_unit_ck', sql.raw(`boost_unit IN (${BOOST_UNITS.map((u) => `'${u}'`).join(', ')})`)),
+    check('shaft_logs_row_count_ck', sql.raw(`row_count BETWEEN 1 AND ${SHAFT_LOG_MAX_ROWS}`)),
+    check('shaft_logs_duration_ck', sql`${t.durationS} >= 0`),
+  ],
 );
 
 /* Carts live on the server: one per signed-in user, or per guest token until sign-in merges it. */

@@ -28,6 +28,7 @@ const router = createBrowserRouter([
       page('parts/:partNumber', () => import('./routes/part'), 'PartRoute'),
       page('fitment', () => import('./routes/fitment'), 'FitmentRoute'),
       page('fitment/saved', () => import('./routes/saved-fitments'), 'SavedFitmentsRoute'),
+      page('fitment/saved/:id/logs', () => import('./routes/shaft-logs'), 'ShaftLogsRoute'),
       page('sign-in', () => import('./routes/sign-in'), 'SignInRoute'),
       page('sign-up', () => import('./routes/sign-up'), 'SignUpRoute'),
       page('forgot-password', () => import('./routes/forgot-password'), 'ForgotPasswordRoute'),

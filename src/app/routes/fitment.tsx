@@ -27,12 +27,16 @@ export function FitmentRoute() {
 
   const me = useMe();
   const signedIn = Boolean(me.data?.user);
+  const dealer = me.data?.user?.dealer;
+  const canBackorder = me.data?.user?.role === 'dealer' && dealer?.status === 'approved' && Boolean(dealer.tier);
   const queryClient = useQueryClient();
   const maps = useFrameMaps();
   const check = useRunFitmentCheck();
   const [system, setSystem] = useUnitSystem();
   const [request, setRequest] = useState<FitmentRequest | null>(null);
-  const [selected, setSelected] = useState<string | null>(cameFrom);
+  // Each run gets a fresh results view, so its choices (build, bearing, map) start from the new answer.
+  const [runId, setRunId] = useState(0);
+  const [refusedHere, setRefusedHere] = useState(false);
   const [saved, setSaved] = useState<Pick<SavedFitment, 'id' | 'name'> | null>(null);
   const [form, setForm] = useState(() => ({ key: 0, values: formValuesFor(null, system) }));
   const savedCheck = useSavedFitment(savedId !== null && signedIn ? savedId : null);
@@ -41,12 +45,8 @@ export function FitmentRoute() {
   const run = (next: FitmentRequest, keep: Pick<SavedFitment, 'id' | 'name'> | null = null) => {
     setRequest(next);
     setSaved(keep);
-    check.mutate(next, {
-      onSuccess: (result) => {
-        const codes = result.candidates.map((c) => c.frameCode);
-        setSelected(cameFrom && codes.includes(cameFrom) ? cameFrom : (codes[0] ?? null));
-      },
-    });
+    setRefusedHere(false);
+    check.mutate(next, { onSuccess: () => setRunId((n) => n + 1) });
   };
 
   // Opening a saved check loads it into the form and runs it again, with today's frames.
@@ -60,15 +60,16 @@ export function FitmentRoute() {
   }, [savedCheck.data]);
 
   const cameFromFrame = cameFrom ? maps.data?.items.find((f) => f.code === cameFrom) : undefined;
-  const validation = check.error instanceof ApiError && check.error.isValidation ? check.error.fieldErrors : undefined;
+  const refusal = check.error instanceof ApiError && check.error.isValidation ? check.error : undefined;
+  const validation = refusal?.fieldErrors;
 
   return (
     <div className="grid gap-6">
       <header className="grid gap-2">
         <h1 className="text-3xl font-bold">Fitment check</h1>
         <p className="max-w-3xl text-lg">
-          Tell us about the engine and what you want from it. We work out the air it needs and judge every Vanecraft frame against its
-          compressor map, from full boost to peak power.
+          Tell us about the engine and what you want from it. We answer with a build to order: the frame, bearing and housings, with the parts
+          that go together, checked on every Vanecraft frame’s compressor map from the first boost to peak power.
         </p>
         <p>
           {signedIn ? (
@@ -115,22 +116,37 @@ export function FitmentRoute() {
             onSubmit={(next) => run(next)}
             pending={check.isPending}
             serverFieldErrors={validation}
+            // A refused submit clears the last answer: no build is offered for values that are not on the form.
+            onRefused={() => {
+              check.reset();
+              setRequest(null);
+              setRefusedHere(true);
+            }}
           />
         </div>
         <div className="min-w-0">
           {check.isPending || savedCheck.isFetching ? (
             <LoadingState label="Checking every frame…" />
-          ) : check.isError && !validation ? (
+          ) : refusal ? (
+            <ErrorState
+              title="The check was refused"
+              message={`${refusal.message}${Object.keys(refusal.fieldErrors).length > 0 ? ': the values marked in the form need fixing.' : '.'}`}
+            />
+          ) : check.isError ? (
             <ErrorState title="The check did not run" message={check.error.message} onRetry={() => request && run(request, saved)} />
+          ) : refusedHere ? (
+            <EmptyState title="Nothing checked">
+              Fix the values marked in the form, then press <span className="font-semibold text-ink">Check fitment</span> again.
+            </EmptyState>
           ) : check.data && request ? (
             <FitmentResults
+              key={runId}
               request={request}
               result={check.data}
               system={system}
-              selected={selected}
-              onSelect={setSelected}
               cameFrom={cameFrom}
               signedIn={signedIn}
+              canBackorder={canBackorder}
               saved={saved}
               onSaved={(s) => setSaved({ id: s.id, name: s.name })}
               onAddedToCart={() => queryClient.invalidateQueries({ queryKey: cartKeys.all })}
@@ -139,8 +155,8 @@ export function FitmentRoute() {
             <div className="grid gap-4">
               <EmptyState title="No check yet">
                 Fill in the engine and press <span className="font-semibold text-ink">Check fitment</span>. The starting values are a 2.0 L petrol
-                street engine; change them to yours. You will see the airflow and boost it needs, each frame’s verdict with its reasons, and the
-                engine’s operating line on a compressor map.
+                street engine; change them to yours. You get a build sheet: the frame, bearing and housings to order as one build, the spool it gives,
+                the engine’s line on the compressor map, and the cautions its numbers raise.
               </EmptyState>
               <FitmentCautions cautions={FITMENT_CAUTIONS} />
             </div>

@@ -4,4 +4,8 @@ export const fitmentKeys = {
   saved: () => [...fitmentKeys.all, 'saved'] as const,
   savedOne: (id: number) => [...fitmentKeys.saved(), id] as const,
   frameParts: (frameCode: string) => [...fitmentKeys.all, 'frame-parts', frameCode] as const,
+  buildParts: (frameCode: string, bearing: string) => [...fitmentKeys.all, 'build-parts', frameCode, bearing] as const,
+  part: (partNumber: string) => [...fitmentKeys.all, 'part', partNumber] as const,
+  shaftLogs: (savedId: number) => [...fitmentKeys.savedOne(savedId), 'shaft-logs'] as const,
+  shaftLog: (savedId: number, logId: number) => [...fitmentKeys.shaftLogs(savedId), logId] as const,
 };

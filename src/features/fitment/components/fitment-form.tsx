@@ -13,16 +13,29 @@ import {
   DEFAULT_INTERCOOLED,
   DEFAULT_VOLUMETRIC_EFFICIENCY,
 } from '../../../../shared/fitment/defaults';
-import { APPLICATIONS, FUELS, FitmentRequestSchema, type Application, type FitmentRequest, type FitmentRequestInput, type Fuel } from '../../../../shared/schemas/fitment';
+import {
+  APPLICATIONS,
+  DISPLACEMENT_UNITS,
+  FUELS,
+  FitmentRequestSchema,
+  type Application,
+  type DisplacementUnit,
+  type FitmentRequest,
+  type FitmentRequestInput,
+  type Fuel,
+} from '../../../../shared/schemas/fitment';
 import { Button } from '../../../components/ui/button';
+import { DISPLACEMENT_UNIT_LABELS, rememberDisplacementUnit, storedDisplacementUnit } from '../lib/displacement-unit';
 import {
   ADVANCED_FIELDS,
+  displacementSystem,
   formFieldOf,
   formToRequest,
   NUMERIC_FIELDS,
   rangeMessage,
   requestToForm,
   show,
+  systemFor,
   type FitmentFormValues,
   type FormField,
   type NumericField,
@@ -44,6 +57,7 @@ const STARTING_ENGINE: Partial<FitmentRequest> = { displacementL: 2.0, powerHp: 
 
 const BLANK: FitmentFormValues = {
   displacement: '',
+  displacementUnit: 'L',
   power: '',
   rpm: '',
   fuel: 'petrol',
@@ -58,10 +72,13 @@ const BLANK: FitmentFormValues = {
   chargeLoss: '',
   inletLoss: '',
   compressorEfficiency: '',
+  fullBoostRpm: '',
+  intercoolerEffectiveness: '',
+  cylinders: '',
 };
 
 export function formValuesFor(request: Partial<FitmentRequest> | null, system: UnitSystem): FitmentFormValues {
-  return requestToForm(request ?? STARTING_ENGINE, system, BLANK);
+  return requestToForm(request ?? STARTING_ENGINE, system, { ...BLANK, displacementUnit: storedDisplacementUnit() });
 }
 
 const fieldId = (name: FormField) => `fitment-${name}`;
@@ -78,14 +95,17 @@ function flatten(errors: FieldErrors, prefix = ''): Array<[string, string]> {
   return out;
 }
 
-/** The message a field shows: the shared schema's words, with ranges restated in the units on screen. */
+/**
+ * The message a field shows: the shared schema's words, with ranges restated in the units on screen. Other words
+ * (a refusal of an impossible power per litre, a whole number wanted) are the schema's own, as the server says them.
+ */
 function messageFor(field: FormField, schemaMessage: string, values: FitmentFormValues, system: UnitSystem): string {
   if (field in NUMERIC_FIELDS) {
     const numeric = field as NumericField;
     const text = values[numeric].trim();
     if (text === '') return capitalise(schemaMessage);
     if (Number.isNaN(Number(text.replace(/,/g, '')))) return `${NUMERIC_FIELDS[numeric].label} must be a number`;
-    return capitalise(rangeMessage(numeric, system));
+    if (schemaMessage.includes('must be between')) return capitalise(rangeMessage(numeric, systemFor(numeric, system, values.displacementUnit)));
   }
   return capitalise(schemaMessage);
 }
@@ -113,6 +133,7 @@ function Field({
   label,
   hint,
   unit,
+  addon,
   error,
   registration,
 }: {
@@ -120,6 +141,8 @@ function Field({
   label: string;
   hint?: ReactNode;
   unit?: string;
+  /** A control beside the field (the displacement's unit), in place of a fixed unit. */
+  addon?: ReactNode;
   error?: string;
   registration: UseFormRegisterReturn;
 }) {
@@ -130,7 +153,7 @@ function Field({
       <label htmlFor={id} className="font-semibold">
         {label}
       </label>
-      <div className="flex items-stretch">
+      <div className={`flex items-stretch ${addon ? 'max-w-xs gap-2' : ''}`}>
         <input
           id={id}
           type="text"
@@ -144,10 +167,11 @@ function Field({
           }`}
         />
         {unit && (
-          <span className="inline-flex min-w-14 items-center justify-center rounded-r-md border border-l-0 border-cast-line bg-panel px-2 text-sm text-cast">
+          <span className="inline-flex min-w-14 shrink-0 items-center justify-center rounded-r-md border border-l-0 border-cast-line bg-panel px-2 text-sm whitespace-nowrap text-cast">
             {unit}
           </span>
         )}
+        {addon}
       </div>
       {hint && (
         <p id={`${id}-hint`} className="text-sm text-cast">
@@ -192,6 +216,45 @@ function SelectField({ name, label, hint, options, registration }: {
   );
 }
 
+/** A few related assumptions under a small heading, so the section reads by subject rather than as one grid. */
+function AdvancedGroup({ title, children }: { title: string; children: ReactNode }) {
+  return (
+    <fieldset className="grid gap-4 sm:grid-cols-2">
+      <legend className="mb-2 text-sm font-bold tracking-wide text-cast uppercase">{title}</legend>
+      {children}
+    </fieldset>
+  );
+}
+
+/** Litres or cubic inches, chosen on purpose beside the field: the number typed is read in this unit, never converted. */
+function DisplacementUnitControl({ value, registration }: { value: DisplacementUnit; registration: UseFormRegisterReturn }) {
+  return (
+    <fieldset className="flex shrink-0">
+      <legend className="sr-only">Displacement unit</legend>
+      <div className="inline-flex items-stretch rounded-md border border-cast-line bg-white p-0.5">
+        {DISPLACEMENT_UNITS.map((u) => (
+          <label
+            key={u}
+            className={`relative inline-flex cursor-pointer items-center rounded px-3 text-sm font-semibold whitespace-nowrap has-[:focus-visible]:outline has-[:focus-visible]:outline-3 has-[:focus-visible]:outline-temper ${
+              value === u ? 'bg-temper text-white' : 'text-ink hover:text-temper'
+            }`}
+          >
+            <input
+              type="radio"
+              value={u}
+              {...registration}
+              // Covers the whole label, so a tap anywhere on it lands on the radio itself.
+              className="absolute inset-0 m-0 cursor-pointer opacity-0"
+            />
+            {DISPLACEMENT_UNIT_LABELS[u].short}
+            <span className="sr-only"> ({DISPLACEMENT_UNIT_LABELS[u].long})</span>
+          </label>
+        ))}
+      </div>
+    </fieldset>
+  );
+}
+
 export interface FitmentFormProps {
   initialValues: FitmentFormValues;
   system: UnitSystem;
@@ -200,13 +263,15 @@ export interface FitmentFormProps {
   pending: boolean;
   /** Field errors the server answered with, keyed by the API's paths. */
   serverFieldErrors?: Record<string, string[]>;
+  /** Called when a submit is refused here, so the page stops showing an answer to earlier values. */
+  onRefused?: () => void;
 }
 
-export function FitmentForm({ initialValues, system, onSystemChange, onSubmit, pending, serverFieldErrors }: FitmentFormProps) {
+export function FitmentForm({ initialValues, system, onSystemChange, onSubmit, pending, serverFieldErrors, onRefused }: FitmentFormProps) {
   const systemRef = useRef(system);
   systemRef.current = system;
   const [resolver] = useState(() => fitmentResolver(systemRef));
-  const { register, handleSubmit, formState, getValues, reset, setError, setFocus, watch } = useForm<FitmentFormValues>({
+  const { register, handleSubmit, formState, getValues, reset, setError, setFocus, trigger, watch } = useForm<FitmentFormValues>({
     defaultValues: initialValues,
     resolver,
     mode: 'onSubmit',
@@ -229,10 +294,16 @@ export function FitmentForm({ initialValues, system, onSystemChange, onSubmit, p
 
   useEffect(() => {
     if (!serverFieldErrors) return;
+    let shown = false;
     for (const [path, messages] of Object.entries(serverFieldErrors)) {
       const field = formFieldOf(path);
-      if (field) setError(field, { type: 'server', message: capitalise(messages[0] ?? 'not valid') });
+      if (!field) continue;
+      setError(field, { type: 'server', message: capitalise(messages[0] ?? 'not valid') });
+      if (ADVANCED_FIELDS.includes(field)) setAdvancedOpen(true);
+      shown = true;
     }
+    // The server's refusal is heard like the form's own: the summary takes focus.
+    if (shown) focusSummary.current = true;
   }, [serverFieldErrors, setError]);
 
   const switchUnits = (next: UnitSystem) => {
@@ -249,6 +320,7 @@ export function FitmentForm({ initialValues, system, onSystemChange, onSubmit, p
     (invalid) => {
       if (ADVANCED_FIELDS.some((f) => f in invalid)) setAdvancedOpen(true);
       focusSummary.current = true;
+      onRefused?.();
     },
   );
 
@@ -261,10 +333,18 @@ export function FitmentForm({ initialValues, system, onSystemChange, onSubmit, p
   const application = watch('application');
   const intercooled = watch('intercooled');
   const displacementText = watch('displacement');
+  const displacementUnit = watch('displacementUnit');
+  const peakRpmText = watch('rpm');
   const unit = (f: NumericField) => NUMERIC_FIELDS[f].unit(system);
-  const other: UnitSystem = system === 'metric' ? 'imperial' : 'metric';
-  const typedLitres = formToRequest({ ...getValues(), displacement: displacementText }, system).displacementL;
+  const otherDisplacement = displacementSystem(displacementUnit === 'L' ? 'in3' : 'L');
+  const typedLitres = formToRequest({ ...getValues(), displacement: displacementText, displacementUnit }, system).displacementL;
   const useLabel = APPLICATION_DEFAULTS[application].label;
+  const peakRpm = Number(peakRpmText.replace(/,/g, ''));
+  const fullBoostFraction = APPLICATION_DEFAULTS[application].fullBoostFraction;
+  const fullBoostHint =
+    Number.isFinite(peakRpm) && peakRpm >= 1000
+      ? `Default ${show.rpm(Math.round((peakRpm * fullBoostFraction) / 50) * 50)}, ${show.pct(fullBoostFraction)} of peak-power rpm for ${useLabel}. The turbine housing is chosen to get there.`
+      : `Default ${show.pct(fullBoostFraction)} of peak-power rpm for ${useLabel}. The turbine housing is chosen to get there.`;
 
   return (
     <form onSubmit={submit} noValidate aria-labelledby="fitment-form-heading" className="grid gap-5">
@@ -300,18 +380,32 @@ export function FitmentForm({ initialValues, system, onSystemChange, onSubmit, p
       )}
 
       <div className="grid gap-4 sm:grid-cols-2">
-        <Field
-          name="displacement"
-          label="Engine displacement"
-          unit={unit('displacement')}
-          hint={
-            typeof typedLitres === 'number' && Number.isFinite(typedLitres) && typedLitres > 0
-              ? `= ${show.displacement(typedLitres, other)}. All cylinders together.`
-              : 'All cylinders together, from the engine’s data.'
-          }
-          error={errors.displacement?.message}
-          registration={register('displacement')}
-        />
+        <div className="sm:col-span-2">
+          <Field
+            name="displacement"
+            label="Engine displacement"
+            addon={
+              <DisplacementUnitControl
+                value={displacementUnit}
+                registration={register('displacementUnit', {
+                  onChange: (e: { target: { value: string } }) => {
+                    const next: DisplacementUnit = e.target.value === 'in3' ? 'in3' : 'L';
+                    rememberDisplacementUnit(next);
+                    // The number now reads in the other unit; say at once whether it still makes sense.
+                    if (formState.isSubmitted) void trigger('displacement');
+                  },
+                })}
+              />
+            }
+            hint={
+              typeof typedLitres === 'number' && Number.isFinite(typedLitres) && typedLitres > 0
+                ? `Read as ${show.displacementIn(typedLitres, displacementUnit)} = ${show.displacement(typedLitres, otherDisplacement)}. All cylinders together.`
+                : `All cylinders together, in ${DISPLACEMENT_UNIT_LABELS[displacementUnit].long}.`
+            }
+            error={errors.displacement?.message}
+            registration={register('displacement')}
+          />
+        </div>
         <Field
           name="power"
           label="Power wanted"
@@ -328,7 +422,9 @@ export function FitmentForm({ initialValues, system, onSystemChange, onSubmit, p
           error={errors.rpm?.message}
           registration={register('rpm')}
         />
-        <SelectField name="fuel" label="Fuel" options={FUELS.map((f) => [f, FUEL_LABELS[f]])} registration={register('fuel')} />
+        <div className="sm:col-span-2">
+          <SelectField name="fuel" label="Fuel" options={FUELS.map((f) => [f, FUEL_LABELS[f]])} registration={register('fuel')} />
+        </div>
         <div className="sm:col-span-2">
           <SelectField
             name="application"
@@ -348,96 +444,133 @@ export function FitmentForm({ initialValues, system, onSystemChange, onSubmit, p
         <summary className="grid min-h-11 cursor-pointer list-none grid-cols-[auto_1fr] items-center gap-x-2 px-4 py-2 [&::-webkit-details-marker]:hidden">
           <ChevronRight aria-hidden className="size-4 text-temper transition-transform group-open:rotate-90" />
           <span className="font-semibold text-temper">Advanced assumptions</span>
-          <span className="col-start-2 text-sm text-cast">For tuners. Leave blank for our defaults.</span>
+          <span className="col-start-2 text-sm text-cast">For tuners: air, cooling, fuel and injectors, losses, spool. Leave blank for our defaults.</span>
         </summary>
-        <div className="grid gap-4 border-t border-cast-line p-4 sm:grid-cols-2">
-          <Field
-            name="altitude"
-            label="Altitude"
-            unit={unit('altitude')}
-            hint={`Default sea level (${show.altitude(0, system)}). Thinner air needs a higher pressure ratio.`}
-            error={errors.altitude?.message}
-            registration={register('altitude')}
-          />
-          <Field
-            name="inletTemp"
-            label="Inlet air temperature"
-            unit={unit('inletTemp')}
-            hint={`At the compressor inlet. Default ${show.temp(DEFAULT_AMBIENT_C, system)}.`}
-            error={errors.inletTemp?.message}
-            registration={register('inletTemp')}
-          />
-          <div className="grid content-start gap-1 sm:col-span-2">
-            <label className="flex min-h-11 items-center gap-3 font-semibold">
-              <input
-                id={fieldId('intercooled')}
-                type="checkbox"
-                {...register('intercooled')}
-                aria-describedby={`${fieldId('intercooled')}-hint`}
-                className="size-5 accent-temper"
-              />
-              Intercooled (a charge-air cooler is fitted)
-            </label>
-            <p id={`${fieldId('intercooled')}-hint`} className="text-sm text-cast">
-              Default: yes. Intercooler effectiveness for {useLabel} is taken as {show.pct(APPLICATION_DEFAULTS[application].intercoolerEffectiveness)}.
-            </p>
-          </div>
-          <Field
-            name="bsfc"
-            label="BSFC (brake-specific fuel consumption)"
-            unit={unit('bsfc')}
-            hint={`Default ${show.bsfc(defaultBsfcLbPerHpH(fuel, application), system)} for ${FUEL_LABELS[fuel].toLowerCase()}, ${useLabel}.`}
-            error={errors.bsfc?.message}
-            registration={register('bsfc')}
-          />
-          <Field
-            name="afr"
-            label="Air-fuel ratio at full load"
-            unit=":1"
-            hint={`By mass. Default ${defaultAfr(fuel, application).toFixed(1)}:1 for ${FUEL_LABELS[fuel].toLowerCase()}, ${useLabel}.`}
-            error={errors.afr?.message}
-            registration={register('afr')}
-          />
-          <Field
-            name="volumetricEfficiency"
-            label="Volumetric efficiency"
-            unit="%"
-            hint={`Default ${show.pct(DEFAULT_VOLUMETRIC_EFFICIENCY)}, a healthy four-valve head at full load.`}
-            error={errors.volumetricEfficiency?.message}
-            registration={register('volumetricEfficiency')}
-          />
-          <Field
-            name="manifoldTemp"
-            label="Manifold air temperature"
-            unit={unit('manifoldTemp')}
-            hint="Leave blank to work it out from the compressor and intercooler."
-            error={errors.manifoldTemp?.message}
-            registration={register('manifoldTemp')}
-          />
-          <Field
-            name="chargeLoss"
-            label="Charge-side pressure loss"
-            unit={unit('chargeLoss')}
-            hint={`Intercooler and pipes. Default ${show.lossPsi(intercooled ? DEFAULT_CHARGE_LOSS_PSI_INTERCOOLED : DEFAULT_CHARGE_LOSS_PSI_NO_INTERCOOLER, system)}.`}
-            error={errors.chargeLoss?.message}
-            registration={register('chargeLoss')}
-          />
-          <Field
-            name="inletLoss"
-            label="Inlet pressure loss"
-            unit={unit('inletLoss')}
-            hint={`Filter and intake. Default ${show.lossPsi(DEFAULT_INLET_LOSS_PSI, system)}.`}
-            error={errors.inletLoss?.message}
-            registration={register('inletLoss')}
-          />
-          <Field
-            name="compressorEfficiency"
-            label="Compressor efficiency"
-            unit="%"
-            hint={`For the outlet temperature. Default ${show.pct(DEFAULT_COMPRESSOR_EFFICIENCY)}.`}
-            error={errors.compressorEfficiency?.message}
-            registration={register('compressorEfficiency')}
-          />
+        <div className="grid gap-6 border-t border-cast-line p-4">
+          <AdvancedGroup title="Air at the inlet">
+            <Field
+              name="altitude"
+              label="Altitude"
+              unit={unit('altitude')}
+              hint={`Default sea level (${show.altitude(0, system)}). Thinner air needs a higher pressure ratio.`}
+              error={errors.altitude?.message}
+              registration={register('altitude')}
+            />
+            <Field
+              name="inletTemp"
+              label="Inlet air temperature"
+              unit={unit('inletTemp')}
+              hint={`At the compressor inlet. Default ${show.temp(DEFAULT_AMBIENT_C, system)}.`}
+              error={errors.inletTemp?.message}
+              registration={register('inletTemp')}
+            />
+          </AdvancedGroup>
+          <AdvancedGroup title="Charge cooling">
+            <div className="grid content-start gap-1 sm:col-span-2">
+              <label className="flex min-h-11 items-center gap-3 font-semibold">
+                <input
+                  id={fieldId('intercooled')}
+                  type="checkbox"
+                  {...register('intercooled')}
+                  aria-describedby={`${fieldId('intercooled')}-hint`}
+                  className="size-5 accent-temper"
+                />
+                Intercooled (a charge-air cooler is fitted)
+              </label>
+              <p id={`${fieldId('intercooled')}-hint`} className="text-sm text-cast">
+                Default: yes.
+              </p>
+            </div>
+            <Field
+              name="intercoolerEffectiveness"
+              label="Intercooler effectiveness"
+              unit={unit('intercoolerEffectiveness')}
+              hint={
+                intercooled
+                  ? `Share of the compressor’s heat the cooler takes out. Default ${show.pct(APPLICATION_DEFAULTS[application].intercoolerEffectiveness)} for ${useLabel}.`
+                  : 'Not used without an intercooler.'
+              }
+              error={errors.intercoolerEffectiveness?.message}
+              registration={register('intercoolerEffectiveness')}
+            />
+            <Field
+              name="manifoldTemp"
+              label="Manifold air temperature"
+              unit={unit('manifoldTemp')}
+              hint="Leave blank to work it out from the compressor and intercooler."
+              error={errors.manifoldTemp?.message}
+              registration={register('manifoldTemp')}
+            />
+          </AdvancedGroup>
+          <AdvancedGroup title="Fuel and injectors">
+            <Field
+              name="bsfc"
+              label="BSFC (brake-specific fuel consumption)"
+              unit={unit('bsfc')}
+              hint={`Default ${show.bsfc(defaultBsfcLbPerHpH(fuel, application), system)} for ${FUEL_LABELS[fuel].toLowerCase()}, ${useLabel}.`}
+              error={errors.bsfc?.message}
+              registration={register('bsfc')}
+            />
+            <Field
+              name="afr"
+              label="Air-fuel ratio at full load"
+              unit=":1"
+              hint={`By mass. Default ${defaultAfr(fuel, application).toFixed(1)}:1 for ${FUEL_LABELS[fuel].toLowerCase()}, ${useLabel}.`}
+              error={errors.afr?.message}
+              registration={register('afr')}
+            />
+            <Field
+              name="cylinders"
+              label="Number of cylinders"
+              hint="One injector each: gives the flow every injector must deliver."
+              error={errors.cylinders?.message}
+              registration={register('cylinders')}
+            />
+          </AdvancedGroup>
+          <AdvancedGroup title="Breathing and losses">
+            <Field
+              name="volumetricEfficiency"
+              label="Volumetric efficiency"
+              unit="%"
+              hint={`Default ${show.pct(DEFAULT_VOLUMETRIC_EFFICIENCY)}, a healthy four-valve head at full load.`}
+              error={errors.volumetricEfficiency?.message}
+              registration={register('volumetricEfficiency')}
+            />
+            <Field
+              name="compressorEfficiency"
+              label="Compressor efficiency"
+              unit="%"
+              hint={`For the outlet temperature. Default ${show.pct(DEFAULT_COMPRESSOR_EFFICIENCY)}.`}
+              error={errors.compressorEfficiency?.message}
+              registration={register('compressorEfficiency')}
+            />
+            <Field
+              name="chargeLoss"
+              label="Charge-side pressure loss"
+              unit={unit('chargeLoss')}
+              hint={`Intercooler and pipes. Default ${show.lossPsi(intercooled ? DEFAULT_CHARGE_LOSS_PSI_INTERCOOLED : DEFAULT_CHARGE_LOSS_PSI_NO_INTERCOOLER, system)}.`}
+              error={errors.chargeLoss?.message}
+              registration={register('chargeLoss')}
+            />
+            <Field
+              name="inletLoss"
+              label="Inlet pressure loss"
+              unit={unit('inletLoss')}
+              hint={`Filter and intake. Default ${show.lossPsi(DEFAULT_INLET_LOSS_PSI, system)}.`}
+              error={errors.inletLoss?.message}
+              registration={register('inletLoss')}
+            />
+          </AdvancedGroup>
+          <AdvancedGroup title="Spool">
+            <Field
+              name="fullBoostRpm"
+              label="Full boost from"
+              unit={unit('fullBoostRpm')}
+              hint={fullBoostHint}
+              error={errors.fullBoostRpm?.message}
+              registration={register('fullBoostRpm')}
+            />
+          </AdvancedGroup>
         </div>
       </details>
 

@@ -1,4 +1,4 @@
-import { FolderOpen, Trash2 } from 'lucide-react';
+import { ChartLine, FolderOpen, Trash2 } from 'lucide-react';
 import { useState } from 'react';
 import { Link } from 'react-router-dom';
 import type { SavedFitment } from '../../../../shared/schemas/saved-fitments';
@@ -41,6 +41,10 @@ function SavedRow({ item }: { item: SavedFitment }) {
           <Link to={`/fitment?saved=${item.id}`} className={buttonClass('primary')}>
             <FolderOpen aria-hidden className="size-4" />
             Open<span className="sr-only"> {item.name}</span>
+          </Link>
+          <Link to={`/fitment/saved/${item.id}/logs`} className={buttonClass('secondary')}>
+            <ChartLine aria-hidden className="size-4" />
+            Shaft-speed logs<span className="sr-only"> of {item.name}</span>
           </Link>
           <Button variant="secondary" onClick={() => setConfirming(true)}>
             <Trash2 aria-hidden className="size-4" />

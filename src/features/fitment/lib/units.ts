@@ -1,4 +1,4 @@
-import { FITMENT_LIMITS, type Application, type Fuel, type FitmentRequest } from '../../../../shared/schemas/fitment';
+import { FITMENT_LIMITS, type Application, type DisplacementUnit, type Fuel, type FitmentRequest } from '../../../../shared/schemas/fitment';
 import {
   celsiusToFahrenheit,
   cubicInchesToLitres,
@@ -24,6 +24,8 @@ const G_PER_KWH_PER_LB_PER_HPH = (KG_PER_LB * 1000) / hpToKw(1);
 /** What the form holds: text as typed, in the units shown. Blank optional fields mean "use the default". */
 export interface FitmentFormValues {
   displacement: string;
+  /** The unit the displacement is typed in, chosen by the buyer apart from the unit system (a slip here is costly). */
+  displacementUnit: DisplacementUnit;
   power: string;
   rpm: string;
   fuel: Fuel;
@@ -38,9 +40,12 @@ export interface FitmentFormValues {
   chargeLoss: string;
   inletLoss: string;
   compressorEfficiency: string;
+  fullBoostRpm: string;
+  intercoolerEffectiveness: string;
+  cylinders: string;
 }
 
-export type NumericField = Exclude<keyof FitmentFormValues, 'fuel' | 'application' | 'intercooled'>;
+export type NumericField = Exclude<keyof FitmentFormValues, 'fuel' | 'application' | 'intercooled' | 'displacementUnit'>;
 export type FormField = keyof FitmentFormValues;
 
 interface NumericFieldSpec {
@@ -141,7 +146,27 @@ export const NUMERIC_FIELDS: Record<NumericField, NumericFieldSpec> = {
     fromApi: (v) => v * 100,
     digits: () => 0,
   },
+  fullBoostRpm: { label: 'Full boost from', limit: 'fullBoostRpm', unit: () => 'rpm', toApi: same, fromApi: same, digits: () => 0 },
+  intercoolerEffectiveness: {
+    label: 'Intercooler effectiveness',
+    limit: 'intercoolerEffectiveness',
+    unit: () => '%',
+    toApi: (v) => v / 100,
+    fromApi: (v) => v * 100,
+    digits: () => 0,
+  },
+  cylinders: { label: 'Number of cylinders', limit: 'cylinders', unit: () => '', toApi: same, fromApi: same, digits: () => 0 },
 };
+
+/**
+ * The displacement field follows its own unit control, not the metric/imperial switch: its specs above read
+ * "metric" as litres and "imperial" as cubic inches.
+ */
+export const displacementSystem = (unit: DisplacementUnit): UnitSystem => (unit === 'L' ? 'metric' : 'imperial');
+
+/** The unit system a field is shown in: the displacement's own unit, or the switch's. */
+export const systemFor = (field: NumericField, system: UnitSystem, displacementUnit: DisplacementUnit): UnitSystem =>
+  field === 'displacement' ? displacementSystem(displacementUnit) : system;
 
 export const ADVANCED_FIELDS: readonly FormField[] = [
   'altitude',
@@ -154,6 +179,9 @@ export const ADVANCED_FIELDS: readonly FormField[] = [
   'chargeLoss',
   'inletLoss',
   'compressorEfficiency',
+  'fullBoostRpm',
+  'intercoolerEffectiveness',
+  'cylinders',
 ];
 
 const roundTo = (value: number, digits: number) => {
@@ -181,7 +209,8 @@ export function rangeMessage(field: NumericField, system: UnitSystem): string {
   const { min, max } = displayRange(field, system);
   const unit = NUMERIC_FIELDS[field].unit(system);
   const fmt = (n: number) => n.toLocaleString('en-US', { maximumFractionDigits: 2 });
-  return `${NUMERIC_FIELDS[field].label.toLowerCase()} must be between ${fmt(min)} and ${fmt(max)}${unit === ':1' ? ':1' : ` ${unit}`}`;
+  const suffix = unit === ':1' ? ':1' : unit === '' ? '' : ` ${unit}`;
+  return `${NUMERIC_FIELDS[field].label.toLowerCase()} must be between ${fmt(min)} and ${fmt(max)}${suffix}`;
 }
 
 /** Blank stays undefined (the default applies); anything else must read as a number, or becomes NaN for the schema to refuse. */
@@ -193,7 +222,7 @@ function parseNumber(text: string): number | undefined {
 
 function apiNumber(values: FitmentFormValues, field: NumericField, system: UnitSystem): number | undefined {
   const n = parseNumber(values[field]);
-  return n === undefined || Number.isNaN(n) ? n : NUMERIC_FIELDS[field].toApi(n, system);
+  return n === undefined || Number.isNaN(n) ? n : NUMERIC_FIELDS[field].toApi(n, systemFor(field, system, values.displacementUnit));
 }
 
 /** The form as a request body in the API's units (not yet validated). */
@@ -207,10 +236,15 @@ export function formToRequest(values: FitmentFormValues, system: UnitSystem): Re
     chargeLossPsi: num('chargeLoss'),
     inletLossPsi: num('inletLoss'),
     compressorEfficiency: num('compressorEfficiency'),
+    fullBoostRpm: num('fullBoostRpm'),
+    intercoolerEffectiveness: num('intercoolerEffectiveness'),
+    cylinders: num('cylinders'),
   };
   const given = Object.fromEntries(Object.entries(assumptions).filter(([, v]) => v !== undefined));
   const body: Record<string, unknown> = {
     displacementL: num('displacement'),
+    // Sent so that a refusal can name the unit the buyer typed in.
+    displacementUnit: values.displacementUnit,
     [system === 'metric' ? 'powerKw' : 'powerHp']: num('power'),
     rpm: num('rpm'),
     fuel: values.fuel,
@@ -225,7 +259,9 @@ export function formToRequest(values: FitmentFormValues, system: UnitSystem): Re
 
 /** A request (a saved check, or the form in the other unit system) as form values in the units shown. */
 export function requestToForm(request: Partial<FitmentRequest>, system: UnitSystem, base: FitmentFormValues): FitmentFormValues {
-  const show = (field: NumericField, v: number | undefined) => (v === undefined || Number.isNaN(v) ? '' : displayValue(field, v, system));
+  const displacementUnit = request.displacementUnit ?? base.displacementUnit;
+  const show = (field: NumericField, v: number | undefined) =>
+    v === undefined || Number.isNaN(v) ? '' : displayValue(field, v, systemFor(field, system, displacementUnit));
   const powerInShownUnit =
     system === 'metric'
       ? (request.powerKw ?? (request.powerHp !== undefined ? hpToKw(request.powerHp) : undefined))
@@ -234,6 +270,7 @@ export function requestToForm(request: Partial<FitmentRequest>, system: UnitSyst
   return {
     ...base,
     displacement: show('displacement', request.displacementL),
+    displacementUnit,
     power: show('power', powerInShownUnit),
     rpm: show('rpm', request.rpm),
     fuel: request.fuel ?? base.fuel,
@@ -248,6 +285,9 @@ export function requestToForm(request: Partial<FitmentRequest>, system: UnitSyst
     chargeLoss: show('chargeLoss', a.chargeLossPsi),
     inletLoss: show('inletLoss', a.inletLossPsi),
     compressorEfficiency: show('compressorEfficiency', a.compressorEfficiency),
+    fullBoostRpm: show('fullBoostRpm', a.fullBoostRpm),
+    intercoolerEffectiveness: show('intercoolerEffectiveness', a.intercoolerEffectiveness),
+    cylinders: show('cylinders', a.cylinders),
   };
 }
 
@@ -270,6 +310,10 @@ export function formFieldOf(path: string): FormField | null {
     'assumptions.chargeLossPsi': 'chargeLoss',
     'assumptions.inletLossPsi': 'inletLoss',
     'assumptions.compressorEfficiency': 'compressorEfficiency',
+    'assumptions.fullBoostRpm': 'fullBoostRpm',
+    'assumptions.intercoolerEffectiveness': 'intercoolerEffectiveness',
+    'assumptions.cylinders': 'cylinders',
+    displacementUnit: 'displacementUnit',
   };
   return map[path] ?? null;
 }
@@ -284,10 +328,17 @@ export const show = {
   pressureAbsBar: (kpa: number) => `${kpaToBar(kpa).toFixed(2)} bar`,
   temp: (c: number, s: UnitSystem) => (s === 'metric' ? `${Math.round(c)} °C` : `${Math.round(celsiusToFahrenheit(c))} °F`),
   power: (hp: number, s: UnitSystem) => (s === 'metric' ? `${Math.round(hpToKw(hp))} kW` : `${Math.round(hp)} hp`),
-  displacement: (l: number, s: UnitSystem) => (s === 'metric' ? `${l.toFixed(1)} L` : `${Math.round(litresToCubicInches(l))} cu in`),
+  // Under a litre a second decimal keeps a small (or mistyped) engine from reading as "0.1 L".
+  displacement: (l: number, s: UnitSystem) => (s === 'metric' ? `${l.toFixed(l < 1 ? 2 : 1)} L` : `${Math.round(litresToCubicInches(l))} cu in`),
+  /** Displacement in the unit the buyer chose for it. */
+  displacementIn: (l: number, unit: DisplacementUnit) => (unit === 'L' ? `${l.toFixed(l < 1 ? 2 : 1)} L` : `${Math.round(litresToCubicInches(l))} cu in`),
+  /** Fuel mass flow: lb/h, or kg/h in metric. */
+  fuelFlow: (lbH: number, s: UnitSystem) => (s === 'metric' ? `${Math.round(lbH * KG_PER_LB)} kg/h` : `${Math.round(lbH)} lb/h`),
   altitude: (m: number, s: UnitSystem) => (s === 'metric' ? `${Math.round(m)} m` : `${Math.round(m / M_PER_FT)} ft`),
   lossPsi: (psi: number, s: UnitSystem) => (s === 'metric' ? `${psiToKpa(psi).toFixed(1)} kPa` : `${psi.toFixed(1)} psi`),
   bsfc: (lb: number, s: UnitSystem) => (s === 'metric' ? `${Math.round(lb * G_PER_KWH_PER_LB_PER_HPH)} g/(kW·h)` : `${lb.toFixed(2)} lb/(hp·h)`),
   pct: (fraction: number) => `${Math.round(fraction * 100)} %`,
   rpm: (rpm: number) => `${Math.round(rpm).toLocaleString('en-US')} rpm`,
+  /** Shaft speed to the nearest 500 rpm, as the verdict's reasons give it. */
+  shaftRpm: (rpm: number) => `${(Math.round(rpm / 500) * 500).toLocaleString('en-US')} rpm`,
 };
