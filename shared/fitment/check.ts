@@ -267,7 +267,10 @@ function reactingCautions(resolved: Resolved, result: Evaluation): FitmentCautio
   if (best && best.shaftRpm !== null && best.shaftRpm > 0.92 * best.maxShaftRpm) {
     out.push({
       code: 'overspeed-margin',
-      message: `The shaft peaks at ${fmt(best.shaftRpm, 0)} rpm, ${Math.round((100 * best.shaftRpm) / best.maxShaftRpm)} % of the frame's ${fmt(best.maxShaftRpm)} rpm limit: little in hand for a hot day or thin air. A shaft-speed sensor shows the real figure; wheels run past their limit can burst.`,
+      message:
+        best.shaftRpm > best.maxShaftRpm
+          ? `The shaft would turn ${fmt(best.shaftRpm, 0)} rpm, past the frame's ${fmt(best.maxShaftRpm)} rpm limit: do not run it there. A shaft-speed sensor shows the real figure; wheels run past their limit can burst.`
+          : `The shaft peaks at ${fmt(best.shaftRpm, 0)} rpm, ${Math.round((100 * best.shaftRpm) / best.maxShaftRpm)} % of the frame's ${fmt(best.maxShaftRpm)} rpm limit: little in hand for a hot day or thin air. A shaft-speed sensor shows the real figure; wheels run past their limit can burst.`,
     });
   }
   const perLitre = resolved.powerHp / resolved.displacementL;
