@@ -23,4 +23,9 @@ if (env.PAYMENTS_MODE === 'test') {
   ]);
   console.log(`Payments fake at ${payments.url}; mail catcher SMTP 127.0.0.1:${mail.smtpPort}, inbox at ${publicUrl(env)}/dev/inbox`);
 }
+// Demo data is written before the app opens the database; the server itself never seeds.
+if (env.SEED_DEMO) {
+  const { seedDemo } = await import('../catalog-seed/seed-demo');
+  await seedDemo(env);
+}
 await import('../server/index');

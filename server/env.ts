@@ -13,8 +13,11 @@ const EnvSchema = z
     DATABASE_FILE: z.string().min(1).default('data/spoolyard.db'),
     /** Uploaded photos, kept outside the built client so they are only served through checked routes. */
     UPLOADS_DIR: z.string().min(1).default('data/uploads'),
-    /** Seed the demo catalogue and accounts when the database is empty. */
-    SEED_DEMO: bool('true'),
+    /**
+     * Seed the demo catalogue, accounts and logs (`npm start` only, a development tool). Defaults on outside
+     * production; a production start refuses it.
+     */
+    SEED_DEMO: z.enum(['true', 'false']).optional(),
     AUTH_SECRET: z.string().min(32, 'must be at least 32 characters').default(DEV_AUTH_SECRET),
     SIGNIN_LIMIT_PER_MINUTE: z.coerce.number().int().min(1).max(10_000).default(10),
     TAX_RATE_PCT: z.coerce.number().min(0).max(40).default(8),
@@ -34,6 +37,9 @@ const EnvSchema = z
   })
   .superRefine((env, ctx) => {
     if (env.NODE_ENV !== 'production') return;
+    if (env.SEED_DEMO === 'true') {
+      ctx.addIssue({ code: 'custom', path: ['SEED_DEMO'], message: 'demo accounts and data are a development tool: a production start refuses them' });
+    }
     // Production refuses the fakes' settings, so a misconfigured deploy cannot take test payments.
     if (env.PAYMENTS_MODE !== 'live') ctx.addIssue({ code: 'custom', path: ['PAYMENTS_MODE'], message: 'must be "live" in production' });
     if (!env.PAYMENTS_SECRET_KEY.startsWith('sk_live_')) ctx.addIssue({ code: 'custom', path: ['PAYMENTS_SECRET_KEY'], message: 'must be a live key in production' });
@@ -42,7 +48,8 @@ const EnvSchema = z
     }
     if (env.AUTH_SECRET === DEV_AUTH_SECRET) ctx.addIssue({ code: 'custom', path: ['AUTH_SECRET'], message: 'must be set in production' });
     if (!env.PUBLIC_URL?.startsWith('https://')) ctx.addIssue({ code: 'custom', path: ['PUBLIC_URL'], message: 'must be an https address in production' });
-  });
+  })
+  .transform((env) => ({ ...env, SEED_DEMO: env.SEED_DEMO === undefined ? env.NODE_ENV !== 'production' : env.SEED_DEMO === 'true' }));
 
 export type Env = z.infer<typeof EnvSchema>;
 

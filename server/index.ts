@@ -1,9 +1,6 @@
 import path from 'node:path';
+import { demoAccountList } from '../catalog-seed/accounts';
 import Stripe from 'stripe';
-import { demoAccountList, seedDemoAccounts } from '../catalog-seed/accounts';
-import { generateCatalogue } from '../catalog-seed/generate';
-import { catalogueIsEmpty, loadCatalogue } from '../catalog-seed/load';
-import { seedDemoShaftLogs } from '../catalog-seed/seed-shaft-logs';
 import { createApp } from './app';
 import { openDatabase } from './db/client';
 import { parseEnv, publicUrl } from './env';
@@ -17,10 +14,6 @@ try {
   process.exit(1);
 }
 const db = openDatabase(env.DATABASE_FILE);
-if (env.SEED_DEMO && catalogueIsEmpty(db)) {
-  const { parts } = loadCatalogue(db, generateCatalogue());
-  console.log(`Seeded the demo catalogue: ${parts} parts`);
-}
 const payments = new Stripe(env.PAYMENTS_SECRET_KEY, {
   host: env.PAYMENTS_API_HOST,
   port: env.PAYMENTS_API_PORT,
@@ -30,7 +23,7 @@ const payments = new Stripe(env.PAYMENTS_SECRET_KEY, {
 });
 const mailer = createMailer({ host: env.MAIL_HOST, port: env.MAIL_PORT, from: env.MAIL_FROM, ignoreTLS: env.NODE_ENV !== 'production' });
 const devTools = env.NODE_ENV !== 'production';
-const { app, auth, orders } = createApp({
+const { app, orders } = createApp({
   db,
   payments,
   mailer,
@@ -51,16 +44,6 @@ const { app, auth, orders } = createApp({
     trustedOrigins: [`http://127.0.0.1:${env.PORT}`, `http://localhost:${env.PORT}`, 'http://localhost:5173', 'http://127.0.0.1:5173'],
   },
 });
-if (env.SEED_DEMO) {
-  const made = await seedDemoAccounts(auth, db);
-  if (made > 0) console.log(`Seeded ${made} demo accounts`);
-  // Optional demo data: a failure here is reported but does not keep the shop from starting.
-  try {
-    if (seedDemoShaftLogs(db)) console.log('Seeded the demo dealer’s logged fitment check');
-  } catch (err) {
-    console.warn('The demo shaft-speed logs were not seeded:', (err as Error).message);
-  }
-}
 const server = app.listen(env.PORT, env.HOST, () => {
   console.log(`Spoolyard is running at ${publicUrl(env)}/`);
   if (devTools) {
