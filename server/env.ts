@@ -1,6 +1,5 @@
 import { z } from 'zod';
 
-const bool = (def: 'true' | 'false') => z.enum(['true', 'false']).default(def).transform((v) => v === 'true');
 const DEV_AUTH_SECRET = 'spoolyard-development-secret-change-me-0001';
 
 const EnvSchema = z
