@@ -86,7 +86,9 @@ function resolveAssumptions(input: FitmentRequest): Resolved {
   };
 }
 
-const fmt = (value: number, digits = 0) => value.toLocaleString('en-US', { maximumFractionDigits: digits, minimumFractionDigits: digits });
+// Formatters made once (toLocaleString builds a new one per call).
+const FORMATS = [0, 1, 2].map((d) => new Intl.NumberFormat('en-US', { maximumFractionDigits: d, minimumFractionDigits: d }));
+const fmt = (value: number, digits = 0) => FORMATS[Math.min(digits, 2)]!.format(value);
 
 /**
  * The fitment check: the engine's line from boost threshold through full boost to peak power, each frame judged on

@@ -48,8 +48,10 @@ const LATE_BOOST_TOLERANCE = 0.1;
 const flowText = (lbMin: number) => (lbMin >= 20 ? Math.round(lbMin).toString() : (Math.round(lbMin * 10) / 10).toFixed(1));
 const prText = (pr: number) => pr.toFixed(2);
 const pctText = (share: number) => Math.round(share * 100).toString();
-const rpmText = (rpm: number) => Math.round(rpm).toLocaleString('en-US');
-const shaftText = (rpm: number) => (Math.round(rpm / 500) * 500).toLocaleString('en-US');
+// One formatter, made once: toLocaleString builds a new one on every call, which dominated the check's time.
+const WHOLE = new Intl.NumberFormat('en-US', { maximumFractionDigits: 0 });
+const rpmText = (rpm: number) => WHOLE.format(Math.round(rpm));
+const shaftText = (rpm: number) => WHOLE.format(Math.round(rpm / 500) * 500);
 const clamp = (value: number, low: number, high: number) => Math.min(high, Math.max(low, value));
 
 export interface AssessmentContext {
@@ -353,7 +355,7 @@ export function assessFrame(
   const speedMargin = fastest === null ? -0.5 : 1 - fastest.shaftRpm / frame.maxShaftRpm;
   if (fastest !== null && fastest.shaftRpm > frame.maxShaftRpm && tooSmall.length === 0) {
     const over = ((fastest.shaftRpm / frame.maxShaftRpm - 1) * 100).toFixed(1);
-    tooSmall.push(`${at(fastest)} the turbo shaft would have to turn ${Math.round(fastest.shaftRpm).toLocaleString('en-US')} rpm, ${over} % past this frame's ${shaftText(frame.maxShaftRpm)} rpm limit`);
+    tooSmall.push(`${at(fastest)} the turbo shaft would have to turn ${rpmText(fastest.shaftRpm)} rpm, ${over} % past this frame's ${shaftText(frame.maxShaftRpm)} rpm limit`);
   }
 
   // The band is rated on corrected flow, as the map is read.
