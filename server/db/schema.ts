@@ -1,5 +1,7 @@
 import { sql } from 'drizzle-orm';
-import { CATEGORIES } from '../../shared/catalog';
+import { CATEGORIES, type Bearing } from '../../shared/catalog';
+import { DELIVERY_ZONE_KEYS } from '../../shared/pricing';
+import type { PriceImportRow } from '../../shared/schemas/admin-catalog';
 import { BOOST_UNITS, SHAFT_LOG_MAX_ROWS } from '../../shared/schemas/shaft-logs';
 import { CONDITION_GRADE_KEYS } from '../../shared/schemas/warehouse';
 import { check, index, integer, primaryKey, real, sqliteTable, text, uniqueIndex } from 'drizzle-orm/sqlite-core';
@@ -26,7 +28,7 @@ export const frames = sqliteTable('frames', {
   maxShaftRpm: integer('max_shaft_rpm').notNull(),
   weightKg: real('weight_kg').notNull(),
   flangePattern: text('flange_pattern').notNull(),
-  bearingOptions: text('bearing_options', { mode: 'json' }).$type<string[]>().notNull(),
+  bearingOptions: text('bearing_options', { mode: 'json' }).$type<Bearing[]>().notNull(),
   compressorMap: text('compressor_map', { mode: 'json' }).$type<unknown>().notNull(),
 });
 
@@ -267,7 +269,7 @@ export const carts = sqliteTable('carts', {
   id: integer('id').primaryKey({ autoIncrement: true }),
   userId: text('user_id').unique().references(() => user.id, { onDelete: 'cascade' }),
   guestToken: text('guest_token').unique(),
-  deliveryZone: text('delivery_zone').notNull().default('national'),
+  deliveryZone: text('delivery_zone', { enum: DELIVERY_ZONE_KEYS }).notNull().default('national'),
   updatedAt: stamp('updated_at'),
 });
 
@@ -454,12 +456,19 @@ export const creditNotes = sqliteTable('credit_notes', {
   createdAt: createdAt(),
 });
 
+/** A price-import row as kept until it is applied: the row the preview shows, plus what applying it needs. */
+export type PriceImportStoredRow = PriceImportRow & {
+  /** For a new part: the fields that create it. */
+  create?: { title: string; category: string; weightGrams: number; frameCode: string | null; coreDepositCents: number } | undefined;
+  coreDepositCents?: number | null | undefined;
+};
+
 export const priceImports = sqliteTable('price_imports', {
   id: integer('id').primaryKey({ autoIncrement: true }),
   userId: text('user_id').notNull().references(() => user.id),
   fileName: text('file_name').notNull(),
   status: text('status', { enum: ['preview', 'applied'] }).notNull().default('preview'),
-  rows: text('rows', { mode: 'json' }).$type<unknown[]>().notNull(),
+  rows: text('rows', { mode: 'json' }).$type<PriceImportStoredRow[]>().notNull(),
   createdAt: createdAt(),
   appliedAt: text('applied_at'),
 });

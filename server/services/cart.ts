@@ -1,5 +1,8 @@
 import crypto from 'node:crypto';
+import { and, count, eq, sql, type SQL } from 'drizzle-orm';
+import type { SQLiteColumn } from 'drizzle-orm/sqlite-core';
 import type { Db } from '../db/client';
+import { cartLines, carts, parts, partSpecs, savedFitments } from '../db/schema';
 import { HttpError } from '../middleware/errors';
 import type { CurrentUser } from '../middleware/session';
 import { normalizePartNumber } from '../../shared/part-number';
@@ -9,42 +12,31 @@ import type { SearchService } from './search';
 
 export type CartOwner = { userId: string } | { guestToken: string };
 
-interface PartLookup {
-  id: number;
-  partNumber: string;
-  title: string;
-  category: string;
-  frameCode: string | null;
-  status: string;
-  supersededBy: string | null;
-  condition: 'new' | 'exchange';
-  priceCents: number;
-  coreDepositCents: number;
-  weightGrams: number;
-  flangePattern: string | null;
-  mounting: string | null;
-  photo: string | null;
-  available: number;
-}
-
-interface LineRow extends PartLookup {
-  lineId: number;
-  quantity: number;
-  allowBackorder: number;
-  fitmentId: number | null;
-  fitmentName: string | null;
-  fitmentSummary: string | null;
-}
-
 export function buyerOf(user: CurrentUser | null): Buyer {
   const dealer = user?.role === 'dealer' && user.dealer?.status === 'approved' && user.dealer.tier ? user.dealer : null;
   return dealer ? { kind: 'dealer', tier: dealer.tier! } : { kind: 'retail' };
 }
 
-const PART_SELECT = `SELECT p.id, p.part_number AS partNumber, p.title, p.category, p.frame_code AS frameCode, p.status, p.superseded_by AS supersededBy,
-  p.condition, p.price_cents AS priceCents, p.core_deposit_cents AS coreDepositCents, p.weight_grams AS weightGrams, s.flange_pattern AS flangePattern,
-  s.mounting, json_extract(p.images, '$[0]') AS photo, p.available
-  FROM parts p LEFT JOIN part_specs s ON s.part_id = p.id`;
+const partColumns = {
+  id: parts.id,
+  partNumber: parts.partNumber,
+  title: parts.title,
+  category: parts.category,
+  frameCode: parts.frameCode,
+  status: parts.status,
+  supersededBy: parts.supersededBy,
+  condition: parts.condition,
+  priceCents: parts.priceCents,
+  coreDepositCents: parts.coreDepositCents,
+  weightGrams: parts.weightGrams,
+  flangePattern: partSpecs.flangePattern,
+  mounting: partSpecs.mounting,
+  photo: sql<string | null>`json_extract(${parts.images}, '$[0]')`,
+  available: parts.available,
+};
+
+/** The value an upsert tried to insert into a column. */
+const excluded = (column: SQLiteColumn) => sql.raw(`excluded.${column.name}`);
 
 const MATCHING = new Set(['cartridges', 'compressor-housings', 'turbine-housings', 'gaskets-fittings', 'turbochargers']);
 
@@ -69,47 +61,78 @@ export function compatibilityWarnings(lines: Array<{ lineId: number; partNumber:
 }
 
 export function createCartService(db: Db, search: SearchService, config: { taxRatePct: number }) {
-  const sqlite = db.$client;
-  const stmt = {
-    partByNumber: sqlite.prepare(`${PART_SELECT} WHERE p.normalized_number = ?`),
-    partById: sqlite.prepare(`${PART_SELECT} WHERE p.id = ?`),
-    cartByUser: sqlite.prepare('SELECT id, delivery_zone AS zone FROM carts WHERE user_id = ?'),
-    cartByGuest: sqlite.prepare('SELECT id, delivery_zone AS zone FROM carts WHERE guest_token = ?'),
-    createCart: sqlite.prepare('INSERT INTO carts (user_id, guest_token, delivery_zone) VALUES (?, ?, ?) RETURNING id'),
-    lines: sqlite.prepare(
-      `SELECT l.id AS lineId, l.quantity, l.allow_backorder AS allowBackorder, l.fitment_id AS fitmentId, f.name AS fitmentName, f.summary AS fitmentSummary, p.*
-       FROM cart_lines l JOIN (${PART_SELECT}) p ON p.id = l.part_id LEFT JOIN saved_fitments f ON f.id = l.fitment_id WHERE l.cart_id = ? ORDER BY l.id`,
-    ),
-    lineCount: sqlite.prepare('SELECT count(*) AS n FROM cart_lines WHERE cart_id = ?'),
-    upsertLine: sqlite.prepare(
-      `INSERT INTO cart_lines (cart_id, part_id, quantity, fitment_id, allow_backorder) VALUES (?, ?, ?, ?, ?)
-       ON CONFLICT (cart_id, part_id) DO UPDATE SET quantity = min(${QUANTITY_MAX}, cart_lines.quantity + excluded.quantity),
-         fitment_id = COALESCE(excluded.fitment_id, cart_lines.fitment_id), allow_backorder = max(cart_lines.allow_backorder, excluded.allow_backorder)
-       RETURNING id`,
-    ),
-    lineOf: sqlite.prepare('SELECT id FROM cart_lines WHERE id = ? AND cart_id = ?'),
-    fitmentOf: sqlite.prepare('SELECT id FROM saved_fitments WHERE id = ? AND user_id = ?'),
-    touch: sqlite.prepare("UPDATE carts SET updated_at = strftime('%Y-%m-%dT%H:%M:%fZ','now') WHERE id = ?"),
-  };
+  // Read on every cart request and for each row of a quick order or stock-list upload (up to 500 rows), so
+  // these are built and prepared once.
+  const partBy = (where: SQL) => db.select(partColumns).from(parts).leftJoin(partSpecs, eq(partSpecs.partId, parts.id)).where(where).prepare();
+  const partByNumber = partBy(eq(parts.normalizedNumber, sql.placeholder('number')));
+  const partById = partBy(eq(parts.id, sql.placeholder('id')));
+  const cartByUser = db.select({ id: carts.id, zone: carts.deliveryZone }).from(carts).where(eq(carts.userId, sql.placeholder('userId'))).prepare();
+  const cartByGuest = db.select({ id: carts.id, zone: carts.deliveryZone }).from(carts).where(eq(carts.guestToken, sql.placeholder('guestToken'))).prepare();
+  const linesOf = db
+    .select({
+      lineId: cartLines.id,
+      quantity: cartLines.quantity,
+      allowBackorder: cartLines.allowBackorder,
+      fitmentId: cartLines.fitmentId,
+      fitmentName: savedFitments.name,
+      fitmentSummary: savedFitments.summary,
+      ...partColumns,
+    })
+    .from(cartLines)
+    .innerJoin(parts, eq(parts.id, cartLines.partId))
+    .leftJoin(partSpecs, eq(partSpecs.partId, parts.id))
+    .leftJoin(savedFitments, eq(savedFitments.id, cartLines.fitmentId))
+    .where(eq(cartLines.cartId, sql.placeholder('cartId')))
+    .orderBy(cartLines.id)
+    .prepare();
 
-  const cartRow = (owner: CartOwner) =>
-    ('userId' in owner ? stmt.cartByUser.get(owner.userId) : stmt.cartByGuest.get(owner.guestToken)) as { id: number; zone: DeliveryZone } | undefined;
+  const upsertLine = (line: { cartId: number; partId: number; quantity: number; fitmentId: number | null; allowBackorder: boolean }) =>
+    db
+      .insert(cartLines)
+      .values(line)
+      .onConflictDoUpdate({
+        target: [cartLines.cartId, cartLines.partId],
+        set: {
+          quantity: sql`min(${QUANTITY_MAX}, ${cartLines.quantity} + ${excluded(cartLines.quantity)})`,
+          fitmentId: sql`COALESCE(${excluded(cartLines.fitmentId)}, ${cartLines.fitmentId})`,
+          allowBackorder: sql`max(${cartLines.allowBackorder}, ${excluded(cartLines.allowBackorder)})`,
+        },
+      })
+      .run();
+  const lineOf = (lineId: number, cartId: number) =>
+    db
+      .select({ id: cartLines.id })
+      .from(cartLines)
+      .where(and(eq(cartLines.id, lineId), eq(cartLines.cartId, cartId)))
+      .get();
+  const fitmentOf = (fitmentId: number, userId: string) =>
+    db
+      .select({ id: savedFitments.id })
+      .from(savedFitments)
+      .where(and(eq(savedFitments.id, fitmentId), eq(savedFitments.userId, userId)))
+      .get();
+
+  const cartRow = (owner: CartOwner) => ('userId' in owner ? cartByUser.get({ userId: owner.userId }) : cartByGuest.get({ guestToken: owner.guestToken }));
 
   function cartId(owner: CartOwner, create: boolean): number | null {
     const found = cartRow(owner);
     if (found) return found.id;
     if (!create) return null;
-    const row = stmt.createCart.get('userId' in owner ? owner.userId : null, 'guestToken' in owner ? owner.guestToken : null, 'national') as { id: number };
+    const row = db
+      .insert(carts)
+      .values({ userId: 'userId' in owner ? owner.userId : null, guestToken: 'guestToken' in owner ? owner.guestToken : null, deliveryZone: 'national' })
+      .returning({ id: carts.id })
+      .get();
     return row.id;
   }
 
   /** Resolves a typed number to the part sold today, following supersessions. */
-  function resolvePart(typed: string): { part: PartLookup; replacedFrom: string | null } | null {
-    let part = stmt.partByNumber.get(normalizePartNumber(typed)) as PartLookup | undefined;
+  function resolvePart(typed: string) {
+    let part = partByNumber.get({ number: normalizePartNumber(typed) });
     if (!part) return null;
     let replacedFrom: string | null = null;
     for (let hops = 0; part.status === 'superseded' && part.supersededBy && hops < 5; hops++) {
-      const next = stmt.partByNumber.get(normalizePartNumber(part.supersededBy)) as PartLookup | undefined;
+      const next = partByNumber.get({ number: normalizePartNumber(part.supersededBy) });
       if (!next) break;
       replacedFrom ??= part.partNumber;
       part = next;
@@ -118,11 +141,10 @@ export function createCartService(db: Db, search: SearchService, config: { taxRa
   }
 
   function suggestionsFor(typed: string) {
-    return search
-      .search(typed, 3)
-      .map((h) => stmt.partById.get(h.partId) as PartLookup | undefined)
-      .filter((p): p is PartLookup => !!p && p.status !== 'superseded')
-      .map((p) => ({ partNumber: p.partNumber, title: p.title }));
+    return search.search(typed, 3).flatMap((h) => {
+      const p = partById.get({ id: h.partId });
+      return p && p.status !== 'superseded' ? [{ partNumber: p.partNumber, title: p.title }] : [];
+    });
   }
 
   /** Checks rows of part number + quantity as a person typed them (quick order, stock-list upload). */
@@ -154,7 +176,7 @@ export function createCartService(db: Db, search: SearchService, config: { taxRa
 
   function view(owner: CartOwner, user: CurrentUser | null, notices: string[] = []): CartView {
     const cart = cartRow(owner);
-    const rows = cart ? (stmt.lines.all(cart.id) as LineRow[]) : [];
+    const rows = cart ? linesOf.all({ cartId: cart.id }) : [];
     const zone = cart?.zone ?? 'national';
     const buyer = buyerOf(user);
     // A dealer's freight is priced to the trade account's zone; the view reports the zone it priced with.
@@ -177,7 +199,7 @@ export function createCartService(db: Db, search: SearchService, config: { taxRa
         condition: r.condition,
         quantity: r.quantity,
         available,
-        allowBackorder: r.allowBackorder === 1,
+        allowBackorder: r.allowBackorder,
         backorderQuantity: Math.max(0, r.quantity - available),
         unitCents: priced.unitCents,
         retailUnitCents: r.priceCents,
@@ -203,7 +225,8 @@ export function createCartService(db: Db, search: SearchService, config: { taxRa
 
   function addLines(owner: CartOwner, user: CurrentUser | null, lines: Array<{ partNumber: string; quantity: number; fitmentId?: number; allowBackorder?: boolean }>) {
     const notices: string[] = [];
-    sqlite.transaction(() => {
+    // The helpers query through db: better-sqlite3 has one connection, so they run inside this transaction.
+    db.transaction((tx) => {
       const id = cartId(owner, true)!;
       for (const line of lines) {
         const resolved = resolvePart(line.partNumber);
@@ -214,57 +237,50 @@ export function createCartService(db: Db, search: SearchService, config: { taxRa
         const { part, replacedFrom } = resolved;
         if (replacedFrom) notices.push(`${replacedFrom} is superseded: ${part.partNumber} was added instead.`);
         if (part.status === 'discontinued' && part.available <= 0) throw new HttpError(409, `${part.partNumber} is discontinued and out of stock`);
-        if (line.fitmentId !== undefined && (!user || !stmt.fitmentOf.get(line.fitmentId, user.id))) throw new HttpError(404, 'No such saved fitment check');
-        stmt.upsertLine.run(id, part.id, line.quantity, line.fitmentId ?? null, line.allowBackorder ? 1 : 0);
+        if (line.fitmentId !== undefined && (!user || !fitmentOf(line.fitmentId, user.id))) throw new HttpError(404, 'No such saved fitment check');
+        upsertLine({ cartId: id, partId: part.id, quantity: line.quantity, fitmentId: line.fitmentId ?? null, allowBackorder: line.allowBackorder ?? false });
       }
-      if ((stmt.lineCount.get(id) as { n: number }).n > CART_LINES_MAX) throw new HttpError(409, `A cart holds at most ${CART_LINES_MAX} lines`);
-      stmt.touch.run(id);
-    })();
+      const held = tx.select({ n: count() }).from(cartLines).where(eq(cartLines.cartId, id)).get();
+      if ((held?.n ?? 0) > CART_LINES_MAX) throw new HttpError(409, `A cart holds at most ${CART_LINES_MAX} lines`);
+      tx.update(carts).set({ updatedAt: sql`strftime('%Y-%m-%dT%H:%M:%fZ','now')` }).where(eq(carts.id, id)).run();
+    });
     return view(owner, user, notices);
   }
 
   function updateLine(owner: CartOwner, user: CurrentUser | null, lineId: number, change: { quantity?: number; allowBackorder?: boolean; fitmentId?: number | null }) {
     const id = cartId(owner, false);
-    if (!id || !stmt.lineOf.get(lineId, id)) throw new HttpError(404, 'No such line in your cart');
+    if (!id || !lineOf(lineId, id)) throw new HttpError(404, 'No such line in your cart');
     if (change.allowBackorder && buyerOf(user).kind !== 'dealer') throw new HttpError(403, 'Back-orders are for trade accounts');
-    if (change.fitmentId && (!user || !stmt.fitmentOf.get(change.fitmentId, user.id))) throw new HttpError(404, 'No such saved fitment check');
-    const sets: string[] = [];
-    const params: Array<number | null> = [];
-    const set = (column: string, value: number | null) => {
-      sets.push(`${column} = ?`);
-      params.push(value);
-    };
-    if (change.quantity !== undefined) set('quantity', change.quantity);
-    if (change.allowBackorder !== undefined) set('allow_backorder', change.allowBackorder ? 1 : 0);
-    if (change.fitmentId !== undefined) set('fitment_id', change.fitmentId);
-    sqlite.prepare(`UPDATE cart_lines SET ${sets.join(', ')} WHERE id = ?`).run(...params, lineId);
+    if (change.fitmentId && (!user || !fitmentOf(change.fitmentId, user.id))) throw new HttpError(404, 'No such saved fitment check');
+    // Fields left undefined are not set; a null fitment is set, which unlinks the check.
+    db.update(cartLines).set({ quantity: change.quantity, allowBackorder: change.allowBackorder, fitmentId: change.fitmentId }).where(eq(cartLines.id, lineId)).run();
     return view(owner, user);
   }
 
   function removeLine(owner: CartOwner, user: CurrentUser | null, lineId: number) {
     const id = cartId(owner, false);
-    if (!id || !stmt.lineOf.get(lineId, id)) throw new HttpError(404, 'No such line in your cart');
-    sqlite.prepare('DELETE FROM cart_lines WHERE id = ?').run(lineId);
+    if (!id || !lineOf(lineId, id)) throw new HttpError(404, 'No such line in your cart');
+    db.delete(cartLines).where(eq(cartLines.id, lineId)).run();
     return view(owner, user);
   }
 
   function setZone(owner: CartOwner, user: CurrentUser | null, zone: DeliveryZone) {
     const id = cartId(owner, true)!;
-    sqlite.prepare('UPDATE carts SET delivery_zone = ? WHERE id = ?').run(zone, id);
+    db.update(carts).set({ deliveryZone: zone }).where(eq(carts.id, id)).run();
     return view(owner, user);
   }
 
   /** At sign-in the guest cart's lines join the user's cart (quantities add up), and the guest cart goes. */
   function mergeGuest(guestToken: string, userId: string) {
-    sqlite.transaction(() => {
-      const guest = stmt.cartByGuest.get(guestToken) as { id: number } | undefined;
+    db.transaction((tx) => {
+      const guest = cartByGuest.get({ guestToken });
       if (!guest) return;
       const target = cartId({ userId }, true)!;
-      for (const l of sqlite.prepare('SELECT part_id AS partId, quantity FROM cart_lines WHERE cart_id = ?').all(guest.id) as Array<{ partId: number; quantity: number }>) {
-        stmt.upsertLine.run(target, l.partId, l.quantity, null, 0);
+      for (const l of tx.select({ partId: cartLines.partId, quantity: cartLines.quantity }).from(cartLines).where(eq(cartLines.cartId, guest.id)).all()) {
+        upsertLine({ cartId: target, partId: l.partId, quantity: l.quantity, fitmentId: null, allowBackorder: false });
       }
-      sqlite.prepare('DELETE FROM carts WHERE id = ?').run(guest.id);
-    })();
+      tx.delete(carts).where(eq(carts.id, guest.id)).run();
+    });
   }
 
   return { view, addLines, updateLine, removeLine, setZone, mergeGuest, validateRows, resolvePart, cartId, newGuestToken: () => crypto.randomBytes(18).toString('base64url') };

@@ -1,28 +1,35 @@
 import { parse } from 'csv-parse/sync';
+import { eq, getTableColumns, or, sql } from 'drizzle-orm';
 import type { Db } from '../db/client';
+import { frames, partAliases, partLinks, parts, partSpecs, priceImports, type PriceImportStoredRow as StoredRow } from '../db/schema';
 import { HttpError } from '../middleware/errors';
 import { CATEGORY_SLUGS } from '../../shared/catalog';
 import { normalizePartNumber } from '../../shared/part-number';
-import { PRICE_IMPORT_MAX_ROWS, type PartForm, type PriceImport, type PriceImportRow } from '../../shared/schemas/admin-catalog';
+import { PRICE_IMPORT_MAX_ROWS, type PartForm, type PriceImport } from '../../shared/schemas/admin-catalog';
 
-const SPEC_COLUMNS = {
-  compressorAr: 'compressor_ar',
-  turbineAr: 'turbine_ar',
-  trimPct: 'trim_pct',
-  inducerMm: 'inducer_mm',
-  exducerMm: 'exducer_mm',
-  flangePattern: 'flange_pattern',
-  inletMm: 'inlet_mm',
-  outletMm: 'outlet_mm',
-  material: 'material',
-  bearing: 'bearing',
-  wastegate: 'wastegate',
-  cooling: 'cooling',
-  gaugeType: 'gauge_type',
-  rangeText: 'range_text',
-  mounting: 'mounting',
-  connection: 'connection',
-} as const;
+const NOW = sql`strftime('%Y-%m-%dT%H:%M:%fZ','now')`;
+
+const { partId: _partId, ...specColumns } = getTableColumns(partSpecs);
+
+/** Every spec column, so saving a form clears the properties it leaves empty. */
+const specValues = (s: PartForm['specs']): Omit<typeof partSpecs.$inferSelect, 'partId'> => ({
+  compressorAr: s.compressorAr ?? null,
+  turbineAr: s.turbineAr ?? null,
+  trimPct: s.trimPct ?? null,
+  inducerMm: s.inducerMm ?? null,
+  exducerMm: s.exducerMm ?? null,
+  flangePattern: s.flangePattern ?? null,
+  inletMm: s.inletMm ?? null,
+  outletMm: s.outletMm ?? null,
+  material: s.material ?? null,
+  bearing: s.bearing ?? null,
+  wastegate: s.wastegate ?? null,
+  cooling: s.cooling ?? null,
+  gaugeType: s.gaugeType ?? null,
+  rangeText: s.rangeText ?? null,
+  mounting: s.mounting ?? null,
+  connection: s.connection ?? null,
+});
 
 /** Dollars as people write them ("1,234.50", "$99") to integer cents; null when it is not a price. */
 export function parseDollarsToCents(text: string): number | null {
@@ -32,123 +39,214 @@ export function parseDollarsToCents(text: string): number | null {
   return Number(whole) * 100 + Number(frac.padEnd(2, '0'));
 }
 
-interface StoredRow extends PriceImportRow {
-  /** For a new part: the fields that create it. */
-  create?: { title: string; category: string; weightGrams: number; frameCode: string | null; coreDepositCents: number } | undefined;
-  coreDepositCents?: number | null | undefined;
-}
-
 export function createCatalogAdmin(deps: { db: Db; refreshSearch: (ids: number[]) => void; rebuildSearch: () => void }) {
   const { db } = deps;
-  const sqlite = db.$client;
-  const partId = (partNumber: string) => sqlite.prepare('SELECT id FROM parts WHERE normalized_number = ?').pluck().get(normalizePartNumber(partNumber)) as number | undefined;
+
+  // Helpers query through db: better-sqlite3 has one connection, so they run inside whichever transaction is open.
+  // A price file has up to 60,000 rows, each checked on upload and again on apply: these run once per row, so
+  // they are built and prepared once.
+  const partByNumber = db
+    .select({ partNumber: parts.partNumber, title: parts.title, price: parts.priceCents, core: parts.coreDepositCents, condition: parts.condition })
+    .from(parts)
+    .where(eq(parts.normalizedNumber, sql.placeholder('number')))
+    .prepare();
+  const frameByCode = db.select({ code: frames.code }).from(frames).where(eq(frames.code, sql.placeholder('code'))).prepare();
+  const updatePrice = db
+    .update(parts)
+    .set({
+      priceCents: sql`${sql.placeholder('priceCents')}`,
+      coreDepositCents: sql`COALESCE(${sql.placeholder('coreDepositCents')}, ${parts.coreDepositCents})`,
+      updatedAt: NOW,
+    })
+    .where(eq(parts.normalizedNumber, sql.placeholder('number')))
+    .returning({ id: parts.id })
+    .prepare();
+  const insertPart = db
+    .insert(parts)
+    .values({
+      partNumber: sql.placeholder('partNumber'),
+      normalizedNumber: sql.placeholder('normalizedNumber'),
+      title: sql.placeholder('title'),
+      category: sql.placeholder('category'),
+      frameCode: sql.placeholder('frameCode'),
+      condition: sql.placeholder('condition'),
+      priceCents: sql.placeholder('priceCents'),
+      coreDepositCents: sql.placeholder('coreDepositCents'),
+      weightGrams: sql.placeholder('weightGrams'),
+    })
+    .returning({ id: parts.id })
+    .prepare();
+  const insertBlankSpecs = db.insert(partSpecs).values({ partId: sql.placeholder('partId') }).prepare();
+
+  const findPart = (partNumber: string) =>
+    db
+      .select({ id: parts.id, partNumber: parts.partNumber })
+      .from(parts)
+      .where(eq(parts.normalizedNumber, normalizePartNumber(partNumber)))
+      .get();
   const partOr404 = (partNumber: string) => {
-    const id = partId(partNumber);
-    if (id === undefined) throw new HttpError(404, `No part ${partNumber}`);
-    return id;
+    const part = findPart(partNumber);
+    if (!part) throw new HttpError(404, `No part ${partNumber}`);
+    return part;
   };
-  const frameExists = (code: string) => !!sqlite.prepare('SELECT 1 FROM frames WHERE code = ?').get(code);
+  const frameExists = (code: string) => frameByCode.get({ code }) !== undefined;
 
   function getForm(partNumber: string) {
-    const id = partOr404(partNumber);
-    const p = sqlite
-      .prepare(
-        `SELECT part_number AS partNumber, title, category, frame_code AS frameCode, condition, status, price_cents AS priceCents, core_deposit_cents AS coreDepositCents,
-                weight_grams AS weightGrams, min_stock AS minStock, description, images, superseded_by AS supersededBy FROM parts WHERE id = ?`,
-      )
-      .get(id) as Record<string, unknown>;
-    const specsRow = (sqlite.prepare(`SELECT ${Object.values(SPEC_COLUMNS).join(', ')} FROM part_specs WHERE part_id = ?`).get(id) ?? {}) as Record<string, unknown>;
-    const specs = Object.fromEntries(Object.entries(SPEC_COLUMNS).map(([k, c]) => [k, specsRow[c] ?? null]));
-    const goesWith = sqlite.prepare('SELECT p.part_number FROM part_links l JOIN parts p ON p.id = l.related_part_id WHERE l.part_id = ? ORDER BY p.part_number').pluck().all(id);
-    return { ...p, status: p.status === 'superseded' ? 'discontinued' : p.status, images: JSON.parse(String(p.images)) as string[], specs, goesWith };
+    const { id } = partOr404(partNumber);
+    const p = db
+      .select({
+        partNumber: parts.partNumber,
+        title: parts.title,
+        category: parts.category,
+        frameCode: parts.frameCode,
+        condition: parts.condition,
+        status: parts.status,
+        priceCents: parts.priceCents,
+        coreDepositCents: parts.coreDepositCents,
+        weightGrams: parts.weightGrams,
+        minStock: parts.minStock,
+        description: parts.description,
+        images: parts.images,
+        supersededBy: parts.supersededBy,
+      })
+      .from(parts)
+      .where(eq(parts.id, id))
+      .get();
+    if (!p) throw new HttpError(404, `No part ${partNumber}`);
+    const specs = db.select(specColumns).from(partSpecs).where(eq(partSpecs.partId, id)).get() ?? specValues({});
+    const goesWith = db
+      .select({ partNumber: parts.partNumber })
+      .from(partLinks)
+      .innerJoin(parts, eq(parts.id, partLinks.relatedPartId))
+      .where(eq(partLinks.partId, id))
+      .orderBy(parts.partNumber)
+      .all()
+      .map((r) => r.partNumber);
+    return { ...p, status: p.status === 'superseded' ? 'discontinued' : p.status, specs, goesWith };
   }
 
   const writeSpecs = (id: number, specs: PartForm['specs']) => {
-    const cols = Object.entries(SPEC_COLUMNS);
-    sqlite
-      .prepare(`INSERT OR REPLACE INTO part_specs (part_id, ${cols.map(([, c]) => c).join(', ')}) VALUES (?, ${cols.map(() => '?').join(', ')})`)
-      .run(id, ...cols.map(([k]) => (specs as Record<string, unknown>)[k] ?? null));
+    const values = specValues(specs);
+    db.insert(partSpecs)
+      .values({ partId: id, ...values })
+      .onConflictDoUpdate({ target: partSpecs.partId, set: values })
+      .run();
   };
 
   function create(form: PartForm) {
-    if (partId(form.partNumber) !== undefined) throw new HttpError(409, `${form.partNumber} already exists`, { partNumber: ['this part number is taken'] });
+    if (findPart(form.partNumber) !== undefined) throw new HttpError(409, `${form.partNumber} already exists`, { partNumber: ['this part number is taken'] });
     if (form.frameCode && !frameExists(form.frameCode)) throw new HttpError(400, `No frame ${form.frameCode}`, { frameCode: ['no such frame'] });
-    const id = sqlite.transaction(() => {
-      const row = sqlite
-        .prepare(
-          `INSERT INTO parts (part_number, normalized_number, title, category, frame_code, status, condition, price_cents, core_deposit_cents, weight_grams, description, min_stock)
-           VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?) RETURNING id`,
-        )
-        .get(form.partNumber, normalizePartNumber(form.partNumber), form.title, form.category, form.frameCode, form.status, form.condition, form.priceCents, form.coreDepositCents, form.weightGrams, form.description, form.minStock) as { id: number };
+    const id = db.transaction((tx) => {
+      const row = tx
+        .insert(parts)
+        .values({
+          partNumber: form.partNumber,
+          normalizedNumber: normalizePartNumber(form.partNumber),
+          title: form.title,
+          category: form.category,
+          frameCode: form.frameCode,
+          status: form.status,
+          condition: form.condition,
+          priceCents: form.priceCents,
+          coreDepositCents: form.coreDepositCents,
+          weightGrams: form.weightGrams,
+          description: form.description,
+          minStock: form.minStock,
+        })
+        .returning({ id: parts.id })
+        .get();
       writeSpecs(row.id, form.specs);
       return row.id;
-    })();
+    });
     deps.refreshSearch([id]);
     return { partNumber: form.partNumber };
   }
 
   function update(partNumber: string, form: PartForm) {
-    const id = partOr404(partNumber);
+    const { id } = partOr404(partNumber);
     if (normalizePartNumber(form.partNumber) !== normalizePartNumber(partNumber)) throw new HttpError(400, 'A part number cannot change; supersede the part instead', { partNumber: ['supersede instead of renaming'] });
     if (form.frameCode && !frameExists(form.frameCode)) throw new HttpError(400, `No frame ${form.frameCode}`, { frameCode: ['no such frame'] });
-    sqlite.transaction(() => {
-      sqlite
-        .prepare(
-          `UPDATE parts SET title = ?, category = ?, frame_code = ?, status = CASE WHEN status = 'superseded' THEN status ELSE ? END, condition = ?, price_cents = ?, core_deposit_cents = ?,
-             weight_grams = ?, description = ?, min_stock = ?, updated_at = strftime('%Y-%m-%dT%H:%M:%fZ','now') WHERE id = ?`,
-        )
-        .run(form.title, form.category, form.frameCode, form.status, form.condition, form.priceCents, form.coreDepositCents, form.weightGrams, form.description, form.minStock, id);
+    db.transaction((tx) => {
+      tx.update(parts)
+        .set({
+          title: form.title,
+          category: form.category,
+          frameCode: form.frameCode,
+          // A superseded part stays superseded: the form offers only active and discontinued.
+          status: sql`CASE WHEN ${parts.status} = 'superseded' THEN ${parts.status} ELSE ${form.status} END`,
+          condition: form.condition,
+          priceCents: form.priceCents,
+          coreDepositCents: form.coreDepositCents,
+          weightGrams: form.weightGrams,
+          description: form.description,
+          minStock: form.minStock,
+          updatedAt: NOW,
+        })
+        .where(eq(parts.id, id))
+        .run();
       writeSpecs(id, form.specs);
-    })();
+    });
     deps.refreshSearch([id]);
     return { partNumber };
   }
 
   /** The old number stays findable: it becomes an alias of the new part and answers with its replacement. */
   function supersede(partNumber: string, replacedBy: string) {
-    const oldId = partOr404(partNumber);
-    const newId = partId(replacedBy);
-    if (newId === undefined) throw new HttpError(400, `No part ${replacedBy}`, { replacedBy: ['no such part'] });
-    if (newId === oldId) throw new HttpError(400, 'A part cannot replace itself', { replacedBy: ['choose another part'] });
-    const newNumber = sqlite.prepare('SELECT part_number FROM parts WHERE id = ?').pluck().get(newId) as string;
-    const oldNumber = sqlite.prepare('SELECT part_number FROM parts WHERE id = ?').pluck().get(oldId) as string;
-    sqlite.transaction(() => {
+    const old = partOr404(partNumber);
+    const replacement = findPart(replacedBy);
+    if (replacement === undefined) throw new HttpError(400, `No part ${replacedBy}`, { replacedBy: ['no such part'] });
+    if (replacement.id === old.id) throw new HttpError(400, 'A part cannot replace itself', { replacedBy: ['choose another part'] });
+    db.transaction((tx) => {
       // No cycles: the replacement must not lead back to this part.
-      let next: string | null = newNumber;
+      let next: string | null = replacement.partNumber;
       for (let hops = 0; next && hops < 10; hops++) {
-        if (normalizePartNumber(next) === normalizePartNumber(oldNumber)) throw new HttpError(409, 'That would make a loop of supersessions');
-        next = sqlite.prepare('SELECT superseded_by FROM parts WHERE normalized_number = ?').pluck().get(normalizePartNumber(next)) as string | null;
+        if (normalizePartNumber(next) === normalizePartNumber(old.partNumber)) throw new HttpError(409, 'That would make a loop of supersessions');
+        next =
+          tx
+            .select({ supersededBy: parts.supersededBy })
+            .from(parts)
+            .where(eq(parts.normalizedNumber, normalizePartNumber(next)))
+            .get()?.supersededBy ?? null;
       }
-      sqlite.prepare("UPDATE parts SET status = 'superseded', superseded_by = ? WHERE id = ?").run(newNumber, oldId);
-      sqlite.prepare("INSERT INTO part_aliases (part_id, alias, normalized_alias, kind, source) VALUES (?, ?, ?, 'superseded', 'earlier number')").run(newId, oldNumber, normalizePartNumber(oldNumber));
-    })();
-    deps.refreshSearch([oldId, newId]);
-    return { partNumber: oldNumber, supersededBy: newNumber };
+      tx.update(parts).set({ status: 'superseded', supersededBy: replacement.partNumber }).where(eq(parts.id, old.id)).run();
+      tx.insert(partAliases)
+        .values({ partId: replacement.id, alias: old.partNumber, normalizedAlias: normalizePartNumber(old.partNumber), kind: 'superseded', source: 'earlier number' })
+        .run();
+    });
+    deps.refreshSearch([old.id, replacement.id]);
+    return { partNumber: old.partNumber, supersededBy: replacement.partNumber };
   }
 
   function setLinks(partNumber: string, numbers: string[]) {
-    const id = partOr404(partNumber);
+    const { id } = partOr404(partNumber);
     const ids = numbers.map((n) => {
-      const other = partId(n);
+      const other = findPart(n);
       if (other === undefined) throw new HttpError(400, `No part ${n}`, { partNumbers: [`no part ${n}`] });
-      return other;
+      return other.id;
     });
-    sqlite.transaction(() => {
-      sqlite.prepare('DELETE FROM part_links WHERE part_id = ? OR related_part_id = ?').run(id, id);
+    db.transaction((tx) => {
+      tx.delete(partLinks)
+        .where(or(eq(partLinks.partId, id), eq(partLinks.relatedPartId, id)))
+        .run();
       for (const other of new Set(ids)) {
         if (other === id) continue;
-        sqlite.prepare("INSERT OR IGNORE INTO part_links (part_id, related_part_id, kind) VALUES (?, ?, 'goes-with')").run(id, other);
-        sqlite.prepare("INSERT OR IGNORE INTO part_links (part_id, related_part_id, kind) VALUES (?, ?, 'goes-with')").run(other, id);
+        tx.insert(partLinks)
+          .values([
+            { partId: id, relatedPartId: other, kind: 'goes-with' },
+            { partId: other, relatedPartId: id, kind: 'goes-with' },
+          ])
+          .onConflictDoNothing()
+          .run();
       }
-    })();
+    });
     return getForm(partNumber);
   }
 
   function addPhotos(partNumber: string, names: string[]) {
-    const id = partOr404(partNumber);
-    const current = JSON.parse(sqlite.prepare('SELECT images FROM parts WHERE id = ?').pluck().get(id) as string) as string[];
+    const { id } = partOr404(partNumber);
+    const current = db.select({ images: parts.images }).from(parts).where(eq(parts.id, id)).get()?.images ?? [];
     const images = [...current, ...names].slice(-12);
-    sqlite.prepare('UPDATE parts SET images = ? WHERE id = ?').run(JSON.stringify(images), id);
+    db.update(parts).set({ images }).where(eq(parts.id, id)).run();
     return { images };
   }
 
@@ -160,9 +258,7 @@ export function createCatalogAdmin(deps: { db: Db; refreshSearch: (ids: number[]
     if (price === null || price <= 0) return { ...base, message: `price “${(input.price ?? '').slice(0, 20)}” is not an amount in dollars such as 123.45` };
     const core = input.core_deposit?.trim() ? parseDollarsToCents(input.core_deposit) : null;
     if (input.core_deposit?.trim() && core === null) return { ...base, message: `core_deposit “${input.core_deposit.slice(0, 20)}” is not an amount in dollars` };
-    const existing = sqlite
-      .prepare('SELECT part_number AS partNumber, title, price_cents AS price, core_deposit_cents AS core, condition FROM parts WHERE normalized_number = ?')
-      .get(normalizePartNumber(partNumber)) as { partNumber: string; title: string; price: number; core: number; condition: string } | undefined;
+    const existing = partByNumber.get({ number: normalizePartNumber(partNumber) });
     if (existing) {
       if (core !== null && core > 0 && existing.condition !== 'exchange') return { ...base, title: existing.title, message: 'only exchange units carry a core deposit' };
       const changed = existing.price !== price || (core !== null && core !== existing.core);
@@ -187,11 +283,13 @@ export function createCatalogAdmin(deps: { db: Db; refreshSearch: (ids: number[]
   }
 
   function view(id: number): PriceImport {
-    const row = sqlite.prepare('SELECT id, file_name AS fileName, status, rows, created_at AS createdAt, applied_at AS appliedAt FROM price_imports WHERE id = ?').get(id) as
-      | { id: number; fileName: string; status: 'preview' | 'applied'; rows: string; createdAt: string; appliedAt: string | null }
-      | undefined;
+    const row = db
+      .select({ id: priceImports.id, fileName: priceImports.fileName, status: priceImports.status, rows: priceImports.rows, createdAt: priceImports.createdAt, appliedAt: priceImports.appliedAt })
+      .from(priceImports)
+      .where(eq(priceImports.id, id))
+      .get();
     if (!row) throw new HttpError(404, 'No such price import');
-    const rows = JSON.parse(row.rows) as StoredRow[];
+    const rows = row.rows;
     const counts = { new: 0, changed: 0, unchanged: 0, error: 0 };
     for (const r of rows) counts[r.status]++;
     // Errors first, so they are never hidden past the first page; unchanged rows are only counted.
@@ -231,15 +329,18 @@ export function createCatalogAdmin(deps: { db: Db; refreshSearch: (ids: number[]
       if (key) seen.set(key, i + 2);
       return checked;
     });
-    const id = sqlite.prepare('INSERT INTO price_imports (user_id, file_name, rows) VALUES (?, ?, ?) RETURNING id').pluck().get(userId, fileName.slice(0, 120), JSON.stringify(rows)) as number;
+    const { id } = db.insert(priceImports).values({ userId, fileName: fileName.slice(0, 120), rows }).returning({ id: priceImports.id }).get();
     return view(id);
   }
 
   function editRows(id: number, change: (rows: StoredRow[]) => StoredRow[]) {
-    const current = sqlite.prepare('SELECT status, rows FROM price_imports WHERE id = ?').get(id) as { status: string; rows: string } | undefined;
+    const current = db.select({ status: priceImports.status, rows: priceImports.rows }).from(priceImports).where(eq(priceImports.id, id)).get();
     if (!current) throw new HttpError(404, 'No such price import');
     if (current.status !== 'preview') throw new HttpError(409, 'This import was already applied');
-    sqlite.prepare('UPDATE price_imports SET rows = ? WHERE id = ?').run(JSON.stringify(change(JSON.parse(current.rows) as StoredRow[])), id);
+    db.update(priceImports)
+      .set({ rows: change(current.rows) })
+      .where(eq(priceImports.id, id))
+      .run();
     return view(id);
   }
 
@@ -257,35 +358,40 @@ export function createCatalogAdmin(deps: { db: Db; refreshSearch: (ids: number[]
   /** Applies every row in one transaction; a file with an error row applies nothing. */
   function apply(id: number) {
     const touched: number[] = [];
-    sqlite.transaction(() => {
-      const current = sqlite.prepare('SELECT status, rows FROM price_imports WHERE id = ?').get(id) as { status: string; rows: string } | undefined;
+    db.transaction((tx) => {
+      const current = tx.select({ status: priceImports.status, rows: priceImports.rows }).from(priceImports).where(eq(priceImports.id, id)).get();
       if (!current) throw new HttpError(404, 'No such price import');
       if (current.status !== 'preview') throw new HttpError(409, 'This import was already applied');
       // Check again at apply time: the catalogue may have changed since the preview.
-      const rows = (JSON.parse(current.rows) as StoredRow[]).map((r) => checkRow(r.row, r.input));
+      const rows = current.rows.map((r) => checkRow(r.row, r.input));
       const errors = rows.filter((r) => r.status === 'error');
       if (errors.length > 0) {
-        sqlite.prepare('UPDATE price_imports SET rows = ? WHERE id = ?').run(JSON.stringify(rows), id);
+        tx.update(priceImports).set({ rows }).where(eq(priceImports.id, id)).run();
         throw new HttpError(409, `${errors.length} ${errors.length === 1 ? 'row is' : 'rows are'} in error: fix or drop ${errors.length === 1 ? 'it' : 'them'} first; nothing was applied`);
       }
-      const updatePrice = sqlite.prepare("UPDATE parts SET price_cents = ?, core_deposit_cents = COALESCE(?, core_deposit_cents), updated_at = strftime('%Y-%m-%dT%H:%M:%fZ','now') WHERE normalized_number = ? RETURNING id");
-      const insert = sqlite.prepare(
-        `INSERT INTO parts (part_number, normalized_number, title, category, frame_code, condition, price_cents, core_deposit_cents, weight_grams)
-         VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?) RETURNING id`,
-      );
       for (const r of rows) {
         if (r.status === 'changed') {
-          const row = updatePrice.get(r.newPriceCents, r.coreDepositCents ?? null, normalizePartNumber(r.partNumber)) as { id: number };
-          touched.push(row.id);
+          const row = updatePrice.get({ priceCents: r.newPriceCents, coreDepositCents: r.coreDepositCents ?? null, number: normalizePartNumber(r.partNumber) });
+          if (row) touched.push(row.id);
         } else if (r.status === 'new' && r.create) {
           const c = r.create;
-          const row = insert.get(r.partNumber, normalizePartNumber(r.partNumber), c.title, c.category, c.frameCode, c.coreDepositCents > 0 ? 'exchange' : 'new', r.newPriceCents, c.coreDepositCents, c.weightGrams) as { id: number };
-          sqlite.prepare('INSERT INTO part_specs (part_id) VALUES (?)').run(row.id);
+          const row = insertPart.get({
+            partNumber: r.partNumber,
+            normalizedNumber: normalizePartNumber(r.partNumber),
+            title: c.title,
+            category: c.category,
+            frameCode: c.frameCode,
+            condition: c.coreDepositCents > 0 ? 'exchange' : 'new',
+            priceCents: r.newPriceCents,
+            coreDepositCents: c.coreDepositCents,
+            weightGrams: c.weightGrams,
+          });
+          insertBlankSpecs.run({ partId: row.id });
           touched.push(row.id);
         }
       }
-      sqlite.prepare("UPDATE price_imports SET status = 'applied', rows = ?, applied_at = strftime('%Y-%m-%dT%H:%M:%fZ','now') WHERE id = ?").run(JSON.stringify(rows), id);
-    })();
+      tx.update(priceImports).set({ status: 'applied', rows, appliedAt: NOW }).where(eq(priceImports.id, id)).run();
+    });
     if (touched.length > 2000) deps.rebuildSearch();
     else deps.refreshSearch(touched);
     return view(id);
