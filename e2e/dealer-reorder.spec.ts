@@ -24,7 +24,7 @@ test('a dealer uploads a stock list, fixes a bad row and checks out on account w
 
   // Fix the typo in row 3 and check it again.
   await page.getByRole('button', { name: 'Fix row 3' }).click();
-  await page.locator('#row-3-part').fill('AWL-10-0201');
+  await page.locator('#row-3-part').fill('AWL-10-0202');
   await page.getByRole('button', { name: 'Check again' }).click();
   await expect(page.getByRole('button', { name: 'Add 3 valid lines to cart' })).toBeVisible();
   await page.getByRole('button', { name: 'Drop row 4' }).click();
@@ -63,4 +63,9 @@ test('a dealer uploads a stock list, fixes a bad row and checks out on account w
   await page.getByRole('button', { name: `Reorder ${orderNumber}` }).click();
   await expect(page.getByRole('status').filter({ hasText: '3 lines added to your cart' })).toBeVisible();
   await keepScreenshot(page, 'dealer-orders');
+
+  // Leave the dealer's cart empty for the journeys that follow.
+  const origin = new URL(page.url()).origin;
+  const cart = (await (await page.request.get('/api/cart')).json()) as { lines: Array<{ id: number }> };
+  for (const line of cart.lines) expect((await page.request.delete(`/api/cart/lines/${line.id}`, { headers: { origin } })).ok()).toBe(true);
 });
