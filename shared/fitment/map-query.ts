@@ -208,17 +208,20 @@ export function efficiencyAt(map: CompressorMap, flowLbMin: number, pr: number):
   const gv = ((Math.max(pr, 1) - 1) / grid.prSpan) * GRID_STEPS;
   const i = Math.min(GRID_STEPS - 1, Math.max(0, Math.floor(gu)));
   const j = Math.min(GRID_STEPS - 1, Math.max(0, Math.floor(gv)));
+  const at = (a: number, b: number) => a * (GRID_STEPS + 1) + b;
+  // Next to the map's edge a cell reaches off the map, where the table means nothing: read the contours directly.
+  if (!grid.inside[at(i, j)] || !grid.inside[at(i + 1, j)] || !grid.inside[at(i, j + 1)] || !grid.inside[at(i + 1, j + 1)]) {
+    return contourEfficiency(map, flowLbMin, pr);
+  }
   const fu = Math.min(1, Math.max(0, gu - i));
   const fv = Math.min(1, Math.max(0, gv - j));
-  const at = (a: number, b: number) => grid.values[a * (GRID_STEPS + 1) + b]!;
-  return (
-    at(i, j) * (1 - fu) * (1 - fv) + at(i + 1, j) * fu * (1 - fv) + at(i, j + 1) * (1 - fu) * fv + at(i + 1, j + 1) * fu * fv
-  );
+  const v = grid.values;
+  return v[at(i, j)]! * (1 - fu) * (1 - fv) + v[at(i + 1, j)]! * fu * (1 - fv) + v[at(i, j + 1)]! * (1 - fu) * fv + v[at(i + 1, j + 1)]! * fu * fv;
 }
 
-/** 64 steps a side: within 0.1 point of the contour interpolation on the demo maps (tests/unit/fitment-map.test.ts). */
+/** 64 steps a side; cells that touch the map's edge are read from the contours (tests/unit/fitment-map.test.ts). */
 const GRID_STEPS = 64;
-const gridCache = new WeakMap<CompressorMap, { maxFlow: number; prSpan: number; values: Float64Array }>();
+const gridCache = new WeakMap<CompressorMap, { maxFlow: number; prSpan: number; values: Float64Array; inside: Uint8Array }>();
 
 function efficiencyGrid(map: CompressorMap) {
   const cached = gridCache.get(map);
@@ -226,13 +229,16 @@ function efficiencyGrid(map: CompressorMap) {
   const maxFlow = Math.max(...map.chokeLine.map((point) => point.flowLbMin), 1e-9);
   const prSpan = Math.max(map.maxPressureRatio - 1, 1e-9);
   const values = new Float64Array((GRID_STEPS + 1) * (GRID_STEPS + 1));
+  const inside = new Uint8Array((GRID_STEPS + 1) * (GRID_STEPS + 1));
   for (let a = 0; a <= GRID_STEPS; a += 1) {
     for (let b = 0; b <= GRID_STEPS; b += 1) {
-      // Nodes just off the map take the contour rule's value there, so points near the edge interpolate smoothly.
-      values[a * (GRID_STEPS + 1) + b] = contourEfficiency(map, (a / GRID_STEPS) * maxFlow, 1 + (b / GRID_STEPS) * prSpan);
+      const flow = (a / GRID_STEPS) * maxFlow;
+      const ratio = 1 + (b / GRID_STEPS) * prSpan;
+      values[a * (GRID_STEPS + 1) + b] = contourEfficiency(map, flow, ratio);
+      inside[a * (GRID_STEPS + 1) + b] = mapZoneAt(map, flow, ratio) === 'inside' ? 1 : 0;
     }
   }
-  const built = { maxFlow, prSpan, values };
+  const built = { maxFlow, prSpan, values, inside };
   gridCache.set(map, built);
   return built;
 }

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { FRAMES } from '../../catalog-seed/frames';
 import { buildCompressorMap } from '../../shared/fitment/compressor-map';
-import { correctedShaftRpmAt, efficiencyAt, flowLimitAt, mapZoneAt, surgeFlowLbMinAt } from '../../shared/fitment/map-query';
+import { contourEfficiency, correctedShaftRpmAt, efficiencyAt, flowLimitAt, mapZoneAt, surgeFlowLbMinAt } from '../../shared/fitment/map-query';
 import { CompressorMapSchema, type CompressorMap } from '../../shared/schemas/compressor-map';
 
 const maps = FRAMES.map((frame) => ({ frame, maxShaftRpm: frame.maxShaftRpm, map: buildCompressorMap(frame) }));
@@ -85,5 +85,26 @@ describe('buildCompressorMap', () => {
   it('falls back to the Euler relation when a map carries no speed lines', () => {
     const { map } = maps[0]!;
     expect(correctedShaftRpmAt({ ...map, speedLines: [] }, 8, 2)).toBeNull();
+  });
+});
+
+describe('efficiency read through the per-map table', () => {
+  it('matches the contour interpolation it caches: 95 % of points within 0.1 point, 99 % within 1 point', () => {
+    const diffs: number[] = [];
+    for (const { map } of maps) {
+      const maxFlow = Math.max(...map.chokeLine.map((p) => p.flowLbMin));
+      for (let i = 1; i < 50; i++) {
+        for (let j = 1; j < 50; j++) {
+          const w = (maxFlow * i) / 50;
+          const pr = 1 + ((map.maxPressureRatio - 1) * j) / 50;
+          if (mapZoneAt(map, w, pr) !== 'inside') continue;
+          diffs.push(Math.abs((efficiencyAt(map, w, pr) ?? 0) - contourEfficiency(map, w, pr)));
+        }
+      }
+    }
+    diffs.sort((a, b) => a - b);
+    expect(diffs.length).toBeGreaterThan(5000);
+    expect(diffs[Math.floor(diffs.length * 0.95)]).toBeLessThan(0.001);
+    expect(diffs[Math.floor(diffs.length * 0.99)]).toBeLessThan(0.01);
   });
 });
