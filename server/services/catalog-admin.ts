@@ -4,7 +4,7 @@ import type { Db } from '../db/client';
 import { frames, partAliases, partLinks, parts, partSpecs, priceImports, type PriceImportStoredRow as StoredRow } from '../db/schema';
 import { HttpError } from '../middleware/errors';
 import { CATEGORY_SLUGS } from '../../shared/catalog';
-import { normalizePartNumber } from '../../shared/part-number';
+import { normalizePartNumber, PART_NUMBER_EXAMPLE, PART_NUMBER_PATTERN } from '../../shared/part-number';
 import { PRICE_IMPORT_MAX_ROWS, type PartForm, type PriceImport } from '../../shared/schemas/admin-catalog';
 
 const NOW = sql`strftime('%Y-%m-%dT%H:%M:%fZ','now')`;
@@ -268,7 +268,9 @@ export function createCatalogAdmin(deps: { db: Db; refreshSearch: (ids: number[]
     const category = (input.category ?? '').trim();
     const weightKg = Number((input.weight_kg ?? '').trim());
     const frameCode = (input.frame ?? '').trim().toUpperCase() || null;
-    if (!/^[A-Za-z0-9][A-Za-z0-9-]{3,30}$/.test(partNumber)) return { ...base, message: 'a new part number uses letters, digits and dashes, 4–31 characters' };
+    if (!PART_NUMBER_PATTERN.test(partNumber.toUpperCase())) {
+      return { ...base, message: `a new part number follows our numbering, e.g. ${PART_NUMBER_EXAMPLE} (frame code, category group and line, serial)` };
+    }
     if (!title || !category || !(weightKg > 0)) return { ...base, message: 'unknown part: to add it, give title, category and weight_kg' };
     if (!(CATEGORY_SLUGS as readonly string[]).includes(category)) return { ...base, message: `category must be one of ${CATEGORY_SLUGS.join(', ')}` };
     if (frameCode && !frameExists(frameCode)) return { ...base, message: `no frame ${frameCode}` };
