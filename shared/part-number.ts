@@ -50,3 +50,7 @@ export function parsePartNumber(number: string): PartNumberParts | null {
   if (!m) return null;
   return { prefix: m[1]!, group: Number(m[2]), line: Number(m[3]), serial: Number(m[4]), exchange: Boolean(m[5]) };
 }
+
+/** Order numbers: SY- and the order's id past 100000 (six to eight digits). */
+export const ORDER_NUMBER_PATTERN = /^SY-\d{6,8}$/;
+export const formatOrderNumber = (orderId: number): string => `SY-${100000 + orderId}`;

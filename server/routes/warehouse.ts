@@ -6,10 +6,11 @@ import { HttpError, parseOr400 } from '../middleware/errors';
 import { requireRole } from '../middleware/session';
 import type { ReturnsService } from '../services/returns';
 import type { WarehouseService } from '../services/warehouse';
+import { ORDER_NUMBER_PATTERN } from '../../shared/part-number';
 
 const orderNumber = (raw: unknown) => {
   const n = String(raw).trim().toUpperCase();
-  if (!/^SY-\d{6,8}$/.test(n)) throw new HttpError(404, `No order ${String(raw).slice(0, 20)}`);
+  if (!ORDER_NUMBER_PATTERN.test(n)) throw new HttpError(404, `No order ${String(raw).slice(0, 20)}`);
   return n;
 };
 

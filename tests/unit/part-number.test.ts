@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { formatPartNumber, normalizePartNumber, parsePartNumber } from '../../shared/part-number';
+import { formatOrderNumber, formatPartNumber, normalizePartNumber, ORDER_NUMBER_PATTERN, parsePartNumber } from '../../shared/part-number';
 
 describe('normalizePartNumber', () => {
   it('ignores case, dashes, spaces and dots, as people type numbers', () => {
@@ -21,5 +21,13 @@ describe('our part numbering', () => {
     expect(parsePartNumber('INS-63-0412')).toEqual({ prefix: 'INS', group: 6, line: 3, serial: 412, exchange: false });
     expect(parsePartNumber('GIM-10-0203-XCH')).toMatchObject({ serial: 203, exchange: true });
     expect(parsePartNumber('GIM100203')).toBeNull();
+  });
+});
+
+describe('order numbers', () => {
+  it('are SY- and the order id past 100000, one pattern for server and client', () => {
+    expect(formatOrderNumber(7)).toBe('SY-100007');
+    expect(ORDER_NUMBER_PATTERN.test(formatOrderNumber(7))).toBe(true);
+    for (const bad of ['SY-12', 'sy-100007', 'SY-100007x', 'XY-100007']) expect(ORDER_NUMBER_PATTERN.test(bad), bad).toBe(false);
   });
 });

@@ -10,6 +10,7 @@ import { buyerOf, type CartOwner, type CartService } from '../cart';
 import { dealerOpenBalance } from '../dealer-accounts';
 import type { StockService } from '../stock';
 import { findOrder, type Query } from './order-reads';
+import { formatOrderNumber } from '../../../shared/part-number';
 
 type PaymentState = (typeof orders.$inferSelect)['paymentState'];
 
@@ -118,7 +119,7 @@ export function createOrderPlacement(deps: OrderPlacementDeps) {
           .select({ id: sql<number>`coalesce(max(${orders.id}), 0) + 1` })
           .from(orders)
           .get();
-        const number = `SY-${100000 + (next?.id ?? 1)}`;
+        const number = formatOrderNumber(next?.id ?? 1);
         const status: OrderStatus = input.method === 'account' ? 'on_account' : 'pending_payment';
         const { id: orderId } = tx
           .insert(orders)

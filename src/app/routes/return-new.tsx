@@ -8,6 +8,7 @@ import { useReturns } from '../../features/returns/api/get-returns';
 import { LinePicker } from '../../features/returns/components/line-picker';
 import { ReturnForm } from '../../features/returns/components/return-form';
 import { returnableQuantity } from '../../features/returns/lib/returnable';
+import { ORDER_NUMBER_PATTERN } from '../../../shared/part-number';
 
 function ReturnLine({ orderNumber, lineId }: { orderNumber: string; lineId: number }) {
   const navigate = useNavigate();
@@ -75,7 +76,7 @@ export function ReturnNewRoute() {
   const [params] = useSearchParams();
   const orderNumber = params.get('order')?.trim().toUpperCase() ?? '';
   const lineId = Number(params.get('line'));
-  const hasLine = /^SY-\d+$/.test(orderNumber) && Number.isInteger(lineId) && lineId > 0;
+  const hasLine = ORDER_NUMBER_PATTERN.test(orderNumber) && Number.isInteger(lineId) && lineId > 0;
 
   if (me.isPending) return <LoadingState label="Checking your account…" />;
   if (!me.data?.user) {
