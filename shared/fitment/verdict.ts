@@ -10,7 +10,6 @@ import type {
 import { absoluteKpa, absoluteKpaToGaugePsi, kelvinToCelsius, lbPerMinToKgPerS } from '../units';
 import { APPLICATION_DEFAULTS } from './defaults';
 import { correctedFlowLbMin } from './corrected-flow';
-import { compressorOutletTempK } from './compressor-outlet';
 import type { EngineModel, EngineState } from './engine';
 import { engineStateAt } from './engine';
 import type { FitmentFrame } from './frame';
@@ -42,8 +41,6 @@ const CHOKE_GRACE = 0.03;
 const OFF_MAP_EFFICIENCY = 0.55;
 /** Below this at peak power the charge runs hot and the shaft works hard for little (common practice). */
 const LOW_EFFICIENCY = 0.6;
-/** Full boost this much later than asked is still a usable match, if marginal. */
-const LATE_BOOST_TOLERANCE = 0.1;
 
 const flowText = (lbMin: number) => (lbMin >= 20 ? Math.round(lbMin).toString() : (Math.round(lbMin * 10) / 10).toFixed(1));
 const prText = (pr: number) => pr.toFixed(2);
@@ -406,7 +403,7 @@ export function assessFrame(
     }
     if (chosen) {
       if (chosen.fullBoostRpm !== null && chosen.lateBy > 0.02) {
-        (chosen.lateBy <= LATE_BOOST_TOLERANCE ? marginal : marginal).push(
+        marginal.push(
           `with its smallest suitable turbine housing (A/R ${chosen.housingAr.toFixed(2)}) full boost arrives at ${rpmText(chosen.fullBoostRpm)} rpm, later than the ${rpmText(context.fullBoostRpm)} rpm asked`,
         );
       } else if (chosen.backPressureRatio > rules.maxBackPressureRatio) {
@@ -514,5 +511,3 @@ export function rankCandidates<T extends Omit<FitmentCandidate, 'rank'>>(candida
 
 export const isUsable = (c: Pick<FitmentCandidate, 'verdict'>) => c.verdict === 'fits' || c.verdict === 'marginal';
 
-/** Compressor outlet temperature at a pressure ratio and efficiency, °C (re-exported for cautions). */
-export const outletC = (inletK: number, pr: number, efficiency: number) => kelvinToCelsius(compressorOutletTempK(inletK, pr, efficiency));
