@@ -7,6 +7,7 @@ import { section, summarize } from './bench-harness';
 
 const FITMENT_P95_TARGET_MS = 2;
 const ROUNDS = 20;
+const WARM_UP_ROUNDS = 5;
 
 /** A spread of engines from a small single to a large race V8, on every fuel and use: builds a frame serves. */
 function requests(): FitmentRequest[] {
@@ -41,7 +42,8 @@ export const fitmentSection = section<BenchEnv>(`Fitment check (all frames, ${RO
     const fitment = createFitmentService(db);
     const frames = fitment.frameMaps().length;
     const inputs = requests();
-    for (const input of inputs) fitment.check(input);
+    // Warm up as a running server is: the first rounds compile the code and fill the per-map tables.
+    for (let round = 0; round < WARM_UP_ROUNDS; round++) for (const input of inputs) fitment.check(input);
     // Served builds (every frame, single and twin where offered, every turbine housing) and, apart, requests that
     // nothing serves, which also search for the next steps.
     const served: number[] = [];
@@ -54,10 +56,14 @@ export const fitmentSection = section<BenchEnv>(`Fitment check (all frames, ${RO
       }
     }
     const s = summarize(served);
+    const all = summarize([...served, ...unserved]);
     ctx.log(`${inputs.length} engines × ${ROUNDS} rounds against ${frames} frames (${served.length} served, ${unserved.length} not)`);
-    ctx.record(`runFitmentCheck() p50, ${frames} frames`, s.p50, 'ms');
-    ctx.record(`runFitmentCheck() p95, ${frames} frames`, s.p95, 'ms', { target: { op: '<=', value: FITMENT_P95_TARGET_MS }, detail: `${s.n} checks` });
-    ctx.record(`runFitmentCheck() max, ${frames} frames`, s.max, 'ms');
+    ctx.record(`runFitmentCheck() p50, ${frames} frames`, all.p50, 'ms');
+    // The target is the check itself: every frame, layout and housing. A request nothing serves also runs the
+    // next-step searches (each a run of the compressor side at a changed goal), reported beside it.
+    ctx.record(`runFitmentCheck() p95 when a frame serves, ${frames} frames`, s.p95, 'ms', { target: { op: '<=', value: FITMENT_P95_TARGET_MS }, detail: `${s.n} checks` });
+    ctx.record(`runFitmentCheck() p95, every request, ${frames} frames`, all.p95, 'ms', { detail: `${all.n} checks` });
+    ctx.record(`runFitmentCheck() max, ${frames} frames`, all.max, 'ms');
     if (unserved.length > 0) {
       const u = summarize(unserved);
       ctx.record('runFitmentCheck() p95 when nothing serves (with next-step searches)', u.p95, 'ms', { detail: `${u.n} checks` });

@@ -297,11 +297,12 @@ function explainNoFit(resolved: Resolved, frames: readonly FitmentFrame[], resul
   const largest = frames.reduce<FitmentFrame | undefined>((a, f) => (!a || f.maxFlowLbMin > a.maxFlowLbMin ? f : a), undefined);
   const usableAt = (changes: Partial<Resolved>) => anyUsable({ ...resolved, ...changes }, frames);
   const search = (lo: number, hi: number, ok: (v: number) => boolean, rising: boolean): number | null => {
-    // Finds the value nearest the request at which something serves (bisection on a monotone yes/no).
+    // Finds the value nearest the request at which something serves (bisection on a monotone yes/no). Five halvings
+    // narrow a search to about 2 % of the request, finer than the rounded figure a next step states.
     if (!ok(rising ? hi : lo)) return null;
     let a = lo;
     let b = hi;
-    for (let i = 0; i < 7; i += 1) {
+    for (let i = 0; i < 5; i += 1) {
       const mid = (a + b) / 2;
       if (ok(mid) === rising) b = mid;
       else a = mid;

@@ -116,7 +116,8 @@ export function buildCompressorMap(shape: WheelShape): CompressorMap {
     return { rpm, points };
   });
 
-  const edgeFractions = [...new Set([...fractions, ...Array.from({ length: 15 }, (_, i) => LOWEST_SPEED_FRACTION + 0.05 * i)])]
+  // Rounded before de-duplicating, so a speed line's own fraction and an equal step of the grid make one point.
+  const edgeFractions = [...new Set([...fractions, ...Array.from({ length: 15 }, (_, i) => LOWEST_SPEED_FRACTION + 0.05 * i)].map((n) => round(n, 9)))]
     .filter((n) => n <= 1)
     .sort((a, b) => a - b);
   const surgeLine = edgeFractions.map((n) => model.point(0, n));

@@ -15,10 +15,11 @@ export const WHEEL_MATERIALS = ['cast', 'milled'] as const;
 export type WheelMaterial = (typeof WHEEL_MATERIALS)[number];
 
 /**
- * Compressor-wheel tip-speed limits for a long fatigue life, m/s: cast aluminium about 520, forged and machined
- * ("milled", billet) aluminium about 560 (common practice; cast wheels carry porosity and lower fatigue strength).
+ * Compressor-wheel tip-speed limits for a long fatigue life, m/s: cast aluminium about 500–540, forged and machined
+ * ("milled", billet) aluminium about 560–600 (common practice, figures from memory; cast wheels carry porosity and
+ * lower fatigue strength). The family takes 520 and 590.
  */
-export const TIP_SPEED_LIMIT_MS: Record<WheelMaterial, number> = { cast: 520, milled: 560 };
+export const TIP_SPEED_LIMIT_MS: Record<WheelMaterial, number> = { cast: 520, milled: 590 };
 
 /**
  * Work coefficient μ = Δh₀/U² at the surge end of a speed line, for a backswept wheel including slip. Dixon & Hall
@@ -78,8 +79,12 @@ const BEST_POINT_X = 0.38;
 
 const clamp = (value: number, low: number, high: number) => Math.min(high, Math.max(low, value));
 
+/**
+ * Best total-to-total efficiency of a wheel: about 0.75 for a small modern wheel up to 0.78 for a large one (common
+ * practice for current backswept designs; from memory).
+ */
 export function peakEfficiency(exducerMm: number): number {
-  return 0.7 + 0.08 * clamp((exducerMm - 40) / 100, 0, 1);
+  return 0.75 + 0.03 * clamp((exducerMm - 40) / 100, 0, 1);
 }
 
 export function bestPointX(shape: WheelShape): number {

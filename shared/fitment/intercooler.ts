@@ -35,6 +35,21 @@ export interface ChargeState {
 const MAX_ITERATIONS = 100;
 const TOLERANCE_K = 1e-9;
 
+/** Manifold pressure, pressure ratio and compressor outlet at a manifold temperature. */
+function chargeStateAt(input: ChargeStateInput, airflowKgS: number, manifoldTempK: number) {
+  const manifold = manifoldPressureKpaFourStroke({
+    airflowKgS,
+    manifoldTempK,
+    volumetricEfficiency: input.volumetricEfficiency,
+    displacementL: input.displacementL,
+    rpm: input.rpm,
+  });
+  const pr = pressureRatio(manifold, input.ambient, input.chargeLossPsi, input.inletLossPsi);
+  // Below a ratio of 1 the compressor is not compressing; do not let the formula cool the charge.
+  const compressorOutletK = compressorOutletTempK(input.inletTempK, Math.max(pr, 1), input.compressorEfficiency);
+  return { manifold, pressureRatio: pr, compressorOutletK };
+}
+
 /**
  * Manifold temperature sets MAP, MAP sets the pressure ratio, the pressure ratio sets the compressor outlet and
  * so the manifold temperature: iterate to the fixed point. The map is a contraction (factor ≈ 0.1 with a cooler,
@@ -42,31 +57,18 @@ const TOLERANCE_K = 1e-9;
  */
 export function solveChargeState(input: ChargeStateInput): ChargeState {
   const airflowKgS = lbPerMinToKgPerS(input.airflowLbMin);
-  const stateAt = (manifoldTempK: number) => {
-    const manifold = manifoldPressureKpaFourStroke({
-      airflowKgS,
-      manifoldTempK,
-      volumetricEfficiency: input.volumetricEfficiency,
-      displacementL: input.displacementL,
-      rpm: input.rpm,
-    });
-    const pr = pressureRatio(manifold, input.ambient, input.chargeLossPsi, input.inletLossPsi);
-    // Below a ratio of 1 the compressor is not compressing; do not let the formula cool the charge.
-    const compressorOutletK = compressorOutletTempK(input.inletTempK, Math.max(pr, 1), input.compressorEfficiency);
-    return { manifold, pressureRatio: pr, compressorOutletK };
-  };
 
   if (input.manifoldTempK !== undefined) {
-    return { ...stateAt(input.manifoldTempK), manifoldTempK: input.manifoldTempK, iterations: 0 };
+    return { ...chargeStateAt(input, airflowKgS, input.manifoldTempK), manifoldTempK: input.manifoldTempK, iterations: 0 };
   }
 
   let manifoldTempK = input.inletTempK;
   for (let iteration = 1; iteration <= MAX_ITERATIONS; iteration += 1) {
-    const state = stateAt(manifoldTempK);
+    const state = chargeStateAt(input, airflowKgS, manifoldTempK);
     const next = intercoolerOutletTempK(state.compressorOutletK, input.inletTempK, input.intercoolerEffectiveness);
     const converged = Math.abs(next - manifoldTempK) < TOLERANCE_K;
     manifoldTempK = next;
-    if (converged) return { ...stateAt(manifoldTempK), manifoldTempK, iterations: iteration };
+    if (converged) return { ...chargeStateAt(input, airflowKgS, manifoldTempK), manifoldTempK, iterations: iteration };
   }
-  return { ...stateAt(manifoldTempK), manifoldTempK, iterations: MAX_ITERATIONS };
+  return { ...chargeStateAt(input, airflowKgS, manifoldTempK), manifoldTempK, iterations: MAX_ITERATIONS };
 }

@@ -208,15 +208,18 @@ export function efficiencyAt(map: CompressorMap, flowLbMin: number, pr: number):
   const gv = ((Math.max(pr, 1) - 1) / grid.prSpan) * GRID_STEPS;
   const i = Math.min(GRID_STEPS - 1, Math.max(0, Math.floor(gu)));
   const j = Math.min(GRID_STEPS - 1, Math.max(0, Math.floor(gv)));
-  const at = (a: number, b: number) => a * (GRID_STEPS + 1) + b;
+  // Corners of the cell in the table (row-major, GRID_STEPS + 1 a side). Plain index arithmetic: this runs hundreds
+  // of times per check.
+  const c00 = i * (GRID_STEPS + 1) + j;
+  const c10 = c00 + GRID_STEPS + 1;
   // Next to the map's edge a cell reaches off the map, where the table means nothing: read the contours directly.
-  if (!grid.inside[at(i, j)] || !grid.inside[at(i + 1, j)] || !grid.inside[at(i, j + 1)] || !grid.inside[at(i + 1, j + 1)]) {
+  if (!grid.inside[c00] || !grid.inside[c10] || !grid.inside[c00 + 1] || !grid.inside[c10 + 1]) {
     return contourEfficiency(map, flowLbMin, pr);
   }
   const fu = Math.min(1, Math.max(0, gu - i));
   const fv = Math.min(1, Math.max(0, gv - j));
   const v = grid.values;
-  return v[at(i, j)]! * (1 - fu) * (1 - fv) + v[at(i + 1, j)]! * fu * (1 - fv) + v[at(i, j + 1)]! * (1 - fu) * fv + v[at(i + 1, j + 1)]! * fu * fv;
+  return v[c00]! * (1 - fu) * (1 - fv) + v[c10]! * fu * (1 - fv) + v[c00 + 1]! * (1 - fu) * fv + v[c10 + 1]! * fu * fv;
 }
 
 /** 64 steps a side; cells that touch the map's edge are read from the contours (tests/unit/fitment-map.test.ts). */
@@ -248,9 +251,9 @@ export function contourEfficiency(map: CompressorMap, flowLbMin: number, pr: num
   const { normalise, islands } = normalisedIslands(map);
   const p = normalise({ flowLbMin, pressureRatio: Math.max(pr, 1) });
   let innermost = -1;
-  islands.forEach((island, index) => {
-    if (isInside(island.polygon, p)) innermost = index;
-  });
+  for (let index = 0; index < islands.length; index += 1) {
+    if (isInside(islands[index]!.polygon, p)) innermost = index;
+  }
   const outer = islands[0];
   if (!outer) return map.peakEfficiency ?? 0.7;
   if (innermost < 0) {

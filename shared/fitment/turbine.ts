@@ -49,32 +49,52 @@ function nozzleFlowFunction(er: number): number {
   return Math.sqrt(((2 * g) / (g - 1)) * (r ** (2 / g) - r ** ((g + 1) / g)));
 }
 
-// ER·ψ(ER) rises monotonically, so swallowing is inverted through a table (fast, and exact enough at 0.1 %).
+// ER·ψ(ER) rises monotonically, so swallowing is inverted through a table (fast, and exact enough at 0.1 %); so does
+// ER·ψ(ER)·(1 − ER^(−(γₑ−1)/γₑ)), the power of the flow a housing swallows, which the wastegate balance inverts.
 const TABLE_MAX_ER = 8;
 const TABLE_STEPS = 2000;
 const erTable = Array.from({ length: TABLE_STEPS + 1 }, (_, i) => 1 + ((TABLE_MAX_ER - 1) * i) / TABLE_STEPS);
 const capacityTable = erTable.map((er) => er * nozzleFlowFunction(er));
+const swallowedPowerTable = erTable.map((er, i) => capacityTable[i]! * (1 - er ** -EXHAUST_EXPONENT));
 
-/** Expansion ratio at which a housing swallows a flow: solves ṁ = A·p₄·ER·ψ(ER)/√(R·T₃); null past the table. */
-export function expansionRatioFor(massKgS: number, areaM2: number, p4Kpa: number, t3K: number): number | null {
-  const needed = (massKgS * Math.sqrt(EXHAUST_R_J_PER_KG_K * t3K)) / (areaM2 * p4Kpa * 1000);
+/** The expansion ratio at which a rising table reaches a value (linear between entries); null past its end. */
+function invertErTable(table: readonly number[], needed: number): number | null {
   if (needed <= 0) return 1;
-  if (needed > capacityTable[TABLE_STEPS]!) return null;
+  if (needed > table[TABLE_STEPS]!) return null;
   let lo = 0;
   let hi = TABLE_STEPS;
   while (hi - lo > 1) {
     const mid = (lo + hi) >> 1;
-    if (capacityTable[mid]! < needed) lo = mid;
+    if (table[mid]! < needed) lo = mid;
     else hi = mid;
   }
-  const a = capacityTable[lo]!;
-  const b = capacityTable[hi]!;
+  const a = table[lo]!;
+  const b = table[hi]!;
   return erTable[lo]! + ((erTable[hi]! - erTable[lo]!) * (needed - a)) / (b - a || 1);
+}
+
+/** Expansion ratio at which a housing swallows a flow: solves ṁ = A·p₄·ER·ψ(ER)/√(R·T₃); null past the table. */
+export function expansionRatioFor(massKgS: number, areaM2: number, p4Kpa: number, t3K: number): number | null {
+  return invertErTable(capacityTable, (massKgS * Math.sqrt(EXHAUST_R_J_PER_KG_K * t3K)) / (areaM2 * p4Kpa * 1000));
 }
 
 /** Mass flow a housing passes at an expansion ratio. */
 export function swallowedKgS(er: number, areaM2: number, p4Kpa: number, t3K: number): number {
   return (areaM2 * p4Kpa * 1000 * er * nozzleFlowFunction(er)) / Math.sqrt(EXHAUST_R_J_PER_KG_K * t3K);
+}
+
+/**
+ * The least exhaust flow through a housing, wastegate shut, at which the turbine gives each kilogram of it a specific
+ * work (J/kg at the shaft, before mechanical losses): the work sets the expansion ratio,
+ * ER* = (1 − w/(c_p·T₃·η))^(−γₑ/(γₑ−1)), and the housing reaches ER* once it swallows this much. Null when no
+ * expansion ratio the table spans gives that work.
+ */
+export function exhaustToDriveKgS(specificWorkJPerKg: number, setting: TurbineSetting): number | null {
+  const share = specificWorkJPerKg / (EXHAUST_CP_J_PER_KG_K * setting.t3K * setting.efficiency);
+  if (share <= 0) return 0;
+  if (share >= 1) return null;
+  const er = (1 - share) ** (-1 / EXHAUST_EXPONENT);
+  return er > TABLE_MAX_ER ? null : swallowedKgS(er, setting.areaM2, setting.p4Kpa, setting.t3K);
 }
 
 /** Turbine shaft power, W. */
@@ -113,16 +133,10 @@ export function balanceTurbine(exhaustKgS: number, compressorPowerW: number, set
   if (shutPower <= needW) {
     return { reaches: false, expansionRatio: shutEr, exhaustManifoldKpa: shutEr * p4Kpa, wastegateShare: 0, surplusW: shutPower - needW };
   }
-  // Open the wastegate: find the expansion ratio whose swallowed flow makes just the power needed.
-  let lo = 1;
-  let hi = shutEr;
-  for (let i = 0; i < 24; i += 1) {
-    const mid = (lo + hi) / 2;
-    const power = turbinePowerW(swallowedKgS(mid, areaM2, p4Kpa, t3K), t3K, mid, efficiency);
-    if (power < needW) lo = mid;
-    else hi = mid;
-  }
-  const er = (lo + hi) / 2;
+  // Open the wastegate: the expansion ratio whose swallowed flow makes just the power needed,
+  // P(ER) = A·p₄·ER·ψ(ER)/√(R·T₃) · c_p·T₃·η·(1 − ER^(−(γₑ−1)/γₑ)), read off its table.
+  const scale = (areaM2 * p4Kpa * 1000 * EXHAUST_CP_J_PER_KG_K * t3K * efficiency) / Math.sqrt(EXHAUST_R_J_PER_KG_K * t3K);
+  const er = Math.min(invertErTable(swallowedPowerTable, needW / scale) ?? shutEr, shutEr);
   const through = swallowedKgS(er, areaM2, p4Kpa, t3K);
   return {
     reaches: true,

@@ -11,12 +11,12 @@ import { absoluteKpa, absoluteKpaToGaugePsi, kelvinToCelsius, lbPerMinToKgPerS }
 import { APPLICATION_DEFAULTS } from './defaults';
 import { correctedFlowLbMin } from './corrected-flow';
 import type { EngineModel, EngineState } from './engine';
-import { engineStateAt } from './engine';
+import { engineStateAt, volumetricEfficiencyAt } from './engine';
 import type { FitmentFrame } from './frame';
 import { CP_AIR_J_PER_KG_K, ISENTROPIC_EXPONENT, REFERENCE_TEMPERATURE_K } from './gas';
 import { correctedShaftRpmAt, efficiencyAt, flowLimitAt, mapZoneAt, surgeFlowLbMinAt } from './map-query';
 import { DEFAULT_WORK_COEFFICIENT, eulerShaftRpm, tipSpeedMs } from './shaft-speed';
-import { balanceTurbine, expansionRatioFor, turbinePowerW, turbineThroatAreaM2, MECHANICAL_EFFICIENCY } from './turbine';
+import { balanceTurbine, exhaustToDriveKgS, expansionRatioFor, turbinePowerW, turbineThroatAreaM2, MECHANICAL_EFFICIENCY } from './turbine';
 
 /** Below this pressure ratio the engine barely needs a compressor at all. */
 export const LITTLE_BOOST_PR = 1.1;
@@ -50,6 +50,16 @@ const WHOLE = new Intl.NumberFormat('en-US', { maximumFractionDigits: 0 });
 const rpmText = (rpm: number) => WHOLE.format(Math.round(rpm));
 const shaftText = (rpm: number) => WHOLE.format(Math.round(rpm / 500) * 500);
 const clamp = (value: number, low: number, high: number) => Math.min(high, Math.max(low, value));
+const round = (v: number, d: number) => Math.round(v * 10 ** d) / 10 ** d;
+// Helpers of assessFrame live out here: a closure made per call costs a name-keeping wrapper each time under tsx.
+const atText = (p: { rpm: number }) => `at ${rpmText(p.rpm)} rpm`;
+const needText = (p: { rpm: number; correctedFlowLbMin: number; pressureRatio: number }, units: number) =>
+  `${atText(p)} the engine needs ${flowText(p.correctedFlowLbMin)} lb/min${units === 2 ? ' per unit' : ''} at a pressure ratio of ${prText(p.pressureRatio)}`;
+function worst<T>(list: readonly T[], key: (p: T) => number): T | null {
+  let found: T | null = null;
+  for (const p of list) if (found === null || key(p) < key(found)) found = p;
+  return found;
+}
 
 export interface AssessmentContext {
   application: Application;
@@ -127,17 +137,29 @@ function boostPoint(frame: FitmentFrame, units: number, demand: { rpm: number; a
 
 /**
  * The engine state that passes a given airflow at an rpm. Airflow is manifold pressure over manifold temperature
- * times a constant, and the temperature moves only a little with the pressure ratio, so fixed-point substitution on
- * the pressure ratio settles in a few steps (a contraction, as in intercooler.ts).
+ * times a constant, and the temperature moves only a little with the pressure ratio: the first step scales the
+ * manifold pressure by the flow still missing (fixed-point substitution, as in intercooler.ts), the later ones are
+ * secant steps on the airflow error, which settle in three or four steps where substitution takes a dozen without
+ * a charge cooler.
  */
 function engineStateForFlow(engine: EngineModel, rpm: number, airflowLbMin: number, efficiency: number, guess = 2): EngineState {
   let pr = guess;
   let state = engineStateAt(engine, rpm, pr, efficiency);
+  let previousPr = Number.NaN;
+  let previousError = 0;
   for (let i = 0; i < 30; i += 1) {
-    // airflow ∝ (pr·p_in − Δp)/T: scale the manifold pressure by the flow still missing.
-    const manifold = (state.manifoldKpa * airflowLbMin) / state.airflowLbMin;
-    const next = Math.max(1, (manifold + engine.chargeLossKpa) / engine.inletKpa);
+    const error = state.airflowLbMin - airflowLbMin;
+    let next: number;
+    if (Number.isNaN(previousPr) || error === previousError) {
+      const manifold = (state.manifoldKpa * airflowLbMin) / state.airflowLbMin;
+      next = (manifold + engine.chargeLossKpa) / engine.inletKpa;
+    } else {
+      next = pr - (error * (pr - previousPr)) / (error - previousError);
+    }
+    next = Math.max(1, next);
     if (Math.abs(next - pr) < 1e-5) break;
+    previousPr = pr;
+    previousError = error;
     pr = next;
     state = engineStateAt(engine, rpm, pr, efficiency);
   }
@@ -160,16 +182,34 @@ function shutSurplusW(state: EngineState, units: number, areaM2: number, engine:
   return turbinePowerW(m, engine.t3K, er, engine.turbineEfficiency) * MECHANICAL_EFFICIENCY - compressorPowerW(state, units, engine.inletTempK);
 }
 
-/** Lowest engine rpm at which a housing holds the target pressure ratio with the wastegate shut; null if not by peak. */
+/**
+ * Lowest engine rpm at which a housing holds the target pressure ratio with the wastegate shut; null if not by peak.
+ * At a fixed pressure ratio and efficiency the compressor's work per kilogram of air is fixed, and so is the
+ * expansion ratio the turbine needs to match it; the housing reaches that ratio once the exhaust flow reaches what
+ * it swallows there (exhaustToDriveKgS). Only the airflow changes with rpm, so the search runs on airflow alone.
+ */
 function fullBoostRpmFor(areaM2: number, units: number, targetPr: number, efficiency: number, engine: EngineModel): number | null {
-  const surplusAt = (rpm: number) => shutSurplusW(engineStateAt(engine, rpm, targetPr, efficiency), units, areaM2, engine);
-  if (surplusAt(engine.peakRpm) < 0) return null;
+  const atPeak = engineStateAt(engine, engine.peakRpm, targetPr, efficiency);
+  const airPerExhaust = 1 / (1 + 1 / engine.afr);
+  const workPerKgAir = (CP_AIR_J_PER_KG_K * engine.inletTempK * (Math.max(targetPr, 1) ** ISENTROPIC_EXPONENT - 1)) / efficiency;
+  const needed = exhaustToDriveKgS((workPerKgAir * airPerExhaust) / MECHANICAL_EFFICIENCY, {
+    areaM2,
+    p4Kpa: engine.p4Kpa,
+    t3K: engine.t3K,
+    efficiency: engine.turbineEfficiency,
+  });
+  if (needed === null) return null;
+  // Airflow at the same charge state scales with volumetric efficiency × rpm (speed density): the housing holds the
+  // target from the rpm where that product reaches its share of the peak's.
+  const peakExhaust = exhaustKgS(atPeak, units, engine.afr);
+  if (peakExhaust < needed) return null;
+  const threshold = (volumetricEfficiencyAt(engine, engine.peakRpm) * engine.peakRpm * needed) / peakExhaust;
   let lo = engine.peakRpm * 0.15;
   let hi = engine.peakRpm;
-  if (surplusAt(lo) >= 0) return Math.round(lo);
+  if (volumetricEfficiencyAt(engine, lo) * lo >= threshold) return Math.round(lo);
   for (let i = 0; i < 12; i += 1) {
     const mid = (lo + hi) / 2;
-    if (surplusAt(mid) >= 0) hi = mid;
+    if (volumetricEfficiencyAt(engine, mid) * mid >= threshold) hi = mid;
     else lo = mid;
   }
   return Math.round(hi / 10) * 10;
@@ -177,13 +217,12 @@ function fullBoostRpmFor(areaM2: number, units: number, targetPr: number, effici
 
 /** The pressure ratio a housing can build at an rpm with the wastegate shut, up to the target. */
 function availablePr(areaM2: number, units: number, rpm: number, targetPr: number, efficiency: number, engine: EngineModel): number {
-  const surplus = (pr: number) => shutSurplusW(engineStateAt(engine, rpm, pr, efficiency), units, areaM2, engine);
-  if (surplus(targetPr) >= 0) return targetPr;
+  if (shutSurplusW(engineStateAt(engine, rpm, targetPr, efficiency), units, areaM2, engine) >= 0) return targetPr;
   let lo = 1;
   let hi = targetPr;
   for (let i = 0; i < 10; i += 1) {
     const mid = (lo + hi) / 2;
-    if (surplus(mid) >= 0) lo = mid;
+    if (shutSurplusW(engineStateAt(engine, rpm, mid, efficiency), units, areaM2, engine) >= 0) lo = mid;
     else hi = mid;
   }
   return lo;
@@ -241,6 +280,8 @@ function assessHousings(frame: FitmentFrame, units: number, peak: EngineState, t
   }
   return results;
 }
+
+const publicHousing = ({ areaM2: _a, lateBy: _l, ...h }: HousingResult): TurbineHousing => h;
 
 /** A frame's verdict, reasons and ranking score against the engine, as a single unit or a twin layout. */
 export function assessFrame(
@@ -312,19 +353,16 @@ export function assessFrame(
   const marginal: string[] = [];
   const notes: string[] = [];
   const lastNotes: string[] = [];
-  const at = (p: Judged) => `at ${rpmText(p.rpm)} rpm`;
-  const need = (p: Judged) => `${at(p)} the engine needs ${flowText(p.correctedFlowLbMin)} lb/min${units === 2 ? ' per unit' : ''} at a pressure ratio of ${prText(p.pressureRatio)}`;
 
   if (targetPr < LITTLE_BOOST_PR) {
     tooLarge.push(`the engine makes this power with hardly any boost (pressure ratio ${prText(targetPr)}), so any turbocharger here would be larger than it needs`);
   }
 
-  const worst = (list: Judged[], key: (p: Judged) => number) => list.reduce<Judged | null>((w, p) => (w === null || key(p) < key(w) ? p : w), null);
   const boostPoints = judged.filter((p) => p.segment === 'boost');
   const abovePr = boostPoints.filter((p) => p.zone === 'above-max-pr');
   if (abovePr.length > 0) {
     const p = abovePr.reduce((a, b) => (b.pressureRatio > a.pressureRatio ? b : a));
-    tooSmall.push(`${at(p)} the engine needs a pressure ratio of ${prText(p.pressureRatio)}, above this frame's maximum of ${prText(frame.map.maxPressureRatio)}`);
+    tooSmall.push(`${atText(p)} the engine needs a pressure ratio of ${prText(p.pressureRatio)}, above this frame's maximum of ${prText(frame.map.maxPressureRatio)}`);
   }
   const choke = worst(boostPoints.filter((p) => p.zone === 'choke' || p.zone === 'overspeed'), (p) => p.chokeMarginPct ?? -100);
   if (choke) {
@@ -333,13 +371,13 @@ export function assessFrame(
       choke.zone === 'choke'
         ? `past this frame's choke limit of ${flowText(choke.limitFlowLbMin ?? 0)} lb/min`
         : `past the ${flowText(choke.limitFlowLbMin ?? 0)} lb/min where this frame reaches its ${shaftText(frame.maxShaftRpm)} rpm shaft-speed limit`;
-    (choke.zone === 'choke' && past <= CHOKE_GRACE ? marginal : tooSmall).push(`${need(choke)}, ${pctText(past)} % ${limitText}`);
+    (choke.zone === 'choke' && past <= CHOKE_GRACE ? marginal : tooSmall).push(`${needText(choke, units)}, ${pctText(past)} % ${limitText}`);
   }
   const surged = worst(judged.filter((p) => p.zone === 'surge'), (p) => p.surgeMarginPct ?? -100);
   if (surged) {
     const past = -(surged.surgeMarginPct ?? -100) / 100;
     const spooling = surged.segment === 'spool';
-    const text = `${at(surged)}${spooling ? ', while boost builds,' : ''} the engine flows only ${flowText(surged.correctedFlowLbMin)} lb/min${units === 2 ? ' per unit' : ''} at a pressure ratio of ${prText(surged.pressureRatio)}, ${pctText(past)} % left of this frame's surge line at ${flowText(surged.surgeFlowLbMin ?? 0)} lb/min`;
+    const text = `${atText(surged)}${spooling ? ', while boost builds,' : ''} the engine flows only ${flowText(surged.correctedFlowLbMin)} lb/min${units === 2 ? ' per unit' : ''} at a pressure ratio of ${prText(surged.pressureRatio)}, ${pctText(past)} % left of this frame's surge line at ${flowText(surged.surgeFlowLbMin ?? 0)} lb/min`;
     if (spooling && surged.pressureRatio < WEAK_SURGE_PR) lastNotes.push(`${text}: brief, and weak at so low a ratio`);
     else if (past <= (spooling ? spoolSurgeGrace(surged.pressureRatio) : SURGE_GRACE)) marginal.push(`${text}: it touches surge`);
     else tooLarge.push(`${text}: the compressor would surge`);
@@ -352,7 +390,7 @@ export function assessFrame(
   const speedMargin = fastest === null ? -0.5 : 1 - fastest.shaftRpm / frame.maxShaftRpm;
   if (fastest !== null && fastest.shaftRpm > frame.maxShaftRpm && tooSmall.length === 0) {
     const over = ((fastest.shaftRpm / frame.maxShaftRpm - 1) * 100).toFixed(1);
-    tooSmall.push(`${at(fastest)} the turbo shaft would have to turn ${rpmText(fastest.shaftRpm)} rpm, ${over} % past this frame's ${shaftText(frame.maxShaftRpm)} rpm limit`);
+    tooSmall.push(`${atText(fastest)} the turbo shaft would have to turn ${rpmText(fastest.shaftRpm)} rpm, ${over} % past this frame's ${shaftText(frame.maxShaftRpm)} rpm limit`);
   }
 
   // The band is rated on corrected flow, as the map is read.
@@ -382,18 +420,18 @@ export function assessFrame(
   if (tooSmall.length === 0 && tooLarge.length === 0) {
     if (surgeLimited && surgeMargin < rules.minSurgeMargin) {
       const why = context.application === 'street' || context.application === 'offroad' ? ' for clean response as boost builds' : '';
-      marginal.push(`${at(surgeLimited)} it runs ${pctText(surgeMargin)} % from the surge line; ${rules.label} use wants at least ${pctText(rules.minSurgeMargin)} %${why}`);
+      marginal.push(`${atText(surgeLimited)} it runs ${pctText(surgeMargin)} % from the surge line; ${rules.label} use wants at least ${pctText(rules.minSurgeMargin)} %${why}`);
     }
     if (chokeLimited && chokeMargin < rules.minChokeMargin) {
-      marginal.push(`${at(chokeLimited)} it runs within ${pctText(chokeMargin)} % of its flow limit; ${rules.label} use wants at least ${pctText(rules.minChokeMargin)} % in hand`);
+      marginal.push(`${atText(chokeLimited)} it runs within ${pctText(chokeMargin)} % of its flow limit; ${rules.label} use wants at least ${pctText(rules.minChokeMargin)} % in hand`);
     }
     if (fastest && speedMargin < rules.minShaftSpeedMargin) {
       marginal.push(
-        `${at(fastest)} the turbo shaft turns ${shaftText(fastest.shaftRpm)} rpm, ${pctText(1 - speedMargin)} % of this frame's ${shaftText(frame.maxShaftRpm)} rpm limit; ${rules.label} use keeps at least ${pctText(rules.minShaftSpeedMargin)} % in hand`,
+        `${atText(fastest)} the turbo shaft turns ${shaftText(fastest.shaftRpm)} rpm, ${pctText(1 - speedMargin)} % of this frame's ${shaftText(frame.maxShaftRpm)} rpm limit; ${rules.label} use keeps at least ${pctText(rules.minShaftSpeedMargin)} % in hand`,
       );
     } else if (fastest) {
       notes.push(
-        `the turbo shaft peaks at ${shaftText(fastest.shaftRpm)} rpm, ${at(fastest)} (${pctText(1 - speedMargin)} % of this frame's limit; tip speed ${Math.round(tipSpeedMs(frame.exducerMm, fastest.shaftRpm))} m/s)`,
+        `the turbo shaft peaks at ${shaftText(fastest.shaftRpm)} rpm, ${atText(fastest)} (${pctText(1 - speedMargin)} % of this frame's limit; tip speed ${Math.round(tipSpeedMs(frame.exducerMm, fastest.shaftRpm))} m/s)`,
       );
     }
     if (peak.efficiency !== null && peak.efficiency < LOW_EFFICIENCY) {
@@ -452,8 +490,6 @@ export function assessFrame(
     50 * bandMiss -
     (layout === 'twin' ? 12 : 0);
 
-  const round = (v: number, d: number) => Math.round(v * 10 ** d) / 10 ** d;
-  const publicHousing = ({ areaM2: _a, lateBy: _l, ...h }: HousingResult): TurbineHousing => h;
   return {
     frameCode: frame.code,
     frameName: frame.name,

@@ -27,7 +27,10 @@ export interface GridCase {
   application: Application;
   altitudeM: number;
   result: FitmentResponse;
-  /** Inside the family's reach: pressure ratio 1.1 up to the family's highest, flow within the largest frame's choke. */
+  /**
+   * Inside the family's reach as the fitment issue states it: pressure ratio 1.1–4.6 (and no higher than the family's
+   * highest), flow within the largest frame's choke.
+   */
   inReach: boolean;
   /**
    * Inside some frame's map: every point of the engine's full-boost line lies between surge and the flow limit, below
@@ -47,6 +50,9 @@ function lineOnMap(frame: FitmentFrame, units: number, line: FitmentResponse['op
   });
 }
 
+/** The top of the reach box the fitment issue measured against. */
+export const REACH_MAX_PR = 4.6;
+
 export function fitmentGrid(frames: readonly FitmentFrame[] = demoFrames): GridCase[] {
   const familyMaxPr = Math.max(...frames.map((f) => f.map.maxPressureRatio));
   const largestChoke = Math.max(...frames.map((f) => f.map.chokeLine.at(-1)!.flowLbMin));
@@ -60,7 +66,7 @@ export function fitmentGrid(frames: readonly FitmentFrame[] = demoFrames): GridC
             if (!input.success) continue; // beyond any engine (more than 1,000 hp per litre): refused at the door
             const result = runFitmentCheck(input.data, frames);
             const { pressureRatio, correctedFlowLbMin } = result.required;
-            const inReach = pressureRatio >= 1.1 && pressureRatio <= familyMaxPr && correctedFlowLbMin <= largestChoke;
+            const inReach = pressureRatio >= 1.1 && pressureRatio <= Math.min(familyMaxPr, REACH_MAX_PR) && correctedFlowLbMin <= largestChoke;
             const inletK = result.assumptions.ambientC + 273.15;
             const onSomeMap = inReach && frames.some((f) => lineOnMap(f, 1, result.operatingLine, inletK) || lineOnMap(f, 2, result.operatingLine, inletK));
             cases.push({ displacementL, powerHp, fuel, application, altitudeM, result, inReach, onSomeMap });

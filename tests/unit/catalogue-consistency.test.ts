@@ -31,14 +31,14 @@ describe('demo frames', () => {
     }
   });
 
-  it('grow in flow and weight from the smallest to the largest, at a single-stage pressure ratio of about 4 (common practice)', () => {
+  it('grow in flow and weight from the smallest to the largest, at a single-stage pressure ratio of about 4 to 5 (common practice)', () => {
     for (let i = 1; i < FRAMES.length; i++) {
       expect(FRAMES[i]!.maxFlowLbMin).toBeGreaterThan(FRAMES[i - 1]!.maxFlowLbMin);
       expect(FRAMES[i]!.weightKg).toBeGreaterThan(FRAMES[i - 1]!.weightKg);
     }
     for (const f of FRAMES) {
       expect(f.maxPressureRatio, f.code).toBeGreaterThan(3.6);
-      expect(f.maxPressureRatio, f.code).toBeLessThan(4.8);
+      expect(f.maxPressureRatio, f.code).toBeLessThan(5.3);
     }
   });
 });

@@ -21,7 +21,8 @@ describe('trade facts (common practice)', () => {
 
   it('about 2000 hp in petrol drag racing (8.0 L at 7500 rpm): the largest single frame, KRF, about 40 kg, serves it', () => {
     const result = check({ displacementL: 8.0, powerHp: 2000, rpm: 7500, fuel: 'petrol', application: 'drag' });
-    expect(single(result, 'KRF')?.verdict).toBe('fits');
+    const krf = single(result, 'KRF');
+    expect(krf && isUsable(krf)).toBe(true);
     expect(single(result, 'JIG')?.verdict).toBe('too-small');
     // A large engine is also offered as a twin layout, two units sharing the flow.
     expect(result.candidates.some((c) => c.layout === 'twin' && isUsable(c))).toBe(true);
@@ -29,8 +30,8 @@ describe('trade facts (common practice)', () => {
 
   it('continuous duty keeps more margin than drag: the same engine and frame is judged harder for marine', () => {
     const body = { displacementL: 3.0, powerHp: 700, rpm: 7000, fuel: 'petrol', intercooled: true } as const;
-    expect(single(check({ ...body, application: 'drag' }), 'HSP')?.verdict).toBe('fits');
-    const marine = single(check({ ...body, application: 'marine' }), 'HSP');
+    expect(single(check({ ...body, application: 'drag' }), 'GIM')?.verdict).toBe('fits');
+    const marine = single(check({ ...body, application: 'marine' }), 'GIM');
     expect(marine?.verdict).toBe('marginal');
     expect(marine?.reasons.join(' ')).toMatch(/marine use/);
   });
@@ -161,7 +162,8 @@ describe('assumptions and reacting cautions', () => {
   });
 
   it('when nothing serves, says what binds and what to change, each step with a number', () => {
-    const result = check({ displacementL: 3.0, powerHp: 300, rpm: 4000, fuel: 'diesel', application: 'offroad' });
+    // A 2.0 L diesel asked for 250 hp at 4,200 rpm needs a pressure ratio of about 4.5 on the road.
+    const result = check({ displacementL: 2.0, powerHp: 250, rpm: 4200, fuel: 'diesel', application: 'street' });
     expect(result.candidates.some(isUsable)).toBe(false);
     expect(result.nextSteps.length).toBeGreaterThan(0);
     for (const step of result.nextSteps) expect(step).toMatch(/\d/);

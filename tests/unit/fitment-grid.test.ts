@@ -10,6 +10,11 @@ describe('the fitment grid', () => {
   const cases = fitmentGrid();
   const summary = summariseGrid(cases);
 
+  it('serves at least 95 % of the requests in reach (pressure ratio 1.1–4.6, flow within the largest choke)', () => {
+    expect(summary.inReach).toBeGreaterThan(1500);
+    expect(summary.usableSharePct).toBeGreaterThanOrEqual(95);
+  });
+
   it('serves at least 95 % of the engines whose full-boost line lies on some frame’s map (single or twin)', () => {
     expect(summary.onSomeMap).toBeGreaterThan(1000);
     expect(summary.usableOnSomeMapPct).toBeGreaterThanOrEqual(95);

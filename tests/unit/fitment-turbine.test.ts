@@ -3,6 +3,7 @@ import {
   EXHAUST_GAMMA,
   MECHANICAL_EFFICIENCY,
   balanceTurbine,
+  exhaustToDriveKgS,
   expansionRatioFor,
   swallowedKgS,
   turbinePowerW,
@@ -46,6 +47,18 @@ describe('turbine power balance (hand-worked)', () => {
     // What passes the wheel makes exactly the power needed.
     const through = exhaust * (1 - balance.wastegateShare);
     expect((turbinePowerW(through, 1223, balance.expansionRatio, 0.68) * MECHANICAL_EFFICIENCY) / compressorW).toBeCloseTo(1, 2);
+  });
+
+  it('the least exhaust flow that holds the boost is the one the housing swallows at ER 1.4795 (same case)', () => {
+    // Work per kg of exhaust at the shaft: 18 215 / 0.95 / 0.21667 = 88 494 J/kg, the ER of 1.4795 worked above.
+    const area = exhaust / swallowedKgS(1.4795, 1, 108, 1223) / 1.6;
+    const setting = { areaM2: area, p4Kpa: 108, t3K: 1223, efficiency: 0.68 };
+    const needed = exhaustToDriveKgS(compressorW / MECHANICAL_EFFICIENCY / exhaust, setting);
+    expect(needed! / swallowedKgS(1.4795, area, 108, 1223)).toBeCloseTo(1, 2);
+    // Just below that flow the shut housing falls short; at it, the balance is met with nothing to bleed.
+    const below = balanceTurbine(needed! * 0.99, (compressorW * needed! * 0.99) / exhaust, setting);
+    expect(below.reaches).toBe(false);
+    expect(exhaustToDriveKgS(1e9, setting)).toBeNull();
   });
 
   it('a larger housing cannot drive the compressor: boost is not reached', () => {
