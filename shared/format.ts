@@ -23,6 +23,11 @@ export function parseMoneyToCents(input: string): number | null {
   return Number(m[1]!.replace(/,/g, '')) * 100 + Number((m[2] ?? '').padEnd(2, '0'));
 }
 
+/** Integer cents as a figure to put in an input box, without the currency sign: 123_450 → "1,234.50". */
+export function formatMoneyInput(cents: number): string {
+  return formatMoney(cents).replace('$', '');
+}
+
 const toDate = (value: string | Date) => (value instanceof Date ? value : new Date(value));
 
 /** "Dec 2, 2026"; an unreadable value is shown as it came. */

@@ -2,8 +2,9 @@ import { parse } from 'csv-parse/sync';
 import { eq, getTableColumns, or, sql } from 'drizzle-orm';
 import type { Db } from '../db/client';
 import { frames, partAliases, partLinks, parts, partSpecs, priceImports, type PriceImportStoredRow as StoredRow } from '../db/schema';
-import { HttpError } from '../middleware/errors';
+import { ConflictError, InvalidError, NotFoundError, TooLargeError } from './errors';
 import { CATEGORY_SLUGS } from '../../shared/catalog';
+import { parseMoneyToCents } from '../../shared/format';
 import { normalizePartNumber, PART_NUMBER_EXAMPLE, PART_NUMBER_PATTERN } from '../../shared/part-number';
 import { PRICE_IMPORT_MAX_ROWS, type PartForm, type PriceImport } from '../../shared/schemas/admin-catalog';
 
@@ -30,14 +31,6 @@ const specValues = (s: PartForm['specs']): Omit<typeof partSpecs.$inferSelect, '
   mounting: s.mounting ?? null,
   connection: s.connection ?? null,
 });
-
-/** Dollars as people write them ("1,234.50", "$99") to integer cents; null when it is not a price. */
-export function parseDollarsToCents(text: string): number | null {
-  const t = text.trim().replace(/^\$/, '').replace(/,/g, '');
-  if (!/^\d{1,7}(\.\d{1,2})?$/.test(t)) return null;
-  const [whole, frac = ''] = t.split('.');
-  return Number(whole) * 100 + Number(frac.padEnd(2, '0'));
-}
 
 export function createCatalogAdmin(deps: { db: Db; refreshSearch: (ids: number[]) => void; rebuildSearch: () => void }) {
   const { db } = deps;
@@ -86,7 +79,7 @@ export function createCatalogAdmin(deps: { db: Db; refreshSearch: (ids: number[]
       .get();
   const partOr404 = (partNumber: string) => {
     const part = findPart(partNumber);
-    if (!part) throw new HttpError(404, `No part ${partNumber}`);
+    if (!part) throw new NotFoundError(`No part ${partNumber}`);
     return part;
   };
   const frameExists = (code: string) => frameByCode.get({ code }) !== undefined;
@@ -112,7 +105,7 @@ export function createCatalogAdmin(deps: { db: Db; refreshSearch: (ids: number[]
       .from(parts)
       .where(eq(parts.id, id))
       .get();
-    if (!p) throw new HttpError(404, `No part ${partNumber}`);
+    if (!p) throw new NotFoundError(`No part ${partNumber}`);
     const specs = db.select(specColumns).from(partSpecs).where(eq(partSpecs.partId, id)).get() ?? specValues({});
     const goesWith = db
       .select({ partNumber: parts.partNumber })
@@ -134,8 +127,8 @@ export function createCatalogAdmin(deps: { db: Db; refreshSearch: (ids: number[]
   };
 
   function create(form: PartForm) {
-    if (findPart(form.partNumber) !== undefined) throw new HttpError(409, `${form.partNumber} already exists`, { partNumber: ['this part number is taken'] });
-    if (form.frameCode && !frameExists(form.frameCode)) throw new HttpError(400, `No frame ${form.frameCode}`, { frameCode: ['no such frame'] });
+    if (findPart(form.partNumber) !== undefined) throw new ConflictError(`${form.partNumber} already exists`, { partNumber: ['this part number is taken'] });
+    if (form.frameCode && !frameExists(form.frameCode)) throw new InvalidError(`No frame ${form.frameCode}`, { frameCode: ['no such frame'] });
     const id = db.transaction((tx) => {
       const row = tx
         .insert(parts)
@@ -164,8 +157,8 @@ export function createCatalogAdmin(deps: { db: Db; refreshSearch: (ids: number[]
 
   function update(partNumber: string, form: PartForm) {
     const { id } = partOr404(partNumber);
-    if (normalizePartNumber(form.partNumber) !== normalizePartNumber(partNumber)) throw new HttpError(400, 'A part number cannot change; supersede the part instead', { partNumber: ['supersede instead of renaming'] });
-    if (form.frameCode && !frameExists(form.frameCode)) throw new HttpError(400, `No frame ${form.frameCode}`, { frameCode: ['no such frame'] });
+    if (normalizePartNumber(form.partNumber) !== normalizePartNumber(partNumber)) throw new InvalidError('A part number cannot change; supersede the part instead', { partNumber: ['supersede instead of renaming'] });
+    if (form.frameCode && !frameExists(form.frameCode)) throw new InvalidError(`No frame ${form.frameCode}`, { frameCode: ['no such frame'] });
     db.transaction((tx) => {
       tx.update(parts)
         .set({
@@ -194,13 +187,13 @@ export function createCatalogAdmin(deps: { db: Db; refreshSearch: (ids: number[]
   function supersede(partNumber: string, replacedBy: string) {
     const old = partOr404(partNumber);
     const replacement = findPart(replacedBy);
-    if (replacement === undefined) throw new HttpError(400, `No part ${replacedBy}`, { replacedBy: ['no such part'] });
-    if (replacement.id === old.id) throw new HttpError(400, 'A part cannot replace itself', { replacedBy: ['choose another part'] });
+    if (replacement === undefined) throw new InvalidError(`No part ${replacedBy}`, { replacedBy: ['no such part'] });
+    if (replacement.id === old.id) throw new InvalidError('A part cannot replace itself', { replacedBy: ['choose another part'] });
     db.transaction((tx) => {
       // No cycles: the replacement must not lead back to this part.
       let next: string | null = replacement.partNumber;
       for (let hops = 0; next && hops < 10; hops++) {
-        if (normalizePartNumber(next) === normalizePartNumber(old.partNumber)) throw new HttpError(409, 'That would make a loop of supersessions');
+        if (normalizePartNumber(next) === normalizePartNumber(old.partNumber)) throw new ConflictError('That would make a loop of supersessions');
         next =
           tx
             .select({ supersededBy: parts.supersededBy })
@@ -221,7 +214,7 @@ export function createCatalogAdmin(deps: { db: Db; refreshSearch: (ids: number[]
     const { id } = partOr404(partNumber);
     const ids = numbers.map((n) => {
       const other = findPart(n);
-      if (other === undefined) throw new HttpError(400, `No part ${n}`, { partNumbers: [`no part ${n}`] });
+      if (other === undefined) throw new InvalidError(`No part ${n}`, { partNumbers: [`no part ${n}`] });
       return other.id;
     });
     db.transaction((tx) => {
@@ -254,9 +247,9 @@ export function createCatalogAdmin(deps: { db: Db; refreshSearch: (ids: number[]
     const partNumber = (input.part_number ?? '').trim();
     const base: StoredRow = { row, partNumber, status: 'error', oldPriceCents: null, newPriceCents: null, title: null, message: null, input };
     if (!partNumber) return { ...base, message: 'part_number is empty' };
-    const price = parseDollarsToCents(input.price ?? '');
+    const price = parseMoneyToCents(input.price ?? '');
     if (price === null || price <= 0) return { ...base, message: `price “${(input.price ?? '').slice(0, 20)}” is not an amount in dollars such as 123.45` };
-    const core = input.core_deposit?.trim() ? parseDollarsToCents(input.core_deposit) : null;
+    const core = input.core_deposit?.trim() ? parseMoneyToCents(input.core_deposit) : null;
     if (input.core_deposit?.trim() && core === null) return { ...base, message: `core_deposit “${input.core_deposit.slice(0, 20)}” is not an amount in dollars` };
     const existing = partByNumber.get({ number: normalizePartNumber(partNumber) });
     if (existing) {
@@ -290,7 +283,7 @@ export function createCatalogAdmin(deps: { db: Db; refreshSearch: (ids: number[]
       .from(priceImports)
       .where(eq(priceImports.id, id))
       .get();
-    if (!row) throw new HttpError(404, 'No such price import');
+    if (!row) throw new NotFoundError('No such price import');
     const rows = row.rows;
     const counts = { new: 0, changed: 0, unchanged: 0, error: 0 };
     for (const r of rows) counts[r.status]++;
@@ -318,11 +311,11 @@ export function createCatalogAdmin(deps: { db: Db; refreshSearch: (ids: number[]
         relax_column_count: true,
       }) as Array<Record<string, string>>;
     } catch {
-      throw new HttpError(400, 'The file could not be read as CSV', { file: ['the file could not be read as CSV'] });
+      throw new InvalidError('The file could not be read as CSV', { file: ['the file could not be read as CSV'] });
     }
-    if (records.length === 0) throw new HttpError(400, 'The file has no rows', { file: ['the file has no rows'] });
-    if (!('part_number' in records[0]!) || !('price' in records[0]!)) throw new HttpError(400, 'The file needs the columns part_number and price', { file: ['columns part_number and price are needed'] });
-    if (records.length > PRICE_IMPORT_MAX_ROWS) throw new HttpError(413, `At most ${PRICE_IMPORT_MAX_ROWS} rows per file`);
+    if (records.length === 0) throw new InvalidError('The file has no rows', { file: ['the file has no rows'] });
+    if (!('part_number' in records[0]!) || !('price' in records[0]!)) throw new InvalidError('The file needs the columns part_number and price', { file: ['columns part_number and price are needed'] });
+    if (records.length > PRICE_IMPORT_MAX_ROWS) throw new TooLargeError(`At most ${PRICE_IMPORT_MAX_ROWS} rows per file`);
     const seen = new Map<string, number>();
     const rows = records.map((input, i) => {
       const checked = checkRow(i + 2, input);
@@ -337,8 +330,8 @@ export function createCatalogAdmin(deps: { db: Db; refreshSearch: (ids: number[]
 
   function editRows(id: number, change: (rows: StoredRow[]) => StoredRow[]) {
     const current = db.select({ status: priceImports.status, rows: priceImports.rows }).from(priceImports).where(eq(priceImports.id, id)).get();
-    if (!current) throw new HttpError(404, 'No such price import');
-    if (current.status !== 'preview') throw new HttpError(409, 'This import was already applied');
+    if (!current) throw new NotFoundError('No such price import');
+    if (current.status !== 'preview') throw new ConflictError('This import was already applied');
     db.update(priceImports)
       .set({ rows: change(current.rows) })
       .where(eq(priceImports.id, id))
@@ -348,12 +341,12 @@ export function createCatalogAdmin(deps: { db: Db; refreshSearch: (ids: number[]
 
   const fixRow = (id: number, row: number, input: Record<string, string>) =>
     editRows(id, (rows) => {
-      if (!rows.some((r) => r.row === row)) throw new HttpError(404, `No row ${row}`);
+      if (!rows.some((r) => r.row === row)) throw new NotFoundError(`No row ${row}`);
       return rows.map((r) => (r.row === row ? checkRow(row, { ...r.input, ...input }) : r));
     });
   const dropRow = (id: number, row: number) =>
     editRows(id, (rows) => {
-      if (!rows.some((r) => r.row === row)) throw new HttpError(404, `No row ${row}`);
+      if (!rows.some((r) => r.row === row)) throw new NotFoundError(`No row ${row}`);
       return rows.filter((r) => r.row !== row);
     });
 
@@ -362,14 +355,14 @@ export function createCatalogAdmin(deps: { db: Db; refreshSearch: (ids: number[]
     const touched: number[] = [];
     db.transaction((tx) => {
       const current = tx.select({ status: priceImports.status, rows: priceImports.rows }).from(priceImports).where(eq(priceImports.id, id)).get();
-      if (!current) throw new HttpError(404, 'No such price import');
-      if (current.status !== 'preview') throw new HttpError(409, 'This import was already applied');
+      if (!current) throw new NotFoundError('No such price import');
+      if (current.status !== 'preview') throw new ConflictError('This import was already applied');
       // Check again at apply time: the catalogue may have changed since the preview.
       const rows = current.rows.map((r) => checkRow(r.row, r.input));
       const errors = rows.filter((r) => r.status === 'error');
       if (errors.length > 0) {
         tx.update(priceImports).set({ rows }).where(eq(priceImports.id, id)).run();
-        throw new HttpError(409, `${errors.length} ${errors.length === 1 ? 'row is' : 'rows are'} in error: fix or drop ${errors.length === 1 ? 'it' : 'them'} first; nothing was applied`);
+        throw new ConflictError(`${errors.length} ${errors.length === 1 ? 'row is' : 'rows are'} in error: fix or drop ${errors.length === 1 ? 'it' : 'them'} first; nothing was applied`);
       }
       for (const r of rows) {
         if (r.status === 'changed') {

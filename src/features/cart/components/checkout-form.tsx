@@ -4,6 +4,7 @@ import { lazy, Suspense, useRef, useState } from 'react';
 import { useForm, type FieldError, type FieldErrors, type Resolver } from 'react-hook-form';
 import { Link } from 'react-router-dom';
 import { formatPrice } from '../../../../shared/catalog';
+import { checkCredit } from '../../../../shared/credit';
 import { DELIVERY_ZONE_KEYS, DELIVERY_ZONES, type DeliveryZone } from '../../../../shared/pricing';
 import type { Me } from '../../../../shared/schemas/accounts';
 import { CheckoutSchema, PURCHASE_ORDER_MAX, type CartView, type Checkout } from '../../../../shared/schemas/orders';
@@ -71,8 +72,10 @@ function FieldMessage({ id, error }: { id: string; error?: FieldError }) {
 
 function CreditCheck({ dealer, orderCents }: { dealer: NonNullable<NonNullable<Me['user']>['dealer']>; orderCents: number }) {
   const open = dealer.openBalanceCents ?? 0;
-  const after = open + orderCents;
-  const over = after > dealer.creditLimitCents;
+  // The same rule the server applies when the order is placed.
+  const check = checkCredit({ openBalanceCents: open, orderCents, creditLimitCents: dealer.creditLimitCents });
+  const after = check.balanceAfterCents;
+  const over = !check.fits;
   const pct = dealer.creditLimitCents > 0 ? Math.min(100, (after / dealer.creditLimitCents) * 100) : 100;
   return (
     <section aria-labelledby="credit-heading" className="grid gap-2 rounded-md bg-panel p-4">

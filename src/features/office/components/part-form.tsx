@@ -8,7 +8,8 @@ import type { AdminPart } from '../../../../shared/schemas/office-views';
 import { Button } from '../../../components/ui/button';
 import { ApiError } from '../../../lib/api-client';
 import { useSavePart } from '../api/save-part';
-import { formatScaled, parseScaled } from '../lib/money';
+import { moneyFieldCents, moneyFieldText } from '../lib/money';
+import { gramsToKilogramsText, kilogramsFieldGrams } from '../lib/weight';
 import { ALL_SPEC_KEYS, SPEC_FIELDS, specFieldId, specFieldsFor, type SpecField } from '../lib/spec-fields';
 import { ErrorSummary, SelectField, TextAreaField, TextField, type SummaryItem } from '../../../components/ui/form';
 
@@ -129,14 +130,21 @@ const numberOrNull = (v: unknown) => {
 };
 
 /** A whole-unit value typed in a bigger unit: dollars for cents, kilograms for grams. */
-function ScaledInput({ control, name, id, label, hint, scale, decimals, prefix, suffix, error }: {
+/** How a scaled box reads and writes its value: dollars for cents, kilograms for grams. */
+interface Scale {
+  toValue: (text: string) => number;
+  toText: (value: number) => string;
+}
+const DOLLARS: Scale = { toValue: moneyFieldCents, toText: moneyFieldText };
+const KILOGRAMS: Scale = { toValue: kilogramsFieldGrams, toText: gramsToKilogramsText };
+
+function ScaledInput({ control, name, id, label, hint, scale, prefix, suffix, error }: {
   control: Control<FormInput, unknown, PartForm>;
   name: 'priceCents' | 'coreDepositCents' | 'weightGrams';
   id: string;
   label: string;
   hint?: string;
-  scale: number;
-  decimals: number;
+  scale: Scale;
   prefix?: string;
   suffix?: string;
   error?: string;
@@ -145,23 +153,22 @@ function ScaledInput({ control, name, id, label, hint, scale, decimals, prefix, 
     <Controller
       control={control}
       name={name}
-      render={({ field }) => <ScaledInputField field={field} id={id} label={label} hint={hint} scale={scale} decimals={decimals} prefix={prefix} suffix={suffix} error={error} />}
+      render={({ field }) => <ScaledInputField field={field} id={id} label={label} hint={hint} scale={scale} prefix={prefix} suffix={suffix} error={error} />}
     />
   );
 }
 
-function ScaledInputField({ field, scale, decimals, ...rest }: {
+function ScaledInputField({ field, scale, ...rest }: {
   field: { value: number; onChange: (v: number) => void; onBlur: () => void; ref: (el: HTMLInputElement | null) => void; name: string };
   id: string;
   label: string;
   hint?: string;
-  scale: number;
-  decimals: number;
+  scale: Scale;
   prefix?: string;
   suffix?: string;
   error?: string;
 }) {
-  const [text, setText] = useState(() => formatScaled(field.value, scale, decimals));
+  const [text, setText] = useState(() => scale.toText(field.value));
   return (
     <TextField
       {...rest}
@@ -172,7 +179,7 @@ function ScaledInputField({ field, scale, decimals, ...rest }: {
       value={text}
       onChange={(e) => {
         setText(e.target.value);
-        field.onChange(parseScaled(e.target.value, scale));
+        field.onChange(scale.toValue(e.target.value));
       }}
       onBlur={field.onBlur}
     />
@@ -345,8 +352,7 @@ export function PartFormView({ part, onSaved }: { part?: AdminPart; onSaved: (pa
           id="part-priceCents"
           label="Price"
           hint="Retail price in dollars, before tax; dealers get their tier discount off it."
-          scale={100}
-          decimals={2}
+          scale={DOLLARS}
           prefix="$"
           error={fieldError('priceCents')}
         />
@@ -357,8 +363,7 @@ export function PartFormView({ part, onSaved }: { part?: AdminPart; onSaved: (pa
             id="part-coreDepositCents"
             label="Core deposit"
             hint="Charged with the unit and refunded after the old core is inspected."
-            scale={100}
-            decimals={2}
+            scale={DOLLARS}
             prefix="$"
             error={fieldError('coreDepositCents')}
           />
@@ -369,8 +374,7 @@ export function PartFormView({ part, onSaved }: { part?: AdminPart; onSaved: (pa
           id="part-weightGrams"
           label="Shipping weight"
           hint="Packed weight, used for freight."
-          scale={1000}
-          decimals={3}
+          scale={KILOGRAMS}
           suffix="kg"
           error={fieldError('weightGrams')}
         />

@@ -1,22 +1,21 @@
+import { formatMoneyInput, parseMoneyToCents } from '../../../../shared/format';
+
 /**
- * A decimal typed by a person ("123.45", "$1,234.5", "9.2") times `scale` (100 for dollars → cents, 1000 for kg → g).
- * NaN when it is not a number, so the form can say so. One extra decimal is kept so the schema refuses
- * "12.345" dollars as "not whole cents" rather than rounding it silently.
+ * What the price box holds as the form's value: whole cents read by the one money parser in shared/format.ts.
+ * A figure with more than two decimals ("12.345") keeps a fraction of a cent, so the shared schema's own
+ * "whole cents" rule names the mistake; anything else that is not an amount is NaN ("enter the price…").
  */
-export function parseScaled(text: string, scale: number): number {
-  const cleaned = text.trim().replace(/^\$/, '').replace(/,/g, '');
-  if (!/^(\d+(\.\d*)?|\.\d+)$/.test(cleaned)) return Number.NaN;
-  return Math.round(Number(cleaned) * scale * 10) / 10;
+export function moneyFieldCents(text: string): number {
+  const cents = parseMoneyToCents(text);
+  if (cents !== null) return cents;
+  const extraDecimals = /^(.*\.\d{2})\d+\s*$/.exec(text);
+  const truncated = extraDecimals ? parseMoneyToCents(extraDecimals[1]!) : null;
+  return truncated === null ? Number.NaN : truncated + 0.5;
 }
 
-export const parseDollars = (text: string) => parseScaled(text, 100);
-
-export function formatScaled(value: number | undefined | null, scale: number, decimals: number): string {
-  if (value === undefined || value === null || !Number.isFinite(value)) return '';
-  // Weights read better without trailing zeros ("8", "0.06"); money keeps its cents.
-  const fixed = (value / scale).toFixed(decimals);
-  return decimals > 2 ? String(Number(fixed)) : fixed;
-}
+/** The price box's text for a stored price: "1,234.50"; empty while there is none. */
+export const moneyFieldText = (cents: number | null | undefined): string =>
+  cents === null || cents === undefined || !Number.isFinite(cents) ? '' : formatMoneyInput(cents);
 
 export function formatBytes(bytes: number): string {
   if (bytes >= 1_000_000) return `${(bytes / 1_000_000).toFixed(1)} MB`;
