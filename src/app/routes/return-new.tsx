@@ -3,7 +3,7 @@ import { formatPrice } from '../../../shared/catalog';
 import { ErrorState, LoadingState } from '../../components/ui/states';
 import { ApiError } from '../../lib/api-client';
 import { useMe } from '../../features/auth/api/get-me';
-import { useOrderForReturn } from '../../features/returns/api/get-order';
+import { useOrder } from '../../lib/orders';
 import { useReturns } from '../../features/returns/api/get-returns';
 import { LinePicker } from '../../features/returns/components/line-picker';
 import { ReturnForm } from '../../features/returns/components/return-form';
@@ -12,7 +12,7 @@ import { ORDER_NUMBER_PATTERN } from '../../../shared/part-number';
 
 function ReturnLine({ orderNumber, lineId }: { orderNumber: string; lineId: number }) {
   const navigate = useNavigate();
-  const order = useOrderForReturn(orderNumber);
+  const order = useOrder(orderNumber);
   const returns = useReturns();
   if (order.isPending || returns.isPending) return <LoadingState label={`Loading ${orderNumber}…`} />;
   if (order.isError) {

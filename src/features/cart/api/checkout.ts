@@ -2,6 +2,7 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { z } from 'zod';
 import { CheckoutResponseSchema, type Checkout } from '../../../../shared/schemas/orders';
 import { api } from '../../../lib/api-client';
+import { orderKeys } from '../../../lib/orders';
 import { cartKeys } from './keys';
 
 export const placeOrder = (input: Checkout) => api('/checkout', CheckoutResponseSchema, { method: 'POST', body: input });
@@ -17,6 +18,7 @@ export function usePlaceOrder(options: { onSettled?: () => void } = {}) {
     // Not awaited: the page moves on (or shows the authentication step) while the cart refetches.
     onSettled: () => {
       void qc.invalidateQueries({ queryKey: cartKeys.all });
+      void qc.invalidateQueries({ queryKey: orderKeys.list() });
       options.onSettled?.();
     },
   });
@@ -30,5 +32,9 @@ export const authenticatePayment = (input: { paymentIntentId: string; outcome: '
 
 export function useAuthenticatePayment() {
   const qc = useQueryClient();
-  return useMutation({ mutationFn: authenticatePayment, onSettled: () => qc.invalidateQueries({ queryKey: cartKeys.all }) });
+  return useMutation({
+    mutationFn: authenticatePayment,
+    onSettled: (reply) =>
+      Promise.all([qc.invalidateQueries({ queryKey: cartKeys.all }), reply ? qc.invalidateQueries({ queryKey: orderKeys.detail(reply.order.number) }) : undefined]),
+  });
 }

@@ -3,7 +3,7 @@ import { Link } from 'react-router-dom';
 import { Button } from '../../../components/ui/button';
 import { ErrorState, LoadingState } from '../../../components/ui/states';
 import { ApiError } from '../../../lib/api-client';
-import { useOrder } from '../api/get-order';
+import { useOrder } from '../../../lib/orders';
 import { OrderLinesTable, OrderTotals } from './order-lines';
 import { formatDate } from '../../../../shared/format';
 import { statusMeta } from './order-status';

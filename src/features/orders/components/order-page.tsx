@@ -4,7 +4,7 @@ import type { OrderDetail } from '../../../../shared/schemas/orders';
 import { buttonClass } from '../../../components/ui/button';
 import { ErrorState, LoadingState } from '../../../components/ui/states';
 import { ApiError } from '../../../lib/api-client';
-import { PAYMENT_POLL_LIMIT, PAYMENT_POLL_MS, useOrder } from '../api/get-order';
+import { PAYMENT_POLL_LIMIT, PAYMENT_POLL_MS, useOrder } from '../../../lib/orders';
 import { OrderLinesTable, OrderTotals, zoneLabel } from './order-lines';
 import { formatDateTime } from '../../../../shared/format';
 import { OrderStatusBadge } from './order-status';

@@ -3,7 +3,7 @@ import { Link } from 'react-router-dom';
 import { formatPrice } from '../../../../shared/catalog';
 import { EmptyState, ErrorState, LoadingState } from '../../../components/ui/states';
 import { ApiError } from '../../../lib/api-client';
-import { useOrders } from '../api/get-orders';
+import { useOrders } from '../../../lib/orders';
 import { formatDate } from '../../../../shared/format';
 import { OrderStatusBadge } from './order-status';
 import { ReorderButton } from './reorder-button';

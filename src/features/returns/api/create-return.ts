@@ -1,6 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { ReturnViewSchema, type ReturnRequest } from '../../../../shared/schemas/warehouse';
 import { api } from '../../../lib/api-client';
+import { orderKeys } from '../../../lib/orders';
 import { returnsKeys } from './keys';
 
 /** Sends the request as multipart form data: the fields plus each photo under "photos". */
@@ -20,8 +21,10 @@ export function useCreateReturn() {
   return useMutation({
     mutationFn: createReturn,
     // Not awaited: the buyer moves on to the list at once, which loads the fresh answer itself.
-    onSuccess: () => {
+    onSuccess: (_view, { request }) => {
       void client.invalidateQueries({ queryKey: returnsKeys.all });
+      // The order's own page shows the request on its timeline.
+      void client.invalidateQueries({ queryKey: orderKeys.detail(request.orderNumber) });
     },
   });
 }

@@ -5,13 +5,12 @@ import { formatPrice } from '../../../../shared/catalog';
 import { ORDER_STATUS_LABELS } from '../../../../shared/schemas/orders';
 import { buttonClass } from '../../../components/ui/button';
 import { EmptyState, ErrorState, LoadingState } from '../../../components/ui/states';
-import { useOrderForReturn } from '../api/get-order';
-import { useOrdersForReturn } from '../api/get-orders';
+import { useOrder, useOrders } from '../../../lib/orders';
 import { useReturns } from '../api/get-returns';
 import { hasLeftTheBuilding, returnableQuantity } from '../lib/returnable';
 
 function OrderLines({ number }: { number: string }) {
-  const order = useOrderForReturn(number);
+  const order = useOrder(number);
   const returns = useReturns();
   if (order.isPending || returns.isPending) return <LoadingState label={`Loading ${number}…`} />;
   if (order.isError) return <ErrorState title={`${number} did not load`} message={order.error.message} onRetry={() => order.refetch()} />;
@@ -48,7 +47,7 @@ function OrderLines({ number }: { number: string }) {
 
 /** Choose a dispatched order, then the line to send back. */
 export function LinePicker() {
-  const orders = useOrdersForReturn();
+  const orders = useOrders();
   const [chosen, setChosen] = useState<string | null>(null);
   if (orders.isPending) return <LoadingState label="Loading your orders…" />;
   if (orders.isError) return <ErrorState title="Your orders did not load" message={orders.error.message} onRetry={() => orders.refetch()} />;

@@ -1,6 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { Dispatch } from '../../../../shared/schemas/warehouse';
 import { api } from '../../../lib/api-client';
+import { orderKeys } from '../../../lib/orders';
 import { warehouseKeys } from './keys';
 import { DispatchReplySchema } from './reply-schemas';
 
@@ -13,6 +14,6 @@ export function useDispatchOrder() {
   return useMutation({
     mutationFn: dispatchOrder,
     onSettled: (_d, _e, { orderNumber }) =>
-      Promise.all([qc.invalidateQueries({ queryKey: warehouseKeys.queue() }), qc.invalidateQueries({ queryKey: warehouseKeys.order(orderNumber) })]),
+      Promise.all([qc.invalidateQueries({ queryKey: warehouseKeys.queue() }), qc.invalidateQueries({ queryKey: orderKeys.detail(orderNumber) })]),
   });
 }

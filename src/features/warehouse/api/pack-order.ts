@@ -2,6 +2,7 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { z } from 'zod';
 import type { PackSchema } from '../../../../shared/schemas/warehouse';
 import { api } from '../../../lib/api-client';
+import { orderKeys } from '../../../lib/orders';
 import { warehouseKeys } from './keys';
 import { PackReplySchema } from './reply-schemas';
 
@@ -13,6 +14,6 @@ export function usePackOrder() {
   return useMutation({
     mutationFn: packOrder,
     onSuccess: (_d, { orderNumber }) =>
-      Promise.all([qc.invalidateQueries({ queryKey: warehouseKeys.queue() }), qc.invalidateQueries({ queryKey: warehouseKeys.order(orderNumber) })]),
+      Promise.all([qc.invalidateQueries({ queryKey: warehouseKeys.queue() }), qc.invalidateQueries({ queryKey: orderKeys.detail(orderNumber) })]),
   });
 }

@@ -1,6 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { PickResultSchema, type Pick, type PickList } from '../../../../shared/schemas/warehouse';
 import { api } from '../../../lib/api-client';
+import { orderKeys } from '../../../lib/orders';
 import { warehouseKeys } from './keys';
 
 export const recordPick = ({ orderNumber, pick }: { orderNumber: string; pick: Pick }) =>
@@ -20,7 +21,7 @@ export function useRecordPick() {
       void Promise.all([
         qc.invalidateQueries({ queryKey: warehouseKeys.pickLists() }),
         qc.invalidateQueries({ queryKey: warehouseKeys.queue() }),
-        qc.invalidateQueries({ queryKey: warehouseKeys.order(orderNumber) }),
+        qc.invalidateQueries({ queryKey: orderKeys.detail(orderNumber) }),
       ]);
     },
   });

@@ -9,7 +9,7 @@ import { Button, buttonClass } from '../../../components/ui/button';
 import { ErrorState, LoadingState } from '../../../components/ui/states';
 import { ApiError } from '../../../lib/api-client';
 import { useDispatchOrder } from '../api/dispatch-order';
-import { useOrder } from '../api/get-order';
+import { useOrder } from '../../../lib/orders';
 import { usePackOrder } from '../api/pack-order';
 import type { DispatchReply } from '../api/reply-schemas';
 import { ErrorSummary, SelectField, summaryItems, TextField } from '../../../components/ui/form';

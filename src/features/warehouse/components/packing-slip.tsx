@@ -5,7 +5,7 @@ import type { PickList } from '../../../../shared/schemas/warehouse';
 import { Button, buttonClass } from '../../../components/ui/button';
 import { ErrorState, LoadingState } from '../../../components/ui/states';
 import { ApiError } from '../../../lib/api-client';
-import { useOrder } from '../api/get-order';
+import { useOrder } from '../../../lib/orders';
 import { usePickList } from '../api/get-pick-list';
 import { formatDate } from '../../../../shared/format';
 
