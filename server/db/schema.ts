@@ -1,9 +1,28 @@
 import { sql } from 'drizzle-orm';
+import {
+  ALIAS_KINDS,
+  BEARINGS,
+  BOOST_UNITS,
+  CATEGORY_SLUGS,
+  CONDITION_GRADE_KEYS,
+  DEALER_STATUSES,
+  DEALER_TIER_KEYS,
+  DELIVERY_ZONE_KEYS,
+  inListSql,
+  ORDER_STATUS_KEYS,
+  PART_CONDITIONS,
+  PART_STATUSES,
+  PAYMENT_METHODS,
+  PAYMENT_STATES,
+  PRICE_IMPORT_STATUSES,
+  RETURN_KIND_KEYS,
+  RETURN_STATUSES,
+  ROLES,
+  STOCK_MOVEMENT_KINDS,
+} from '../../shared/allowed-values';
 import { CATEGORIES, type Bearing } from '../../shared/catalog';
-import { DELIVERY_ZONE_KEYS } from '../../shared/pricing';
 import type { PriceImportRow } from '../../shared/schemas/admin-catalog';
-import { BOOST_UNITS, SHAFT_LOG_MAX_ROWS } from '../../shared/schemas/shaft-logs';
-import { CONDITION_GRADE_KEYS } from '../../shared/schemas/warehouse';
+import { SHAFT_LOG_MAX_ROWS } from '../../shared/schemas/shaft-logs';
 import { check, index, integer, primaryKey, real, sqliteTable, text, uniqueIndex } from 'drizzle-orm/sqlite-core';
 
 /** The order the shop lists categories in; the same expression sorts the catalogue and backs an index. */
@@ -11,6 +30,10 @@ export const CATEGORY_ORDER_EXPR = `(CASE category ${CATEGORIES.map((c, i) => `W
 const CATEGORY_ORDER_SQL = sql.raw(CATEGORY_ORDER_EXPR);
 const stamp = (name: string) => text(name).notNull().default(sql`(strftime('%Y-%m-%dT%H:%M:%fZ','now'))`);
 const createdAt = () => stamp('created_at');
+/** A CHECK that a column holds one of the allowed values (shared/allowed-values.ts); null passes where null is allowed. */
+const oneOf = (table: string, column: string, values: readonly string[]) => check(`${table}_${column}_ck`, sql.raw(inListSql(column, values)));
+/** A CHECK on plain column arithmetic, named after the table and what it holds. */
+const holds = (table: string, name: string, expression: string) => check(`${table}_${name}_ck`, sql.raw(expression));
 
 export const frames = sqliteTable('frames', {
   code: text('code').primaryKey(),
@@ -42,8 +65,8 @@ export const parts = sqliteTable(
     title: text('title').notNull(),
     category: text('category').notNull(),
     frameCode: text('frame_code').references(() => frames.code),
-    status: text('status', { enum: ['active', 'superseded', 'discontinued'] }).notNull().default('active'),
-    condition: text('condition', { enum: ['new', 'exchange'] }).notNull().default('new'),
+    status: text('status', { enum: PART_STATUSES }).notNull().default('active'),
+    condition: text('condition', { enum: PART_CONDITIONS }).notNull().default('new'),
     priceCents: integer('price_cents').notNull(),
     coreDepositCents: integer('core_deposit_cents').notNull().default(0),
     weightGrams: integer('weight_grams').notNull(),
@@ -64,11 +87,18 @@ export const parts = sqliteTable(
     index('parts_listing_idx').on(t.category, t.frameCode, t.status, t.available),
     // The catalogue's default order (category as the shop lists them, frame, number), so a page is read in order.
     index('parts_browse_order_idx').on(sql`${CATEGORY_ORDER_SQL}`, t.frameCode, t.partNumber),
+    oneOf('parts', 'status', PART_STATUSES),
+    oneOf('parts', 'condition', PART_CONDITIONS),
+    oneOf('parts', 'category', CATEGORY_SLUGS),
+    holds('parts', 'money', 'price_cents >= 0 AND core_deposit_cents >= 0'),
+    holds('parts', 'counts', 'weight_grams >= 0 AND min_stock >= 0 AND available >= 0'),
   ],
 );
 
 /** Per-category specifications; a column is null where the category has no such property. */
-export const partSpecs = sqliteTable('part_specs', {
+export const partSpecs = sqliteTable(
+  'part_specs',
+  {
   partId: integer('part_id').primaryKey().references(() => parts.id, { onDelete: 'cascade' }),
   compressorAr: real('compressor_ar'),
   turbineAr: real('turbine_ar'),
@@ -79,14 +109,16 @@ export const partSpecs = sqliteTable('part_specs', {
   inletMm: real('inlet_mm'),
   outletMm: real('outlet_mm'),
   material: text('material'),
-  bearing: text('bearing', { enum: ['journal', 'ball'] }),
+  bearing: text('bearing', { enum: BEARINGS }),
   wastegate: text('wastegate'),
   cooling: text('cooling'),
   gaugeType: text('gauge_type'),
   rangeText: text('range_text'),
   mounting: text('mounting'),
   connection: text('connection'),
-});
+  },
+  () => [oneOf('part_specs', 'bearing', BEARINGS)],
+);
 
 /** Other numbers a part is known by: cross-references and the numbers it superseded. */
 export const partAliases = sqliteTable(
@@ -96,10 +128,10 @@ export const partAliases = sqliteTable(
     partId: integer('part_id').notNull().references(() => parts.id, { onDelete: 'cascade' }),
     alias: text('alias').notNull(),
     normalizedAlias: text('normalized_alias').notNull(),
-    kind: text('kind', { enum: ['cross-reference', 'superseded'] }).notNull(),
+    kind: text('kind', { enum: ALIAS_KINDS }).notNull(),
     source: text('source'),
   },
-  (t) => [index('part_aliases_normalized_idx').on(t.normalizedAlias), index('part_aliases_part_idx').on(t.partId)],
+  (t) => [index('part_aliases_normalized_idx').on(t.normalizedAlias), index('part_aliases_part_idx').on(t.partId), oneOf('part_aliases', 'kind', ALIAS_KINDS)],
 );
 
 export const partLinks = sqliteTable(
@@ -126,7 +158,13 @@ export const stock = sqliteTable(
     onHand: integer('on_hand').notNull().default(0),
     reserved: integer('reserved').notNull().default(0),
   },
-  (t) => [primaryKey({ columns: [t.partId, t.binCode] }), index('stock_bin_idx').on(t.binCode)],
+  (t) => [
+    primaryKey({ columns: [t.partId, t.binCode] }),
+    index('stock_bin_idx').on(t.binCode),
+    // The ledger's invariant, held by the database as well as by the stock service: nothing negative, nothing reserved
+    // that is not on the shelf.
+    holds('stock', 'levels', 'on_hand >= 0 AND reserved >= 0 AND reserved <= on_hand'),
+  ],
 );
 
 export const meta = sqliteTable('meta', {
@@ -137,7 +175,9 @@ export const meta = sqliteTable('meta', {
 /* Accounts: the tables better-auth keeps its users and sessions in (with the admin plugin's fields). */
 const ts = (name: string) => integer(name, { mode: 'timestamp_ms' });
 
-export const user = sqliteTable('user', {
+export const user = sqliteTable(
+  'user',
+  {
   id: text('id').primaryKey(),
   name: text('name').notNull(),
   email: text('email').notNull().unique(),
@@ -149,7 +189,9 @@ export const user = sqliteTable('user', {
   banned: integer('banned', { mode: 'boolean' }).default(false),
   banReason: text('ban_reason'),
   banExpires: ts('ban_expires'),
-});
+  },
+  () => [oneOf('user', 'role', ROLES)],
+);
 
 export const session = sqliteTable(
   'session',
@@ -197,7 +239,9 @@ export const verification = sqliteTable('verification', {
 });
 
 /* Dealers: a trade account that one or more buyers belong to. */
-export const dealerAccounts = sqliteTable('dealer_accounts', {
+export const dealerAccounts = sqliteTable(
+  'dealer_accounts',
+  {
   id: integer('id').primaryKey({ autoIncrement: true }),
   companyName: text('company_name').notNull(),
   contactName: text('contact_name').notNull(),
@@ -207,19 +251,30 @@ export const dealerAccounts = sqliteTable('dealer_accounts', {
   city: text('city').notNull(),
   postcode: text('postcode').notNull(),
   deliveryZone: text('delivery_zone').notNull().default('national'),
-  status: text('status', { enum: ['pending', 'approved', 'declined'] }).notNull().default('pending'),
-  tier: text('tier', { enum: ['standard', 'preferred', 'partner'] }),
+  status: text('status', { enum: DEALER_STATUSES }).notNull().default('pending'),
+  tier: text('tier', { enum: DEALER_TIER_KEYS }),
   creditLimitCents: integer('credit_limit_cents').notNull().default(0),
   paymentTermsDays: integer('payment_terms_days').notNull().default(30),
   declineReason: text('decline_reason'),
   createdAt: createdAt(),
   decidedAt: text('decided_at'),
-});
+  },
+  () => [
+    oneOf('dealer_accounts', 'status', DEALER_STATUSES),
+    oneOf('dealer_accounts', 'tier', DEALER_TIER_KEYS),
+    oneOf('dealer_accounts', 'delivery_zone', DELIVERY_ZONE_KEYS),
+    holds('dealer_accounts', 'terms', 'credit_limit_cents >= 0 AND payment_terms_days > 0'),
+  ],
+);
 
-export const dealerMembers = sqliteTable('dealer_members', {
-  userId: text('user_id').primaryKey().references(() => user.id, { onDelete: 'cascade' }),
-  dealerAccountId: integer('dealer_account_id').notNull().references(() => dealerAccounts.id),
-});
+export const dealerMembers = sqliteTable(
+  'dealer_members',
+  {
+    userId: text('user_id').primaryKey().references(() => user.id, { onDelete: 'cascade' }),
+    dealerAccountId: integer('dealer_account_id').notNull().references(() => dealerAccounts.id),
+  },
+  (t) => [index('dealer_members_dealer_idx').on(t.dealerAccountId)],
+);
 
 /* Saved fitment checks. */
 export const savedFitments = sqliteTable(
@@ -258,20 +313,25 @@ export const shaftLogs = sqliteTable(
   },
   (t) => [
     index('shaft_logs_fitment_idx').on(t.savedFitmentId, t.createdAt),
-    check('shaft_logs_boost_unit_ck', sql.raw(`boost_unit IN (${BOOST_UNITS.map((u) => `'${u}'`).join(', ')})`)),
+    index('shaft_logs_frame_idx').on(t.frameCode),
+    oneOf('shaft_logs', 'boost_unit', BOOST_UNITS),
     check('shaft_logs_row_count_ck', sql.raw(`row_count BETWEEN 1 AND ${SHAFT_LOG_MAX_ROWS}`)),
     check('shaft_logs_duration_ck', sql`${t.durationS} >= 0`),
   ],
 );
 
 /* Carts live on the server: one per signed-in user, or per guest token until sign-in merges it. */
-export const carts = sqliteTable('carts', {
-  id: integer('id').primaryKey({ autoIncrement: true }),
-  userId: text('user_id').unique().references(() => user.id, { onDelete: 'cascade' }),
-  guestToken: text('guest_token').unique(),
-  deliveryZone: text('delivery_zone', { enum: DELIVERY_ZONE_KEYS }).notNull().default('national'),
-  updatedAt: stamp('updated_at'),
-});
+export const carts = sqliteTable(
+  'carts',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    userId: text('user_id').unique().references(() => user.id, { onDelete: 'cascade' }),
+    guestToken: text('guest_token').unique(),
+    deliveryZone: text('delivery_zone', { enum: DELIVERY_ZONE_KEYS }).notNull().default('national'),
+    updatedAt: stamp('updated_at'),
+  },
+  () => [oneOf('carts', 'delivery_zone', DELIVERY_ZONE_KEYS)],
+);
 
 export const cartLines = sqliteTable(
   'cart_lines',
@@ -284,20 +344,13 @@ export const cartLines = sqliteTable(
     allowBackorder: integer('allow_backorder', { mode: 'boolean' }).notNull().default(false),
     createdAt: createdAt(),
   },
-  (t) => [uniqueIndex('cart_lines_cart_part_uq').on(t.cartId, t.partId)],
+  (t) => [
+    uniqueIndex('cart_lines_cart_part_uq').on(t.cartId, t.partId),
+    index('cart_lines_part_idx').on(t.partId),
+    index('cart_lines_fitment_idx').on(t.fitmentId),
+    holds('cart_lines', 'quantity', 'quantity > 0'),
+  ],
 );
-
-export const ORDER_STATUSES = [
-  'pending_payment',
-  'paid',
-  'on_account',
-  'picking',
-  'packed',
-  'dispatched',
-  'back_ordered',
-  'cancelled',
-  'returned',
-] as const;
 
 export const orders = sqliteTable(
   'orders',
@@ -306,9 +359,9 @@ export const orders = sqliteTable(
     number: text('number').notNull().unique(),
     userId: text('user_id').notNull().references(() => user.id),
     dealerAccountId: integer('dealer_account_id').references(() => dealerAccounts.id),
-    status: text('status', { enum: ORDER_STATUSES }).notNull(),
-    paymentMethod: text('payment_method', { enum: ['card', 'account'] }).notNull(),
-    paymentState: text('payment_state', { enum: ['awaiting', 'requires_action', 'failed', 'paid', 'on_account', 'refunded', 'partially_refunded'] }).notNull(),
+    status: text('status', { enum: ORDER_STATUS_KEYS }).notNull(),
+    paymentMethod: text('payment_method', { enum: PAYMENT_METHODS }).notNull(),
+    paymentState: text('payment_state', { enum: PAYMENT_STATES }).notNull(),
     paymentIntentId: text('payment_intent_id').unique(),
     purchaseOrder: text('purchase_order'),
     paymentTermsDays: integer('payment_terms_days'),
@@ -334,7 +387,21 @@ export const orders = sqliteTable(
     createdAt: createdAt(),
     updatedAt: stamp('updated_at'),
   },
-  (t) => [index('orders_user_idx').on(t.userId, t.createdAt), index('orders_status_idx').on(t.status, t.createdAt), index('orders_dealer_idx').on(t.dealerAccountId)],
+  (t) => [
+    index('orders_user_idx').on(t.userId, t.createdAt),
+    index('orders_status_idx').on(t.status, t.createdAt),
+    index('orders_dealer_idx').on(t.dealerAccountId),
+    oneOf('orders', 'status', ORDER_STATUS_KEYS),
+    oneOf('orders', 'payment_method', PAYMENT_METHODS),
+    oneOf('orders', 'payment_state', PAYMENT_STATES),
+    oneOf('orders', 'delivery_zone', DELIVERY_ZONE_KEYS),
+    holds(
+      'orders',
+      'money',
+      'goods_cents >= 0 AND discount_cents >= 0 AND core_deposit_cents >= 0 AND freight_cents >= 0 AND tax_cents >= 0 AND total_cents >= 0 AND refunded_cents >= 0 AND refunded_cents <= total_cents',
+    ),
+    holds('orders', 'weight', 'weight_grams >= 0'),
+  ],
 );
 
 export const orderLines = sqliteTable(
@@ -357,7 +424,16 @@ export const orderLines = sqliteTable(
     fitmentId: integer('fitment_id'),
     fitmentSummary: text('fitment_summary'),
   },
-  (t) => [index('order_lines_order_idx').on(t.orderId)],
+  (t) => [
+    index('order_lines_order_idx').on(t.orderId),
+    index('order_lines_part_idx').on(t.partId),
+    holds(
+      'order_lines',
+      'quantities',
+      'quantity > 0 AND quantity_backordered BETWEEN 0 AND quantity AND quantity_picked BETWEEN 0 AND quantity AND quantity_dispatched BETWEEN 0 AND quantity',
+    ),
+    holds('order_lines', 'money', 'unit_price_cents >= 0 AND retail_unit_price_cents >= 0 AND core_deposit_cents >= 0 AND weight_grams >= 0'),
+  ],
 );
 
 export const orderEvents = sqliteTable(
@@ -387,14 +463,19 @@ export const stockMovements = sqliteTable(
     id: integer('id').primaryKey({ autoIncrement: true }),
     partId: integer('part_id').notNull().references(() => parts.id),
     binCode: text('bin_code').notNull().references(() => bins.code),
-    kind: text('kind', { enum: ['goods-in', 'reserve', 'release', 'pick', 'dispatch', 'adjustment', 'return'] }).notNull(),
+    kind: text('kind', { enum: STOCK_MOVEMENT_KINDS }).notNull(),
     onHandDelta: integer('on_hand_delta').notNull().default(0),
     reservedDelta: integer('reserved_delta').notNull().default(0),
     orderId: integer('order_id').references(() => orders.id),
     note: text('note'),
     createdAt: createdAt(),
   },
-  (t) => [index('stock_movements_part_idx').on(t.partId, t.binCode), index('stock_movements_order_idx').on(t.orderId)],
+  (t) => [
+    index('stock_movements_part_idx').on(t.partId, t.binCode),
+    index('stock_movements_order_idx').on(t.orderId),
+    index('stock_movements_bin_idx').on(t.binCode),
+    oneOf('stock_movements', 'kind', STOCK_MOVEMENT_KINDS),
+  ],
 );
 
 /** Each dispatch of an order: a back-order that arrives later leaves in a shipment of its own. */
@@ -410,7 +491,7 @@ export const shipments = sqliteTable(
     units: integer('units').notNull(),
     createdAt: createdAt(),
   },
-  (t) => [index('shipments_order_idx').on(t.orderId)],
+  (t) => [index('shipments_order_idx').on(t.orderId), holds('shipments', 'counts', 'cartons > 0 AND weight_grams >= 0 AND units > 0')],
 );
 
 export const returns = sqliteTable(
@@ -421,10 +502,10 @@ export const returns = sqliteTable(
     orderId: integer('order_id').notNull().references(() => orders.id),
     orderLineId: integer('order_line_id').notNull().references(() => orderLines.id),
     userId: text('user_id').notNull().references(() => user.id),
-    kind: text('kind', { enum: ['wrong-part', 'faulty', 'core'] }).notNull(),
+    kind: text('kind', { enum: RETURN_KIND_KEYS }).notNull(),
     quantity: integer('quantity').notNull(),
     reason: text('reason').notNull(),
-    status: text('status', { enum: ['requested', 'refunded', 'credited', 'rejected'] }).notNull().default('requested'),
+    status: text('status', { enum: RETURN_STATUSES }).notNull().default('requested'),
     conditionGrade: text('condition_grade', { enum: CONDITION_GRADE_KEYS }),
     decision: text('decision'),
     refundCents: integer('refund_cents').notNull().default(0),
@@ -433,28 +514,49 @@ export const returns = sqliteTable(
     createdAt: createdAt(),
     decidedAt: text('decided_at'),
   },
-  (t) => [index('returns_order_idx').on(t.orderId), index('returns_status_idx').on(t.status)],
+  (t) => [
+    index('returns_order_idx').on(t.orderId),
+    index('returns_status_idx').on(t.status),
+    index('returns_order_line_idx').on(t.orderLineId),
+    index('returns_user_idx').on(t.userId),
+    oneOf('returns', 'kind', RETURN_KIND_KEYS),
+    oneOf('returns', 'status', RETURN_STATUSES),
+    oneOf('returns', 'condition_grade', CONDITION_GRADE_KEYS),
+    holds('returns', 'amounts', 'quantity > 0 AND refund_cents >= 0'),
+  ],
 );
 
-export const returnPhotos = sqliteTable('return_photos', {
-  id: integer('id').primaryKey({ autoIncrement: true }),
-  returnId: integer('return_id').notNull().references(() => returns.id, { onDelete: 'cascade' }),
-  /** Made by the server; the uploaded name is never used on disk. */
-  storedName: text('stored_name').notNull().unique(),
-  mimeType: text('mime_type').notNull(),
-  bytes: integer('bytes').notNull(),
-  createdAt: createdAt(),
-});
+export const returnPhotos = sqliteTable(
+  'return_photos',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    returnId: integer('return_id').notNull().references(() => returns.id, { onDelete: 'cascade' }),
+    /** Made by the server; the uploaded name is never used on disk. */
+    storedName: text('stored_name').notNull().unique(),
+    mimeType: text('mime_type').notNull(),
+    bytes: integer('bytes').notNull(),
+    createdAt: createdAt(),
+  },
+  (t) => [index('return_photos_return_idx').on(t.returnId), holds('return_photos', 'bytes', 'bytes >= 0')],
+);
 
-export const creditNotes = sqliteTable('credit_notes', {
-  id: integer('id').primaryKey({ autoIncrement: true }),
-  number: text('number').notNull().unique(),
-  dealerAccountId: integer('dealer_account_id').notNull().references(() => dealerAccounts.id),
-  orderId: integer('order_id').notNull().references(() => orders.id),
-  returnId: integer('return_id').notNull().unique().references(() => returns.id),
-  amountCents: integer('amount_cents').notNull(),
-  createdAt: createdAt(),
-});
+export const creditNotes = sqliteTable(
+  'credit_notes',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    number: text('number').notNull().unique(),
+    dealerAccountId: integer('dealer_account_id').notNull().references(() => dealerAccounts.id),
+    orderId: integer('order_id').notNull().references(() => orders.id),
+    returnId: integer('return_id').notNull().unique().references(() => returns.id),
+    amountCents: integer('amount_cents').notNull(),
+    createdAt: createdAt(),
+  },
+  (t) => [
+    index('credit_notes_dealer_idx').on(t.dealerAccountId),
+    index('credit_notes_order_idx').on(t.orderId),
+    holds('credit_notes', 'amount', 'amount_cents >= 0'),
+  ],
+);
 
 /** A price-import row as kept until it is applied: the row the preview shows, plus what applying it needs. */
 export type PriceImportStoredRow = PriceImportRow & {
@@ -463,12 +565,16 @@ export type PriceImportStoredRow = PriceImportRow & {
   coreDepositCents?: number | null | undefined;
 };
 
-export const priceImports = sqliteTable('price_imports', {
-  id: integer('id').primaryKey({ autoIncrement: true }),
-  userId: text('user_id').notNull().references(() => user.id),
-  fileName: text('file_name').notNull(),
-  status: text('status', { enum: ['preview', 'applied'] }).notNull().default('preview'),
-  rows: text('rows', { mode: 'json' }).$type<PriceImportStoredRow[]>().notNull(),
-  createdAt: createdAt(),
-  appliedAt: text('applied_at'),
-});
+export const priceImports = sqliteTable(
+  'price_imports',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    userId: text('user_id').notNull().references(() => user.id),
+    fileName: text('file_name').notNull(),
+    status: text('status', { enum: PRICE_IMPORT_STATUSES }).notNull().default('preview'),
+    rows: text('rows', { mode: 'json' }).$type<PriceImportStoredRow[]>().notNull(),
+    createdAt: createdAt(),
+    appliedAt: text('applied_at'),
+  },
+  (t) => [index('price_imports_user_idx').on(t.userId), oneOf('price_imports', 'status', PRICE_IMPORT_STATUSES)],
+);

@@ -4,8 +4,7 @@ import { admin } from 'better-auth/plugins';
 import type { Db } from '../db/client';
 import * as schema from '../db/schema';
 
-export const ROLES = ['customer', 'dealer', 'warehouse', 'admin'] as const;
-export type Role = (typeof ROLES)[number];
+export { ROLES, type Role } from '../../shared/allowed-values';
 
 export interface AuthOptions {
   db: Db;

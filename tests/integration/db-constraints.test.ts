@@ -1,0 +1,117 @@
+import fs from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+import Database from 'better-sqlite3';
+import { drizzle } from 'drizzle-orm/better-sqlite3';
+import { migrate } from 'drizzle-orm/better-sqlite3/migrator';
+import { generateCatalogue } from '../../catalog-seed/generate';
+import { loadCatalogue } from '../../catalog-seed/load';
+import { openDatabase, type Db } from '../../server/db/client';
+import * as schema from '../../server/db/schema';
+import { afterAll, describe, expect, it } from 'vitest';
+import { ORDER_STATUS_KEYS, PART_STATUSES, STOCK_MOVEMENT_KINDS } from '../../shared/allowed-values';
+import { parts, stock, stockMovements } from '../../server/db/schema';
+import { createTestDb } from '../support/test-app';
+
+/**
+ * The database holds the rules the code holds: allowed values (from shared/allowed-values.ts), the stock ledger's
+ * invariant (on hand ≥ 0, 0 ≤ reserved ≤ on hand) and money that is never negative. Each write below breaks one.
+ */
+describe('database constraints', () => {
+  const { db, dir } = createTestDb();
+  afterAll(() => {
+    db.$client.close();
+    fs.rmSync(dir, { recursive: true, force: true });
+  });
+  const somePart = () => db.select({ id: parts.id }).from(parts).limit(1).get()!;
+  const someStock = () => db.select().from(stock).limit(1).get()!;
+
+  it('refuses a status, kind or zone outside the shared lists', () => {
+    const { id } = somePart();
+    expect(() => db.$client.prepare("UPDATE parts SET status = 'lost' WHERE id = ?").run(id)).toThrow(/CHECK constraint failed: parts_status_ck/);
+    expect(() => db.$client.prepare("UPDATE parts SET category = 'spoons' WHERE id = ?").run(id)).toThrow(/parts_category_ck/);
+    for (const status of PART_STATUSES) db.$client.prepare('UPDATE parts SET status = ? WHERE id = ?').run(status, id);
+    const row = someStock();
+    expect(() =>
+      db.insert(stockMovements).values({ partId: row.partId, binCode: row.binCode, kind: 'borrowed' as (typeof STOCK_MOVEMENT_KINDS)[number] }).run(),
+    ).toThrow(/stock_movements_kind_ck/);
+    expect(ORDER_STATUS_KEYS).toContain('back_ordered');
+    const checkSql = db.$client.prepare("SELECT sql FROM sqlite_master WHERE name = 'orders'").pluck().get() as string;
+    for (const status of ORDER_STATUS_KEYS) expect(checkSql).toContain(`'${status}'`);
+  });
+
+  it('holds the stock invariant: nothing negative, never more reserved than on hand', () => {
+    const row = someStock();
+    const set = (values: { onHand?: number; reserved?: number }) => () =>
+      db.$client.prepare('UPDATE stock SET on_hand = coalesce(?, on_hand), reserved = coalesce(?, reserved) WHERE part_id = ? AND bin_code = ?').run(values.onHand ?? null, values.reserved ?? null, row.partId, row.binCode);
+    expect(set({ onHand: -1, reserved: 0 })).toThrow(/stock_levels_ck/);
+    expect(set({ reserved: -1 })).toThrow(/stock_levels_ck/);
+    expect(set({ reserved: row.onHand + 1 })).toThrow(/stock_levels_ck/);
+    expect(set({ reserved: row.onHand })).not.toThrow();
+    set({ reserved: row.reserved })();
+  });
+
+  it('keeps money at or above zero', () => {
+    const { id } = somePart();
+    expect(() => db.$client.prepare('UPDATE parts SET price_cents = -1 WHERE id = ?').run(id)).toThrow(/parts_money_ck/);
+    expect(() => db.$client.prepare('UPDATE parts SET core_deposit_cents = -5 WHERE id = ?').run(id)).toThrow(/parts_money_ck/);
+  });
+
+  it('indexes every foreign-key column (as the first column of some index or key)', () => {
+    const sqlite = db.$client;
+    const tables = sqlite.prepare("SELECT name FROM sqlite_master WHERE type = 'table' AND name NOT LIKE 'sqlite_%' AND name NOT LIKE '%fts%' AND name NOT LIKE '%tri%'").pluck().all() as string[];
+    const missing: string[] = [];
+    for (const table of tables) {
+      const fks = sqlite.prepare(`SELECT "from" FROM pragma_foreign_key_list(?)`).pluck().all(table) as string[];
+      if (fks.length === 0) continue;
+      const leading = new Set<string>();
+      for (const index of sqlite.prepare('SELECT name FROM pragma_index_list(?)').pluck().all(table) as string[]) {
+        const first = sqlite.prepare('SELECT name FROM pragma_index_info(?) WHERE seqno = 0').pluck().get(index) as string | undefined;
+        if (first) leading.add(first);
+      }
+      const pk = sqlite.prepare('SELECT name FROM pragma_table_info(?) WHERE pk = 1').pluck().get(table) as string | undefined;
+      if (pk) leading.add(pk);
+      for (const column of fks) if (!leading.has(column)) missing.push(`${table}.${column}`);
+    }
+    expect(missing).toEqual([]);
+  });
+});
+
+/**
+ * A database made before the constraints keeps every row when it is migrated: the table rebuilds run with foreign
+ * keys off (server/db/client.ts), so dropping the old `parts` does not cascade into specs, aliases or stock.
+ */
+describe('migrating a database that has data', () => {
+  it('keeps every part, spec, alias and stock row through the rebuilds', () => {
+    const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'spoolyard-migrate-'));
+    try {
+      const folder = path.join(dir, 'migrations');
+      fs.mkdirSync(path.join(folder, 'meta'), { recursive: true });
+      const source = path.resolve(import.meta.dirname, '../../drizzle');
+      const journal = JSON.parse(fs.readFileSync(path.join(source, 'meta/_journal.json'), 'utf8')) as { entries: Array<{ tag: string }> };
+      const before = journal.entries.filter((e) => e.tag < '0006');
+      for (const e of before) fs.copyFileSync(path.join(source, `${e.tag}.sql`), path.join(folder, `${e.tag}.sql`));
+      fs.writeFileSync(path.join(folder, 'meta/_journal.json'), JSON.stringify({ ...journal, entries: before }));
+      const file = path.join(dir, 'old.db');
+      const sqlite = new Database(file);
+      sqlite.pragma('foreign_keys = ON');
+      migrate(drizzle(sqlite, { schema }), { migrationsFolder: folder });
+      loadCatalogue(drizzle(sqlite, { schema }) as Db, generateCatalogue());
+      const count = (table: string) => sqlite.prepare(`SELECT count(*) FROM ${table}`).pluck().get() as number;
+      const tables = ['parts', 'part_specs', 'part_aliases', 'part_links', 'stock'];
+      const counts = Object.fromEntries(tables.map((t) => [t, count(t)]));
+      sqlite.close();
+      expect(counts.parts).toBeGreaterThan(100);
+
+      const db = openDatabase(file);
+      try {
+        for (const t of tables) expect(db.$client.prepare(`SELECT count(*) FROM ${t}`).pluck().get(), t).toBe(counts[t]);
+        expect(db.$client.pragma('foreign_keys', { simple: true })).toBe(1);
+      } finally {
+        db.$client.close();
+      }
+    } finally {
+      fs.rmSync(dir, { recursive: true, force: true });
+    }
+  });
+});
