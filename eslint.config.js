@@ -33,7 +33,7 @@ export default tseslint.config(
       'react-hooks/exhaustive-deps': 'warn',
       'import-x/no-cycle': 'error',
       'import-x/no-unresolved': 'error',
-      // Imports flow one way: shared <- (src | server); inside src: components, lib -> features -> app.
+      // Imports flow one way: shared <- (src | server); inside src: components, lib -> features -> app; services below routes and middleware.
       'import-x/no-restricted-paths': [
         'error',
         {
@@ -41,6 +41,11 @@ export default tseslint.config(
             { target: './shared', from: ['./src', './server', './fakes', './catalog-seed'], message: 'shared/ must not import app code' },
             { target: './src', from: ['./server', './fakes', './catalog-seed'], message: 'the client must not import server code' },
             { target: './server', from: ['./src'], message: 'the server must not import client code' },
+            {
+              target: './server/services',
+              from: ['./server/middleware', './server/routes'],
+              message: 'services throw domain errors (server/services/errors.ts) and know nothing of HTTP: no imports from middleware/ or routes/',
+            },
             { target: './src/features', from: './src/app', message: 'features must not import app/' },
             { target: ['./src/components', './src/lib'], from: ['./src/features', './src/app'], message: 'components/ and lib/ sit below features/' },
             ...featureZones,

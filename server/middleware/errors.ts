@@ -1,7 +1,8 @@
-import type { ErrorRequestHandler, RequestHandler } from 'express';
+import type { ErrorRequestHandler, RequestHandler, Response } from 'express';
 import { z } from 'zod';
+import { DomainError, type DomainErrorKind } from '../services/errors';
 
-/** An error a route throws on purpose; the handler below turns it into the one error shape. */
+/** An error a route or middleware throws on purpose (sign in first, bad request); the handler below turns it into the one error shape. */
 export class HttpError extends Error {
   constructor(
     readonly status: number,
@@ -30,6 +31,22 @@ export function parseOr400<T extends z.ZodType>(schema: T, value: unknown, messa
   return result.data;
 }
 
+/** The HTTP status of each kind of refusal a service throws. */
+export const STATUS_OF_KIND: Record<DomainErrorKind, number> = {
+  invalid: 400,
+  'payment-declined': 402,
+  'not-allowed': 403,
+  'not-found': 404,
+  conflict: 409,
+  'too-large': 413,
+  'unsupported-type': 415,
+  'payment-service': 502,
+};
+
+function sendError(res: Response, status: number, message: string, fieldErrors?: Record<string, string[]>) {
+  res.status(status).json({ error: { message, ...(fieldErrors ? { fieldErrors } : {}) } });
+}
+
 export const apiNotFound: RequestHandler = (_req, res) => {
   res.status(404).json({ error: { message: 'No such API route' } });
 };
@@ -40,8 +57,12 @@ export function createErrorHandler(log: (err: unknown) => void): ErrorRequestHan
       next(err);
       return;
     }
+    if (err instanceof DomainError) {
+      sendError(res, STATUS_OF_KIND[err.kind], err.message, err.fieldErrors);
+      return;
+    }
     if (err instanceof HttpError) {
-      res.status(err.status).json({ error: { message: err.message, ...(err.fieldErrors ? { fieldErrors: err.fieldErrors } : {}) } });
+      sendError(res, err.status, err.message, err.fieldErrors);
       return;
     }
     // Body-parser and multer errors carry a status of their own (bad JSON, too large).

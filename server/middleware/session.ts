@@ -2,27 +2,8 @@ import type { NextFunction, Request, RequestHandler, Response } from 'express';
 import { fromNodeHeaders } from 'better-auth/node';
 import type { Db } from '../db/client';
 import type { Auth, Role } from '../services/auth';
+import type { CurrentUser, DealerInfo } from '../services/current-user';
 import { HttpError } from './errors';
-
-export interface DealerInfo {
-  id: number;
-  companyName: string;
-  status: 'pending' | 'approved' | 'declined';
-  tier: 'standard' | 'preferred' | 'partner' | null;
-  creditLimitCents: number;
-  paymentTermsDays: number;
-  deliveryZone: string;
-  declineReason: string | null;
-  address: { line1: string; city: string; postcode: string };
-}
-
-export interface CurrentUser {
-  id: string;
-  email: string;
-  name: string;
-  role: Role;
-  dealer: DealerInfo | null;
-}
 
 /** Reads the session cookie once per request; routes ask for the user through currentUser(). */
 export function loadSession(auth: Auth, db: Db): RequestHandler {

@@ -1,6 +1,6 @@
 import { Router } from 'express';
 import { DealerApplicationSchema } from '../../shared/schemas/accounts';
-import { HttpError, parseOr400 } from '../middleware/errors';
+import { parseOr400 } from '../middleware/errors';
 import { currentUser, requireUser } from '../middleware/session';
 import type { DealerAccountsService } from '../services/dealer-accounts';
 
@@ -29,12 +29,9 @@ export function accountRouter(deps: AccountRouterDeps): Router {
   router.post('/dealer-applications', (req, res) => {
     const user = requireUser(res);
     // Someone who may not apply hears so before their form is checked.
-    const refusal = dealers.applicationRefusal(user);
-    if (refusal) throw new HttpError(409, refusal.message);
+    dealers.assertMayApply(user);
     const input = parseOr400(DealerApplicationSchema, req.body);
-    const result = dealers.apply(user, input);
-    if ('refused' in result) throw new HttpError(409, result.message);
-    res.status(201).json(result);
+    res.status(201).json(dealers.apply(user, input));
   });
   return router;
 }

@@ -1,14 +1,8 @@
 import { Router } from 'express';
 import { DealerDecisionSchema, InvoicePaymentSchema } from '../../shared/schemas/accounts';
-import { HttpError, parseOr400 } from '../middleware/errors';
+import { parseOr400 } from '../middleware/errors';
 import { requireRole } from '../middleware/session';
-import type { DealerAccountsService, Refusal } from '../services/dealer-accounts';
-
-/** The service's answer, or the HTTP error for its refusal. */
-function orRefusal<T extends object>(result: T | Refusal): T {
-  if ('refused' in result) throw new HttpError(result.refused === 'not-found' ? 404 : 409, result.message);
-  return result;
-}
+import type { DealerAccountsService } from '../services/dealer-accounts';
 
 export function adminDealersRouter(dealers: DealerAccountsService): Router {
   const router = Router();
@@ -19,17 +13,17 @@ export function adminDealersRouter(dealers: DealerAccountsService): Router {
   });
 
   router.get('/:id/invoices', (req, res) => {
-    res.json({ items: orRefusal(dealers.openInvoices(Number(req.params.id))) });
+    res.json({ items: dealers.openInvoices(Number(req.params.id)) });
   });
 
   router.post('/:id/invoices/:number/paid', (req, res) => {
     const { reference } = parseOr400(InvoicePaymentSchema, req.body);
-    res.json(orRefusal(dealers.recordInvoicePaid(Number(req.params.id), String(req.params.number).slice(0, 20), reference)));
+    res.json(dealers.recordInvoicePaid(Number(req.params.id), String(req.params.number).slice(0, 20), reference));
   });
 
   router.post('/:id/decision', (req, res) => {
     const input = parseOr400(DealerDecisionSchema, req.body);
-    res.json(orRefusal(dealers.decide(Number(req.params.id), input)));
+    res.json(dealers.decide(Number(req.params.id), input));
   });
   return router;
 }

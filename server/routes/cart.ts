@@ -5,6 +5,7 @@ import { DELIVERY_ZONE_KEYS } from '../../shared/pricing';
 import { AddCartLineSchema, BulkCartLinesSchema, CSV_MAX_BYTES, CSV_MAX_ROWS, UpdateCartLineSchema } from '../../shared/schemas/orders';
 import { z } from 'zod';
 import { HttpError, parseOr400 } from '../middleware/errors';
+import { DomainError } from '../services/errors';
 import { currentUser, requireUser } from '../middleware/session';
 import { buyerOf, type CartOwner, type CartService } from '../services/cart';
 
@@ -95,7 +96,7 @@ export function cartRouter(cart: CartService): Router {
         const rows = cart.validateRows(body.map((r) => ({ partNumber: r[pnCol] ?? '', quantity: r[qtyCol] ?? '' })), buyerOf(currentUser(res)));
         res.json({ rows, validCount: rows.filter((r) => r.status !== 'error').length, errorCount: rows.filter((r) => r.status === 'error').length });
       } catch (e) {
-        next(e instanceof HttpError ? e : new HttpError(400, 'The file could not be read as CSV', { file: ['the file could not be read as CSV'] }));
+        next(e instanceof HttpError || e instanceof DomainError ? e : new HttpError(400, 'The file could not be read as CSV', { file: ['the file could not be read as CSV'] }));
       }
     });
   });

@@ -13,8 +13,7 @@ export function checkoutRouter(orders: OrderService, cart: CartService): Router 
     if (user.role === 'warehouse') throw new HttpError(403, 'Warehouse accounts do not place orders');
     const input = parseOr400(CheckoutSchema, req.body, 'Some checkout details are missing or not valid');
     const owner = cartOwner(req, res, cart, false)!;
-    const result = await orders.checkout(user, owner, input);
-    res.status(result.status).json(result.body);
+    res.status(201).json(await orders.checkout(user, owner, input));
   });
   return router;
 }

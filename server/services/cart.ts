@@ -3,8 +3,8 @@ import { and, count, eq, sql, type SQL } from 'drizzle-orm';
 import type { SQLiteColumn } from 'drizzle-orm/sqlite-core';
 import type { Db } from '../db/client';
 import { cartLines, carts, parts, partSpecs, savedFitments } from '../db/schema';
-import { HttpError } from '../middleware/errors';
-import type { CurrentUser } from '../middleware/session';
+import { ConflictError, NotAllowedError, NotFoundError } from './errors';
+import type { CurrentUser } from './current-user';
 import { normalizePartNumber } from '../../shared/part-number';
 import { DEALER_TIERS, priceOrder, type Buyer, type DeliveryZone } from '../../shared/pricing';
 import { CART_LINES_MAX, QUANTITY_MAX, type CartView, type OrderRowResult } from '../../shared/schemas/orders';
@@ -232,16 +232,16 @@ export function createCartService(db: Db, search: SearchService, config: { taxRa
         const resolved = resolvePart(line.partNumber);
         if (!resolved) {
           const s = suggestionsFor(line.partNumber);
-          throw new HttpError(404, s.length ? `No part ${line.partNumber}. Did you mean ${s[0]!.partNumber}?` : `No part ${line.partNumber}`);
+          throw new NotFoundError(s.length ? `No part ${line.partNumber}. Did you mean ${s[0]!.partNumber}?` : `No part ${line.partNumber}`);
         }
         const { part, replacedFrom } = resolved;
         if (replacedFrom) notices.push(`${replacedFrom} is superseded: ${part.partNumber} was added instead.`);
-        if (part.status === 'discontinued' && part.available <= 0) throw new HttpError(409, `${part.partNumber} is discontinued and out of stock`);
-        if (line.fitmentId !== undefined && (!user || !fitmentOf(line.fitmentId, user.id))) throw new HttpError(404, 'No such saved fitment check');
+        if (part.status === 'discontinued' && part.available <= 0) throw new ConflictError(`${part.partNumber} is discontinued and out of stock`);
+        if (line.fitmentId !== undefined && (!user || !fitmentOf(line.fitmentId, user.id))) throw new NotFoundError('No such saved fitment check');
         upsertLine({ cartId: id, partId: part.id, quantity: line.quantity, fitmentId: line.fitmentId ?? null, allowBackorder: line.allowBackorder ?? false });
       }
       const held = tx.select({ n: count() }).from(cartLines).where(eq(cartLines.cartId, id)).get();
-      if ((held?.n ?? 0) > CART_LINES_MAX) throw new HttpError(409, `A cart holds at most ${CART_LINES_MAX} lines`);
+      if ((held?.n ?? 0) > CART_LINES_MAX) throw new ConflictError(`A cart holds at most ${CART_LINES_MAX} lines`);
       tx.update(carts).set({ updatedAt: sql`strftime('%Y-%m-%dT%H:%M:%fZ','now')` }).where(eq(carts.id, id)).run();
     });
     return view(owner, user, notices);
@@ -249,9 +249,9 @@ export function createCartService(db: Db, search: SearchService, config: { taxRa
 
   function updateLine(owner: CartOwner, user: CurrentUser | null, lineId: number, change: { quantity?: number; allowBackorder?: boolean; fitmentId?: number | null }) {
     const id = cartId(owner, false);
-    if (!id || !lineOf(lineId, id)) throw new HttpError(404, 'No such line in your cart');
-    if (change.allowBackorder && buyerOf(user).kind !== 'dealer') throw new HttpError(403, 'Back-orders are for trade accounts');
-    if (change.fitmentId && (!user || !fitmentOf(change.fitmentId, user.id))) throw new HttpError(404, 'No such saved fitment check');
+    if (!id || !lineOf(lineId, id)) throw new NotFoundError('No such line in your cart');
+    if (change.allowBackorder && buyerOf(user).kind !== 'dealer') throw new NotAllowedError('Back-orders are for trade accounts');
+    if (change.fitmentId && (!user || !fitmentOf(change.fitmentId, user.id))) throw new NotFoundError('No such saved fitment check');
     // Fields left undefined are not set; a null fitment is set, which unlinks the check.
     db.update(cartLines).set({ quantity: change.quantity, allowBackorder: change.allowBackorder, fitmentId: change.fitmentId }).where(eq(cartLines.id, lineId)).run();
     return view(owner, user);
@@ -259,7 +259,7 @@ export function createCartService(db: Db, search: SearchService, config: { taxRa
 
   function removeLine(owner: CartOwner, user: CurrentUser | null, lineId: number) {
     const id = cartId(owner, false);
-    if (!id || !lineOf(lineId, id)) throw new HttpError(404, 'No such line in your cart');
+    if (!id || !lineOf(lineId, id)) throw new NotFoundError('No such line in your cart');
     db.delete(cartLines).where(eq(cartLines.id, lineId)).run();
     return view(owner, user);
   }

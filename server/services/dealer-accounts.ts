@@ -4,18 +4,13 @@ import type { Db } from '../db/client';
 import { creditNotes, dealerAccounts, dealerMembers, orderEvents, orders, user } from '../db/schema';
 import { invoiceDueDate, invoiceOpenCents, isOpenInvoice, openBalanceCents, type CreditOrder } from '../../shared/credit';
 import type { DealerAccountRowSchema, DealerApplication, DealerDecision, OpenInvoice } from '../../shared/schemas/accounts';
+import { ConflictError, NotFoundError } from './errors';
 
 /** What the trade-account flow tells people; mail in the app. */
 export interface DealerNotifier {
   applied(dealerAccountId: number): void;
   decided(dealerAccountId: number, decision: DealerDecision['decision']): void;
 }
-
-/**
- * A request the rules turn down. Routes answer it (404 for not-found, 409 for a conflict), so this service
- * needs nothing from the HTTP layer.
- */
-export type Refusal = { refused: 'not-found' | 'conflict'; message: string };
 
 type DealerStatus = (typeof dealerAccounts.$inferSelect)['status'];
 type DealerAccountRow = z.infer<typeof DealerAccountRowSchema>;
@@ -39,8 +34,6 @@ const creditColumns = {
 export function dealerOpenBalance(q: Query, dealerAccountId: number): number {
   return openBalanceCents(q.select(creditColumns).from(orders).where(eq(orders.dealerAccountId, dealerAccountId)).all());
 }
-
-const refuse = (refused: Refusal['refused'], message: string): Refusal => ({ refused, message });
 
 export function createDealerAccountsService(deps: { db: Db; notify: DealerNotifier }) {
   const { db, notify } = deps;
@@ -87,9 +80,9 @@ export function createDealerAccountsService(deps: { db: Db; notify: DealerNotifi
   }
 
   /** Open invoices of a dealer, oldest first, with their due dates from the payment terms. */
-  function openInvoices(dealerAccountId: number): OpenInvoice[] | Refusal {
+  function openInvoices(dealerAccountId: number): OpenInvoice[] {
     const found = db.select({ id: dealerAccounts.id }).from(dealerAccounts).where(eq(dealerAccounts.id, dealerAccountId)).get();
-    if (!found) return refuse('not-found', 'No such dealer account');
+    if (!found) throw new NotFoundError('No such dealer account');
     const open = db
       .select({
         id: orders.id,
@@ -128,15 +121,15 @@ export function createDealerAccountsService(deps: { db: Db; notify: DealerNotifi
   }
 
   /** The office records a dealer's payment of an on-account invoice; it then no longer counts against the limit. */
-  function recordInvoicePaid(dealerAccountId: number, number: string, reference: string): { number: string; paymentState: 'paid' } | Refusal {
-    return db.transaction((tx): { number: string; paymentState: 'paid' } | Refusal => {
+  function recordInvoicePaid(dealerAccountId: number, number: string, reference: string): { number: string; paymentState: 'paid' } {
+    return db.transaction((tx): { number: string; paymentState: 'paid' } => {
       const order = tx
         .select({ id: orders.id, paymentState: orders.paymentState })
         .from(orders)
         .where(and(eq(orders.number, number), eq(orders.dealerAccountId, dealerAccountId), eq(orders.paymentMethod, 'account')))
         .get();
-      if (!order) return refuse('not-found', 'No such invoice on this account');
-      if (order.paymentState !== 'on_account') return refuse('conflict', 'This invoice is already paid');
+      if (!order) throw new NotFoundError('No such invoice on this account');
+      if (order.paymentState !== 'on_account') throw new ConflictError('This invoice is already paid');
       tx.update(orders).set({ paymentState: 'paid', updatedAt: now }).where(eq(orders.id, order.id)).run();
       tx.insert(orderEvents).values({ orderId: order.id, status: 'invoice_paid', note: `Payment received, reference ${reference}` }).run();
       return { number, paymentState: 'paid' };
@@ -144,10 +137,10 @@ export function createDealerAccountsService(deps: { db: Db; notify: DealerNotifi
   }
 
   /** Approving sets tier, limit and terms and makes the members dealers; an approved account is not declined. */
-  function decide(dealerAccountId: number, input: DealerDecision): { id: number; status: 'approved' | 'declined' } | Refusal {
-    const result = db.transaction((tx): { id: number; status: 'approved' | 'declined' } | Refusal => {
+  function decide(dealerAccountId: number, input: DealerDecision): { id: number; status: 'approved' | 'declined' } {
+    const result = db.transaction((tx): { id: number; status: 'approved' | 'declined' } => {
       const dealer = tx.select({ status: dealerAccounts.status }).from(dealerAccounts).where(eq(dealerAccounts.id, dealerAccountId)).get();
-      if (!dealer) return refuse('not-found', 'No such dealer account');
+      if (!dealer) throw new NotFoundError('No such dealer account');
       if (input.decision === 'approve') {
         tx.update(dealerAccounts)
           .set({
@@ -167,25 +160,23 @@ export function createDealerAccountsService(deps: { db: Db; notify: DealerNotifi
           .run();
         return { id: dealerAccountId, status: 'approved' };
       }
-      if (dealer.status === 'approved') return refuse('conflict', 'An approved account is not declined; change its terms instead');
+      if (dealer.status === 'approved') throw new ConflictError('An approved account is not declined; change its terms instead');
       tx.update(dealerAccounts).set({ status: 'declined', declineReason: input.reason, decidedAt: now }).where(eq(dealerAccounts.id, dealerAccountId)).run();
       return { id: dealerAccountId, status: 'declined' };
     });
-    if (!('refused' in result)) notify.decided(dealerAccountId, input.decision);
+    notify.decided(dealerAccountId, input.decision);
     return result;
   }
 
-  /** Why this user may not apply for a trade account, or null when they may. */
-  function applicationRefusal(applicant: { role: string; dealer: { status: DealerStatus } | null }): Refusal | null {
-    if (applicant.role !== 'customer') return refuse('conflict', 'This account cannot apply for a trade account');
-    if (applicant.dealer) return refuse('conflict', applicant.dealer.status === 'pending' ? 'Your application is already with us' : 'You already have a trade account');
-    return null;
+  /** Refuses, saying why, a user who may not apply for a trade account. */
+  function assertMayApply(applicant: { role: string; dealer: { status: DealerStatus } | null }): void {
+    if (applicant.role !== 'customer') throw new ConflictError('This account cannot apply for a trade account');
+    if (applicant.dealer) throw new ConflictError(applicant.dealer.status === 'pending' ? 'Your application is already with us' : 'You already have a trade account');
   }
 
   /** A customer applies: the account is made pending with them as its member, and the office is told. */
-  function apply(applicant: { id: string; role: string; dealer: { status: DealerStatus } | null }, input: DealerApplication): { id: number; status: 'pending' } | Refusal {
-    const refusal = applicationRefusal(applicant);
-    if (refusal) return refusal;
+  function apply(applicant: { id: string; role: string; dealer: { status: DealerStatus } | null }, input: DealerApplication): { id: number; status: 'pending' } {
+    assertMayApply(applicant);
     const id = db.transaction((tx) => {
       const row = tx
         .insert(dealerAccounts)
@@ -208,7 +199,7 @@ export function createDealerAccountsService(deps: { db: Db; notify: DealerNotifi
     return { id, status: 'pending' };
   }
 
-  return { list, openBalance, openInvoices, recordInvoicePaid, decide, applicationRefusal, apply };
+  return { list, openBalance, openInvoices, recordInvoicePaid, decide, assertMayApply, apply };
 }
 
 export type DealerAccountsService = ReturnType<typeof createDealerAccountsService>;

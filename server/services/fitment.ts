@@ -8,7 +8,7 @@ import { BEARINGS } from '../../shared/catalog';
 import { CompressorMapSchema } from '../../shared/schemas/compressor-map';
 import { FitmentRequestSchema, type FitmentRequest, type FitmentResponse, type Verdict } from '../../shared/schemas/fitment';
 import { SAVED_FITMENTS_PER_USER_MAX, type FitmentFrameMap, type SavedFitment } from '../../shared/schemas/saved-fitments';
-import { HttpError, notFound } from '../middleware/errors';
+import { ConflictError, NotFoundError } from './errors';
 
 const VERDICT_WORDS: Record<Verdict, string> = { fits: 'fits', marginal: 'marginal', 'too-small': 'too small', 'too-large': 'too large' };
 
@@ -106,7 +106,7 @@ export function createFitmentService(db: Db) {
         .map(toSaved),
     getSaved: (userId: string, id: number): SavedFitment => {
       const row = Number.isSafeInteger(id) ? savedOne(db, id, userId) : undefined;
-      if (!row) throw notFound('No such saved fitment check');
+      if (!row) throw new NotFoundError('No such saved fitment check');
       return toSaved(row);
     },
     /** Recomputes the check here rather than trusting a summary from the client. */
@@ -117,7 +117,7 @@ export function createFitmentService(db: Db) {
       const row = db.transaction((tx) => {
         const held = tx.select({ n: count() }).from(savedFitments).where(eq(savedFitments.userId, userId)).get()?.n ?? 0;
         if (held >= SAVED_FITMENTS_PER_USER_MAX) {
-          throw new HttpError(409, `You have ${SAVED_FITMENTS_PER_USER_MAX} saved checks. Delete some you no longer need, then save again.`);
+          throw new ConflictError(`You have ${SAVED_FITMENTS_PER_USER_MAX} saved checks. Delete some you no longer need, then save again.`);
         }
         const { id } = tx.insert(savedFitments).values({ userId, name, input, summary, bestFrameCode: best }).returning({ id: savedFitments.id }).get();
         return savedOne(tx, id, userId);
@@ -129,7 +129,7 @@ export function createFitmentService(db: Db) {
       const changes = Number.isSafeInteger(id)
         ? db.delete(savedFitments).where(and(eq(savedFitments.id, id), eq(savedFitments.userId, userId))).run().changes
         : 0;
-      if (changes === 0) throw notFound('No such saved fitment check');
+      if (changes === 0) throw new NotFoundError('No such saved fitment check');
     },
   };
 }

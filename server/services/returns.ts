@@ -4,8 +4,8 @@ import type Stripe from 'stripe';
 import { and, desc, eq, ne, sql, type SQL } from 'drizzle-orm';
 import type { Db } from '../db/client';
 import { creditNotes, orderEvents, orderLines, orders, parts, returnPhotos, returns } from '../db/schema';
-import { HttpError } from '../middleware/errors';
-import type { CurrentUser } from '../middleware/session';
+import { ConflictError, InvalidError, NotFoundError, PaymentServiceError } from './errors';
+import type { CurrentUser } from './current-user';
 import type { ReturnDecision, ReturnRequest, ReturnView } from '../../shared/schemas/warehouse';
 import type { StockService } from './stock';
 import type { StoredImage } from './uploads';
@@ -113,7 +113,7 @@ export function createReturnsService(deps: { db: Db; stock: StockService; paymen
 
   const get = (q: DbOrTx, id: number) => {
     const r = returnRows(q, eq(returns.id, id)).get();
-    if (!r) throw new HttpError(404, 'No such return');
+    if (!r) throw new NotFoundError('No such return');
     return r;
   };
 
@@ -126,16 +126,16 @@ export function createReturnsService(deps: { db: Db; stock: StockService; paymen
         .innerJoin(parts, eq(parts.id, orderLines.partId))
         .where(and(eq(orderLines.id, input.lineId), eq(orders.number, input.orderNumber)))
         .get();
-      if (!line || line.userId !== user.id) throw new HttpError(404, `No such line on order ${input.orderNumber}`);
-      if (input.kind === 'core' && line.condition !== 'exchange') throw new HttpError(409, 'Only exchange units come back as cores');
+      if (!line || line.userId !== user.id) throw new NotFoundError(`No such line on order ${input.orderNumber}`);
+      if (input.kind === 'core' && line.condition !== 'exchange') throw new ConflictError('Only exchange units come back as cores');
       const already = tx
         .select({ n: sql<number>`coalesce(sum(${returns.quantity}), 0)` })
         .from(returns)
         .where(and(eq(returns.orderLineId, line.id), ne(returns.status, 'rejected')))
         .get();
       const left = line.dispatched - (already?.n ?? 0);
-      if (left <= 0) throw new HttpError(409, line.dispatched === 0 ? 'This line has not been dispatched yet' : 'Everything on this line is already being returned');
-      if (input.quantity > left) throw new HttpError(409, `At most ${left} of this line can come back`);
+      if (left <= 0) throw new ConflictError(line.dispatched === 0 ? 'This line has not been dispatched yet' : 'Everything on this line is already being returned');
+      if (input.quantity > left) throw new ConflictError(`At most ${left} of this line can come back`);
       const id = tx.select({ next: sql<number>`coalesce(max(${returns.id}), 0) + 1` }).from(returns).get()?.next ?? 1;
       tx.insert(returns)
         .values({ id, reference: `RT-${String(5000 + id)}`, orderId: line.orderId, orderLineId: line.id, userId: user.id, kind: input.kind, quantity: input.quantity, reason: input.reason })
@@ -163,7 +163,7 @@ export function createReturnsService(deps: { db: Db; stock: StockService; paymen
   const record = (id: number, d: ReturnDecision, amount: number, refundId: string | null) =>
     db.transaction((tx) => {
       const r = get(tx, id);
-      if (r.status !== 'requested') throw new HttpError(409, `${r.reference} was already decided`);
+      if (r.status !== 'requested') throw new ConflictError(`${r.reference} was already decided`);
       let status: ReturnView['status'] = 'rejected';
       if (d.decision !== 'reject') {
         if (r.paymentMethod === 'card') {
@@ -219,22 +219,22 @@ export function createReturnsService(deps: { db: Db; stock: StockService; paymen
    */
   async function decide(id: number, d: ReturnDecision): Promise<ReturnView> {
     const r = get(db, id);
-    if (r.status !== 'requested') throw new HttpError(409, `${r.reference} was already decided`);
+    if (r.status !== 'requested') throw new ConflictError(`${r.reference} was already decided`);
     const l = limits(r);
     let amount = 0;
     if (d.decision === 'core-refund') {
-      if (r.kind !== 'core' && r.lineCoreDepositCents === 0) throw new HttpError(409, 'This line carried no core deposit');
+      if (r.kind !== 'core' && r.lineCoreDepositCents === 0) throw new ConflictError('This line carried no core deposit');
       amount = l.core;
     } else if (d.decision === 'full-refund') {
       amount = l.full;
     } else if (d.decision === 'partial-refund') {
-      if (d.amountCents > l.max) throw new HttpError(400, `At most $${(l.max / 100).toFixed(2)} can be refunded on this return`, { amountCents: [`at most ${l.max} cents`] });
+      if (d.amountCents > l.max) throw new InvalidError(`At most $${(l.max / 100).toFixed(2)} can be refunded on this return`, { amountCents: [`at most ${l.max} cents`] });
       amount = d.amountCents;
     }
-    if (d.decision !== 'reject' && amount <= 0) throw new HttpError(409, 'Nothing is left to refund on this order');
+    if (d.decision !== 'reject' && amount <= 0) throw new ConflictError('Nothing is left to refund on this order');
     let refundId: string | null = null;
     if (d.decision !== 'reject' && r.paymentMethod === 'card') {
-      if (!r.paymentIntentId) throw new HttpError(409, 'This order has no card payment to refund');
+      if (!r.paymentIntentId) throw new ConflictError('This order has no card payment to refund');
       try {
         const refund = await payments.refunds.create(
           { payment_intent: r.paymentIntentId, amount, reason: 'requested_by_customer', metadata: { return_reference: r.reference } },
@@ -242,7 +242,7 @@ export function createReturnsService(deps: { db: Db; stock: StockService; paymen
         );
         refundId = refund.id;
       } catch (err) {
-        throw new HttpError(502, `The payment service refused the refund: ${(err as Error).message}`);
+        throw new PaymentServiceError(`The payment service refused the refund: ${(err as Error).message}`);
       }
     }
     record(id, d, amount, refundId);

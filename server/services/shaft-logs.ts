@@ -17,7 +17,7 @@ import {
 import { parseShaftLogCsv, rowErrorsToFieldErrors } from '../../shared/shaft-log-csv';
 import type { Db } from '../db/client';
 import { shaftLogs } from '../db/schema';
-import { HttpError, notFound } from '../middleware/errors';
+import { ConflictError, InvalidError, NotFoundError, TooLargeError } from './errors';
 import type { FitmentService } from './fitment';
 
 const listColumns = {
@@ -90,7 +90,7 @@ export function createShaftLogService(deps: { db: Db; fitment: FitmentService })
 
   function frameOr400(code: string): FitmentFrameMap {
     const frame = frameMap(code);
-    if (!frame) throw new HttpError(400, 'That frame is not in the catalogue', { frameCode: [`there is no frame ${code}; choose one from the list`] });
+    if (!frame) throw new InvalidError('That frame is not in the catalogue', { frameCode: [`there is no frame ${code}; choose one from the list`] });
     return frame;
   }
 
@@ -111,7 +111,7 @@ export function createShaftLogService(deps: { db: Db; fitment: FitmentService })
           .where(and(eq(shaftLogs.id, logId), eq(shaftLogs.savedFitmentId, savedFitmentId)))
           .get()
       : undefined;
-    if (!row) throw notFound('No such log on this check');
+    if (!row) throw new NotFoundError('No such log on this check');
     return row;
   }
 
@@ -129,11 +129,10 @@ export function createShaftLogService(deps: { db: Db; fitment: FitmentService })
       if (!parsed.ok) {
         const first = parsed.errors[0];
         if (parsed.tooLarge) {
-          throw new HttpError(413, first?.message ? `The log is too large: ${first.message}` : `The log may be at most ${SHAFT_LOG_MAX_BYTES / 1_000_000} MB and ${SHAFT_LOG_MAX_ROWS} rows`);
+          throw new TooLargeError(first?.message ? `The log is too large: ${first.message}` : `The log may be at most ${SHAFT_LOG_MAX_BYTES / 1_000_000} MB and ${SHAFT_LOG_MAX_ROWS} rows`);
         }
         const shown = parsed.errors.length < parsed.errorCount ? `; the first ${parsed.errors.length} are listed` : '';
-        throw new HttpError(
-          400,
+        throw new InvalidError(
           `The log has ${parsed.errorCount} ${parsed.errorCount === 1 ? 'problem' : 'problems'}${shown}. Fix the file and upload it again.`,
           rowErrorsToFieldErrors(parsed.errors),
         );
@@ -144,7 +143,7 @@ export function createShaftLogService(deps: { db: Db; fitment: FitmentService })
       return db.transaction((tx) => {
         const held = tx.select({ n: count() }).from(shaftLogs).where(eq(shaftLogs.savedFitmentId, saved.id)).get();
         if ((held?.n ?? 0) >= SHAFT_LOGS_PER_CHECK_MAX) {
-          throw new HttpError(409, `This check already has ${SHAFT_LOGS_PER_CHECK_MAX} logs. Delete some you no longer need, then upload again.`);
+          throw new ConflictError(`This check already has ${SHAFT_LOGS_PER_CHECK_MAX} logs. Delete some you no longer need, then upload again.`);
         }
         return tx
           .insert(shaftLogs)
@@ -167,7 +166,7 @@ export function createShaftLogService(deps: { db: Db; fitment: FitmentService })
       const saved = fitment.getSaved(userId, fitmentId);
       const row = logRow(saved.id, logId);
       const frame = frameMap(row.frameCode);
-      if (!frame) throw new HttpError(409, `Frame ${row.frameCode} is no longer in the catalogue, so this log has no map to go on`);
+      if (!frame) throw new ConflictError(`Frame ${row.frameCode} is no longer in the catalogue, so this log has no map to go on`);
       const result = fitment.check(saved.input);
       const { points, summary } = analyseShaftLog(StoredRowsSchema.parse(row.rows), result.assumptions, frame);
       const { rows: _rows, ...log } = row;
@@ -189,7 +188,7 @@ export function createShaftLogService(deps: { db: Db; fitment: FitmentService })
             .where(and(eq(shaftLogs.id, logId), eq(shaftLogs.savedFitmentId, saved.id)))
             .run().changes
         : 0;
-      if (gone === 0) throw notFound('No such log on this check');
+      if (gone === 0) throw new NotFoundError('No such log on this check');
     },
 
     /** An invented log for this check's engine on one frame, to try the upload with. */

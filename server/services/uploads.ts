@@ -3,7 +3,7 @@ import fs from 'node:fs';
 import path from 'node:path';
 import type { NextFunction, Request, RequestHandler, Response } from 'express';
 import multer from 'multer';
-import { HttpError } from '../middleware/errors';
+import { InvalidError, TooLargeError, UnsupportedTypeError } from './errors';
 
 const IMAGE_TYPES: Record<string, string> = { 'image/jpeg': '.jpg', 'image/png': '.png', 'image/webp': '.webp' };
 
@@ -35,7 +35,7 @@ export function imageUpload(options: { dir: string; field: string; maxBytes: num
     limits: { fileSize: options.maxBytes, files: options.maxFiles, fields: 20, fieldSize: 4000 },
     fileFilter: (_req, file, cb) => {
       if (IMAGE_TYPES[file.mimetype]) cb(null, true);
-      else cb(new HttpError(415, 'Photos must be JPEG, PNG or WebP images'));
+      else cb(new UnsupportedTypeError('Photos must be JPEG, PNG or WebP images'));
     },
   });
   const handler: RequestHandler = (req: Request, res: Response, next: NextFunction) => {
@@ -45,9 +45,9 @@ export function imageUpload(options: { dir: string; field: string; maxBytes: num
       if (err) {
         discard();
         if (err instanceof multer.MulterError) {
-          if (err.code === 'LIMIT_FILE_SIZE') return next(new HttpError(413, `Each photo may be at most ${Math.round(options.maxBytes / 1_000_000)} MB`));
-          if (err.code === 'LIMIT_FILE_COUNT' || err.code === 'LIMIT_UNEXPECTED_FILE') return next(new HttpError(413, `At most ${options.maxFiles} photos`));
-          return next(new HttpError(400, 'The upload could not be read'));
+          if (err.code === 'LIMIT_FILE_SIZE') return next(new TooLargeError(`Each photo may be at most ${Math.round(options.maxBytes / 1_000_000)} MB`));
+          if (err.code === 'LIMIT_FILE_COUNT' || err.code === 'LIMIT_UNEXPECTED_FILE') return next(new TooLargeError(`At most ${options.maxFiles} photos`));
+          return next(new InvalidError('The upload could not be read'));
         }
         return next(err);
       }
@@ -58,7 +58,7 @@ export function imageUpload(options: { dir: string; field: string; maxBytes: num
         fs.closeSync(fd);
         if (sniffImage(head) !== f.mimetype) {
           discard();
-          return next(new HttpError(415, `${path.basename(f.originalname).slice(0, 60)} is not a JPEG, PNG or WebP image`));
+          return next(new UnsupportedTypeError(`${path.basename(f.originalname).slice(0, 60)} is not a JPEG, PNG or WebP image`));
         }
       }
       next();

@@ -1,7 +1,7 @@
 import { and, count, desc, eq, gt, inArray, lte, notInArray, or, sql, type SQL } from 'drizzle-orm';
 import type { Db } from '../db/client';
 import { bins, stock as binStock, orderEvents, orderLines, orders, parts, partSpecs, shipments, stockMovements } from '../db/schema';
-import { HttpError } from '../middleware/errors';
+import { ConflictError, InvalidError, NotFoundError } from './errors';
 import { normalizePartNumber } from '../../shared/part-number';
 import { PickLineSchema, type Dispatch, type Pick as PickInput, type PickLine, type PickList } from '../../shared/schemas/warehouse';
 import type { OrderStatus } from '../../shared/schemas/orders';
@@ -103,7 +103,7 @@ export function createWarehouseService(deps: { db: Db; stock: StockService; noti
       .from(orders)
       .where(eq(orders.number, number))
       .get();
-    if (!o) throw new HttpError(404, `No order ${number}`);
+    if (!o) throw new NotFoundError(`No order ${number}`);
     return o;
   }
 
@@ -161,17 +161,17 @@ export function createWarehouseService(deps: { db: Db; stock: StockService; noti
   const recordPick = (number: string, input: PickInput) =>
     db.transaction((tx) => {
       const order = orderOr404(tx, number);
-      if (!PICKABLE.includes(order.status) || order.status === 'packed') throw new HttpError(409, `Order ${number} is ${order.status.replace('_', ' ')} and cannot be picked`);
+      if (!PICKABLE.includes(order.status) || order.status === 'packed') throw new ConflictError(`Order ${number} is ${order.status.replace('_', ' ')} and cannot be picked`);
       const line = lineRows(tx, and(eq(orderLines.id, input.lineId), eq(orderLines.orderId, order.id))).get();
-      if (!line) throw new HttpError(404, `Order ${number} has no such line`);
+      if (!line) throw new NotFoundError(`Order ${number} has no such line`);
       const scanned = normalizePartNumber(input.scannedPartNumber);
       if (scanned !== line.normalizedNumber) {
-        throw new HttpError(409, `Scanned ${input.scannedPartNumber.trim().toUpperCase()} but this line is ${line.partNumber}: nothing was recorded`);
+        throw new ConflictError(`Scanned ${input.scannedPartNumber.trim().toUpperCase()} but this line is ${line.partNumber}: nothing was recorded`);
       }
       const open = toPick(line);
-      if (open <= 0) throw new HttpError(409, `${line.partNumber} on ${number} is already picked`);
-      if (input.quantity > open) throw new HttpError(409, `Only ${open} more of ${line.partNumber} to pick on this line`);
-      if (input.quantity === 0 && !input.short) throw new HttpError(400, 'Pick at least 1, or report the bin as short', { quantity: ['pick at least 1'] });
+      if (open <= 0) throw new ConflictError(`${line.partNumber} on ${number} is already picked`);
+      if (input.quantity > open) throw new ConflictError(`Only ${open} more of ${line.partNumber} to pick on this line`);
+      if (input.quantity === 0 && !input.short) throw new InvalidError('Pick at least 1, or report the bin as short', { quantity: ['pick at least 1'] });
 
       const held = stock.heldFor(order.id, line.partId);
       if (input.quantity > 0) {
@@ -232,8 +232,8 @@ export function createWarehouseService(deps: { db: Db; stock: StockService; noti
     db.transaction((tx) => {
       const order = orderOr404(tx, number);
       const lines = linesOf(tx, order.id);
-      if (lines.some((l) => toPick(l) > 0)) throw new HttpError(409, `Order ${number} still has lines to pick`);
-      if (!lines.some((l) => l.picked > l.dispatched)) throw new HttpError(409, `Order ${number} has nothing picked to pack`);
+      if (lines.some((l) => toPick(l) > 0)) throw new ConflictError(`Order ${number} still has lines to pick`);
+      if (!lines.some((l) => l.picked > l.dispatched)) throw new ConflictError(`Order ${number} has nothing picked to pack`);
       tx.update(orders)
         .set({ cartons, packedWeightGrams: Math.round(weightKg * 1000) })
         .where(eq(orders.id, order.id))
@@ -251,11 +251,11 @@ export function createWarehouseService(deps: { db: Db; stock: StockService; noti
       const order = orderOr404(tx, number);
       const lines = linesOf(tx, order.id);
       const ready = lines.filter((l) => l.picked > l.dispatched);
-      if (ready.length === 0) throw new HttpError(409, `Order ${number} has nothing picked to dispatch${order.status === 'dispatched' ? ': it was already dispatched' : ''}`);
-      if (lines.some((l) => toPick(l) > 0)) throw new HttpError(409, `Order ${number} still has lines to pick`);
+      if (ready.length === 0) throw new ConflictError(`Order ${number} has nothing picked to dispatch${order.status === 'dispatched' ? ': it was already dispatched' : ''}`);
+      if (lines.some((l) => toPick(l) > 0)) throw new ConflictError(`Order ${number} still has lines to pick`);
       const cartons = input.cartons ?? order.cartons;
       const grams = input.weightKg !== undefined ? Math.round(input.weightKg * 1000) : order.packedWeightGrams;
-      if (!cartons || !grams) throw new HttpError(400, 'Pack the order first: cartons and weight', { cartons: ['enter the cartons'], weightKg: ['enter the weight'] });
+      if (!cartons || !grams) throw new InvalidError('Pack the order first: cartons and weight', { cartons: ['enter the cartons'], weightKg: ['enter the weight'] });
       let units = 0;
       for (const l of ready) {
         const sent = stock.dispatch(order.id, l.partId);
@@ -293,11 +293,11 @@ export function createWarehouseService(deps: { db: Db; stock: StockService; noti
       .from(parts)
       .where(eq(parts.normalizedNumber, normalizePartNumber(partNumber)))
       .get();
-    if (!part) throw new HttpError(404, `No part ${partNumber}`);
+    if (!part) throw new NotFoundError(`No part ${partNumber}`);
     return part;
   }
   function binOr400(q: DbOrTx, code: string) {
-    if (!q.select({ code: bins.code }).from(bins).where(eq(bins.code, code)).get()) throw new HttpError(400, `No bin ${code}`, { binCode: [`no bin ${code}`] });
+    if (!q.select({ code: bins.code }).from(bins).where(eq(bins.code, code)).get()) throw new InvalidError(`No bin ${code}`, { binCode: [`no bin ${code}`] });
   }
   const stockIn = (q: DbOrTx, partId: number, binCode: string) =>
     q
@@ -343,7 +343,7 @@ export function createWarehouseService(deps: { db: Db; stock: StockService; noti
       const onHand = row?.onHand ?? 0;
       const reserved = row?.reserved ?? 0;
       if (onHand + input.delta < reserved) {
-        throw new HttpError(409, `${input.binCode} holds ${onHand}, of which ${reserved} are reserved for orders: it cannot go below ${reserved}`);
+        throw new ConflictError(`${input.binCode} holds ${onHand}, of which ${reserved} are reserved for orders: it cannot go below ${reserved}`);
       }
       stock.adjust(part.id, input.binCode, input.delta, input.reason);
       return { onHand: onHand + input.delta, reserved };

@@ -3,8 +3,8 @@ import Stripe from 'stripe';
 import { z } from 'zod';
 import type { Db } from '../../db/client';
 import { orderLines, orders, paymentEvents } from '../../db/schema';
-import { HttpError } from '../../middleware/errors';
-import type { CurrentUser } from '../../middleware/session';
+import { PaymentDeclinedError, PaymentServiceError } from '../errors';
+import type { CurrentUser } from '../current-user';
 import type { Checkout, CheckoutResponse } from '../../../shared/schemas/orders';
 import type { CartOwner } from '../cart';
 import { addOrderEvent, setOrderState, type OrderPlacement } from './order-placement';
@@ -41,12 +41,12 @@ type EventEffect = null | 'paid' | 'failed' | 'refunded';
 export function createOrderPayments(deps: OrderPaymentsDeps) {
   const { db, payments, notify, placement } = deps;
 
-  async function checkout(user: CurrentUser, owner: CartOwner, input: Checkout): Promise<{ status: number; body: CheckoutResponse }> {
+  async function checkout(user: CurrentUser, owner: CartOwner, input: Checkout): Promise<CheckoutResponse> {
     const placed = placement.placeFromCart(user, owner, input);
     if (input.method === 'account') {
       notify.orderConfirmed(placed.orderId);
       if (placed.backordered) notify.backordered(placed.orderId);
-      return { status: 201, body: { order: { number: placed.number, status: placed.status, totalCents: placed.totalCents }, nextAction: null } };
+      return { order: { number: placed.number, status: placed.status, totalCents: placed.totalCents }, nextAction: null };
     }
     // The provider is called after the order's transaction has committed: better-sqlite3 cannot wait inside one.
     try {
@@ -66,18 +66,19 @@ export function createOrderPayments(deps: OrderPaymentsDeps) {
       if (confirmed.status === 'requires_action') {
         setOrderState(db, placed.orderId, 'pending_payment', 'requires_action');
         return {
-          status: 201,
-          body: { order: { number: placed.number, status: 'pending_payment', totalCents: placed.totalCents }, nextAction: { type: 'authenticate', paymentIntentId: intent.id, clientSecret: confirmed.client_secret } },
+          order: { number: placed.number, status: 'pending_payment', totalCents: placed.totalCents },
+          nextAction: { type: 'authenticate', paymentIntentId: intent.id, clientSecret: confirmed.client_secret },
         };
       }
-      return { status: 201, body: { order: { number: placed.number, status: 'pending_payment', totalCents: placed.totalCents }, nextAction: null } };
+      return { order: { number: placed.number, status: 'pending_payment', totalCents: placed.totalCents }, nextAction: null };
     } catch (err) {
       const declined = err instanceof Stripe.errors.StripeCardError;
       const reason = declined
         ? `Your card was declined${err.decline_code ? ` (${err.decline_code.replace(/_/g, ' ')})` : ''}. No payment was taken.`
         : 'The payment service could not be reached. No payment was taken.';
       if (placement.cancelUnpaid(placed.orderId, reason)) notify.paymentFailed(placed.orderId, reason);
-      throw new HttpError(declined ? 402 : 502, `${reason} Your cart is as it was: try another card.`);
+      const message = `${reason} Your cart is as it was: try another card.`;
+      throw declined ? new PaymentDeclinedError(message) : new PaymentServiceError(message);
     }
   }
 

@@ -1,8 +1,8 @@
 import { eq, sql } from 'drizzle-orm';
 import type { Db } from '../../db/client';
 import { cartLines, dealerAccounts, orderEvents, orderLines, orders, parts, savedFitments } from '../../db/schema';
-import { HttpError } from '../../middleware/errors';
-import type { CurrentUser } from '../../middleware/session';
+import { ConflictError, InvalidError, NotAllowedError } from '../errors';
+import type { CurrentUser } from '../current-user';
 import { checkCredit } from '../../../shared/credit';
 import { DELIVERY_ZONE_KEYS, priceOrder, type DeliveryZone } from '../../../shared/pricing';
 import type { Checkout, OrderStatus } from '../../../shared/schemas/orders';
@@ -77,10 +77,10 @@ export function createOrderPlacement(deps: OrderPlacementDeps) {
     db.transaction(
       (tx) => {
         const lines = cartLinesOf(tx, cartId);
-        if (lines.length === 0) throw new HttpError(409, 'Your cart is empty');
+        if (lines.length === 0) throw new ConflictError('Your cart is empty');
         const buyer = buyerOf(user);
         const dealer = buyer.kind === 'dealer' ? user.dealer : null;
-        if (input.method === 'account' && !dealer) throw new HttpError(403, 'Ordering on account needs an approved trade account');
+        if (input.method === 'account' && !dealer) throw new NotAllowedError('Ordering on account needs an approved trade account');
 
         const backorders = new Map<number, number>();
         for (const l of lines) {
@@ -90,8 +90,7 @@ export function createOrderPlacement(deps: OrderPlacementDeps) {
           if (dealer && l.allowBackorder && l.status !== 'discontinued') {
             backorders.set(l.lineId, short);
           } else {
-            throw new HttpError(
-              409,
+            throw new ConflictError(
               available === 0
                 ? `${l.partNumber} is out of stock${dealer ? ': remove it or allow a back-order' : ''}`
                 : `Only ${available} of ${l.partNumber} available${dealer ? ': lower the quantity or allow a back-order for the rest' : ': lower the quantity'}`,
@@ -110,11 +109,11 @@ export function createOrderPlacement(deps: OrderPlacementDeps) {
 
         if (input.method === 'account' && dealer) {
           const credit = checkCredit({ openBalanceCents: dealerOpenBalance(tx, dealer.id), orderCents: totals.totalCents, creditLimitCents: dealer.creditLimitCents });
-          if (!credit.fits) throw new HttpError(409, credit.message);
+          if (!credit.fits) throw new ConflictError(credit.message);
         }
 
         const delivery = input.delivery ?? dealerAddress(tx, dealer?.id ?? null);
-        if (!delivery) throw new HttpError(400, 'A delivery address is needed', { delivery: ['enter a delivery address'] });
+        if (!delivery) throw new InvalidError('A delivery address is needed', { delivery: ['enter a delivery address'] });
         const next = tx
           .select({ id: sql<number>`coalesce(max(${orders.id}), 0) + 1` })
           .from(orders)
@@ -182,7 +181,7 @@ export function createOrderPlacement(deps: OrderPlacementDeps) {
   /** The buyer's cart becomes an order; an empty or missing cart is refused before anything is written. */
   function placeFromCart(user: CurrentUser, owner: CartOwner, input: Checkout) {
     const cartId = cart.cartId(owner, false);
-    if (!cartId) throw new HttpError(409, 'Your cart is empty');
+    if (!cartId) throw new ConflictError('Your cart is empty');
     return placeOrder(user, cartId, input);
   }
 

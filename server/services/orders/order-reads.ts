@@ -1,8 +1,8 @@
 import { count, desc, eq, sql, type SQL } from 'drizzle-orm';
 import type { Db } from '../../db/client';
 import { dealerAccounts, orderEvents, orderLines, orders, parts } from '../../db/schema';
-import { HttpError } from '../../middleware/errors';
-import type { CurrentUser } from '../../middleware/session';
+import { NotFoundError } from '../errors';
+import type { CurrentUser } from '../current-user';
 import type { OrderDetail, OrderSummary } from '../../../shared/schemas/orders';
 import type { CartService } from '../cart';
 
@@ -36,7 +36,7 @@ export function createOrderReads(deps: { db: Db; cart: CartService }) {
   function ownOrder(user: CurrentUser, number: string): OrderHeader {
     const order = findOrder(db, eq(orders.number, number));
     const allowed = order && (order.userId === user.id || user.role === 'admin' || user.role === 'warehouse');
-    if (!order || !allowed) throw new HttpError(404, `No order ${number}`);
+    if (!order || !allowed) throw new NotFoundError(`No order ${number}`);
     return order;
   }
 
@@ -70,7 +70,7 @@ export function createOrderReads(deps: { db: Db; cart: CartService }) {
       .leftJoin(dealerAccounts, eq(dealerAccounts.id, orders.dealerAccountId))
       .where(eq(orders.id, id))
       .get();
-    if (!found) throw new HttpError(404, `No order ${number}`);
+    if (!found) throw new NotFoundError(`No order ${number}`);
     const { order: o, companyName } = found;
     const lines = db
       .select({
@@ -159,7 +159,7 @@ export function createOrderReads(deps: { db: Db; cart: CartService }) {
 
   function orderForIntent(user: CurrentUser, intentId: string): OrderHeader {
     const order = findOrder(db, eq(orders.paymentIntentId, intentId));
-    if (!order || order.userId !== user.id) throw new HttpError(404, 'No such payment');
+    if (!order || order.userId !== user.id) throw new NotFoundError('No such payment');
     return order;
   }
 
