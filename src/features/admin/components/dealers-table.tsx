@@ -8,13 +8,14 @@ import {
   type SortingFn,
   type SortingState,
 } from '@tanstack/react-table';
-import { ArrowDown, ArrowUp, ArrowUpDown, BadgeCheck, ChevronDown, ChevronRight, CircleSlash, Clock } from 'lucide-react';
+import { ArrowDown, ArrowUp, ArrowUpDown, ChevronDown, ChevronRight } from 'lucide-react';
 import { Fragment, useEffect, useRef, useState } from 'react';
 import { z } from 'zod';
 import { formatPrice } from '../../../../shared/catalog';
 import { formatDate } from '../../../../shared/format';
 import type { DealerAccountRowSchema } from '../../../../shared/schemas/accounts';
 import { DEALER_TIERS } from '../../../../shared/pricing';
+import { StatusBadge } from '../../../components/ui/status-badge';
 import { ApproveDealerForm, DeclineDealerForm, type DecisionDone } from './decision-forms';
 
 type DealerRow = z.infer<typeof DealerAccountRowSchema>;
@@ -23,26 +24,6 @@ const STATUS_ORDER: Record<DealerRow['status'], number> = { pending: 0, approved
 
 /** Pending first, then approved, then declined; newest first inside each. */
 const byStatus: SortingFn<DealerRow> = (a, b) => STATUS_ORDER[a.original.status] - STATUS_ORDER[b.original.status] || b.original.id - a.original.id;
-
-export function StatusBadge({ status }: { status: DealerRow['status'] }) {
-  if (status === 'pending')
-    return (
-      <span className="inline-flex items-center gap-1 rounded-full border border-amber-line bg-amber-tint px-2 py-0.5 text-sm font-semibold whitespace-nowrap text-amber">
-        <Clock aria-hidden className="size-4" /> Pending
-      </span>
-    );
-  if (status === 'approved')
-    return (
-      <span className="inline-flex items-center gap-1 rounded-full border border-machined bg-machined-tint px-2 py-0.5 text-sm font-semibold whitespace-nowrap text-machined">
-        <BadgeCheck aria-hidden className="size-4" /> Approved
-      </span>
-    );
-  return (
-    <span className="inline-flex items-center gap-1 rounded-full border border-oxide bg-oxide-tint px-2 py-0.5 text-sm font-semibold whitespace-nowrap text-oxide">
-      <CircleSlash aria-hidden className="size-4" /> Declined
-    </span>
-  );
-}
 
 /** Breaks a long address after the @ rather than anywhere. */
 function EmailCell({ email }: { email: string }) {
@@ -60,7 +41,7 @@ function EmailCell({ email }: { email: string }) {
 const col = createColumnHelper<DealerRow>();
 const columns = [
   col.accessor('companyName', { header: 'Company', cell: (c) => <span className="block min-w-32 font-semibold">{c.getValue()}</span> }),
-  col.accessor('status', { header: 'Status', sortingFn: byStatus, cell: (c) => <StatusBadge status={c.getValue()} /> }),
+  col.accessor('status', { header: 'Status', sortingFn: byStatus, cell: (c) => <StatusBadge kind="dealer" status={c.getValue()} /> }),
   col.accessor('contactName', {
     header: 'Contact',
     cell: (c) => (

@@ -1,41 +1,20 @@
-import { Ban, CircleCheck, Clock, TriangleAlert } from 'lucide-react';
 import type { PartSummary } from '../../../../shared/schemas/parts';
+import { StatusBadge } from '../../../components/ui/status-badge';
 
 /** Stock in a word and a shape; `wanted` says when fewer are on hand than the build needs. */
 export function StockWord({ stock, wanted = 1 }: { stock: PartSummary['stock']; wanted?: number }) {
   const { state, available } = stock;
   if ((state === 'in-stock' || state === 'low') && available < wanted)
     return (
-      <span className="inline-flex items-center gap-1 text-amber">
-        <TriangleAlert aria-hidden className="size-4 shrink-0" />
+      <StatusBadge kind="stock" status="low" look="plain">
         Only {available} in stock
-      </span>
+      </StatusBadge>
     );
-  if (state === 'in-stock')
+  if (state === 'in-stock' || state === 'low')
     return (
-      <span className="inline-flex items-center gap-1 text-machined">
-        <CircleCheck aria-hidden className="size-4 shrink-0" />
-        In stock ({available})
-      </span>
+      <StatusBadge kind="stock" status={state} look="plain">
+        {state === 'in-stock' ? 'In stock' : 'Low stock'} ({available})
+      </StatusBadge>
     );
-  if (state === 'low')
-    return (
-      <span className="inline-flex items-center gap-1 text-amber">
-        <TriangleAlert aria-hidden className="size-4 shrink-0" />
-        Low stock ({available})
-      </span>
-    );
-  if (state === 'out-of-stock')
-    return (
-      <span className="inline-flex items-center gap-1 text-cast">
-        <Clock aria-hidden className="size-4 shrink-0" />
-        Awaiting stock
-      </span>
-    );
-  return (
-    <span className="inline-flex items-center gap-1 text-cast">
-      <Ban aria-hidden className="size-4 shrink-0" />
-      Discontinued
-    </span>
-  );
+  return <StatusBadge kind="stock" status={state} look="plain" />;
 }

@@ -7,7 +7,7 @@ import { ApiError } from '../../../lib/api-client';
 import { PAYMENT_POLL_LIMIT, PAYMENT_POLL_MS, useOrder } from '../../../lib/orders';
 import { OrderLinesTable, OrderTotals, zoneLabel } from './order-lines';
 import { formatDateTime } from '../../../../shared/format';
-import { OrderStatusBadge } from './order-status';
+import { StatusBadge } from '../../../components/ui/status-badge';
 import { OrderTimeline } from './order-timeline';
 import { ReorderButton } from './reorder-button';
 
@@ -118,7 +118,7 @@ export function OrderPage({ number, placed, onReorderAdded }: { number: string; 
             {o.dealer && <> · {o.dealer.companyName}</>}
           </p>
         </div>
-        <OrderStatusBadge status={o.status} />
+        <StatusBadge kind="order" status={o.status} />
       </header>
       <PaymentBanner order={o} placed={placed} />
       <div className="grid gap-8 lg:grid-cols-[minmax(0,1fr)_20rem]">

@@ -1,6 +1,7 @@
 import type { OrderDetail } from '../../../../shared/schemas/orders';
 import { formatDateTime } from '../../../../shared/format';
-import { statusMeta, toneClass } from './order-status';
+import { TONE_PILL } from '../../../components/ui/status-looks';
+import { statusMeta } from './order-status';
 
 const FULFILMENT = ['picking', 'packed', 'dispatched'] as const;
 
@@ -21,7 +22,7 @@ export function OrderTimeline({ order }: { order: OrderDetail }) {
         return (
           <li key={`${e.status}-${e.at}-${i}`} className="relative grid grid-cols-[2.25rem_1fr] gap-3 pb-4">
             {!last && <span aria-hidden className="absolute left-[1.05rem] top-9 bottom-0 w-0.5 bg-cast-line" />}
-            <span className={`relative z-10 inline-flex size-9 items-center justify-center rounded-full border-2 ${toneClass(tone)}`}>
+            <span className={`relative z-10 inline-flex size-9 items-center justify-center rounded-full border-2 ${TONE_PILL[tone]}`}>
               <Icon aria-hidden className="size-5" />
             </span>
             <div>

@@ -5,7 +5,7 @@ import { EmptyState, ErrorState, LoadingState } from '../../../components/ui/sta
 import { ApiError } from '../../../lib/api-client';
 import { useOrders } from '../../../lib/orders';
 import { formatDate } from '../../../../shared/format';
-import { OrderStatusBadge } from './order-status';
+import { StatusBadge } from '../../../components/ui/status-badge';
 import { ReorderButton } from './reorder-button';
 
 export function OrdersList({ onReorderAdded, trade }: { onReorderAdded: () => void; trade: boolean }) {
@@ -87,7 +87,7 @@ export function OrdersList({ onReorderAdded, trade }: { onReorderAdded: () => vo
                 </td>
                 <td className="px-3 py-3">
                   <div className="grid justify-items-start gap-1">
-                    <OrderStatusBadge status={o.status} />
+                    <StatusBadge kind="order" status={o.status} />
                     {o.hasBackorder && o.status !== 'back_ordered' && (
                       <span className="inline-flex items-center gap-1 text-sm text-amber">
                         <Clock aria-hidden className="size-4" /> part back-ordered

@@ -3,7 +3,7 @@ import { formatPrice } from '../../../../shared/catalog';
 import { CONDITION_GRADES, RETURN_KINDS, type ReturnView } from '../../../../shared/schemas/warehouse';
 import { EmptyState, ErrorState, LoadingState } from '../../../components/ui/states';
 import { useReturns } from '../api/get-returns';
-import { ReturnStatus } from './return-status';
+import { StatusBadge } from '../../../components/ui/status-badge';
 
 const DECISIONS: Record<string, string> = {
   'core-refund': 'Core deposit refunded',
@@ -75,7 +75,7 @@ export function ReturnsList({ highlight }: { highlight?: string | null }) {
         >
           <div className="grid content-start gap-1">
             <p className="part-no text-lg">{r.reference}</p>
-            <ReturnStatus status={r.status} />
+            <StatusBadge kind="return" status={r.status} look="plain" />
             <p className="text-sm text-cast">Asked {day(r.createdAt)}</p>
           </div>
           <div className="grid content-start gap-1">

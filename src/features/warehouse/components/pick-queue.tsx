@@ -20,7 +20,8 @@ import { SortableColumnHeader } from '../../../components/ui/sort-header';
 import { EmptyState, ErrorState, LoadingState } from '../../../components/ui/states';
 import { usePickQueue } from '../api/get-pick-queue';
 import { orderAge } from '../lib/age';
-import { QUEUE_STATE_LABELS, QueueStateBadge, queueState, type QueueState } from './queue-state';
+import { StatusBadge } from '../../../components/ui/status-badge';
+import { QUEUE_STATE_LABELS, queueState, type QueueState } from './queue-state';
 
 type QueueItem = z.infer<typeof PickQueueItemSchema>;
 
@@ -103,7 +104,7 @@ function QueueTable({ items, refreshing, onRefresh }: { items: QueueItem[]; refr
         header: 'State',
         filterFn: equalsFilter,
         sortingFn: (a, b) => stateOrder.indexOf(a.getValue('state')) - stateOrder.indexOf(b.getValue('state')),
-        cell: (c) => <QueueStateBadge state={c.getValue()} />,
+        cell: (c) => <StatusBadge kind="queue" status={c.getValue()} size="md" />,
       }),
       column.display({
         id: 'open',

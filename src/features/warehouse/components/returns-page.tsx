@@ -1,11 +1,12 @@
 import { zodResolver } from '@hookform/resolvers/zod';
-import { Ban, CircleCheckBig, Clock, CreditCard, FileText, Landmark, Undo2 } from 'lucide-react';
+import { Ban, CircleCheckBig, CreditCard, Landmark, Undo2 } from 'lucide-react';
 import { useRef, useState } from 'react';
 import { useForm, useWatch } from 'react-hook-form';
 import { z } from 'zod';
 import { formatPrice } from '../../../../shared/catalog';
 import { CONDITION_GRADE_KEYS, CONDITION_GRADES, RETURN_KINDS, ReturnDecisionSchema, type ReturnDecision, type ReturnView } from '../../../../shared/schemas/warehouse';
 import { Button } from '../../../components/ui/button';
+import { StatusBadge } from '../../../components/ui/status-badge';
 import { EmptyState, ErrorState, LoadingState } from '../../../components/ui/states';
 import { useDecideReturn } from '../api/decide-return';
 import { useReturns, type ReturnFilter } from '../api/get-returns';
@@ -13,22 +14,6 @@ import { formatDateTime } from '../../../../shared/format';
 import { centsToDollarsInput, dollarsToCents } from '../lib/money';
 import { ErrorSummary, FieldShell, SelectField, summaryItems, TextAreaField, TextField } from '../../../components/ui/form';
 
-const STATUS = {
-  requested: { label: 'Requested', Icon: Clock, cls: 'text-amber' },
-  refunded: { label: 'Refunded', Icon: CircleCheckBig, cls: 'text-machined' },
-  credited: { label: 'Credit note', Icon: FileText, cls: 'text-machined' },
-  rejected: { label: 'Rejected', Icon: Ban, cls: 'text-oxide' },
-} as const;
-
-function ReturnStatus({ status }: { status: ReturnView['status'] }) {
-  const { label, Icon, cls } = STATUS[status];
-  return (
-    <span className={`inline-flex items-center gap-1 whitespace-nowrap font-semibold ${cls}`}>
-      <Icon aria-hidden className="size-4" />
-      {label}
-    </span>
-  );
-}
 
 export function ReturnsPage({ status, openId, onStatus, onOpen }: { status: ReturnFilter; openId: number | null; onStatus: (s: ReturnFilter) => void; onOpen: (id: number | null) => void }) {
   const list = useReturns(status);
@@ -97,7 +82,7 @@ export function ReturnsPage({ status, openId, onStatus, onOpen }: { status: Retu
                   <td className="px-3 py-1">{RETURN_KINDS[r.kind]}</td>
                   <td className="tabular px-3 py-1 text-right">{r.quantity}</td>
                   <td className="px-3 py-1">
-                    <ReturnStatus status={r.status} />
+                    <StatusBadge kind="return" status={r.status} />
                   </td>
                   <td className="px-3 py-1 text-right">
                     <Button variant="secondary" className="min-h-12" onClick={() => onOpen(r.id)} aria-label={`Open ${r.reference}`}>

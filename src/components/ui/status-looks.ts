@@ -1,0 +1,119 @@
+/**
+ * Every status the screens show, mapped once to its word, its shape (icon) and its colour. The values come from
+ * the shared schemas, and each map is a full Record over them, so a status added in shared/ does not compile here
+ * until it has a word and a look.
+ */
+import {
+  Ban,
+  BadgeCheck,
+  Box,
+  CircleCheck,
+  CircleSlash,
+  CircleX,
+  ClipboardList,
+  Clock,
+  FileText,
+  Hourglass,
+  Package,
+  PackageCheck,
+  ReceiptText,
+  RotateCcw,
+  TriangleAlert,
+  Truck,
+  Undo2,
+  type LucideIcon,
+} from 'lucide-react';
+import type { z } from 'zod';
+import type { DealerAccountRowSchema } from '../../../shared/schemas/accounts';
+import { ORDER_STATUS_LABELS, type OrderStatus } from '../../../shared/schemas/orders';
+import type { StockStateSchema } from '../../../shared/schemas/parts';
+import type { PickQueueItemSchema, ReturnViewSchema } from '../../../shared/schemas/warehouse';
+
+/** The design's colours for states: temper (in hand), amber (attention), machined (done, good), oxide (refused, ended), cast (neutral). */
+export type Tone = 'temper' | 'amber' | 'machined' | 'oxide' | 'cast';
+
+export interface StatusLook {
+  label: string;
+  Icon: LucideIcon;
+  tone: Tone;
+}
+
+export type ReturnStatus = z.infer<typeof ReturnViewSchema>['status'];
+export type DealerStatus = z.infer<typeof DealerAccountRowSchema>['status'];
+export type StockState = z.infer<typeof StockStateSchema>;
+/** Where an order stands in the Floor's queue; a back-order whose stock arrived is picked like others but marked. */
+export type QueueState = z.infer<typeof PickQueueItemSchema>['ready'] | 'released';
+
+export const ORDER_STATUS_LOOKS: Record<OrderStatus, StatusLook> = {
+  pending_payment: { label: ORDER_STATUS_LABELS.pending_payment, Icon: Hourglass, tone: 'amber' },
+  paid: { label: ORDER_STATUS_LABELS.paid, Icon: CircleCheck, tone: 'machined' },
+  on_account: { label: ORDER_STATUS_LABELS.on_account, Icon: FileText, tone: 'temper' },
+  picking: { label: ORDER_STATUS_LABELS.picking, Icon: ClipboardList, tone: 'temper' },
+  packed: { label: ORDER_STATUS_LABELS.packed, Icon: Package, tone: 'temper' },
+  dispatched: { label: ORDER_STATUS_LABELS.dispatched, Icon: Truck, tone: 'machined' },
+  back_ordered: { label: ORDER_STATUS_LABELS.back_ordered, Icon: Clock, tone: 'amber' },
+  cancelled: { label: ORDER_STATUS_LABELS.cancelled, Icon: CircleX, tone: 'oxide' },
+  returned: { label: ORDER_STATUS_LABELS.returned, Icon: Undo2, tone: 'cast' },
+};
+
+export const RETURN_STATUS_LOOKS: Record<ReturnStatus, StatusLook> = {
+  requested: { label: 'Requested', Icon: Clock, tone: 'amber' },
+  refunded: { label: 'Refunded', Icon: CircleCheck, tone: 'machined' },
+  credited: { label: 'Credited', Icon: ReceiptText, tone: 'machined' },
+  rejected: { label: 'Rejected', Icon: Ban, tone: 'oxide' },
+};
+
+export const DEALER_STATUS_LOOKS: Record<DealerStatus, StatusLook> = {
+  pending: { label: 'Pending', Icon: Clock, tone: 'amber' },
+  approved: { label: 'Approved', Icon: BadgeCheck, tone: 'machined' },
+  declined: { label: 'Declined', Icon: CircleSlash, tone: 'oxide' },
+};
+
+export const STOCK_STATE_LOOKS: Record<StockState, StatusLook> = {
+  'in-stock': { label: 'In stock', Icon: CircleCheck, tone: 'machined' },
+  low: { label: 'Low stock', Icon: TriangleAlert, tone: 'amber' },
+  'out-of-stock': { label: 'Awaiting stock', Icon: Clock, tone: 'cast' },
+  discontinued: { label: 'Discontinued', Icon: Ban, tone: 'oxide' },
+};
+
+export const QUEUE_STATE_LOOKS: Record<QueueState, StatusLook> = {
+  pick: { label: 'To pick', Icon: Box, tone: 'temper' },
+  released: { label: 'Released back-order', Icon: RotateCcw, tone: 'amber' },
+  pack: { label: 'To pack', Icon: PackageCheck, tone: 'cast' },
+  dispatch: { label: 'To dispatch', Icon: Truck, tone: 'machined' },
+};
+
+export const STATUS_LOOKS = {
+  order: ORDER_STATUS_LOOKS,
+  return: RETURN_STATUS_LOOKS,
+  dealer: DEALER_STATUS_LOOKS,
+  stock: STOCK_STATE_LOOKS,
+  queue: QUEUE_STATE_LOOKS,
+} as const;
+
+export type StatusKind = keyof typeof STATUS_LOOKS;
+export type StatusOf<K extends StatusKind> = keyof (typeof STATUS_LOOKS)[K];
+
+/** The look of a status; a value the client does not know yet (a newer server) reads as its own words, in neutral grey. */
+export function statusLook<K extends StatusKind>(kind: K, status: StatusOf<K> | string): StatusLook {
+  const looks = STATUS_LOOKS[kind] as Record<string, StatusLook | undefined>;
+  return looks[status as string] ?? { label: String(status).replace(/[_-]/g, ' '), Icon: Clock, tone: 'cast' };
+}
+
+/** Pill colours per tone: tinted background, dark text and border, each pair at least 4.5:1 (WCAG 2.2 AA). */
+export const TONE_PILL: Record<Tone, string> = {
+  temper: 'bg-temper-tint text-temper-deep border-temper/40',
+  amber: 'bg-amber-tint text-amber border-amber-line/50',
+  machined: 'bg-machined-tint text-machined border-machined/40',
+  oxide: 'bg-oxide-tint text-oxide border-oxide/40',
+  cast: 'bg-panel text-ink border-cast-line',
+};
+
+/** Text colours per tone for the plain (unboxed) form, as in lists and stock lines. */
+export const TONE_TEXT: Record<Tone, string> = {
+  temper: 'text-temper-deep',
+  amber: 'text-amber',
+  machined: 'text-machined',
+  oxide: 'text-oxide',
+  cast: 'text-cast',
+};
