@@ -1,13 +1,12 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { DealerAccountsSchema, MeSchema } from '../../shared/schemas/accounts';
 import type { StoredMessage } from '../../fakes/mail/mail-fake';
+import { createAccount, createCustomer, createDealer, createUser } from '../support/factories';
 import { startTestApp, type Reply, type TestApp } from '../support/test-app';
-
-const PASSWORD = 'spoolyard-demo-1';
 
 let t: TestApp;
 beforeAll(async () => {
-  t = await startTestApp({ fakes: true, accounts: true });
+  t = await startTestApp({ fakes: true });
 });
 afterAll(async () => {
   await t.close();
@@ -21,15 +20,9 @@ function cookiesOf(reply: Reply): string {
     .join('; ');
 }
 
-async function signIn(app: TestApp, email: string, password = PASSWORD): Promise<Reply & { cookie: string }> {
+async function signIn(app: TestApp, email: string, password: string): Promise<Reply & { cookie: string }> {
   const reply = await app.send('POST', '/api/auth/sign-in/email', { email, password }, { origin: app.url });
   return { ...reply, cookie: cookiesOf(reply) };
-}
-
-async function signedIn(email: string, password = PASSWORD): Promise<string> {
-  const reply = await signIn(t, email, password);
-  expect(reply.status, JSON.stringify(reply.body)).toBe(200);
-  return reply.cookie;
 }
 
 async function me(cookie: string) {
@@ -62,7 +55,8 @@ describe('sign-up and sign-in', () => {
   });
 
   it('sets the session cookie HttpOnly and SameSite=Lax', async () => {
-    const reply = await signIn(t, 'retail@spoolyard.test');
+    const buyer = await createAccount(t);
+    const reply = await signIn(t, buyer.email, buyer.password);
     expect(reply.status).toBe(200);
     const session = reply.headers.getSetCookie().find((c) => c.startsWith('better-auth.session_token='));
     expect(session).toBeDefined();
@@ -73,19 +67,21 @@ describe('sign-up and sign-in', () => {
   });
 
   it('refuses a wrong password with 401 and sets no session', async () => {
-    const reply = await signIn(t, 'retail@spoolyard.test', 'not-the-password');
+    const buyer = await createAccount(t);
+    const reply = await signIn(t, buyer.email, 'not-the-password');
     expect(reply.status).toBe(401);
     expect(reply.cookie).not.toContain('better-auth.session_token=');
   });
 
   it('rate-limits sign-in: 429 once the per-minute limit is spent', async () => {
-    const limited = await startTestApp({ accounts: true, config: { signinLimitPerMinute: 3 } });
+    const limited = await startTestApp({ config: { signinLimitPerMinute: 3 } });
     try {
+      const buyer = await createAccount(limited);
       const statuses: number[] = [];
-      for (let i = 0; i < 3; i++) statuses.push((await signIn(limited, 'retail@spoolyard.test', 'wrong-password-guess')).status);
+      for (let i = 0; i < 3; i++) statuses.push((await signIn(limited, buyer.email, 'wrong-password-guess')).status);
       expect(statuses).toEqual([401, 401, 401]);
       // Even the right password is held back until the window passes.
-      const blocked = await signIn(limited, 'retail@spoolyard.test');
+      const blocked = await signIn(limited, buyer.email, buyer.password);
       expect(blocked.status).toBe(429);
       expect(blocked.body).toMatchObject({ error: { message: expect.stringMatching(/too many sign-in attempts/i) } });
       expect(blocked.cookie).not.toContain('better-auth.session_token=');
@@ -97,7 +93,7 @@ describe('sign-up and sign-in', () => {
 
 describe('cross-site requests', () => {
   it('refuses a POST from another site even with a valid session cookie', async () => {
-    const cookie = await signedIn('retail@spoolyard.test');
+    const cookie = (await createCustomer(t)).client.cookie();
     const evil = { origin: 'https://evil.example', cookie };
     const cart = await t.send('POST', '/api/cart/lines', { partNumber: 'QQQ-00-0000', quantity: 1 }, evil);
     expect(cart.status).toBe(403);
@@ -114,6 +110,8 @@ describe('cross-site requests', () => {
 
 describe('dealer application and approval', () => {
   it('applies, is pending, gets a receipt mail; the admin approves and the applicant becomes a dealer', async () => {
+    // An account approved before this application, so "pending first" below is about order, not about id.
+    await createDealer(t);
     const email = 'pat.quillon@example.test';
     const signUp = await t.send('POST', '/api/auth/sign-up/email', { name: 'Pat Quillon', email, password: 'harrowgate-diesel-9' }, { origin: t.url });
     expect(signUp.status).toBe(200);
@@ -137,11 +135,12 @@ describe('dealer application and approval', () => {
     expect(receipt.subject).toContain(application.companyName);
     expect(receipt.text).toContain('Pat Quillon');
 
-    const admin = await signedIn('admin@spoolyard.test');
+    const admin = (await createUser(t, { role: 'admin' })).client.cookie();
     const list = await t.get('/api/admin/dealers', { headers: { cookie: admin } });
     expect(list.status).toBe(200);
     const { items } = DealerAccountsSchema.parse(list.body);
     const statuses = items.map((i) => i.status);
+    expect(statuses).toContain('approved');
     // Pending applications come first.
     expect(statuses.slice(0, statuses.lastIndexOf('pending') + 1).every((s) => s === 'pending')).toBe(true);
     expect(items.find((i) => i.id === dealerId)).toMatchObject({ email, status: 'pending', city: 'Brackenford' });
@@ -177,7 +176,7 @@ describe('dealer application and approval', () => {
     const cookie = cookiesOf(signUp);
     const applied = await t.send('POST', '/api/account/dealer-applications', { ...application, companyName: 'Crewe Garage' }, { origin: t.url, cookie });
     const dealerId = (applied.body as { id: number }).id;
-    const admin = await signedIn('admin@spoolyard.test');
+    const admin = (await createUser(t, { role: 'admin' })).client.cookie();
     const decided = await t.send('POST', `/api/admin/dealers/${dealerId}/decision`, { decision: 'decline', reason: 'We could not confirm the trading address.' }, { origin: t.url, cookie: admin });
     expect(decided.body).toEqual({ id: dealerId, status: 'declined' });
     expect((await me(cookie)).user).toMatchObject({ role: 'customer', dealer: { status: 'declined' } });
@@ -187,8 +186,9 @@ describe('dealer application and approval', () => {
 
   it('keeps the dealer list to admins: 401 signed out, 403 for other roles', async () => {
     expect((await t.get('/api/admin/dealers')).status).toBe(401);
-    for (const email of ['retail@spoolyard.test', 'dealer@spoolyard.test', 'warehouse@spoolyard.test']) {
-      const cookie = await signedIn(email);
+    const others = await Promise.all([createCustomer(t), createDealer(t), createUser(t, { role: 'warehouse' })]);
+    for (const { email, client } of others) {
+      const cookie = client.cookie();
       expect((await t.get('/api/admin/dealers', { headers: { cookie } })).status, email).toBe(403);
       const decision = await t.send('POST', '/api/admin/dealers/1/decision', { decision: 'decline', reason: 'not mine to decide' }, { origin: t.url, cookie });
       expect(decision.status, email).toBe(403);
@@ -199,8 +199,8 @@ describe('dealer application and approval', () => {
 
 describe('password reset by e-mailed link', () => {
   it('resets through the link in the mail; the new password works and the old one does not', async () => {
-    const email = 'retail@spoolyard.test';
-    const oldSession = await signedIn(email);
+    const { email, password, client } = await createCustomer(t);
+    const oldSession = client.cookie();
     t.mail!.clear();
     const requested = await t.send('POST', '/api/auth/request-password-reset', { email, redirectTo: '/reset-password' }, { origin: t.url });
     expect(requested.status, JSON.stringify(requested.body)).toBe(200);
@@ -229,7 +229,7 @@ describe('password reset by e-mailed link', () => {
     expect(reused.status).toBe(400);
 
     expect((await signIn(t, email, 'a-brand-new-password-7')).status).toBe(200);
-    expect((await signIn(t, email, PASSWORD)).status).toBe(401);
+    expect((await signIn(t, email, password)).status).toBe(401);
     // Sessions made with the old password are ended by the reset.
     expect((await me(oldSession)).user).toBeNull();
   });

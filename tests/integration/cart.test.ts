@@ -1,11 +1,11 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { CartViewSchema } from '../../shared/schemas/orders';
-import { signIn } from '../support/session';
+import { createCustomer, createDealer } from '../support/factories';
 import { startTestApp, type TestApp } from '../support/test-app';
 
 let t: TestApp;
 beforeAll(async () => {
-  t = await startTestApp({ accounts: true });
+  t = await startTestApp();
 });
 afterAll(async () => {
   await t.close();
@@ -22,7 +22,7 @@ describe('cart', () => {
     const asGuest = CartViewSchema.parse(await (await fetch(`${t.url}/api/cart`, { headers: { cookie: guestCookie } })).json());
     expect(asGuest.lines.map((l) => [l.partNumber, l.quantity])).toEqual([['FLG-50-0201', 2]]);
 
-    const user = await signIn(t, 'retail@spoolyard.test');
+    const { client: user } = await createCustomer(t);
     await user.send('POST', '/api/cart/lines', { partNumber: 'FLG-50-0201', quantity: 1 });
     // The first request carrying both the session and the guest cookie merges the carts.
     const merged = await fetch(`${t.url}/api/cart`, { headers: { cookie: `${user.cookie()}; ${guestCookie}` } });
@@ -34,7 +34,7 @@ describe('cart', () => {
   });
 
   it('warns when housings, cartridges or gaskets do not match the frame or flange of another line', async () => {
-    const user = await signIn(t, 'dealer2@spoolyard.test');
+    const { client: user } = await createDealer(t);
     const add = async (partNumber: string) => CartViewSchema.parse((await user.send('POST', '/api/cart/lines', { partNumber, quantity: 1 })).body);
     expect((await add('CHS-20-0201')).warnings).toEqual([]);
     const housing = await add('FUL-30-0201');
@@ -47,7 +47,7 @@ describe('cart', () => {
   });
 
   it('replaces a superseded number with its successor and says so; refuses unknown parts with a suggestion', async () => {
-    const user = await signIn(t, 'retail@spoolyard.test');
+    const { client: user } = await createCustomer(t);
     const [old] = t.db.$client.prepare("SELECT part_number AS n, superseded_by AS s FROM parts WHERE status = 'superseded' AND category = 'gaskets-fittings' LIMIT 1").all() as Array<{ n: string; s: string }>;
     const res = await user.send('POST', '/api/cart/lines', { partNumber: old!.n, quantity: 1 });
     const view = CartViewSchema.parse(res.body);

@@ -1,5 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { signIn, type Client } from '../support/session';
+import { createDealer, createUser } from '../support/factories';
+import type { Client } from '../support/session';
 import { startTestApp, type TestApp } from '../support/test-app';
 
 let t: TestApp;
@@ -7,9 +8,10 @@ let dealer: Client;
 let admin: Client;
 let dealerId: number;
 beforeAll(async () => {
-  t = await startTestApp({ accounts: true });
-  [dealer, admin] = await Promise.all([signIn(t, 'dealer2@spoolyard.test'), signIn(t, 'admin@spoolyard.test')]);
-  dealerId = t.db.$client.prepare("SELECT id FROM dealer_accounts WHERE company_name = 'Quayside Marine Engines'").pluck().get() as number;
+  t = await startTestApp();
+  // Standard tier, $5,000.00 limit, 14-day terms: invented terms like the demo data's second dealer.
+  const [account, office] = await Promise.all([createDealer(t, { tier: 'standard', creditLimitCents: 500_000, paymentTermsDays: 14 }), createUser(t, { role: 'admin' })]);
+  [dealer, admin, dealerId] = [account.client, office.client, account.dealerAccountId];
 });
 afterAll(async () => {
   await t.close();
@@ -22,7 +24,6 @@ async function accountOrder(partNumber: string, quantity: number) {
 
 describe('dealer invoices', () => {
   it('counts open invoices against the credit limit until the office records them paid', async () => {
-    // Quayside Marine Engines: standard tier, $5,000.00 limit, 14-day terms (demo data).
     const turbo = t.db.$client
       .prepare("SELECT part_number FROM parts WHERE category = 'turbochargers' AND condition = 'new' AND available >= 2 AND price_cents BETWEEN 200000 AND 280000 ORDER BY price_cents LIMIT 1")
       .pluck()

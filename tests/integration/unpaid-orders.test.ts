@@ -1,12 +1,12 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { paymentsClient } from '../support/app-deps';
-import { signIn } from '../support/session';
+import { createCustomer } from '../support/factories';
 import { startTestApp, type TestApp } from '../support/test-app';
 
 let t: TestApp;
 let clock = Date.now();
 beforeAll(async () => {
-  t = await startTestApp({ fakes: true, accounts: true, deps: { now: () => new Date(clock) } });
+  t = await startTestApp({ fakes: true, deps: { now: () => new Date(clock) } });
 });
 afterAll(async () => {
   await t.close();
@@ -16,7 +16,7 @@ const availableOf = (partNumber: string) => t.db.$client.prepare('SELECT availab
 
 describe('unpaid card orders', () => {
   it('give their stock back and cancel the payment once they are too old, and leave fresh ones alone', async () => {
-    const buyer = await signIn(t, 'retail@spoolyard.test');
+    const { client: buyer } = await createCustomer(t);
     const part = 'BUR-50-0201';
     const before = availableOf(part);
     await buyer.send('POST', '/api/cart/lines', { partNumber: part, quantity: 2 });
