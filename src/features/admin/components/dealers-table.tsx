@@ -1,6 +1,5 @@
 import {
   createColumnHelper,
-  flexRender,
   getCoreRowModel,
   getPaginationRowModel,
   getSortedRowModel,
@@ -8,8 +7,8 @@ import {
   type SortingFn,
   type SortingState,
 } from '@tanstack/react-table';
-import { ArrowDown, ArrowUp, ArrowUpDown, ChevronDown, ChevronRight } from 'lucide-react';
-import { Fragment, useEffect, useRef, useState } from 'react';
+import { ChevronDown, ChevronRight } from 'lucide-react';
+import { useEffect, useRef, useState } from 'react';
 import { z } from 'zod';
 import { formatPrice } from '../../../../shared/catalog';
 import { formatDate } from '../../../../shared/format';
@@ -17,6 +16,7 @@ import type { DealerAccountRowSchema } from '../../../../shared/schemas/accounts
 import { DEALER_TIERS } from '../../../../shared/pricing';
 import { StatusBadge } from '../../../components/ui/status-badge';
 import { ApproveDealerForm, DeclineDealerForm, type DecisionDone } from './decision-forms';
+import { DataTable } from '../../../components/ui/table';
 
 type DealerRow = z.infer<typeof DealerAccountRowSchema>;
 
@@ -133,7 +133,6 @@ export function DealersTable({ items, onDecided }: { items: DealerRow[]; onDecid
     getRowId: (r) => String(r.id),
   });
   const pending = items.filter((i) => i.status === 'pending').length;
-  const rows = table.getRowModel().rows;
   const reviewing = items.find((i) => i.id === open && i.status === 'pending') ?? null;
 
   return (
@@ -142,76 +141,33 @@ export function DealersTable({ items, onDecided }: { items: DealerRow[]; onDecid
         <span className="tabular font-semibold text-ink">{items.length}</span> dealer accounts ·{' '}
         <span className="tabular font-semibold text-ink">{pending}</span> pending
       </p>
-      <div className={`relative max-h-[75vh] overflow-auto rounded-md border border-cast-line bg-white`}>
-        <table className="w-full text-left">
-          <caption className="sr-only">Dealer accounts and applications. Column headers sort the table.</caption>
-          <thead className="sticky top-0 z-10 bg-panel text-sm">
-            {table.getHeaderGroups().map((group) => (
-              <tr key={group.id}>
-                {group.headers.map((header) => {
-                  const sorted = header.column.getIsSorted();
-                  const numeric = (header.column.columnDef.meta as { numeric?: boolean } | undefined)?.numeric;
-                  const Icon = sorted === 'asc' ? ArrowUp : sorted === 'desc' ? ArrowDown : ArrowUpDown;
-                  return (
-                    <th
-                      key={header.id}
-                      scope="col"
-                      aria-sort={sorted === 'asc' ? 'ascending' : sorted === 'desc' ? 'descending' : undefined}
-                      className={`px-2.5 py-2 ${numeric ? 'text-right' : ''}`}
-                    >
-                      <button
-                        type="button"
-                        onClick={header.column.getToggleSortingHandler()}
-                        className={`inline-flex items-center gap-1 font-semibold whitespace-nowrap hover:text-temper ${numeric ? 'flex-row-reverse' : ''}`}
-                      >
-                        {flexRender(header.column.columnDef.header, header.getContext())}
-                        <Icon aria-hidden className={`size-4 shrink-0 ${sorted ? 'text-temper' : 'text-cast'}`} />
-                      </button>
-                    </th>
-                  );
-                })}
-                <th scope="col" className="px-3 py-2">
-                  <span className="sr-only">Actions</span>
-                </th>
-              </tr>
-            ))}
-          </thead>
-          <tbody>
-            {rows.map((row) => {
-              const d = row.original;
-              const isOpen = open === d.id;
-              return (
-                <Fragment key={row.id}>
-                  <tr className={`border-t border-cast-line align-top ${d.status === 'pending' ? 'bg-amber-tint/40' : ''}`}>
-                    {row.getVisibleCells().map((cell) => {
-                      const numeric = (cell.column.columnDef.meta as { numeric?: boolean } | undefined)?.numeric;
-                      return (
-                        <td key={cell.id} className={`px-2.5 py-2 ${numeric ? 'tabular text-right whitespace-nowrap' : ''}`}>
-                          {flexRender(cell.column.columnDef.cell, cell.getContext())}
-                        </td>
-                      );
-                    })}
-                    <td className="px-3 py-1.5 text-right">
-                      {d.status === 'pending' && (
-                        <button
-                          type="button"
-                          aria-expanded={isOpen}
-                          aria-controls={isOpen ? REVIEW_PANEL_ID : undefined}
-                          onClick={() => setOpen(isOpen ? null : d.id)}
-                          className="inline-flex min-h-10 items-center gap-1 rounded-md border border-cast-line bg-white px-3 font-semibold whitespace-nowrap text-temper hover:border-temper"
-                        >
-                          {isOpen ? <ChevronDown aria-hidden className="size-4" /> : <ChevronRight aria-hidden className="size-4" />}
-                          Review<span className="sr-only"> {d.companyName}</span>
-                        </button>
-                      )}
-                    </td>
-                  </tr>
-                </Fragment>
-              );
-            })}
-          </tbody>
-        </table>
-      </div>
+      <DataTable
+        table={table}
+        caption="Dealer accounts and applications. Column headers sort the table."
+        maxHeight="max-h-[75vh]"
+        rowClassName={(row) => (row.original.status === 'pending' ? 'bg-amber-tint/40' : '')}
+        actions={{
+          label: 'Actions',
+          cell: (row) => {
+            const d = row.original;
+            const isOpen = open === d.id;
+            return (
+              d.status === 'pending' && (
+                <button
+                  type="button"
+                  aria-expanded={isOpen}
+                  aria-controls={isOpen ? REVIEW_PANEL_ID : undefined}
+                  onClick={() => setOpen(isOpen ? null : d.id)}
+                  className="inline-flex min-h-10 items-center gap-1 rounded-md border border-cast-line bg-white px-3 font-semibold whitespace-nowrap text-temper hover:border-temper"
+                >
+                  {isOpen ? <ChevronDown aria-hidden className="size-4" /> : <ChevronRight aria-hidden className="size-4" />}
+                  Review<span className="sr-only"> {d.companyName}</span>
+                </button>
+              )
+            );
+          },
+        }}
+      />
       {reviewing && (
         <ReviewPanel
           key={reviewing.id}

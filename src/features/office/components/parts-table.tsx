@@ -1,13 +1,13 @@
-import { createColumnHelper, flexRender, getCoreRowModel, useReactTable, type SortingState } from '@tanstack/react-table';
+import { createColumnHelper, getCoreRowModel, useReactTable, type SortingState } from '@tanstack/react-table';
 import { Plus } from 'lucide-react';
 import { useState, type FormEvent } from 'react';
 import { Link } from 'react-router-dom';
 import { categoryLabel, formatPrice } from '../../../../shared/catalog';
 import type { PartSummary } from '../../../../shared/schemas/parts';
 import { buttonClass } from '../../../components/ui/button';
-import { SortableColumnHeader } from '../../../components/ui/sort-header';
 import { EmptyState, ErrorState, LoadingState } from '../../../components/ui/states';
 import { OFFICE_PAGE_SIZE, useOfficeParts, type OfficeSort } from '../api/search-parts';
+import { DataTable } from '../../../components/ui/table';
 
 const column = createColumnHelper<PartSummary>();
 
@@ -152,31 +152,7 @@ export function PartsTable({ q, onSearch }: { q: string; onSearch: (q: string) =
               {q ? ` matching “${q}”` : ''}
               {parts.isFetching ? ' · updating…' : ''}
             </p>
-            <div className="relative max-h-[70vh] overflow-auto rounded-lg bg-white ring-1 ring-cast-line">
-              <table className="w-full border-collapse text-left">
-                <caption className="sr-only">Parts, sortable by part number, title and price</caption>
-                <thead className="sticky top-0 z-10 bg-panel">
-                  {table.getHeaderGroups().map((hg) => (
-                    <tr key={hg.id}>
-                      {hg.headers.map((h) => (
-                        <SortableColumnHeader key={h.id} header={h} unsortedAsNone />
-                      ))}
-                    </tr>
-                  ))}
-                </thead>
-                <tbody>
-                  {table.getRowModel().rows.map((row) => (
-                    <tr key={row.id} className="border-b border-cast-line last:border-b-0 hover:bg-paper">
-                      {row.getVisibleCells().map((cell) => (
-                        <td key={cell.id} className={`px-3 py-2 align-top ${(cell.column.columnDef.meta as { numeric?: boolean } | undefined)?.numeric ? 'text-right' : ''}`}>
-                          {flexRender(cell.column.columnDef.cell, cell.getContext())}
-                        </td>
-                      ))}
-                    </tr>
-                  ))}
-                </tbody>
-              </table>
-            </div>
+            <DataTable table={table} caption="Parts, sortable by part number, title and price" maxHeight="max-h-[70vh]" unsortedAsNone rowClassName={() => 'hover:bg-paper'} />
             {pageCount > 1 && (
               <nav aria-label="Pages" className="flex items-center gap-3">
                 <button type="button" disabled={page <= 1} onClick={() => setPage(page - 1)} className={`${buttonClass('secondary')} disabled:opacity-50`}>

@@ -1,6 +1,5 @@
 import {
   createColumnHelper,
-  flexRender,
   getCoreRowModel,
   getFilteredRowModel,
   getSortedRowModel,
@@ -16,12 +15,12 @@ import { Link, useNavigate } from 'react-router-dom';
 import type { z } from 'zod';
 import type { PickQueueItemSchema } from '../../../../shared/schemas/warehouse';
 import { Button, buttonClass } from '../../../components/ui/button';
-import { SortableColumnHeader } from '../../../components/ui/sort-header';
 import { EmptyState, ErrorState, LoadingState } from '../../../components/ui/states';
 import { usePickQueue } from '../api/get-pick-queue';
 import { orderAge } from '../lib/age';
 import { StatusBadge } from '../../../components/ui/status-badge';
 import { QUEUE_STATE_LABELS, queueState, type QueueState } from './queue-state';
+import { DataTable } from '../../../components/ui/table';
 
 type QueueItem = z.infer<typeof PickQueueItemSchema>;
 
@@ -223,34 +222,13 @@ function QueueTable({ items, refreshing, onRefresh }: { items: QueueItem[]; refr
       ) : rows.length === 0 ? (
         <EmptyState title="No order matches these filters">Clear the filter or choose “All states”.</EmptyState>
       ) : (
-        <div className="relative max-h-[70vh] overflow-auto rounded-md border border-cast-line bg-white">
-          <table className="w-full border-collapse text-left">
-            <caption className="sr-only">Pick queue, oldest first. Column headers sort. Units are still to pick.</caption>
-            <thead className="sticky top-0 z-10 bg-panel">
-              {table.getHeaderGroups().map((hg) => (
-                <tr key={hg.id}>
-                  {hg.headers.map((h) => (
-                    <SortableColumnHeader key={h.id} header={h} variant="floor" />
-                  ))}
-                </tr>
-              ))}
-            </thead>
-            <tbody>
-              {rows.map((row) => (
-                <tr key={row.id} className={`border-t border-cast-line ${row.getIsSelected() ? 'bg-temper-tint/60' : ''}`}>
-                  {row.getVisibleCells().map((cell) => {
-                    const numeric = (cell.column.columnDef.meta as { numeric?: boolean } | undefined)?.numeric;
-                    return (
-                      <td key={cell.id} className={`px-2 py-1 ${numeric ? 'text-right' : ''}`}>
-                        {flexRender(cell.column.columnDef.cell, cell.getContext())}
-                      </td>
-                    );
-                  })}
-                </tr>
-              ))}
-            </tbody>
-          </table>
-        </div>
+        <DataTable
+          table={table}
+          caption="Pick queue, oldest first. Column headers sort. Units are still to pick."
+          density="floor"
+          maxHeight="max-h-[70vh]"
+          rowClassName={(row) => (row.getIsSelected() ? 'bg-temper-tint/60' : '')}
+        />
       )}
     </div>
   );
