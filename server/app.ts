@@ -7,6 +7,7 @@ import { rateLimit } from 'express-rate-limit';
 import { toNodeHandler } from 'better-auth/node';
 import type Stripe from 'stripe';
 import type { Db } from './db/client';
+import { sqliteRateLimitStore } from './db/shared-state';
 import { TEST_CARDS } from '../shared/payment-test-methods';
 import { apiNotFound, createErrorHandler } from './middleware/errors';
 import { loadSession, refuseCrossSite } from './middleware/session';
@@ -145,6 +146,8 @@ export function createApp(deps: AppDeps) {
   const signInLimiter = rateLimit({
     windowMs: 60_000,
     limit: config.signinLimitPerMinute,
+    // Counted in the database, so every app process on it counts one client together.
+    store: sqliteRateLimitStore(db, 'sign-in'),
     standardHeaders: 'draft-8',
     legacyHeaders: false,
     handler: (_req, res) => {

@@ -1,71 +1,127 @@
+import cluster from 'node:cluster';
+import { randomUUID } from 'node:crypto';
 import path from 'node:path';
+import { fileURLToPath } from 'node:url';
 import { demoAccountList } from '../catalog-seed/accounts';
 import Stripe from 'stripe';
 import { createApp } from './app';
+import { pruneChangeLog } from './db/change-feed';
 import { openDatabase } from './db/client';
-import { parseEnv, publicUrl } from './env';
+import { pruneRateLimits, runIfLeaseHeld } from './db/shared-state';
+import { parseEnv, publicUrl, type Env } from './env';
 import { createMailer } from './services/mailer';
+import { createSearchService } from './services/search';
 
-let env;
+let env: Env;
 try {
   env = parseEnv();
 } catch (err) {
   console.error((err as Error).message);
   process.exit(1);
 }
-const db = openDatabase(env.DATABASE_FILE);
-const payments = new Stripe(env.PAYMENTS_SECRET_KEY, {
-  host: env.PAYMENTS_API_HOST,
-  port: env.PAYMENTS_API_PORT,
-  protocol: env.PAYMENTS_API_PROTOCOL,
-  maxNetworkRetries: 1,
-  telemetry: false,
-});
-const mailer = createMailer({ host: env.MAIL_HOST, port: env.MAIL_PORT, from: env.MAIL_FROM, ignoreTLS: env.NODE_ENV !== 'production' });
-const devTools = env.NODE_ENV !== 'production';
-const { app, orders } = createApp({
-  db,
-  payments,
-  mailer,
-  clientDir: path.resolve(import.meta.dirname, '../dist/client'),
-  config: {
-    publicUrl: publicUrl(env),
-    authSecret: env.AUTH_SECRET,
-    taxRatePct: env.TAX_RATE_PCT,
-    signinLimitPerMinute: env.SIGNIN_LIMIT_PER_MINUTE,
-    paymentsMode: env.PAYMENTS_MODE,
-    publishableKey: env.PAYMENTS_PUBLISHABLE_KEY,
-    webhookSecret: env.PAYMENTS_WEBHOOK_SECRET,
-    paymentsApiUrl: `${env.PAYMENTS_API_PROTOCOL}://${env.PAYMENTS_API_HOST}:${env.PAYMENTS_API_PORT}`,
-    mailInboxUrl: env.MAIL_INBOX_URL,
-    devTools,
-    uploadsDir: path.resolve(env.UPLOADS_DIR),
-    demoAccounts: devTools ? demoAccountList() : undefined,
-    trustedOrigins: [`http://127.0.0.1:${env.PORT}`, `http://localhost:${env.PORT}`, 'http://localhost:5173', 'http://127.0.0.1:5173'],
-  },
-});
-const server = app.listen(env.PORT, env.HOST, () => {
-  console.log(`Spoolyard is running at ${publicUrl(env)}/`);
-  if (devTools) {
-    console.log('Demo sign-in accounts (development only):');
-    for (const a of demoAccountList()) console.log(`  ${a.role.padEnd(22)} ${a.email.padEnd(28)} ${a.password}`);
-  }
-});
 
-// Unpaid card orders give their stock back after 30 minutes.
-const sweep = setInterval(() => {
-  orders.expireUnpaid(30).catch((err: unknown) => console.warn('unpaid-order sweep failed:', (err as Error).message));
-}, 60_000);
-sweep.unref();
-
-function shutdown(signal: string) {
-  console.log(`${signal}: shutting down`);
-  server.close(() => {
-    void mailer.close();
-    db.$client.close();
-    process.exit(0);
-  });
-  setTimeout(() => process.exit(0), 5000).unref();
+if (env.APP_PROCESSES > 1 && cluster.isPrimary) {
+  runPrimary(env);
+} else {
+  runApp(env);
 }
-process.on('SIGINT', () => shutdown('SIGINT'));
-process.on('SIGTERM', () => shutdown('SIGTERM'));
+
+/**
+ * Several processes on one port (Node's cluster module shares the listening socket). The primary migrates the
+ * database and brings the search index up to date first, so the workers start on a ready file; it restarts a worker
+ * that dies and stops them all on a signal.
+ */
+function runPrimary(env: Env) {
+  const db = openDatabase(env.DATABASE_FILE);
+  createSearchService(db).rebuild({ ifStale: true });
+  db.$client.close();
+  cluster.setupPrimary({ exec: fileURLToPath(import.meta.url) });
+  let stopping = false;
+  for (let i = 0; i < env.APP_PROCESSES; i += 1) cluster.fork();
+  cluster.on('exit', (worker, code, signal) => {
+    if (stopping) return;
+    console.warn(`app process ${worker.process.pid} ended (${signal ?? code}); starting another`);
+    cluster.fork();
+  });
+  console.log(`${env.APP_PROCESSES} app processes share port ${env.PORT} and ${env.DATABASE_FILE}`);
+  const stop = (signal: NodeJS.Signals) => {
+    stopping = true;
+    for (const worker of Object.values(cluster.workers ?? {})) worker?.process.kill(signal);
+    setTimeout(() => process.exit(0), 6000).unref();
+    cluster.on('exit', () => {
+      if (Object.keys(cluster.workers ?? {}).length === 0) process.exit(0);
+    });
+  };
+  process.on('SIGINT', () => stop('SIGINT'));
+  process.on('SIGTERM', () => stop('SIGTERM'));
+}
+
+function runApp(env: Env) {
+  const db = openDatabase(env.DATABASE_FILE);
+  const payments = new Stripe(env.PAYMENTS_SECRET_KEY, {
+    host: env.PAYMENTS_API_HOST,
+    port: env.PAYMENTS_API_PORT,
+    protocol: env.PAYMENTS_API_PROTOCOL,
+    maxNetworkRetries: 1,
+    telemetry: false,
+  });
+  const mailer = createMailer({ host: env.MAIL_HOST, port: env.MAIL_PORT, from: env.MAIL_FROM, ignoreTLS: env.NODE_ENV !== 'production' });
+  const devTools = env.NODE_ENV !== 'production';
+  const { app, orders } = createApp({
+    db,
+    payments,
+    mailer,
+    clientDir: path.resolve(import.meta.dirname, '../dist/client'),
+    config: {
+      publicUrl: publicUrl(env),
+      authSecret: env.AUTH_SECRET,
+      taxRatePct: env.TAX_RATE_PCT,
+      signinLimitPerMinute: env.SIGNIN_LIMIT_PER_MINUTE,
+      paymentsMode: env.PAYMENTS_MODE,
+      publishableKey: env.PAYMENTS_PUBLISHABLE_KEY,
+      webhookSecret: env.PAYMENTS_WEBHOOK_SECRET,
+      paymentsApiUrl: `${env.PAYMENTS_API_PROTOCOL}://${env.PAYMENTS_API_HOST}:${env.PAYMENTS_API_PORT}`,
+      mailInboxUrl: env.MAIL_INBOX_URL,
+      devTools,
+      uploadsDir: path.resolve(env.UPLOADS_DIR),
+      demoAccounts: devTools ? demoAccountList() : undefined,
+      trustedOrigins: [`http://127.0.0.1:${env.PORT}`, `http://localhost:${env.PORT}`, 'http://localhost:5173', 'http://127.0.0.1:5173'],
+    },
+  });
+  // With several processes, the first one speaks for all.
+  const speaks = !cluster.isWorker || cluster.worker?.id === 1;
+  const server = app.listen(env.PORT, env.HOST, () => {
+    if (!speaks) return;
+    console.log(`Spoolyard is running at ${publicUrl(env)}/`);
+    if (devTools) {
+      console.log('Demo sign-in accounts (development only):');
+      for (const a of demoAccountList()) console.log(`  ${a.role.padEnd(22)} ${a.email.padEnd(28)} ${a.password}`);
+    }
+  });
+
+  // Housekeeping runs in exactly one process at a time, the one holding its lease: unpaid card orders give their stock
+  // back after 30 minutes, ended rate-limit windows and old entries of the change log are dropped.
+  const holder = `${process.pid}-${randomUUID().slice(0, 8)}`;
+  const everyMs = env.HOUSEKEEPING_SECONDS * 1000;
+  const sweep = setInterval(() => {
+    runIfLeaseHeld(db, 'housekeeping', holder, everyMs * 2.5, async () => {
+      const expired = await orders.expireUnpaid(30);
+      if (expired > 0) console.log(`housekeeping: ${expired} unpaid order${expired === 1 ? '' : 's'} expired`);
+      pruneRateLimits(db);
+      pruneChangeLog(db);
+    }).catch((err: unknown) => console.warn('housekeeping failed:', (err as Error).message));
+  }, everyMs);
+  sweep.unref();
+
+  function shutdown(signal: string) {
+    console.log(`${signal}: shutting down`);
+    server.close(() => {
+      void mailer.close();
+      db.$client.close();
+      process.exit(0);
+    });
+    setTimeout(() => process.exit(0), 5000).unref();
+  }
+  process.on('SIGINT', () => shutdown('SIGINT'));
+  process.on('SIGTERM', () => shutdown('SIGTERM'));
+}

@@ -578,3 +578,34 @@ export const priceImports = sqliteTable(
   },
   (t) => [index('price_imports_user_idx').on(t.userId), oneOf('price_imports', 'status', PRICE_IMPORT_STATUSES)],
 );
+
+/*
+ * What several app processes on one database share (docs/decisions/0005-several-processes.md).
+ */
+
+/** Counters that move when a kind of data changes; written by triggers (drizzle/0007), read by each process's caches. */
+export const changeVersions = sqliteTable('change_versions', {
+  topic: text('topic', { enum: ['stock', 'frames', 'search'] }).primaryKey(),
+  version: integer('version').notNull().default(0),
+});
+
+/** Which parts changed, in order: each process's search index reloads the parts changed since it last looked. */
+export const partChanges = sqliteTable('part_changes', {
+  id: integer('id').primaryKey({ autoIncrement: true }),
+  partId: integer('part_id').notNull(),
+});
+
+/** Fixed-window request counters by client key, shared by every process. */
+export const rateLimitHits = sqliteTable('rate_limit_hits', {
+  key: text('key').primaryKey(),
+  windowEndsAt: integer('window_ends_at').notNull(),
+  hits: integer('hits').notNull(),
+});
+
+/** A scheduled job runs in the one process that holds its lease. */
+export const jobLeases = sqliteTable('job_leases', {
+  name: text('name').primaryKey(),
+  holder: text('holder').notNull(),
+  expiresAt: integer('expires_at').notNull(),
+  lastRunAt: integer('last_run_at'),
+});

@@ -1,6 +1,7 @@
 import { and, asc, count, desc, eq, getTableColumns, gt, gte, lte, ne, sql, type SQL } from 'drizzle-orm';
 import type { SelectedFields } from 'drizzle-orm/sqlite-core';
 import type { Db } from '../db/client';
+import { changeFeedFor, type ChangeVersions } from '../db/change-feed';
 import { bins, CATEGORY_ORDER_EXPR, frames, partAliases, partLinks, parts, partSpecs, stock } from '../db/schema';
 import { CATEGORIES, categoryLabel, stockState, trimPct, type CategorySlug } from '../../shared/catalog';
 import { normalizePartNumber } from '../../shared/part-number';
@@ -284,18 +285,18 @@ export function createCatalogService(db: Db, search: SearchService) {
   }
 
   /**
-   * The list answer as JSON, cached until anything in the database changes (total_changes() moves on every
-   * write through this connection), so repeated browsing of the same page costs a map lookup.
+   * The list answer as JSON, cached until the catalogue or stock changes — in this process or any other on the same
+   * database (the change feed) — so repeated browsing of the same page costs a map lookup, and cart lines, sessions
+   * and orders without stock moves leave it alone.
    */
   const cache = new Map<string, string>();
-  // A connection counter, not a table: the builder has no FROM-less select, and this runs on every list request.
-  const changes = db.$client.prepare('SELECT total_changes()').pluck();
-  let cachedAt = -1;
+  const feed = changeFeedFor(db);
+  let cachedFor: ChangeVersions | null = null;
   function listPartsJson(query: PartsQuery): string {
-    const version = Number(changes.get());
-    if (version !== cachedAt) {
+    const versions = feed.current();
+    if (versions !== cachedFor) {
       cache.clear();
-      cachedAt = version;
+      cachedFor = versions;
     }
     const key = JSON.stringify(query);
     let json = cache.get(key);

@@ -1,4 +1,5 @@
 import { and, asc, count, desc, eq, isNotNull } from 'drizzle-orm';
+import { changeFeedFor } from '../db/change-feed';
 import type { Db } from '../db/client';
 import { frames, parts, partSpecs, savedFitments } from '../db/schema';
 import { runFitmentCheck } from '../../shared/fitment/check';
@@ -41,10 +42,13 @@ export function createFitmentService(db: Db) {
   const savedOne = (tx: Pick<Db, 'select'>, id: number, userId: string) =>
     tx.select(savedColumns).from(savedFitments).where(and(eq(savedFitments.id, id), eq(savedFitments.userId, userId))).get();
 
-  // The frames and their maps change only with a catalogue reload, so they are read and parsed once.
-  let cache: { frames: FitmentFrame[]; maps: FitmentFrameMap[] } | null = null;
+  // The frames, their maps and the housings on sale are read and parsed once, and again after the frames or the
+  // catalogue change in any process (the change feed).
+  const feed = changeFeedFor(db);
+  let cache: { frames: FitmentFrame[]; maps: FitmentFrameMap[]; framesAt: number; partsAt: number } | null = null;
   function loadFrames() {
-    if (cache) return cache;
+    const versions = feed.current();
+    if (cache && cache.framesAt === versions.frames && cache.partsAt === versions.parts) return cache;
     const rows = db.select().from(frames).orderBy(asc(frames.maxFlowLbMin)).all();
     // The turbine housings the catalogue sells for each frame: the matching recommends only what can be ordered.
     const housingRows = db
@@ -54,8 +58,11 @@ export function createFitmentService(db: Db) {
       .where(and(eq(parts.category, 'turbine-housings'), eq(parts.status, 'active'), isNotNull(partSpecs.turbineAr)))
       .orderBy(asc(partSpecs.turbineAr))
       .all();
+    // A map is parsed again only when the frames changed: its look-up tables hang on the parsed object.
+    const keepMaps = cache !== null && cache.framesAt === versions.frames;
     const list = rows.map((r): { frame: FitmentFrame; map: FitmentFrameMap } => {
-      const parsed = CompressorMapSchema.safeParse(r.compressorMap);
+      const kept = keepMaps ? cache?.frames.find((f) => f.code === r.code)?.map : undefined;
+      const parsed = kept ? { success: true as const, data: kept } : CompressorMapSchema.safeParse(r.compressorMap);
       if (!parsed.success) throw new Error(`frame ${r.code} has a compressor map that does not parse: ${parsed.error.message}`);
       const bearingOptions = r.bearingOptions.filter((b) => (BEARINGS as readonly string[]).includes(b));
       const powerBandHp: [number, number] = [r.powerMinHp, r.powerMaxHp];
@@ -77,7 +84,7 @@ export function createFitmentService(db: Db) {
         map: { code: r.code, name: r.name, powerBandHp, maxShaftRpm: r.maxShaftRpm, bearingOptions, map: parsed.data },
       };
     });
-    cache = { frames: list.map((x) => x.frame), maps: list.map((x) => x.map) };
+    cache = { frames: list.map((x) => x.frame), maps: list.map((x) => x.map), framesAt: versions.frames, partsAt: versions.parts };
     return cache;
   }
 

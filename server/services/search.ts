@@ -1,5 +1,6 @@
 import Fuse from 'fuse.js';
 import type { Db } from '../db/client';
+import { changeFeedFor, searchIndexRewritten } from '../db/change-feed';
 import { categoryLabel } from '../../shared/catalog';
 import { normalizePartNumber } from '../../shared/part-number';
 
@@ -153,6 +154,7 @@ export function createSearchService(db: Db) {
         insertTri.run(r.id, 'part-number', r.normalizedNumber);
       }
       for (const a of aliasRows) insertTri.run(a.id, a.kind, a.normalized);
+      searchIndexRewritten(db);
     })();
   }
 
@@ -168,7 +170,12 @@ export function createSearchService(db: Db) {
     JSON.stringify(sqlite.prepare('SELECT count(*) AS n, max(updated_at) AS at, (SELECT count(*) FROM part_aliases) AS aliases FROM parts').get());
   const builtFrom = () => sqlite.prepare("SELECT value FROM meta WHERE key = 'search_index'").pluck().get() as string | undefined;
 
+  // The latest part change (change feed) this process's documents and vocabulary reflect.
+  const feed = changeFeedFor(db);
+  let syncedTo = 0;
+
   function rebuild(options: { ifStale?: boolean } = {}) {
+    syncedTo = feed.current().parts;
     const now = signature();
     // At start the index on disk is reused when the catalogue has not changed since it was written.
     if (!options.ifStale || builtFrom() !== now) {
@@ -180,14 +187,31 @@ export function createSearchService(db: Db) {
     loadVocabulary();
   }
 
-  /** Refreshes the index for parts that changed. */
+  /** Refreshes the index for parts that changed here: rewrites their index rows, which every process shares. */
   function refresh(ids: number[]) {
     if (ids.length === 0) return;
     const wasCurrent = builtFrom() !== undefined;
     writeIndexRows(ids);
     if (wasCurrent) sqlite.prepare("UPDATE meta SET value = ? WHERE key = 'search_index'").run(signature());
-    loadDocs(ids);
+    follow(ids);
+  }
+
+  /**
+   * Brings this process's documents and vocabulary up to the latest part change, whichever process made it: the
+   * parts logged since it last looked (and any given) are reloaded; after a bulk change, everything is.
+   */
+  function follow(extra: number[] = []) {
+    const { ids, latest } = feed.partsChangedSince(syncedTo);
+    if (ids === null) {
+      docs.clear();
+      loadDocs();
+    } else {
+      const all = [...new Set([...ids, ...extra])];
+      if (all.length === 0) return;
+      loadDocs(all);
+    }
     loadVocabulary();
+    syncedTo = latest;
   }
 
   function correctWord(w: string): string | null {
@@ -203,6 +227,7 @@ export function createSearchService(db: Db) {
   function search(query: string, limit = 300): SearchHit[] {
     const q = query.trim().slice(0, 100);
     if (q.length === 0) return [];
+    if (feed.current().parts !== syncedTo) follow();
     const n = normalizePartNumber(q);
     const candidates = new Map<number, Candidate>();
     const note = (id: number, tier: number, reason: MatchReason) => {
