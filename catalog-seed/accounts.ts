@@ -1,4 +1,6 @@
+import { eq } from 'drizzle-orm';
 import type { Db } from '../server/db/client';
+import { dealerAccounts, dealerMembers, user } from '../server/db/schema';
 import type { Auth } from '../server/services/auth';
 
 export const DEMO_PASSWORD = 'spoolyard-demo-1';
@@ -18,30 +20,41 @@ export function demoAccountList() {
 }
 
 export async function seedDemoAccounts(auth: Auth, db: Db): Promise<number> {
-  const sqlite = db.$client;
   let made = 0;
   for (const a of DEMO_ACCOUNTS) {
-    if (sqlite.prepare('SELECT 1 FROM user WHERE email = ?').get(a.email)) continue;
-    const { user } = await auth.api.signUpEmail({ body: { name: a.name, email: a.email, password: DEMO_PASSWORD } });
-    sqlite.prepare('UPDATE user SET role = ?, email_verified = 1 WHERE id = ?').run(a.role, user.id);
+    if (db.select({ id: user.id }).from(user).where(eq(user.email, a.email)).get()) continue;
+    const { user: created } = await auth.api.signUpEmail({ body: { name: a.name, email: a.email, password: DEMO_PASSWORD } });
+    db.update(user).set({ role: a.role, emailVerified: true }).where(eq(user.id, created.id)).run();
     if ('dealer' in a) {
       const d = a.dealer;
-      const row = sqlite
-        .prepare(
-          `INSERT INTO dealer_accounts (company_name, contact_name, phone, address_line1, city, postcode, delivery_zone, status, tier, credit_limit_cents, payment_terms_days, decided_at)
-           VALUES (?, ?, '+10 555 0100', ?, ?, ?, ?, 'approved', ?, ?, ?, strftime('%Y-%m-%dT%H:%M:%fZ','now')) RETURNING id`,
-        )
-        .get(d.companyName, a.name, d.line1, d.city, d.postcode, d.zone, d.tier, d.creditLimitCents, d.paymentTermsDays) as { id: number };
-      sqlite.prepare('INSERT INTO dealer_members (user_id, dealer_account_id) VALUES (?, ?)').run(user.id, row.id);
+      const row = db
+        .insert(dealerAccounts)
+        .values({
+          companyName: d.companyName,
+          contactName: a.name,
+          phone: '+10 555 0100',
+          addressLine1: d.line1,
+          city: d.city,
+          postcode: d.postcode,
+          deliveryZone: d.zone,
+          status: 'approved',
+          tier: d.tier,
+          creditLimitCents: d.creditLimitCents,
+          paymentTermsDays: d.paymentTermsDays,
+          decidedAt: new Date().toISOString(),
+        })
+        .returning({ id: dealerAccounts.id })
+        .get();
+      db.insert(dealerMembers).values({ userId: created.id, dealerAccountId: row.id }).run();
     }
     if ('application' in a) {
       const p = a.application;
-      const row = sqlite
-        .prepare(
-          `INSERT INTO dealer_accounts (company_name, contact_name, phone, address_line1, city, postcode, delivery_zone) VALUES (?, ?, '+10 555 0199', ?, ?, ?, 'local') RETURNING id`,
-        )
-        .get(p.companyName, a.name, p.line1, p.city, p.postcode) as { id: number };
-      sqlite.prepare('INSERT INTO dealer_members (user_id, dealer_account_id) VALUES (?, ?)').run(user.id, row.id);
+      const row = db
+        .insert(dealerAccounts)
+        .values({ companyName: p.companyName, contactName: a.name, phone: '+10 555 0199', addressLine1: p.line1, city: p.city, postcode: p.postcode, deliveryZone: 'local' })
+        .returning({ id: dealerAccounts.id })
+        .get();
+      db.insert(dealerMembers).values({ userId: created.id, dealerAccountId: row.id }).run();
     }
     made++;
   }

@@ -1,18 +1,33 @@
 import type { NextFunction, Request, RequestHandler, Response } from 'express';
 import { fromNodeHeaders } from 'better-auth/node';
+import { eq, sql } from 'drizzle-orm';
 import type { Db } from '../db/client';
+import { dealerAccounts, dealerMembers } from '../db/schema';
 import type { Auth, Role } from '../services/auth';
 import type { CurrentUser, DealerInfo } from '../services/current-user';
 import { HttpError } from './errors';
 
 /** Reads the session cookie once per request; routes ask for the user through currentUser(). */
 export function loadSession(auth: Auth, db: Db): RequestHandler {
-  const dealerOf = db.$client.prepare(
-    `SELECT d.id, d.company_name AS companyName, d.status, d.tier, d.credit_limit_cents AS creditLimitCents,
-            d.payment_terms_days AS paymentTermsDays, d.delivery_zone AS deliveryZone, d.decline_reason AS declineReason,
-            d.address_line1 AS line1, d.city, d.postcode
-     FROM dealer_members m JOIN dealer_accounts d ON d.id = m.dealer_account_id WHERE m.user_id = ?`,
-  );
+  // Runs on every signed-in request: prepared once.
+  const dealerOf = db
+    .select({
+      id: dealerAccounts.id,
+      companyName: dealerAccounts.companyName,
+      status: dealerAccounts.status,
+      tier: dealerAccounts.tier,
+      creditLimitCents: dealerAccounts.creditLimitCents,
+      paymentTermsDays: dealerAccounts.paymentTermsDays,
+      deliveryZone: dealerAccounts.deliveryZone,
+      declineReason: dealerAccounts.declineReason,
+      line1: dealerAccounts.addressLine1,
+      city: dealerAccounts.city,
+      postcode: dealerAccounts.postcode,
+    })
+    .from(dealerMembers)
+    .innerJoin(dealerAccounts, eq(dealerAccounts.id, dealerMembers.dealerAccountId))
+    .where(eq(dealerMembers.userId, sql.placeholder('userId')))
+    .prepare();
   return async (req, res, next) => {
     // Most catalogue requests carry no session cookie: skip the look-up for them.
     if (!req.headers.cookie?.includes('better-auth.session_token')) return next();
@@ -25,7 +40,7 @@ export function loadSession(auth: Auth, db: Db): RequestHandler {
           email: result.user.email,
           name: result.user.name,
           role,
-          dealer: dealerInfo(dealerOf.get(result.user.id) as (Omit<DealerInfo, 'address'> & { line1: string; city: string; postcode: string }) | undefined),
+          dealer: dealerInfo(dealerOf.get({ userId: result.user.id })),
         } satisfies CurrentUser;
       }
       next();

@@ -57,6 +57,14 @@ describe('database constraints', () => {
     expect(() => db.$client.prepare('UPDATE parts SET core_deposit_cents = -5 WHERE id = ?').run(id)).toThrow(/parts_money_ck/);
   });
 
+  it('keeps the change-feed triggers (a later table rebuild would drop them silently)', () => {
+    const triggers = db.$client.prepare("SELECT name FROM sqlite_master WHERE type = 'trigger' ORDER BY name").pluck().all() as string[];
+    for (const table of ['parts', 'part_specs', 'part_aliases', 'frames']) {
+      for (const event of ['insert', 'update', 'delete']) expect(triggers).toContain(`${table}_changed_${event}`);
+    }
+    expect(triggers).toContain('parts_available_changed');
+  });
+
   it('indexes every foreign-key column (as the first column of some index or key)', () => {
     const sqlite = db.$client;
     const tables = sqlite.prepare("SELECT name FROM sqlite_master WHERE type = 'table' AND name NOT LIKE 'sqlite_%' AND name NOT LIKE '%fts%' AND name NOT LIKE '%tri%'").pluck().all() as string[];
