@@ -66,7 +66,7 @@ export function createErrorHandler(log: (err: unknown) => void): ErrorRequestHan
       return;
     }
     // Body-parser and multer errors carry a status of their own (bad JSON, too large).
-    const status = typeof err === 'object' && err !== null && 'status' in err ? Number((err as { status: unknown }).status) : 500;
+    const status = typeof err === 'object' && err !== null && 'status' in err ? Number(err.status) : 500;
     if (status >= 400 && status < 500) {
       res.status(status).json({ error: { message: status === 413 ? 'The upload is too large' : 'The request could not be read' } });
       return;

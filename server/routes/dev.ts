@@ -1,5 +1,6 @@
 import { Router } from 'express';
 import { z } from 'zod';
+import { CaughtMailListSchema } from '../../shared/schemas/dev-mail';
 import { HttpError, parseOr400 } from '../middleware/errors';
 import { requireUser } from '../middleware/session';
 import type { OrderService } from '../services/orders';
@@ -15,10 +16,10 @@ export function devRouter(deps: { mailInboxUrl: string; paymentsApiUrl: string; 
     } catch {
       throw new HttpError(502, 'The mail catcher is not running');
     }
-    const body = (await response.json()) as { messages: Array<{ id: string; to: string[]; from: string; subject: string; text: string; html: string; date: string }> };
-    res.json({
-      messages: body.messages.map((m) => ({ id: m.id, to: m.to, from: m.from, subject: m.subject, text: m.text, html: m.html, date: m.date })),
-    });
+    // Parsed, not cast: only the fields the inbox page shows pass through.
+    const parsed = CaughtMailListSchema.safeParse(await response.json());
+    if (!parsed.success) throw new HttpError(502, 'The mail catcher answered in a form this page cannot read');
+    res.json({ messages: parsed.data.messages });
   });
 
   router.post('/payments/:intentId/authenticate', async (req, res) => {

@@ -64,7 +64,7 @@ export function createMailer(options: MailerOptions): Mailer {
 
 function reason(error: unknown): string {
   if (error instanceof Error) {
-    const code = (error as { code?: unknown }).code;
+    const code = 'code' in error ? error.code : undefined;
     return typeof code === 'string' && !error.message.includes(code) ? `${code} ${error.message}` : error.message;
   }
   return String(error);
