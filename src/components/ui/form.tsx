@@ -11,25 +11,10 @@ import {
   type SelectHTMLAttributes,
   type TextareaHTMLAttributes,
 } from 'react';
-import type { FieldErrors, FieldValues } from 'react-hook-form';
+import type { SummaryItem } from './error-summary';
 
 /** `floor` is for the warehouse: 48 px controls and larger type for gloves, handhelds and a scanner in the other hand. */
 export type FieldVariant = 'desk' | 'floor';
-
-export interface SummaryItem {
-  id: string;
-  message: string;
-}
-
-/** The field errors in the order the fields appear, each pointing at its field's id. */
-export function summaryItems<T extends FieldValues>(errors: FieldErrors<T>, fields: ReadonlyArray<{ name: string; id: string; label: string }>): SummaryItem[] {
-  const items: SummaryItem[] = [];
-  for (const f of fields) {
-    const message = (errors as Record<string, { message?: unknown } | undefined>)[f.name]?.message;
-    if (typeof message === 'string') items.push({ id: f.id, message: `${f.label}: ${message}` });
-  }
-  return items;
-}
 
 /**
  * `desk` and `floor` put the icon beside the text; `banner` (checkout) and `compact` (narrow side panels) put it in the title line.

@@ -1,13 +1,14 @@
 import { zodResolver } from '@hookform/resolvers/zod';
-import { useId, useRef, useState } from 'react';
-import { useForm, type FieldErrors } from 'react-hook-form';
+import { useId } from 'react';
+import { useForm } from 'react-hook-form';
 import { z } from 'zod';
 import { PAYMENT_TERMS_DAYS } from '../../../../shared/schemas/account-replies';
 import { DealerDecisionSchema, type DealerDecision } from '../../../../shared/schemas/accounts';
 import { parseMoneyToCents } from '../../../../shared/format';
 import { DEALER_TIER_KEYS, DEALER_TIERS } from '../../../../shared/pricing';
 import { buttonClass } from '../../../components/ui/button';
-import { ErrorSummary, SelectField, summaryItems, TextAreaField, TextField } from '../../../components/ui/form';
+import { useErrorSummary } from '../../../components/ui/error-summary';
+import { ErrorSummary, SelectField, TextAreaField, TextField } from '../../../components/ui/form';
 import { useDecideDealer } from '../api/decide-dealer';
 
 
@@ -32,50 +33,35 @@ export interface DecisionDone {
   decision: DealerDecision;
 }
 
-function useSummary<T extends Record<string, unknown>>(errors: FieldErrors<T>, fields: Array<{ name: keyof T & string; id: string; label: string }>) {
-  const ref = useRef<HTMLDivElement>(null);
-  const [shown, setShown] = useState(false);
-  const items = summaryItems(errors, fields);
-  const show = () => {
-    setShown(true);
-    requestAnimationFrame(() => ref.current?.focus());
-  };
-  return { ref, shown, show, hide: () => setShown(false), items };
-}
-
 export function ApproveDealerForm({ dealerId, companyName, onDone }: { dealerId: number; companyName: string; onDone: (d: DecisionDone) => void }) {
   const base = useId();
   const ids = { tier: `${base}-tier`, creditLimit: `${base}-credit`, paymentTermsDays: `${base}-terms` };
   const form = useForm<ApproveForm>({ shouldFocusError: false, resolver: zodResolver(ApproveFormSchema), defaultValues: { creditLimit: '', paymentTermsDays: '30' } });
   const decide = useDecideDealer();
   const errors = form.formState.errors;
-  const summary = useSummary(errors, [
+  const summary = useErrorSummary(form, [
     { name: 'tier', id: ids.tier, label: 'Trade tier' },
     { name: 'creditLimit', id: ids.creditLimit, label: 'Credit limit' },
     { name: 'paymentTermsDays', id: ids.paymentTermsDays, label: 'Payment terms' },
   ]);
 
-  const onSubmit = form.handleSubmit(
+  const onSubmit = summary.handleSubmit(
     (values) => {
-      summary.hide();
       const decision = DealerDecisionSchema.parse({
         decision: 'approve',
         tier: values.tier,
         creditLimitCents: parseMoneyToCents(values.creditLimit),
         paymentTermsDays: Number(values.paymentTermsDays),
       });
-      decide.mutate({ id: dealerId, decision }, { onSuccess: () => onDone({ dealerId, companyName, decision }), onError: summary.show });
+      decide.mutate({ id: dealerId, decision }, { onSuccess: () => onDone({ dealerId, companyName, decision }), onError: (error) => summary.showServerError(error) });
     },
-    () => {
-      decide.reset();
-      summary.show();
-    },
+    () => decide.reset(),
   );
 
   return (
     <form noValidate onSubmit={onSubmit} aria-label={`Approve ${companyName}`} className="grid content-start gap-3 rounded-md border border-machined/50 bg-white p-4">
       <h3 className="text-lg font-bold">Approve</h3>
-      {summary.shown && <ErrorSummary variant="compact" ref={summary.ref} items={summary.items} formError={decide.isError ? decide.error.message : undefined} />}
+      {summary.shown && <ErrorSummary variant="compact" {...summary.props} />}
       <SelectField id={ids.tier} label="Trade tier" error={errors.tier?.message} defaultValue="" {...form.register('tier')}>
         <option value="" disabled>
           Choose a tier
@@ -119,24 +105,20 @@ export function DeclineDealerForm({ dealerId, companyName, onDone }: { dealerId:
   const form = useForm<DeclineForm>({ shouldFocusError: false, resolver: zodResolver(DeclineFormSchema), defaultValues: { reason: '' } });
   const decide = useDecideDealer();
   const errors = form.formState.errors;
-  const summary = useSummary(errors, [{ name: 'reason', id, label: 'Reason' }]);
+  const summary = useErrorSummary(form, [{ name: 'reason', id, label: 'Reason' }]);
 
-  const onSubmit = form.handleSubmit(
+  const onSubmit = summary.handleSubmit(
     ({ reason }) => {
-      summary.hide();
       const decision: DealerDecision = { decision: 'decline', reason };
-      decide.mutate({ id: dealerId, decision }, { onSuccess: () => onDone({ dealerId, companyName, decision }), onError: summary.show });
+      decide.mutate({ id: dealerId, decision }, { onSuccess: () => onDone({ dealerId, companyName, decision }), onError: (error) => summary.showServerError(error) });
     },
-    () => {
-      decide.reset();
-      summary.show();
-    },
+    () => decide.reset(),
   );
 
   return (
     <form noValidate onSubmit={onSubmit} aria-label={`Decline ${companyName}`} className="grid content-start gap-3 rounded-md border border-oxide/40 bg-white p-4">
       <h3 className="text-lg font-bold">Decline</h3>
-      {summary.shown && <ErrorSummary variant="compact" ref={summary.ref} items={summary.items} formError={decide.isError ? decide.error.message : undefined} />}
+      {summary.shown && <ErrorSummary variant="compact" {...summary.props} />}
       <TextAreaField id={id} label="Reason" hint="Sent to the applicant in the decision e-mail. Keep it short and factual." error={errors.reason?.message} rows={4} {...form.register('reason')} />
       <div>
         <button type="submit" className={buttonClass('secondary')} disabled={decide.isPending}>

@@ -1,12 +1,11 @@
 import { zodResolver } from '@hookform/resolvers/zod';
-import { useRef, useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { DealerApplicationSchema, type DealerApplication } from '../../../../shared/schemas/accounts';
 import { DELIVERY_ZONES } from '../../../../shared/pricing';
 import { buttonClass } from '../../../components/ui/button';
-import { ApiError } from '../../../lib/api-client';
 import { useApplyForTradeAccount } from '../api/apply-for-trade-account';
-import { ErrorSummary, SelectField, summaryItems, TextField } from '../../../components/ui/form';
+import { useErrorSummary } from '../../../components/ui/error-summary';
+import { ErrorSummary, SelectField, TextField } from '../../../components/ui/form';
 
 const FIELDS = [
   { name: 'companyName', id: 'apply-company', label: 'Company name' },
@@ -26,43 +25,20 @@ export function DealerApplicationForm({ contactName, onApplied }: { contactName:
     defaultValues: { companyName: '', contactName, phone: '', taxNumber: '', addressLine1: '', city: '', postcode: '' },
   });
   const apply = useApplyForTradeAccount();
-  const summaryRef = useRef<HTMLDivElement>(null);
-  const [showSummary, setShowSummary] = useState(false);
+  const summary = useErrorSummary(form, FIELDS);
   const errors = form.formState.errors;
-  const focusSummary = () => requestAnimationFrame(() => summaryRef.current?.focus());
 
-  const onSubmit = form.handleSubmit(
+  const onSubmit = summary.handleSubmit(
     (values) => {
-      setShowSummary(false);
-      apply.mutate(
-        { ...values, taxNumber: values.taxNumber || undefined },
-        {
-          onSuccess: onApplied,
-          onError: (error) => {
-            // The server checks with the same schema; show its field messages beside the fields too.
-            if (error instanceof ApiError) {
-              for (const f of FIELDS) {
-                const message = error.fieldErrors[f.name]?.[0];
-                if (message) form.setError(f.name, { message });
-              }
-            }
-            setShowSummary(true);
-            focusSummary();
-          },
-        },
-      );
+      // The server checks with the same schema; its field messages go beside the fields too.
+      apply.mutate({ ...values, taxNumber: values.taxNumber || undefined }, { onSuccess: onApplied, onError: (error) => summary.showServerError(error) });
     },
-    () => {
-      apply.reset();
-      setShowSummary(true);
-      focusSummary();
-    },
+    () => apply.reset(),
   );
 
-  const formError = apply.isError && !(apply.error instanceof ApiError && Object.keys(apply.error.fieldErrors).length > 0) ? apply.error.message : undefined;
   return (
     <form noValidate onSubmit={onSubmit} className="grid gap-5" aria-label="Trade account application">
-      {showSummary && <ErrorSummary ref={summaryRef} items={summaryItems(errors, FIELDS)} formError={formError} />}
+      {summary.shown && <ErrorSummary {...summary.props} />}
       <fieldset className="grid gap-4 rounded-md border border-cast-line bg-white p-4">
         <legend className="px-1 text-lg font-bold">The business</legend>
         <TextField id="apply-company" label="Company name" autoComplete="organization" error={errors.companyName?.message} {...form.register('companyName')} />

@@ -1,12 +1,13 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { MailCheck } from 'lucide-react';
-import { useRef, useState } from 'react';
+import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { SignInSchema } from '../../../../shared/schemas/accounts';
 import { buttonClass } from '../../../components/ui/button';
 import { useRequestPasswordReset } from '../api/request-password-reset';
 import { authErrorMessage } from '../auth-errors';
-import { ErrorSummary, summaryItems, TextField } from '../../../components/ui/form';
+import { useErrorSummary } from '../../../components/ui/error-summary';
+import { ErrorSummary, TextField } from '../../../components/ui/form';
 
 const ResetRequestSchema = SignInSchema.pick({ email: true });
 const FIELDS = [{ name: 'email', id: 'forgot-email', label: 'E-mail address' }] as const;
@@ -14,28 +15,15 @@ const FIELDS = [{ name: 'email', id: 'forgot-email', label: 'E-mail address' }] 
 export function ForgotPasswordForm({ inboxHint }: { inboxHint?: React.ReactNode }) {
   const form = useForm<{ email: string }>({ shouldFocusError: false, resolver: zodResolver(ResetRequestSchema), defaultValues: { email: '' } });
   const request = useRequestPasswordReset();
-  const summaryRef = useRef<HTMLDivElement>(null);
-  const [showSummary, setShowSummary] = useState(false);
+  const summary = useErrorSummary(form, FIELDS);
   const [sentTo, setSentTo] = useState<string | null>(null);
   const errors = form.formState.errors;
-  const focusSummary = () => requestAnimationFrame(() => summaryRef.current?.focus());
 
-  const onSubmit = form.handleSubmit(
+  const onSubmit = summary.handleSubmit(
     ({ email }) => {
-      setShowSummary(false);
-      request.mutate(email, {
-        onSuccess: () => setSentTo(email),
-        onError: () => {
-          setShowSummary(true);
-          focusSummary();
-        },
-      });
+      request.mutate(email, { onSuccess: () => setSentTo(email), onError: (error) => summary.showServerError(error, authErrorMessage(error, 'reset-request')) });
     },
-    () => {
-      request.reset();
-      setShowSummary(true);
-      focusSummary();
-    },
+    () => request.reset(),
   );
 
   if (sentTo) {
@@ -56,7 +44,7 @@ export function ForgotPasswordForm({ inboxHint }: { inboxHint?: React.ReactNode 
 
   return (
     <form noValidate onSubmit={onSubmit} className="grid gap-4" aria-label="Ask for a password-reset link">
-      {showSummary && <ErrorSummary ref={summaryRef} items={summaryItems(errors, FIELDS)} formError={request.isError ? authErrorMessage(request.error, 'reset-request') : undefined} />}
+      {summary.shown && <ErrorSummary {...summary.props} />}
       <TextField
         id="forgot-email"
         label="E-mail address"

@@ -1,12 +1,12 @@
 import { zodResolver } from '@hookform/resolvers/zod';
-import { useRef, useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { z } from 'zod';
 import { PASSWORD_MIN, SignUpSchema } from '../../../../shared/schemas/accounts';
 import { buttonClass } from '../../../components/ui/button';
 import { useResetPassword } from '../api/reset-password';
 import { authErrorMessage } from '../auth-errors';
-import { ErrorSummary, summaryItems, TextField } from '../../../components/ui/form';
+import { useErrorSummary } from '../../../components/ui/error-summary';
+import { ErrorSummary, TextField } from '../../../components/ui/form';
 
 const NewPasswordSchema = z
   .object({ password: SignUpSchema.shape.password, confirm: z.string().min(1, 'type the new password again') })
@@ -21,41 +21,32 @@ const FIELDS = [
 export function ResetPasswordForm({ token, onDone, expiredHelp }: { token: string; onDone: () => void; expiredHelp: React.ReactNode }) {
   const form = useForm<NewPassword>({ shouldFocusError: false, resolver: zodResolver(NewPasswordSchema), defaultValues: { password: '', confirm: '' } });
   const reset = useResetPassword();
-  const summaryRef = useRef<HTMLDivElement>(null);
-  const [showSummary, setShowSummary] = useState(false);
+  const summary = useErrorSummary(form, FIELDS);
   const errors = form.formState.errors;
-  const focusSummary = () => requestAnimationFrame(() => summaryRef.current?.focus());
 
-  const onSubmit = form.handleSubmit(
+  const onSubmit = summary.handleSubmit(
     ({ password }) => {
-      setShowSummary(false);
       reset.mutate(
         { token, newPassword: password },
         {
           onSuccess: onDone,
-          onError: () => {
-            setShowSummary(true);
-            focusSummary();
-          },
+          onError: (error) =>
+            summary.showServerError(
+              error,
+              <>
+                <p>{authErrorMessage(error, 'reset')}</p>
+                {expiredHelp}
+              </>,
+            ),
         },
       );
     },
-    () => {
-      reset.reset();
-      setShowSummary(true);
-      focusSummary();
-    },
+    () => reset.reset(),
   );
 
-  const formError = reset.isError ? (
-    <>
-      <p>{authErrorMessage(reset.error, 'reset')}</p>
-      {expiredHelp}
-    </>
-  ) : undefined;
   return (
     <form noValidate onSubmit={onSubmit} className="grid gap-4" aria-label="Choose a new password">
-      {showSummary && <ErrorSummary ref={summaryRef} items={summaryItems(errors, FIELDS)} formError={formError} />}
+      {summary.shown && <ErrorSummary {...summary.props} />}
       <TextField
         id="reset-password"
         label="New password"

@@ -1,12 +1,13 @@
 import { zodResolver } from '@hookform/resolvers/zod';
-import { useRef, useState } from 'react';
+import { useRef } from 'react';
 import { useForm } from 'react-hook-form';
 import { Link } from 'react-router-dom';
 import { SignInSchema, type Me, type SignIn } from '../../../../shared/schemas/accounts';
 import { Button, buttonClass } from '../../../components/ui/button';
 import { useSignIn } from '../api/sign-in';
 import { authErrorMessage } from '../auth-errors';
-import { ErrorSummary, summaryItems, TextField } from '../../../components/ui/form';
+import { useErrorSummary } from '../../../components/ui/error-summary';
+import { ErrorSummary, TextField } from '../../../components/ui/form';
 
 const FIELDS = [
   { name: 'email', id: 'sign-in-email', label: 'E-mail address' },
@@ -16,43 +17,34 @@ const FIELDS = [
 export function SignInForm({ demoAccounts, onSignedIn }: { demoAccounts?: Me['demoAccounts']; onSignedIn: () => void }) {
   const form = useForm<SignIn>({ shouldFocusError: false, resolver: zodResolver(SignInSchema), defaultValues: { email: '', password: '' } });
   const signIn = useSignIn();
-  const summaryRef = useRef<HTMLDivElement>(null);
   const submitRef = useRef<HTMLButtonElement>(null);
-  const [showSummary, setShowSummary] = useState(false);
+  const summary = useErrorSummary(form, FIELDS);
   const errors = form.formState.errors;
 
-  const focusSummary = () => requestAnimationFrame(() => summaryRef.current?.focus());
-  const onSubmit = form.handleSubmit(
+  const onSubmit = summary.handleSubmit(
     (values) => {
-      setShowSummary(false);
       signIn.mutate(values, {
         onSuccess: onSignedIn,
-        onError: () => {
-          setShowSummary(true);
+        onError: (error) => {
           form.setValue('password', '');
-          focusSummary();
+          summary.showServerError(error, authErrorMessage(error, 'sign-in'));
         },
       });
     },
-    () => {
-      signIn.reset();
-      setShowSummary(true);
-      focusSummary();
-    },
+    () => signIn.reset(),
   );
 
   const fillAccount = (email: string, password: string) => {
     form.reset({ email, password });
-    setShowSummary(false);
+    summary.hide();
     signIn.reset();
     submitRef.current?.focus();
   };
 
-  const formError = signIn.isError ? authErrorMessage(signIn.error, 'sign-in') : undefined;
   return (
     <div className="grid grid-cols-[minmax(0,1fr)] gap-8">
       <form noValidate onSubmit={onSubmit} className="grid gap-4" aria-label="Sign in">
-        {showSummary && <ErrorSummary ref={summaryRef} items={summaryItems(errors, FIELDS)} formError={formError} />}
+        {summary.shown && <ErrorSummary {...summary.props} />}
         <TextField
           id="sign-in-email"
           label="E-mail address"

@@ -1,12 +1,12 @@
 import { zodResolver } from '@hookform/resolvers/zod';
-import { useRef, useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { Link } from 'react-router-dom';
 import { PASSWORD_MIN, SignUpSchema, type SignUp } from '../../../../shared/schemas/accounts';
 import { buttonClass } from '../../../components/ui/button';
 import { useSignUp } from '../api/sign-up';
 import { authErrorMessage } from '../auth-errors';
-import { ErrorSummary, summaryItems, TextField } from '../../../components/ui/form';
+import { useErrorSummary } from '../../../components/ui/error-summary';
+import { ErrorSummary, TextField } from '../../../components/ui/form';
 
 const FIELDS = [
   { name: 'name', id: 'sign-up-name', label: 'Your name' },
@@ -17,32 +17,19 @@ const FIELDS = [
 export function SignUpForm({ onSignedUp, signInHref }: { onSignedUp: () => void; signInHref: string }) {
   const form = useForm<SignUp>({ shouldFocusError: false, resolver: zodResolver(SignUpSchema), defaultValues: { name: '', email: '', password: '' } });
   const signUp = useSignUp();
-  const summaryRef = useRef<HTMLDivElement>(null);
-  const [showSummary, setShowSummary] = useState(false);
+  const summary = useErrorSummary(form, FIELDS);
   const errors = form.formState.errors;
-  const focusSummary = () => requestAnimationFrame(() => summaryRef.current?.focus());
 
-  const onSubmit = form.handleSubmit(
+  const onSubmit = summary.handleSubmit(
     (values) => {
-      setShowSummary(false);
-      signUp.mutate(values, {
-        onSuccess: onSignedUp,
-        onError: () => {
-          setShowSummary(true);
-          focusSummary();
-        },
-      });
+      signUp.mutate(values, { onSuccess: onSignedUp, onError: (error) => summary.showServerError(error, authErrorMessage(error, 'sign-up')) });
     },
-    () => {
-      signUp.reset();
-      setShowSummary(true);
-      focusSummary();
-    },
+    () => signUp.reset(),
   );
 
   return (
     <form noValidate onSubmit={onSubmit} className="grid gap-4" aria-label="Create an account">
-      {showSummary && <ErrorSummary ref={summaryRef} items={summaryItems(errors, FIELDS)} formError={signUp.isError ? authErrorMessage(signUp.error, 'sign-up') : undefined} />}
+      {summary.shown && <ErrorSummary {...summary.props} />}
       <TextField id="sign-up-name" label="Your name" autoComplete="name" error={errors.name?.message} {...form.register('name')} />
       <TextField
         id="sign-up-email"

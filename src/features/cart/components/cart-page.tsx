@@ -14,12 +14,8 @@ import { useUpdateCartLine } from '../api/update-cart-line';
 import { CartTotals } from './cart-totals';
 import { LineAvailability } from './line-availability';
 import { QuantityStepper } from './quantity-stepper';
+import { blockedLines } from '../lib/cart-lines';
 
-/** Lines that cannot be ordered as they stand: short of stock with no back-order allowed. */
-export function blockedLines(cart: CartView): CartLineView[] {
-  const dealer = cart.buyer.kind === 'dealer';
-  return cart.lines.filter((l) => l.quantity > l.available && !(dealer && l.allowBackorder));
-}
 
 export function UnitPrice({ line, cart }: { line: CartLineView; cart: CartView }) {
   const tier = cart.buyer.tier ? DEALER_TIERS[cart.buyer.tier] : null;

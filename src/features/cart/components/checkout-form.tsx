@@ -15,8 +15,9 @@ import { useAuthenticatePayment, usePlaceOrder } from '../api/checkout';
 import { useCart } from '../api/get-cart';
 import { useSetDeliveryZone } from '../api/set-delivery-zone';
 import { CartTotals } from './cart-totals';
-import { blockedLines } from './cart-page';
-import { ErrorSummary, type SummaryItem } from '../../../components/ui/form';
+import { blockedLines } from '../lib/cart-lines';
+import { ErrorSummary } from '../../../components/ui/form';
+import type { SummaryItem } from '../../../components/ui/error-summary';
 import type { LiveCardHandle } from './live-card';
 
 // Loaded only in live mode, so test mode never fetches the provider's script.

@@ -1,5 +1,6 @@
 import { CircleCheck, Clock, OctagonAlert } from 'lucide-react';
 import type { CartLineView } from '../../../../shared/schemas/orders';
+import { shortBy } from '../lib/cart-lines';
 
 /** Stock for one line, with a word and a shape; dealers may back-order what is short. */
 export function LineAvailability({
@@ -13,7 +14,7 @@ export function LineAvailability({
   onBackorder: (allow: boolean) => void;
   busy: boolean;
 }) {
-  const short = line.quantity - line.available;
+  const short = shortBy(line);
   if (short <= 0) {
     return (
       <p className="inline-flex items-center gap-1 text-sm text-machined">

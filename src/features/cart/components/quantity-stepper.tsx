@@ -1,6 +1,7 @@
 import { Minus, Plus } from 'lucide-react';
 import { useEffect, useState } from 'react';
 import { QUANTITY_MAX } from '../../../../shared/schemas/orders';
+import { readQuantity, stepQuantity } from '../lib/cart-lines';
 
 /** − / number / + with the typed value committed on blur or Enter, so each keystroke is not a request. */
 export function QuantityStepper({
@@ -19,13 +20,12 @@ export function QuantityStepper({
   const [text, setText] = useState(String(value));
   useEffect(() => setText(String(value)), [value]);
   const commit = () => {
-    const n = Number(text);
-    if (Number.isInteger(n) && n >= 1 && n <= QUANTITY_MAX) {
-      if (n !== value) onChange(n);
-    } else setText(String(value));
+    const n = readQuantity(text);
+    if (n === null) setText(String(value));
+    else if (n !== value) onChange(n);
   };
   const step = (delta: number) => {
-    const n = Math.min(QUANTITY_MAX, Math.max(1, value + delta));
+    const n = stepQuantity(value, delta);
     if (n !== value) onChange(n);
   };
   const buttonClass =

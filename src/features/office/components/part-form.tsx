@@ -1,17 +1,17 @@
 import { zodResolver } from '@hookform/resolvers/zod';
-import { useRef, useState } from 'react';
-import { Controller, get, useForm, useWatch, type Control, type FieldErrors, type Path, type Resolver } from 'react-hook-form';
+import { useState } from 'react';
+import { Controller, get, useForm, useWatch, type Control, type Resolver } from 'react-hook-form';
 import type { z } from 'zod';
 import { BEARINGS, CATEGORIES, trimPct } from '../../../../shared/catalog';
 import { PartFormSchema, type PartForm } from '../../../../shared/schemas/admin-catalog';
 import type { AdminPart } from '../../../../shared/schemas/office-views';
 import { Button } from '../../../components/ui/button';
-import { ApiError } from '../../../lib/api-client';
 import { useSavePart } from '../api/save-part';
 import { moneyFieldCents, moneyFieldText } from '../lib/money';
 import { gramsToKilogramsText, kilogramsFieldGrams } from '../lib/weight';
 import { ALL_SPEC_KEYS, SPEC_FIELDS, specFieldId, specFieldsFor, type SpecField } from '../lib/spec-fields';
-import { ErrorSummary, SelectField, TextAreaField, TextField, type SummaryItem } from '../../../components/ui/form';
+import { useErrorSummary } from '../../../components/ui/error-summary';
+import { ErrorSummary, SelectField, TextAreaField, TextField } from '../../../components/ui/form';
 
 type FormInput = z.input<typeof PartFormSchema>;
 
@@ -78,15 +78,6 @@ const SUMMARY_FIELDS = [
   ...ALL_SPEC_KEYS.map((k) => ({ name: `specs.${k}`, id: specFieldId(k), label: SPEC_FIELDS[k].label })),
   { name: 'description', id: 'part-description', label: 'Description' },
 ];
-
-function summaryOf(errors: FieldErrors<FormInput>): SummaryItem[] {
-  const items: SummaryItem[] = [];
-  for (const f of SUMMARY_FIELDS) {
-    const message = (get(errors, f.name) as { message?: unknown } | undefined)?.message;
-    if (typeof message === 'string') items.push({ id: f.id, message: `${f.label}: ${message}` });
-  }
-  return items;
-}
 
 export function toFormValues(part: AdminPart | undefined): FormInput {
   if (!part) {
@@ -255,17 +246,14 @@ export function PartFormView({ part, onSaved }: { part?: AdminPart; onSaved: (pa
   const [resolver] = useState(() => makeResolver(part));
   const form = useForm<FormInput, unknown, PartForm>({ resolver, defaultValues: toFormValues(part) });
   const save = useSavePart(part?.partNumber);
-  const summaryRef = useRef<HTMLDivElement>(null);
-  const [showSummary, setShowSummary] = useState(false);
+  const summary = useErrorSummary(form, SUMMARY_FIELDS);
   const [savedAt, setSavedAt] = useState<string | null>(null);
   const errors = form.formState.errors;
   const [category, condition] = useWatch({ control: form.control, name: ['category', 'condition'] });
   const specs = specFieldsFor(category);
-  const focusSummary = () => requestAnimationFrame(() => summaryRef.current?.focus());
 
-  const onSubmit = form.handleSubmit(
+  const onSubmit = summary.handleSubmit(
     (values) => {
-      setShowSummary(false);
       setSavedAt(null);
       save.mutate(values, {
         onSuccess: (r) => {
@@ -273,30 +261,17 @@ export function PartFormView({ part, onSaved }: { part?: AdminPart; onSaved: (pa
           form.reset(values);
           onSaved(r.partNumber, !part);
         },
-        onError: (err) => {
-          if (err instanceof ApiError) {
-            for (const [key, messages] of Object.entries(err.fieldErrors)) {
-              if (SUMMARY_FIELDS.some((f) => f.name === key) && messages[0]) form.setError(key as Path<FormInput>, { type: 'server', message: messages[0] });
-            }
-          }
-          setShowSummary(true);
-          focusSummary();
-        },
+        onError: (err) => summary.showServerError(err),
       });
     },
-    () => {
-      save.reset();
-      setShowSummary(true);
-      focusSummary();
-    },
+    () => save.reset(),
   );
 
   const fieldError = (name: string) => (get(errors, name) as { message?: string } | undefined)?.message;
-  const formError = save.isError ? save.error.message : undefined;
 
   return (
     <form noValidate onSubmit={onSubmit} className="grid gap-6" aria-label={part ? `Edit ${part.partNumber}` : 'New part'}>
-      {showSummary && <ErrorSummary ref={summaryRef} items={summaryOf(errors)} formError={formError} />}
+      {summary.shown && <ErrorSummary {...summary.props} />}
       {savedAt && !form.formState.isDirty && (
         <p role="status" className="rounded-md border border-machined bg-machined-tint p-3 font-semibold text-machined">
           ✓ Saved at {savedAt}.

@@ -10,7 +10,8 @@ import { Button } from '../../../components/ui/button';
 import { ApiError } from '../../../lib/api-client';
 import { useCreateReturn } from '../api/create-return';
 import { checkPhotos, formatBytes, RETURN_PHOTO_TYPES } from '../lib/photo-checks';
-import { ErrorSummary, TextAreaField, TextField, type SummaryItem } from '../../../components/ui/form';
+import { ErrorSummary, TextAreaField, TextField } from '../../../components/ui/form';
+import type { SummaryItem } from '../../../components/ui/error-summary';
 
 type Line = OrderDetail['lines'][number];
 type FormInput = z.input<typeof ReturnRequestSchema>;

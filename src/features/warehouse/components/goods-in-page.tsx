@@ -11,7 +11,8 @@ import { useStock } from '../api/get-stock';
 import { useReceiveGoods, type GoodsIn } from '../api/receive-goods';
 import type { GoodsInReply } from '../api/reply-schemas';
 import { normalisePartNumber } from '../lib/pick-progress';
-import { ErrorSummary, SelectField, summaryItems, TextField } from '../../../components/ui/form';
+import { useErrorSummary } from '../../../components/ui/error-summary';
+import { ErrorSummary, SelectField, TextField } from '../../../components/ui/form';
 import { ScanField } from './scan-field';
 
 const FIELDS = [
@@ -28,12 +29,9 @@ export function GoodsInPage() {
   const [lookup, setLookup] = useState<string | null>(null);
   const stock = useStock(lookup);
   const [result, setResult] = useState<GoodsInReply | null>(null);
-  const [showSummary, setShowSummary] = useState(false);
-  const [formError, setFormError] = useState<string | null>(null);
-  const summaryRef = useRef<HTMLDivElement>(null);
   const partRef = useRef<HTMLInputElement | null>(null);
+  const summary = useErrorSummary(form, FIELDS);
   const errors = form.formState.errors;
-  const focusSummary = () => requestAnimationFrame(() => summaryRef.current?.focus());
 
   // The part's own bin is the default, where it is already stocked; the receiver can still choose another.
   useEffect(() => {
@@ -52,10 +50,8 @@ export function GoodsInPage() {
     }
   };
 
-  const onSubmit = form.handleSubmit(
+  const onSubmit = summary.handleSubmit(
     (values) => {
-      setShowSummary(false);
-      setFormError(null);
       receive.mutate(
         { ...values, partNumber: normalisePartNumber(values.partNumber), note: values.note || undefined },
         {
@@ -66,17 +62,10 @@ export function GoodsInPage() {
             requestAnimationFrame(() => partRef.current?.focus());
           },
           onError: (err) => {
-            setFormError(err.message);
-            setShowSummary(true);
-            focusSummary();
+            summary.showServerError(err);
           },
         },
       );
-    },
-    () => {
-      setFormError(null);
-      setShowSummary(true);
-      focusSummary();
     },
   );
 
@@ -89,7 +78,7 @@ export function GoodsInPage() {
           <PackagePlus aria-hidden className="size-7 text-temper" />
           Receive stock
         </h2>
-        {showSummary && <ErrorSummary variant="floor" ref={summaryRef} items={summaryItems(errors, FIELDS)} formError={formError ?? undefined} />}
+        {summary.shown && <ErrorSummary variant="floor" {...summary.props} />}
         <ScanField
           id="gi-part"
           label="Part number"

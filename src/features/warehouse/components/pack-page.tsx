@@ -1,6 +1,6 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { CircleCheckBig, FileText, ListChecks, PackageCheck, Truck, Undo2 } from 'lucide-react';
-import { useRef, useState } from 'react';
+import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { Link, useLocation } from 'react-router-dom';
 import type { OrderDetail } from '../../../../shared/schemas/orders';
@@ -12,7 +12,8 @@ import { useDispatchOrder } from '../api/dispatch-order';
 import { useOrder } from '../../../lib/orders';
 import { usePackOrder } from '../api/pack-order';
 import type { DispatchReply } from '../api/reply-schemas';
-import { ErrorSummary, SelectField, summaryItems, TextField } from '../../../components/ui/form';
+import { useErrorSummary } from '../../../components/ui/error-summary';
+import { ErrorSummary, SelectField, TextField } from '../../../components/ui/form';
 import { ScanField } from './scan-field';
 
 const PackDispatchFormSchema = PackSchema.extend({ carrier: DispatchSchema.shape.carrier, trackingNumber: DispatchSchema.shape.trackingNumber });
@@ -139,32 +140,20 @@ function PackForm({ order, onDispatched }: { order: OrderDetail; onDispatched: (
   });
   const pack = usePackOrder();
   const dispatch = useDispatchOrder();
-  const summaryRef = useRef<HTMLDivElement>(null);
-  const [showSummary, setShowSummary] = useState(false);
-  const [formError, setFormError] = useState<string | null>(null);
+  const summary = useErrorSummary(form, FIELDS);
   const errors = form.formState.errors;
-  const focusSummary = () => requestAnimationFrame(() => summaryRef.current?.focus());
   const busy = pack.isPending || dispatch.isPending;
 
-  const onSubmit = form.handleSubmit(
+  const onSubmit = summary.handleSubmit(
     async (values) => {
-      setShowSummary(false);
-      setFormError(null);
       try {
         // Packing records cartons and weight; an order already packed goes straight to dispatch.
         if (order.status !== 'packed') await pack.mutateAsync({ orderNumber: order.number, pack: { cartons: values.cartons, weightKg: values.weightKg } });
         const reply = await dispatch.mutateAsync({ orderNumber: order.number, dispatch: values });
         onDispatched(reply);
       } catch (err) {
-        setFormError(err instanceof Error ? err.message : 'That did not work');
-        setShowSummary(true);
-        focusSummary();
+        summary.showServerError(err);
       }
-    },
-    () => {
-      setFormError(null);
-      setShowSummary(true);
-      focusSummary();
     },
   );
 
@@ -174,7 +163,7 @@ function PackForm({ order, onDispatched }: { order: OrderDetail; onDispatched: (
         <PackageCheck aria-hidden className="size-7 text-temper" />
         Pack and dispatch
       </h2>
-      {showSummary && <ErrorSummary variant="floor" ref={summaryRef} items={summaryItems(errors, FIELDS)} formError={formError ?? undefined} />}
+      {summary.shown && <ErrorSummary variant="floor" {...summary.props} />}
       <div className="grid gap-5 sm:grid-cols-2">
         <TextField
           variant="floor"

@@ -1,6 +1,6 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { Ban, CircleCheckBig, CreditCard, Landmark, Undo2 } from 'lucide-react';
-import { useRef, useState } from 'react';
+import { useState } from 'react';
 import { useForm, useWatch } from 'react-hook-form';
 import { z } from 'zod';
 import { formatPrice } from '../../../../shared/catalog';
@@ -12,7 +12,8 @@ import { useDecideReturn } from '../api/decide-return';
 import { useReturns, type ReturnFilter } from '../api/get-returns';
 import { formatDateTime } from '../../../../shared/format';
 import { centsToDollarsInput, dollarsToCents } from '../lib/money';
-import { ErrorSummary, FieldShell, SelectField, summaryItems, TextAreaField, TextField } from '../../../components/ui/form';
+import { useErrorSummary } from '../../../components/ui/error-summary';
+import { ErrorSummary, FieldShell, SelectField, TextAreaField, TextField } from '../../../components/ui/form';
 
 
 export function ReturnsPage({ status, openId, onStatus, onOpen }: { status: ReturnFilter; openId: number | null; onStatus: (s: ReturnFilter) => void; onOpen: (id: number | null) => void }) {
@@ -226,33 +227,21 @@ function DecisionFormView({ ret, onDecided }: { ret: ReturnView; onDecided: (r: 
   });
   const decision = useWatch({ control: form.control, name: 'decision' });
   const grade = useWatch({ control: form.control, name: 'conditionGrade' });
-  const [showSummary, setShowSummary] = useState(false);
-  const [formError, setFormError] = useState<string | null>(null);
-  const summaryRef = useRef<HTMLDivElement>(null);
+  const summary = useErrorSummary(form, FIELDS);
   const errors = form.formState.errors;
-  const focusSummary = () => requestAnimationFrame(() => summaryRef.current?.focus());
   const offered = (Object.keys(DECISIONS) as DecisionKey[]).filter((d) => d !== 'core-refund' || ret.coreDepositCents > 0);
 
-  const onSubmit = form.handleSubmit(
+  const onSubmit = summary.handleSubmit(
     (values) => {
-      setShowSummary(false);
-      setFormError(null);
       decide.mutate(
         { id: ret.id, decision: toDecision(values) },
         {
           onSuccess: onDecided,
           onError: (err) => {
-            setFormError(err.message);
-            setShowSummary(true);
-            focusSummary();
+            summary.showServerError(err);
           },
         },
       );
-    },
-    () => {
-      setFormError(null);
-      setShowSummary(true);
-      focusSummary();
     },
   );
 
@@ -264,7 +253,7 @@ function DecisionFormView({ ret, onDecided }: { ret: ReturnView; onDecided: (r: 
       <h3 id="ret-decide-heading" className="text-xl font-bold">
         Grade and decide
       </h3>
-      {showSummary && <ErrorSummary variant="floor" ref={summaryRef} items={summaryItems(errors, FIELDS)} formError={formError ?? undefined} />}
+      {summary.shown && <ErrorSummary variant="floor" {...summary.props} />}
       <SelectField variant="floor" id="ret-grade" label="Condition" error={errors.conditionGrade?.message} {...form.register('conditionGrade')}>
         <option value="" disabled>
           Grade what came back

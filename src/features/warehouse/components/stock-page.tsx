@@ -1,6 +1,6 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { CircleCheckBig, OctagonAlert, Search, SlidersHorizontal, TriangleAlert } from 'lucide-react';
-import { useRef, useState, type FormEvent } from 'react';
+import { useState, type FormEvent } from 'react';
 import { useForm } from 'react-hook-form';
 import type { z } from 'zod';
 import { AdjustmentSchema, type StockDetailSchema } from '../../../../shared/schemas/warehouse';
@@ -13,7 +13,8 @@ import { useLowStock } from '../api/get-low-stock';
 import { useStock } from '../api/get-stock';
 import { formatDateTime } from '../../../../shared/format';
 import { normalisePartNumber } from '../lib/pick-progress';
-import { ErrorSummary, SelectField, summaryItems, TextField } from '../../../components/ui/form';
+import { useErrorSummary } from '../../../components/ui/error-summary';
+import { ErrorSummary, SelectField, TextField } from '../../../components/ui/form';
 import { ScanField } from './scan-field';
 
 type StockDetail = z.infer<typeof StockDetailSchema>;
@@ -148,18 +149,13 @@ function AdjustForm({ detail }: { detail: StockDetail }) {
     resolver: zodResolver(AdjustmentSchema),
     defaultValues: { partNumber: detail.partNumber, binCode: detail.bins[0]?.binCode ?? '', reason: '' },
   });
-  const [showSummary, setShowSummary] = useState(false);
-  const [formError, setFormError] = useState<string | null>(null);
   const [done, setDone] = useState<string | null>(null);
-  const summaryRef = useRef<HTMLDivElement>(null);
+  const summary = useErrorSummary(form, ADJ_FIELDS);
   const errors = form.formState.errors;
-  const focusSummary = () => requestAnimationFrame(() => summaryRef.current?.focus());
   const held = new Set(detail.bins.map((b) => b.binCode));
 
-  const onSubmit = form.handleSubmit(
+  const onSubmit = summary.handleSubmit(
     (values) => {
-      setShowSummary(false);
-      setFormError(null);
       setDone(null);
       adjust.mutate(values, {
         onSuccess: (r) => {
@@ -167,16 +163,9 @@ function AdjustForm({ detail }: { detail: StockDetail }) {
           form.reset({ partNumber: detail.partNumber, binCode: values.binCode, reason: '' });
         },
         onError: (err) => {
-          setFormError(err.message);
-          setShowSummary(true);
-          focusSummary();
+          summary.showServerError(err);
         },
       });
-    },
-    () => {
-      setFormError(null);
-      setShowSummary(true);
-      focusSummary();
     },
   );
 
@@ -190,7 +179,7 @@ function AdjustForm({ detail }: { detail: StockDetail }) {
         <TriangleAlert aria-hidden className="mt-0.5 size-5 shrink-0 text-amber" />
         Count the bin before adjusting. Every change is written to the ledger with your reason.
       </p>
-      {showSummary && <ErrorSummary variant="floor" ref={summaryRef} items={summaryItems(errors, ADJ_FIELDS)} formError={formError ?? undefined} />}
+      {summary.shown && <ErrorSummary variant="floor" {...summary.props} />}
       {done && (
         <p role="status" className="flex items-center gap-2 rounded-md border-2 border-machined bg-machined-tint p-3 text-lg font-semibold text-machined">
           <CircleCheckBig aria-hidden className="size-6 shrink-0" />

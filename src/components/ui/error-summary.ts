@@ -1,0 +1,97 @@
+import { useRef, useState, type ReactNode } from 'react';
+import { get, type FieldErrors, type FieldValues, type Path, type SubmitErrorHandler, type SubmitHandler, type UseFormReturn } from 'react-hook-form';
+import { ApiError } from '../../lib/api-client';
+
+/** A field the summary can name and link to: its form name (dotted for nested), its element id and its label. */
+export interface SummaryField {
+  name: string;
+  id: string;
+  label: string;
+}
+
+export interface SummaryItem {
+  id: string;
+  message: string;
+}
+
+/** The field errors in the order the fields appear, each pointing at its field's id. */
+export function summaryItems<T extends FieldValues>(errors: FieldErrors<T>, fields: readonly SummaryField[]): SummaryItem[] {
+  const items: SummaryItem[] = [];
+  for (const f of fields) {
+    const message = (get(errors, f.name) as { message?: unknown } | undefined)?.message;
+    if (typeof message === 'string') items.push({ id: f.id, message: `${f.label}: ${message}` });
+  }
+  return items;
+}
+
+/** The server's `fieldErrors` that belong to a field on this form, first message each, in the form's order. */
+export function serverFieldErrors(error: unknown, fields: readonly SummaryField[]): Array<{ name: string; message: string }> {
+  if (!(error instanceof ApiError)) return [];
+  return fields.flatMap((f) => {
+    const message = error.fieldErrors[f.name]?.[0];
+    return message ? [{ name: f.name, message }] : [];
+  });
+}
+
+/**
+ * The server's own message, unless everything it said is already placed beside a field: a 400 whose every field
+ * error has a field on the form needs no second sentence; a 409, a network failure or an error about something
+ * the form does not show keeps its message.
+ */
+export function serverMessage(error: unknown, fields: readonly SummaryField[]): string | undefined {
+  if (!(error instanceof Error)) return 'That did not work. Try again.';
+  if (error instanceof ApiError) {
+    const keys = Object.keys(error.fieldErrors);
+    if (keys.length > 0 && keys.every((k) => fields.some((f) => f.name === k))) return undefined;
+  }
+  return error.message;
+}
+
+/**
+ * The error summary at the top of a form (DESIGN.md, Forms): on a refused submit it lists each field's message
+ * with a link that focuses the field, plus the server's message where it has one, and takes focus itself.
+ * Render `{summary.shown && <ErrorSummary {...summary.props} />}` and submit through `summary.handleSubmit`.
+ */
+export function useErrorSummary<T extends FieldValues>(form: UseFormReturn<T>, fields: readonly SummaryField[]) {
+  const ref = useRef<HTMLDivElement>(null);
+  const [shown, setShown] = useState(false);
+  const [formError, setFormError] = useState<ReactNode>(undefined);
+
+  const show = (message: ReactNode) => {
+    setFormError(message);
+    setShown(true);
+    requestAnimationFrame(() => ref.current?.focus());
+  };
+  const hide = () => {
+    setShown(false);
+    setFormError(undefined);
+  };
+
+  return {
+    shown,
+    props: { ref, items: summaryItems(form.formState.errors, fields), formError },
+    hide,
+    /** The form's own rules refused it: list the fields. */
+    showInvalid: () => show(undefined),
+    /**
+     * The server refused it: its field errors go beside their fields and into the list; `message` (default: the
+     * server's own, when it adds something) heads the summary.
+     */
+    showServerError: (error: unknown, message?: ReactNode) => {
+      for (const { name, message: m } of serverFieldErrors(error, fields)) form.setError(name as Path<T>, { type: 'server', message: m });
+      show(message ?? serverMessage(error, fields));
+    },
+    /** `form.handleSubmit` that hides the summary on a valid submit and shows it on an invalid one. */
+    handleSubmit: (onValid: SubmitHandler<T>, onInvalid?: SubmitErrorHandler<T>) =>
+      form.handleSubmit(
+        (values, event) => {
+          hide();
+          return onValid(values, event);
+        },
+        (errors, event) => {
+          void onInvalid?.(errors, event);
+          show(undefined);
+        },
+      ),
+  };
+}
