@@ -6,9 +6,10 @@ import { checkoutSection } from './bench-checkout';
 import { fitmentSection } from './bench-fitment';
 import { printReport, runSections, writeReport, type BenchSection } from './bench-harness';
 import { httpSection } from './bench-http';
+import { processesSection } from './bench-processes';
 import { searchSection } from './bench-search';
 
-// Usage: npm run bench -- [--parts 50000] [--duration 5] [--only search|throughput|fitment|checkout] [--keep]
+// Usage: npm run bench -- [--parts 50000] [--duration 5] [--only search|throughput|fitment|checkout|process] [--keep]
 const { values } = parseArgs({
   options: {
     parts: { type: 'string', default: '50000' },
@@ -25,7 +26,7 @@ if (!Number.isInteger(httpDurationS) || httpDurationS < 1 || httpDurationS > 30)
 const root = path.resolve(import.meta.dirname, '..');
 const env: BenchEnv = { root, workDir: path.join(root, '.tmp', 'bench'), largeParts, httpDurationS, catalogues: [] };
 
-const sections: Array<BenchSection<BenchEnv>> = [searchSection, httpSection, fitmentSection, checkoutSection].filter((s) => !values.only || s.name.toLowerCase().includes(values.only.toLowerCase()));
+const sections: Array<BenchSection<BenchEnv>> = [searchSection, httpSection, fitmentSection, checkoutSection, processesSection].filter((s) => !values.only || s.name.toLowerCase().includes(values.only.toLowerCase()));
 
 const report = await runSections([catalogueSection, ...sections], env);
 printReport(report);

@@ -73,7 +73,7 @@ function createChangeFeed(db: Db): ChangeFeed {
       if (span?.first != null && span.first > after + 1) return { ids: null, latest };
       const rows = tx.selectDistinct({ partId: partChanges.partId }).from(partChanges).where(gt(partChanges.id, after)).limit(limit + 1).all();
       return { ids: rows.length > limit ? null : rows.map((r) => r.partId), latest };
-    });
+    }, { behavior: 'deferred' });
   }
 
   return { current, partsChangedSince };

@@ -26,5 +26,18 @@ export function openDatabase(file: string): Db {
   const broken = sqlite.pragma('foreign_key_check') as unknown[];
   if (broken.length > 0) throw new Error(`the database has ${broken.length} broken references after migrating: ${JSON.stringify(broken.slice(0, 3))}`);
   sqlite.pragma('foreign_keys = ON');
+  writeTransactionsTakeTheLockFirst(db);
   return db;
+}
+
+/**
+ * With several processes on one file, a transaction that reads before it writes must hold the write lock from its
+ * start: a deferred one that read a snapshot while another process committed cannot upgrade and fails at once with
+ * SQLITE_BUSY, never waiting (SQLite's documentation of BEGIN TRANSACTION and of SQLITE_BUSY_SNAPSHOT; BEGIN IMMEDIATE
+ * takes the write lock at once, waiting through the busy timeout). So every Drizzle transaction begins IMMEDIATE unless it
+ * asks otherwise (a read-only one passes `{ behavior: 'deferred' }`), and waits up to the busy timeout for its turn.
+ */
+function writeTransactionsTakeTheLockFirst(db: Db) {
+  const begin = db.transaction.bind(db);
+  db.transaction = ((transaction, config) => begin(transaction, { behavior: 'immediate', ...config })) as typeof db.transaction;
 }

@@ -155,7 +155,7 @@ export function createSearchService(db: Db) {
       }
       for (const a of aliasRows) insertTri.run(a.id, a.kind, a.normalized);
       searchIndexRewritten(db);
-    })();
+    }).immediate();
   }
 
   function loadVocabulary() {
