@@ -2,10 +2,10 @@ import Stripe from 'stripe';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { CartViewSchema, CheckoutResponseSchema, ImportPreviewSchema, OrderDetailSchema, type CartView } from '../../shared/schemas/orders';
 import { TEST_WEBHOOK_SECRET } from '../support/app-deps';
+import { createCustomer, createDealer, createUser, type DealerOverrides, type TestUser } from '../support/factories';
 import { setAvailable as setStock } from '../support/stock';
 import { startTestApp, type TestApp } from '../support/test-app';
 
-const PASSWORD = 'spoolyard-demo-1';
 // Demo catalogue parts (catalog-seed): a new AWL turbocharger, its exchange unit, a gasket, and a superseded number.
 const TURBO = 'AWL-10-0201';
 const EXCHANGE = 'AWL-10-0201-XCH';
@@ -17,7 +17,7 @@ const DELIVERY = { name: 'Robin Ashdown', line1: '5 Gauge Street', city: 'Emberl
 
 let t: TestApp;
 beforeAll(async () => {
-  t = await startTestApp({ fakes: true, accounts: true });
+  t = await startTestApp({ fakes: true });
 }, 60_000);
 afterAll(async () => {
   await t.close();
@@ -28,9 +28,13 @@ interface Reply {
   body: unknown;
 }
 
-/** A browser-like client: keeps its cookies and sends the app's own Origin. */
-function client() {
+/** A browser-like client: keeps its cookies and sends the app's own Origin; given a user, it starts signed in as them. */
+function client(signedIn?: TestUser) {
   const jar = new Map<string, string>();
+  for (const pair of signedIn?.client.cookie().split('; ').filter(Boolean) ?? []) {
+    const i = pair.indexOf('=');
+    jar.set(pair.slice(0, i), pair.slice(i + 1));
+  }
   async function call(method: string, path: string, body?: unknown, extra: { form?: FormData; headers?: Record<string, string> } = {}): Promise<Reply> {
     const headers: Record<string, string> = { origin: t.url, ...extra.headers };
     if (jar.size) headers.cookie = [...jar].map(([k, v]) => `${k}=${v}`).join('; ');
@@ -60,10 +64,6 @@ function client() {
   }
   return {
     call,
-    async signIn(email: string, password = PASSWORD) {
-      const r = await call('POST', '/api/auth/sign-in/email', { email, password });
-      expect(r.status, `sign-in ${email}`).toBe(200);
-    },
     async cart(): Promise<CartView> {
       const r = await call('GET', '/api/cart');
       expect(r.status).toBe(200);
@@ -74,26 +74,17 @@ function client() {
       expect(r.status, JSON.stringify(r.body)).toBe(201);
       return CartViewSchema.parse(r.body);
     },
-    async emptyCart() {
-      for (const l of (await this.cart()).lines) await call('DELETE', `/api/cart/lines/${l.id}`);
-    },
   };
 }
 
-async function as(email: string) {
-  const c = client();
-  await c.signIn(email);
-  await c.emptyCart();
-  return c;
-}
+// Each test buys as users of its own, so no cart, order or open balance carries over from another test.
+const asCustomer = async () => client(await createCustomer(t));
+const asDealer = async (overrides: DealerOverrides = {}) => client(await createDealer(t, overrides));
+const asWarehouse = async () => client(await createUser(t, { role: 'warehouse' }));
 
-let signUps = 0;
 async function freshCustomer() {
-  const c = client();
-  const email = `buyer${++signUps}-${Date.now()}@spoolyard.test`;
-  const r = await c.call('POST', '/api/auth/sign-up/email', { name: 'Dana Whitcombe', email, password: 'long-enough-password-1' });
-  expect(r.status).toBe(200);
-  return { c, email };
+  const buyer = await createCustomer(t);
+  return { c: client(buyer), email: buyer.email };
 }
 
 const sql = <T>(query: string, ...params: unknown[]) => t.db.$client.prepare(query).all(...params) as T[];
@@ -121,7 +112,7 @@ describe('pricing per role and tier', () => {
     const guest = client();
     expect((await guest.add(TURBO, 1)).lines[0]).toMatchObject({ unitCents: 63_999, retailUnitCents: 63_999 });
 
-    const retail = await as('retail@spoolyard.test');
+    const retail = await asCustomer();
     const r = await retail.add(TURBO, 2);
     expect(r.buyer).toEqual({ kind: 'retail', tier: null, discountPct: 0 });
     expect(r.lines[0]).toMatchObject({ unitCents: 63_999, lineCents: 127_998 });
@@ -129,22 +120,20 @@ describe('pricing per role and tier', () => {
 
     // Trade price = list less the tier's discount, rounded to the cent (common practice). By hand:
     // preferred 15%: 639.99 × 0.85 = 543.9915 → 543.99; standard 10%: 639.99 × 0.90 = 575.991 → 575.99.
-    const preferred = await as('dealer@spoolyard.test');
+    const preferred = await asDealer({ tier: 'preferred' });
     const p = await preferred.add(TURBO, 2);
     expect(p.buyer).toEqual({ kind: 'dealer', tier: 'preferred', discountPct: 15 });
     expect(p.lines[0]).toMatchObject({ unitCents: 54_399, retailUnitCents: 63_999, lineCents: 108_798 });
     expect(p.totals).toMatchObject({ retailGoodsCents: 127_998, goodsCents: 108_798, discountCents: 19_200 });
 
-    const standard = await as('dealer2@spoolyard.test');
+    const standard = await asDealer({ tier: 'standard' });
     const s = await standard.add(TURBO, 1);
     expect(s.buyer).toEqual({ kind: 'dealer', tier: 'standard', discountPct: 10 });
     expect(s.lines[0]).toMatchObject({ unitCents: 57_599 });
-
-    for (const c of [retail, preferred, standard]) await c.emptyCart();
   });
 
   it('ignores prices and totals sent by the client', async () => {
-    const dealer = await as('dealer@spoolyard.test');
+    const dealer = await asDealer({ tier: 'preferred' });
     const added = await dealer.add(GASKET, 3, { unitCents: 1, priceCents: 1, lineCents: 1, retailUnitCents: 1 });
     expect(added.lines[0]!.unitCents).toBe(1_189); // 13.99 × 0.85 = 11.8915 → 11.89
     const res = await dealer.call('POST', '/api/checkout', { method: 'account', purchaseOrder: 'PO-TAMPER', totalCents: 1, goodsCents: 1, lines: [{ partNumber: GASKET, unitCents: 1 }] });
@@ -156,7 +145,7 @@ describe('pricing per role and tier', () => {
   });
 
   it('adds a core deposit for exchange units, untaxed, on top of the goods', async () => {
-    const retail = await as('retail@spoolyard.test');
+    const retail = await asCustomer();
     const deposit = one<{ d: number }>('SELECT core_deposit_cents AS d FROM parts WHERE part_number = ?', EXCHANGE).d;
     expect(deposit).toBe(14_000);
     const cart = await retail.add(EXCHANGE, 1);
@@ -167,11 +156,10 @@ describe('pricing per role and tier', () => {
     // Tax at 8% on goods and freight only: a refundable deposit is not a sale (the distributor's rule).
     expect(t8.taxCents).toBe(Math.round((t8.goodsCents + t8.freightCents) * 0.08));
     expect(t8.totalCents).toBe(t8.goodsCents + t8.coreDepositCents + t8.freightCents + t8.taxCents);
-    await retail.emptyCart();
   });
 
   it('prices freight by weight band and delivery zone', async () => {
-    const retail = await as('retail@spoolyard.test');
+    const retail = await asCustomer();
     expect(one<{ w: number }>('SELECT weight_grams AS w FROM parts WHERE part_number = ?', TURBO).w).toBe(4_500);
     await retail.add(TURBO, 1);
     // Our published rate card (shared/pricing.ts, invented): 1–5 kg band is 11.95 local, 16.95 national, 32.95 remote.
@@ -188,13 +176,13 @@ describe('pricing per role and tier', () => {
     expect((await retail.cart()).totals.freightCents).toBe(6_995 + 1_400);
     const bad = await retail.call('PUT', '/api/cart/delivery-zone', { zone: 'moon' });
     expect(bad.status).toBe(400);
-    await retail.emptyCart();
   });
 });
 
 describe('checkout on account', () => {
   it('refuses an order that would take the dealer over the credit limit', async () => {
-    const dealer2 = await as('dealer2@spoolyard.test');
+    // Standard tier with a $5,000.00 limit, like the demo data's second dealer (invented terms).
+    const dealer2 = await asDealer({ tier: 'standard', creditLimitCents: 500_000 });
     setAvailable(TURBO, 10);
     const before = available(TURBO);
     const cart = await dealer2.add(TURBO, 9); // 9 × 575.99 alone is 5,183.91: over the 5,000.00 limit
@@ -205,20 +193,17 @@ describe('checkout on account', () => {
     expect(available(TURBO)).toBe(before);
     expect((await dealer2.cart()).lines).toHaveLength(1);
     expect(sql('SELECT 1 FROM orders WHERE purchase_order = ?', 'QME-1')).toHaveLength(0);
-    await dealer2.emptyCart();
   });
 
   it('needs a trade account and a purchase-order number', async () => {
-    const retail = await as('retail@spoolyard.test');
+    const retail = await asCustomer();
     await retail.add(GASKET, 1);
     expect((await retail.call('POST', '/api/checkout', { method: 'account', purchaseOrder: 'X1' })).status).toBe(403);
-    const dealer = await as('dealer@spoolyard.test');
+    const dealer = await asDealer();
     await dealer.add(GASKET, 1);
     const missing = await dealer.call('POST', '/api/checkout', { method: 'account', purchaseOrder: '' });
     expect(missing.status).toBe(400);
     expect((missing.body as { error: { fieldErrors: Record<string, string[]> } }).error.fieldErrors.purchaseOrder).toBeDefined();
-    await retail.emptyCart();
-    await dealer.emptyCart();
   });
 });
 
@@ -253,7 +238,6 @@ describe('checkout by card', () => {
     expect(res.status).toBe(402);
     const [line] = (await c.cart()).lines;
     expect(line).toMatchObject({ partNumber: TURBO, quantity: 1, fitment: { id: fitmentId, name: 'shop car' } });
-    await c.emptyCart();
   });
 
   it('pays through the webhook; the same event ten times changes the order once', async () => {
@@ -348,7 +332,7 @@ describe('CSV stock-list import', () => {
   };
 
   it('checks every row with a message a person can act on', async () => {
-    const retail = await as('retail@spoolyard.test');
+    const retail = await asCustomer();
     const csv = ['part,qty', `${TURBO},1`, 'AWL-10-020,1', `${SUPERSEDED},1`, `${GASKET},2.5`, `${GASKET},abc`, `${GASKET},0`, `${TURBO},500`, ',3'].join('\n');
     const res = await upload(retail, csv);
     expect(res.status, JSON.stringify(res.body)).toBe(200);
@@ -369,17 +353,16 @@ describe('CSV stock-list import', () => {
     const bulk = await retail.call('POST', '/api/cart/bulk', { lines: rows.filter((r) => r.status !== 'error').map((r) => ({ partNumber: r.partNumber, quantity: r.quantity })) });
     expect(bulk.status).toBe(201);
     expect(CartViewSchema.parse(bulk.body).lines.map((l) => l.partNumber).sort()).toEqual([TURBO, SUPERSEDED_BY].sort());
-    await retail.emptyCart();
   });
 
   it('lets a dealer take more than is in stock as a back-order', async () => {
-    const dealer = await as('dealer@spoolyard.test');
+    const dealer = await asDealer();
     const { rows } = ImportPreviewSchema.parse((await upload(dealer, `part,quantity\n${TURBO},500\n`)).body);
     expect(rows[0]).toMatchObject({ status: 'ok', message: expect.stringMatching(/will be back-ordered/) });
   });
 
   it('refuses a file over 200 kB (413), a file that is not CSV (415) and a signed-out upload (401)', async () => {
-    const retail = await as('retail@spoolyard.test');
+    const retail = await asCustomer();
     const big = `part,qty\n${`${GASKET},1\n`.repeat(Math.ceil(200_001 / 14))}`;
     expect(big.length).toBeGreaterThan(200_000);
     expect((await upload(retail, big)).status).toBe(413);
@@ -390,7 +373,7 @@ describe('CSV stock-list import', () => {
 
 describe('reorder', () => {
   it('rebuilds the cart from a past order, replacing a part superseded since, with a notice', async () => {
-    const dealer = await as('dealer@spoolyard.test');
+    const dealer = await asDealer();
     await dealer.add(GASKET, 2);
     await dealer.add('AWL-50-0202', 1);
     const placed = CheckoutResponseSchema.parse((await dealer.call('POST', '/api/checkout', { method: 'account', purchaseOrder: 'TBW-REORDER' })).body);
@@ -402,17 +385,16 @@ describe('reorder', () => {
     const cart = await dealer.cart();
     expect(cart.lines.map((l) => [l.partNumber, l.quantity])).toEqual([[GASKET, 3]]);
     t.db.$client.prepare("UPDATE parts SET status = 'active', superseded_by = NULL WHERE part_number = ?").run('AWL-50-0202');
-    await dealer.emptyCart();
   });
 });
 
 describe('route-by-role matrix', () => {
   it('answers 401 signed out, 403 for the wrong role and 404 for another user’s order', async () => {
-    const dealer = await as('dealer@spoolyard.test');
+    const dealer = await asDealer();
     await dealer.add(GASKET, 1);
     const dealerOrder = CheckoutResponseSchema.parse((await dealer.call('POST', '/api/checkout', { method: 'account', purchaseOrder: 'TBW-MATRIX' })).body).order.number;
-    const retail = await as('retail@spoolyard.test');
-    const warehouse = await as('warehouse@spoolyard.test');
+    const retail = await asCustomer();
+    const warehouse = await asWarehouse();
     const guest = client();
 
     type Row = [method: string, path: string, body: unknown, expected: { guest: number; retail: number; warehouse: number }];
@@ -449,7 +431,7 @@ describe('route-by-role matrix', () => {
   });
 
   it('refuses a cross-site checkout', async () => {
-    const retail = await as('retail@spoolyard.test');
+    const retail = await asCustomer();
     const r = await retail.call('POST', '/api/checkout', { method: 'card', paymentMethod: 'pm_card_visa', delivery: DELIVERY }, { headers: { origin: 'http://evil.example' } });
     expect(r.status).toBe(403);
   });

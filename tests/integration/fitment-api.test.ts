@@ -2,26 +2,18 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { FITMENT_CAUTIONS } from '../../shared/fitment/check';
 import { FitmentResponseSchema } from '../../shared/schemas/fitment';
 import { FitmentFrameMapsResponseSchema, SavedFitmentSchema, SavedFitmentsResponseSchema } from '../../shared/schemas/saved-fitments';
-import { DEMO_PASSWORD } from '../../catalog-seed/accounts';
+import { createCustomer, createDealer } from '../support/factories';
 import { startTestApp, type TestApp } from '../support/test-app';
 
 let t: TestApp;
 beforeAll(async () => {
-  t = await startTestApp({ accounts: true });
+  t = await startTestApp();
 });
 afterAll(async () => {
   await t.close();
 });
 
 const STREET_2L = { displacementL: 2.0, powerHp: 300, rpm: 6500, fuel: 'petrol', application: 'street' } as const;
-
-async function signIn(email: string): Promise<string> {
-  const res = await t.send('POST', '/api/auth/sign-in/email', { email, password: DEMO_PASSWORD }, { origin: t.url });
-  expect(res.status, JSON.stringify(res.body)).toBe(200);
-  const cookie = res.headers.getSetCookie().map((c) => c.split(';')[0]).join('; ');
-  expect(cookie).toContain('better-auth.session_token');
-  return cookie;
-}
 
 const savedCount = () => t.db.$client.prepare('SELECT count(*) FROM saved_fitments').pluck().get() as number;
 
@@ -121,8 +113,7 @@ describe('/api/fitments (saved checks)', () => {
   let retail = '';
   let dealer = '';
   beforeAll(async () => {
-    retail = await signIn('retail@spoolyard.test');
-    dealer = await signIn('dealer@spoolyard.test');
+    [retail, dealer] = (await Promise.all([createCustomer(t), createDealer(t)])).map((u) => u.client.cookie()) as [string, string];
   });
 
   it('answers 401 when signed out, for every route', async () => {

@@ -1,23 +1,19 @@
 import fc from 'fast-check';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { paymentsClient } from '../support/app-deps';
-import { signIn, type Client } from '../support/session';
+import { createCustomer, createDealer, createPart, createUser } from '../support/factories';
+import type { Client } from '../support/session';
 import { startTestApp, type TestApp } from '../support/test-app';
 
 let t: TestApp;
-let dealer: Client;
+// Shared only for their roles; whoever orders in a test is made in that test.
 let retail: Client;
 let floor: Client;
 let admin: Client;
 
 beforeAll(async () => {
-  t = await startTestApp({ fakes: true, accounts: true });
-  [dealer, retail, floor, admin] = await Promise.all([
-    signIn(t, 'dealer@spoolyard.test'),
-    signIn(t, 'retail@spoolyard.test'),
-    signIn(t, 'warehouse@spoolyard.test'),
-    signIn(t, 'admin@spoolyard.test'),
-  ]);
+  t = await startTestApp({ fakes: true });
+  [retail, floor, admin] = (await Promise.all([createCustomer(t), createUser(t, { role: 'warehouse' }), createUser(t, { role: 'admin' })])).map((u) => u.client) as [Client, Client, Client];
 }, 60_000);
 afterAll(async () => {
   await t.close();
@@ -28,15 +24,8 @@ const one = <T>(q: string, ...p: unknown[]) => t.db.$client.prepare(q).get(...p)
 const available = (partNumber: string) =>
   one<{ n: number }>('SELECT COALESCE(SUM(s.on_hand - s.reserved), 0) AS n FROM stock s JOIN parts p ON p.id = s.part_id WHERE p.part_number = ?', partNumber).n;
 
-/** Parts with at least `min` available, cheap enough to keep within the dealers' credit limits. */
-function stockedParts(min: number, count: number): string[] {
-  return sql<{ partNumber: string }>(
-    `SELECT p.part_number AS partNumber FROM parts p JOIN stock s ON s.part_id = p.id WHERE p.status = 'active' AND p.price_cents < 30000
-     GROUP BY p.id HAVING SUM(s.on_hand - s.reserved) >= ? ORDER BY p.id LIMIT ?`,
-    min,
-    count,
-  ).map((r) => r.partNumber);
-}
+/** Parts of the test's own, each with `stock` units on the shelf, so no other test's orders have moved them. */
+const ownParts = (stock: number, count: number): string[] => Array.from({ length: count }, () => createPart(t, { stock }).partNumber);
 
 async function accountOrder(client: Client, lines: Array<{ partNumber: string; quantity: number; allowBackorder?: boolean }>, po = 'PO-TEST') {
   for (const l of lines) expect((await client.send('POST', '/api/cart/lines', l)).status).toBe(201);
@@ -81,7 +70,8 @@ function ledgerMismatches() {
 
 describe('picking', () => {
   it('refuses a wrongly scanned part and records nothing', async () => {
-    const [a, b] = stockedParts(3, 2);
+    const { client: dealer } = await createDealer(t);
+    const [a, b] = ownParts(3, 2);
     const number = await accountOrder(dealer, [{ partNumber: a!, quantity: 1 }]);
     const [line] = await pickList(number);
     const movementsBefore = one<{ n: number }>('SELECT count(*) AS n FROM stock_movements').n;
@@ -96,7 +86,8 @@ describe('picking', () => {
   });
 
   it('dispatches once: stock leaves on hand exactly once and a second dispatch is refused', async () => {
-    const [a] = stockedParts(4, 1);
+    const { client: dealer, email } = await createDealer(t);
+    const [a] = ownParts(4, 1);
     const onHand = () => one<{ n: number }>('SELECT SUM(on_hand) AS n FROM stock s JOIN parts p ON p.id = s.part_id WHERE p.part_number = ?', a).n;
     const before = onHand();
     const number = await accountOrder(dealer, [{ partNumber: a!, quantity: 2 }]);
@@ -113,11 +104,12 @@ describe('picking', () => {
     await t.mailSettled();
     const mail = await t.mail!.waitForMessage((m) => m.subject.includes(number) && /on its way/.test(m.subject));
     expect(mail.text).toContain('TP-12345');
-    expect(mail.to).toContain('dealer@spoolyard.test');
+    expect(mail.to).toContain(email);
   });
 
   it('turns a short pick into a back-order that goods-in releases into the pick queue', async () => {
-    const [a] = stockedParts(3, 1);
+    const { client: dealer } = await createDealer(t);
+    const [a] = ownParts(3, 1);
     const number = await accountOrder(dealer, [{ partNumber: a!, quantity: 3 }]);
     const [line] = await pickList(number);
     const res = await floor.send('POST', `/api/warehouse/orders/${number}/picks`, { lineId: line!.lineId, scannedPartNumber: a, quantity: 1, short: true });
@@ -143,7 +135,8 @@ describe('picking', () => {
   });
 
   it('keeps every stock figure equal to its ledger after a random run of orders, picks, dispatches, adjustments and goods-in', async () => {
-    const parts = stockedParts(6, 4);
+    const { client: dealer } = await createDealer(t);
+    const parts = ownParts(6, 4);
     const bins = new Map(parts.map((p) => [p, one<{ bin: string }>('SELECT s.bin_code AS bin FROM stock s JOIN parts p ON p.id = s.part_id WHERE p.part_number = ? LIMIT 1', p).bin]));
     const step = fc.oneof(
       fc.record({ kind: fc.constant('order' as const), part: fc.constantFrom(...parts), qty: fc.integer({ min: 1, max: 3 }) }),
@@ -197,18 +190,19 @@ describe('returns and refunds', () => {
   };
 
   it('refunds a card order through the payment service, once, and never more than was paid', async () => {
-    const [part] = stockedParts(2, 1);
-    const { number, lineId } = await dispatchedOrder(retail, part!, true);
-    const order = (await retail.get(`/api/orders/${number}`)).body as { totalCents: number };
-    const created = await requestReturn(retail, { orderNumber: number, lineId: String(lineId), kind: 'faulty', quantity: '1', reason: 'Bearing noise on first start' });
+    const [{ client: buyer }, { client: otherBuyer }] = await Promise.all([createCustomer(t), createDealer(t)]);
+    const [part] = ownParts(2, 1);
+    const { number, lineId } = await dispatchedOrder(buyer, part!, true);
+    const order = (await buyer.get(`/api/orders/${number}`)).body as { totalCents: number };
+    const created = await requestReturn(buyer, { orderNumber: number, lineId: String(lineId), kind: 'faulty', quantity: '1', reason: 'Bearing noise on first start' });
     expect(created.status, JSON.stringify(created.body)).toBe(201);
     const ret = created.body as { id: number; maxRefundCents: number; photos: string[] };
     expect(ret.maxRefundCents).toBeLessThanOrEqual(order.totalCents);
     expect(ret.photos).toHaveLength(1);
     // The warehouse and the buyer see the photo; another buyer does not.
     expect((await floor.get(`/api/returns/photos/${ret.photos[0]}`)).status).toBe(200);
-    expect((await retail.get(`/api/returns/photos/${ret.photos[0]}`)).status).toBe(200);
-    expect((await dealer.get(`/api/returns/photos/${ret.photos[0]}`)).status).toBe(404);
+    expect((await buyer.get(`/api/returns/photos/${ret.photos[0]}`)).status).toBe(200);
+    expect((await otherBuyer.get(`/api/returns/photos/${ret.photos[0]}`)).status).toBe(404);
 
     const tooMuch = await floor.send('POST', `/api/warehouse/returns/${ret.id}/receive`, { decision: 'partial-refund', conditionGrade: 'damaged', amountCents: ret.maxRefundCents + 1 });
     expect(tooMuch.status).toBe(400);
@@ -225,9 +219,8 @@ describe('returns and refunds', () => {
   });
 
   it('refunds an exchange core deposit as a credit note on an account order', async () => {
-    const core = sql<{ partNumber: string }>(
-      "SELECT p.part_number AS partNumber FROM parts p JOIN stock s ON s.part_id = p.id WHERE p.condition = 'exchange' AND p.status = 'active' AND p.price_cents < 200000 GROUP BY p.id HAVING SUM(s.on_hand - s.reserved) >= 1 LIMIT 1",
-    )[0]!.partNumber;
+    const { client: dealer, email } = await createDealer(t);
+    const core = createPart(t, { condition: 'exchange', stock: 1 }).partNumber;
     const { number, lineId } = await dispatchedOrder(dealer, core, false);
     const created = await requestReturn(dealer, { orderNumber: number, lineId: String(lineId), kind: 'core', quantity: '1', reason: 'Old unit back for the deposit' });
     expect(created.status, JSON.stringify(created.body)).toBe(201);
@@ -239,15 +232,16 @@ describe('returns and refunds', () => {
     const mine = (await dealer.get('/api/returns')).body as { items: Array<{ id: number; status: string }> };
     expect(mine.items.find((r) => r.id === ret.id)?.status).toBe('credited');
     await t.mailSettled();
-    await t.mail!.waitForMessage((m) => m.to.includes('dealer@spoolyard.test') && /return/i.test(m.subject));
+    await t.mail!.waitForMessage((m) => m.to.includes(email) && /return/i.test(m.subject));
     // A core return is only for exchange units.
-    const [plain] = stockedParts(2, 1);
+    const [plain] = ownParts(2, 1);
     const other = await dispatchedOrder(dealer, plain!, false);
     expect((await requestReturn(dealer, { orderNumber: other.number, lineId: String(other.lineId), kind: 'core', quantity: '1', reason: 'not a core' })).status).toBe(409);
   });
 
   it('refuses uploads that are not images (415) or too large (413), and other users’ lines (404)', async () => {
-    const [part] = stockedParts(2, 1);
+    const { client: dealer } = await createDealer(t);
+    const [part] = ownParts(2, 1);
     const { number, lineId } = await dispatchedOrder(dealer, part!, false);
     const fields = { orderNumber: number, lineId: String(lineId), kind: 'wrong-part', quantity: '1', reason: 'Ordered the wrong A/R' };
     const fake = new Blob(['<script>alert(1)</script>'], { type: 'image/png' });
@@ -303,7 +297,7 @@ describe('price imports', () => {
     expect((await upload('not,a,price,list', 'prices.exe')).status).toBe(415);
     const form = new FormData();
     form.set('file', new Blob(['part_number,price\nFLG-50-0201,1.00'], { type: 'text/csv' }), 'p.csv');
-    expect((await dealer.upload('/api/admin/price-imports', form)).status).toBe(403);
+    expect((await (await createDealer(t)).client.upload('/api/admin/price-imports', form)).status).toBe(403);
   });
 });
 

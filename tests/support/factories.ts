@@ -1,11 +1,12 @@
 import { asc, eq } from 'drizzle-orm';
+import { z } from 'zod';
 import { bins, dealerAccounts, dealerMembers, parts, user as users } from '../../server/db/schema';
 import type { DealerTier, DeliveryZone } from '../../shared/pricing';
 import type { Role } from '../../shared/allowed-values';
 import { normalizePartNumber } from '../../shared/part-number';
 import { PartFormSchema, type PartForm } from '../../shared/schemas/admin-catalog';
 import { CheckoutResponseSchema, type Checkout, type CheckoutResponse } from '../../shared/schemas/orders';
-import { signIn, type Client } from './session';
+import { clientOf, type Client } from './session';
 import type { TestApp } from './test-app';
 
 /**
@@ -13,6 +14,8 @@ import type { TestApp } from './test-app';
  * gets a name no other row in the run has. Users sign up through the auth library and orders are placed through
  * the API, so the rows hold the same invariants as real ones.
  */
+
+const SignUpReplySchema = z.object({ user: z.object({ id: z.string() }) });
 
 let serial = 0;
 const next = () => ++serial;
@@ -39,21 +42,30 @@ export interface UserOverrides {
   password?: string;
 }
 
-/** An account that has not signed in yet (for tests that count sign-ins). */
-export async function createAccount(t: TestApp, overrides: UserOverrides = {}): Promise<TestAccount> {
+/** Signs up through the auth library, which also opens a session; the role is then set as the office would. */
+async function signUp(t: TestApp, overrides: UserOverrides): Promise<TestAccount & { setCookies: string[] }> {
   const n = next();
   const role = overrides.role ?? 'customer';
   const name = overrides.name ?? `Factory ${role} ${n}`;
   const email = overrides.email ?? `${role}-${n}-${process.pid}@factory.spoolyard.test`;
   const password = overrides.password ?? FACTORY_PASSWORD;
-  const { user } = await t.app.auth.api.signUpEmail({ body: { name, email, password } });
+  const res = await t.app.auth.api.signUpEmail({ body: { name, email, password }, asResponse: true });
+  if (!res.ok) throw new Error(`sign-up of ${email}: ${res.status} ${await res.text()}`);
+  const { user } = SignUpReplySchema.parse(await res.json());
   t.db.update(users).set({ role, emailVerified: true }).where(eq(users.id, user.id)).run();
-  return { id: user.id, email, name, password, role };
+  return { id: user.id, email, name, password, role, setCookies: res.headers.getSetCookie() };
 }
 
+/** An account whose session nobody holds (for tests that count sign-ins). */
+export async function createAccount(t: TestApp, overrides: UserOverrides = {}): Promise<TestAccount> {
+  const { setCookies: _, ...account } = await signUp(t, overrides);
+  return account;
+}
+
+/** A user and a client signed in as them: the session the sign-up opened, so only one password hash is spent. */
 export async function createUser(t: TestApp, overrides: UserOverrides = {}): Promise<TestUser> {
-  const account = await createAccount(t, overrides);
-  return { ...account, client: await signIn(t, account.email, account.password) };
+  const { setCookies, ...account } = await signUp(t, overrides);
+  return { ...account, client: clientOf(t, setCookies) };
 }
 
 export const createCustomer = (t: TestApp, overrides: Omit<UserOverrides, 'role'> = {}) => createUser(t, { ...overrides, role: 'customer' });

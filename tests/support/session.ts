@@ -8,18 +8,20 @@ export interface Client {
   cookie: () => string;
 }
 
-export async function signIn(t: TestApp, email: string, password = 'spoolyard-demo-1'): Promise<Client> {
+/** A client of the test app that starts with the cookies of `setCookies` (Set-Cookie header values). */
+export function clientOf(t: TestApp, setCookies: string[] = []): Client {
   const jar = new Map<string, string>();
-  const keep = (res: Response) => {
-    for (const line of res.headers.getSetCookie()) {
+  const keep = (lines: string[]) => {
+    for (const line of lines) {
       const [pair] = line.split(';');
       const [name, ...rest] = pair!.split('=');
       jar.set(name!.trim(), rest.join('='));
     }
   };
+  keep(setCookies);
   const cookie = () => [...jar].map(([k, v]) => `${k}=${v}`).join('; ');
   const read = async (res: Response): Promise<Reply> => {
-    keep(res);
+    keep(res.headers.getSetCookie());
     const text = await res.text();
     let body: unknown = text;
     try {
@@ -30,13 +32,17 @@ export async function signIn(t: TestApp, email: string, password = 'spoolyard-de
     return { status: res.status, body, headers: res.headers };
   };
   const headers = () => ({ origin: t.url, cookie: cookie() });
-  const client: Client = {
+  return {
     get: async (p) => read(await fetch(`${t.url}${p}`, { headers: headers() })),
     send: async (method, p, body) =>
       read(await fetch(`${t.url}${p}`, { method, headers: { ...headers(), 'content-type': 'application/json' }, body: body === undefined ? undefined : JSON.stringify(body) })),
     upload: async (p, form) => read(await fetch(`${t.url}${p}`, { method: 'POST', headers: headers(), body: form })),
     cookie,
   };
+}
+
+export async function signIn(t: TestApp, email: string, password = 'spoolyard-demo-1'): Promise<Client> {
+  const client = clientOf(t);
   const res = await client.send('POST', '/api/auth/sign-in/email', { email, password });
   if (res.status !== 200) throw new Error(`sign-in as ${email} failed: ${res.status} ${JSON.stringify(res.body)}`);
   return client;
