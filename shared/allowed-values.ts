@@ -1,13 +1,18 @@
 /**
- * Every value a stored status, kind, tier or zone may take, in one place: the database schema builds its CHECK
- * constraints from these lists, the zod schemas validate against them and the screens label them. Lists that
- * already had a home stay there and are re-exported here, so a new stored value is added in one line.
+ * The values stored statuses and kinds may take, defined once: the database schema builds its CHECK constraints from
+ * these lists, the zod schemas validate against them and the screens label them. This module imports nothing, so
+ * every other module may use it. Lists that carry more than their values live beside what they carry (categories,
+ * tiers and zones with their labels and rates in shared/catalog.ts and shared/pricing.ts, return kinds and condition
+ * grades in shared/schemas/warehouse.ts) and the schema takes them from there.
  */
-export { BEARINGS, CATEGORY_SLUGS, PART_STATUSES } from './catalog';
-export { DEALER_TIER_KEYS, DELIVERY_ZONE_KEYS } from './pricing';
-export { ORDER_STATUS_KEYS } from './schemas/orders';
-export { CONDITION_GRADE_KEYS, RETURN_KIND_KEYS } from './schemas/warehouse';
-export { BOOST_UNITS } from './schemas/shaft-logs';
+
+export const PART_STATUSES = ['active', 'superseded', 'discontinued'] as const;
+export type PartStatus = (typeof PART_STATUSES)[number];
+/** What the part form may set; "superseded" comes only from superseding. */
+export const EDITABLE_PART_STATUSES = ['active', 'discontinued'] as const;
+
+export const ORDER_STATUSES = ['pending_payment', 'paid', 'on_account', 'picking', 'packed', 'dispatched', 'back_ordered', 'cancelled', 'returned'] as const;
+export type OrderStatus = (typeof ORDER_STATUSES)[number];
 
 export const PART_CONDITIONS = ['new', 'exchange'] as const;
 export type PartCondition = (typeof PART_CONDITIONS)[number];

@@ -19,8 +19,8 @@ export function categoryLabel(slug: string): string {
 export const BEARINGS = ['journal', 'ball'] as const;
 export type Bearing = (typeof BEARINGS)[number];
 
-export const PART_STATUSES = ['active', 'superseded', 'discontinued'] as const;
-export type PartStatus = (typeof PART_STATUSES)[number];
+import type { PartStatus } from './allowed-values';
+export { PART_STATUSES, type PartStatus } from './allowed-values';
 
 /** Stock shown to buyers: a count, "low" under the part's minimum, or none. */
 export type StockState = 'in-stock' | 'low' | 'out-of-stock' | 'discontinued';

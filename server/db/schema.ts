@@ -1,26 +1,22 @@
 import { sql } from 'drizzle-orm';
 import {
   ALIAS_KINDS,
-  BEARINGS,
-  BOOST_UNITS,
-  CATEGORY_SLUGS,
-  CONDITION_GRADE_KEYS,
   DEALER_STATUSES,
-  DEALER_TIER_KEYS,
-  DELIVERY_ZONE_KEYS,
   inListSql,
-  ORDER_STATUS_KEYS,
+  ORDER_STATUSES,
   PART_CONDITIONS,
   PART_STATUSES,
   PAYMENT_METHODS,
   PAYMENT_STATES,
   PRICE_IMPORT_STATUSES,
-  RETURN_KIND_KEYS,
   RETURN_STATUSES,
   ROLES,
   STOCK_MOVEMENT_KINDS,
 } from '../../shared/allowed-values';
-import { CATEGORIES, type Bearing } from '../../shared/catalog';
+import { DEALER_TIER_KEYS, DELIVERY_ZONE_KEYS } from '../../shared/pricing';
+import { BOOST_UNITS } from '../../shared/schemas/shaft-logs';
+import { CONDITION_GRADE_KEYS, RETURN_KIND_KEYS } from '../../shared/schemas/warehouse';
+import { BEARINGS, CATEGORIES, CATEGORY_SLUGS, type Bearing } from '../../shared/catalog';
 import type { PriceImportRow } from '../../shared/schemas/admin-catalog';
 import { SHAFT_LOG_MAX_ROWS } from '../../shared/schemas/shaft-logs';
 import { check, index, integer, primaryKey, real, sqliteTable, text, uniqueIndex } from 'drizzle-orm/sqlite-core';
@@ -359,7 +355,7 @@ export const orders = sqliteTable(
     number: text('number').notNull().unique(),
     userId: text('user_id').notNull().references(() => user.id),
     dealerAccountId: integer('dealer_account_id').references(() => dealerAccounts.id),
-    status: text('status', { enum: ORDER_STATUS_KEYS }).notNull(),
+    status: text('status', { enum: ORDER_STATUSES }).notNull(),
     paymentMethod: text('payment_method', { enum: PAYMENT_METHODS }).notNull(),
     paymentState: text('payment_state', { enum: PAYMENT_STATES }).notNull(),
     paymentIntentId: text('payment_intent_id').unique(),
@@ -391,7 +387,7 @@ export const orders = sqliteTable(
     index('orders_user_idx').on(t.userId, t.createdAt),
     index('orders_status_idx').on(t.status, t.createdAt),
     index('orders_dealer_idx').on(t.dealerAccountId),
-    oneOf('orders', 'status', ORDER_STATUS_KEYS),
+    oneOf('orders', 'status', ORDER_STATUSES),
     oneOf('orders', 'payment_method', PAYMENT_METHODS),
     oneOf('orders', 'payment_state', PAYMENT_STATES),
     oneOf('orders', 'delivery_zone', DELIVERY_ZONE_KEYS),

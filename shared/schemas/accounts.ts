@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { DEALER_STATUSES, ROLES } from '../allowed-values';
 import { DEALER_TIER_KEYS, DELIVERY_ZONE_KEYS } from '../pricing';
 
 export const PASSWORD_MIN = 10;
@@ -45,12 +46,12 @@ export const MeSchema = z.object({
       id: z.string(),
       email: z.string(),
       name: z.string(),
-      role: z.enum(['customer', 'dealer', 'warehouse', 'admin']),
+      role: z.enum(ROLES),
       dealer: z
         .object({
           id: z.number(),
           companyName: z.string(),
-          status: z.enum(['pending', 'approved', 'declined']),
+          status: z.enum(DEALER_STATUSES),
           tier: z.enum(DEALER_TIER_KEYS).nullable(),
           creditLimitCents: z.number(),
           paymentTermsDays: z.number(),
@@ -74,7 +75,7 @@ export const DealerAccountRowSchema = z.object({
   email: z.string(),
   phone: z.string(),
   city: z.string(),
-  status: z.enum(['pending', 'approved', 'declined']),
+  status: z.enum(DEALER_STATUSES),
   tier: z.enum(DEALER_TIER_KEYS).nullable(),
   creditLimitCents: z.number(),
   paymentTermsDays: z.number(),

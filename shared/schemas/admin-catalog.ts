@@ -1,5 +1,6 @@
 import { FRAME_CODE_EXAMPLE, FRAME_CODE_PATTERN, PART_NUMBER_EXAMPLE, PART_NUMBER_PATTERN } from '../part-number';
 import { z } from 'zod';
+import { EDITABLE_PART_STATUSES, PART_CONDITIONS, PRICE_IMPORT_STATUSES } from '../allowed-values';
 import { BEARINGS, CATEGORY_SLUGS } from '../catalog';
 
 export const PART_PHOTO_MAX_BYTES = 3_000_000;
@@ -39,8 +40,8 @@ export const PartFormSchema = z
     title: z.string().trim().min(5, 'title is too short').max(140, 'title is too long'),
     category: z.enum(CATEGORY_SLUGS, { error: 'choose a category' }),
     frameCode: z.string().trim().regex(FRAME_CODE_PATTERN, `frame code of three letters, such as ${FRAME_CODE_EXAMPLE}`).nullable(),
-    condition: z.enum(['new', 'exchange']),
-    status: z.enum(['active', 'discontinued']),
+    condition: z.enum(PART_CONDITIONS),
+    status: z.enum(EDITABLE_PART_STATUSES),
     priceCents: z.number().int('price must be whole cents').min(1, 'price must be above 0').max(100_000_000),
     coreDepositCents: z.number().int().min(0).max(10_000_000),
     weightGrams: z.number().int('weight must be whole grams').min(1, 'weight must be above 0').max(200_000, 'weight must be at most 200 kg'),
@@ -74,7 +75,7 @@ export type PriceImportRow = z.infer<typeof PriceImportRowSchema>;
 export const PriceImportSchema = z.object({
   id: z.number().int(),
   fileName: z.string(),
-  status: z.enum(['preview', 'applied']),
+  status: z.enum(PRICE_IMPORT_STATUSES),
   counts: z.object({ new: z.number().int(), changed: z.number().int(), unchanged: z.number().int(), error: z.number().int() }),
   rows: z.array(PriceImportRowSchema),
   totalRows: z.number().int(),

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { PART_CONDITIONS } from '../allowed-values';
 import { CATEGORY_SLUGS, PART_STATUSES } from '../catalog';
 import { SpecsSchema } from './parts';
 
@@ -8,7 +9,7 @@ export const AdminPartSchema = z.object({
   title: z.string(),
   category: z.enum(CATEGORY_SLUGS),
   frameCode: z.string().nullable(),
-  condition: z.enum(['new', 'exchange']),
+  condition: z.enum(PART_CONDITIONS),
   status: z.enum(PART_STATUSES),
   priceCents: z.number().int(),
   coreDepositCents: z.number().int(),

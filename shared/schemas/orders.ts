@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { ORDER_STATUSES, PART_CONDITIONS, type OrderStatus } from '../allowed-values';
 import { DEALER_TIER_KEYS, DELIVERY_ZONE_KEYS } from '../pricing';
 import { IllustrationSpecsSchema, PhotoNameSchema } from './parts';
 
@@ -73,7 +74,7 @@ export const CartLineViewSchema = z.object({
   title: z.string(),
   category: z.string(),
   frameCode: z.string().nullable(),
-  condition: z.enum(['new', 'exchange']),
+  condition: z.enum(PART_CONDITIONS),
   quantity: z.number().int(),
   available: z.number().int(),
   allowBackorder: z.boolean(),
@@ -111,7 +112,7 @@ export const CartViewSchema = z.object({
 });
 export type CartView = z.infer<typeof CartViewSchema>;
 
-export const ORDER_STATUS_LABELS = {
+export const ORDER_STATUS_LABELS: Record<OrderStatus, string> = {
   pending_payment: 'Awaiting payment',
   paid: 'Paid',
   on_account: 'On account',
@@ -121,9 +122,9 @@ export const ORDER_STATUS_LABELS = {
   back_ordered: 'Back-ordered',
   cancelled: 'Cancelled',
   returned: 'Returned',
-} as const;
-export type OrderStatus = keyof typeof ORDER_STATUS_LABELS;
-export const ORDER_STATUS_KEYS = Object.keys(ORDER_STATUS_LABELS) as [OrderStatus, ...OrderStatus[]];
+};
+export type { OrderStatus };
+export const ORDER_STATUS_KEYS = ORDER_STATUSES;
 
 export const OrderSummarySchema = z.object({
   number: z.string(),
@@ -150,7 +151,7 @@ export const OrderLineViewSchema = z.object({
   lineCents: z.number().int(),
   fitmentSummary: z.string().nullable(),
   category: z.string(),
-  condition: z.enum(['new', 'exchange']),
+  condition: z.enum(PART_CONDITIONS),
 });
 
 export const OrderDetailSchema = OrderSummarySchema.extend({

@@ -1,5 +1,6 @@
 import { FRAME_CODE_EXAMPLE, FRAME_CODE_PATTERN } from '../part-number';
 import { z } from 'zod';
+import { PART_CONDITIONS } from '../allowed-values';
 import { BEARINGS, CATEGORY_SLUGS, PART_STATUSES } from '../catalog';
 
 export const PAGE_SIZE_MAX = 100;
@@ -70,7 +71,7 @@ export const PartSummarySchema = z.object({
   category: z.enum(CATEGORY_SLUGS),
   frameCode: z.string().nullable(),
   status: z.enum(PART_STATUSES),
-  condition: z.enum(['new', 'exchange']),
+  condition: z.enum(PART_CONDITIONS),
   priceCents: z.number().int(),
   coreDepositCents: z.number().int(),
   weightGrams: z.number().int(),

@@ -9,7 +9,7 @@ import { loadCatalogue } from '../../catalog-seed/load';
 import { openDatabase, type Db } from '../../server/db/client';
 import * as schema from '../../server/db/schema';
 import { afterAll, describe, expect, it } from 'vitest';
-import { ORDER_STATUS_KEYS, PART_STATUSES, STOCK_MOVEMENT_KINDS } from '../../shared/allowed-values';
+import { ORDER_STATUSES, PART_STATUSES, STOCK_MOVEMENT_KINDS } from '../../shared/allowed-values';
 import { parts, stock, stockMovements } from '../../server/db/schema';
 import { createTestDb } from '../support/test-app';
 
@@ -35,9 +35,9 @@ describe('database constraints', () => {
     expect(() =>
       db.insert(stockMovements).values({ partId: row.partId, binCode: row.binCode, kind: 'borrowed' as (typeof STOCK_MOVEMENT_KINDS)[number] }).run(),
     ).toThrow(/stock_movements_kind_ck/);
-    expect(ORDER_STATUS_KEYS).toContain('back_ordered');
+    expect(ORDER_STATUSES).toContain('back_ordered');
     const checkSql = db.$client.prepare("SELECT sql FROM sqlite_master WHERE name = 'orders'").pluck().get() as string;
-    for (const status of ORDER_STATUS_KEYS) expect(checkSql).toContain(`'${status}'`);
+    for (const status of ORDER_STATUSES) expect(checkSql).toContain(`'${status}'`);
   });
 
   it('holds the stock invariant: nothing negative, never more reserved than on hand', () => {
