@@ -1,11 +1,9 @@
 import { Router, type Request, type Response } from 'express';
 import multer from 'multer';
-import { parse } from 'csv-parse/sync';
 import { DELIVERY_ZONE_KEYS } from '../../shared/pricing';
 import { AddCartLineSchema, BulkCartLinesSchema, CSV_MAX_BYTES, CSV_MAX_ROWS, UpdateCartLineSchema } from '../../shared/schemas/orders';
 import { z } from 'zod';
 import { HttpError, parseOr400 } from '../middleware/errors';
-import { DomainError } from '../services/errors';
 import { currentUser, requireUser } from '../middleware/session';
 import { buyerOf, type CartOwner, type CartService } from '../services/cart';
 
@@ -85,18 +83,10 @@ export function cartRouter(cart: CartService): Router {
       }
       try {
         if (!req.file) throw new HttpError(400, 'Choose a CSV file to upload', { file: ['choose a CSV file'] });
-        const records = parse(req.file.buffer.toString('utf8').replace(/^\uFEFF/, ''), { skip_empty_lines: true, relax_column_count: true, trim: true }) as string[][];
-        const header = records[0]?.map((h) => h.toLowerCase().replace(/[^a-z]/g, '')) ?? [];
-        const hasHeader = header.some((h) => h.includes('part')) || header.some((h) => h.startsWith('q'));
-        const pnCol = hasHeader ? Math.max(0, header.findIndex((h) => h.includes('part'))) : 0;
-        const qtyCol = hasHeader ? Math.max(0, header.findIndex((h) => h.startsWith('q'))) : 1;
-        const body = hasHeader ? records.slice(1) : records;
-        if (body.length === 0) throw new HttpError(400, 'The file has no rows', { file: ['the file has no rows'] });
-        if (body.length > CSV_MAX_ROWS) throw new HttpError(413, `At most ${CSV_MAX_ROWS} rows per file`);
-        const rows = cart.validateRows(body.map((r) => ({ partNumber: r[pnCol] ?? '', quantity: r[qtyCol] ?? '' })), buyerOf(currentUser(res)));
+        const rows = cart.readOrderFile(req.file.buffer.toString('utf8'), buyerOf(currentUser(res)));
         res.json({ rows, validCount: rows.filter((r) => r.status !== 'error').length, errorCount: rows.filter((r) => r.status === 'error').length });
       } catch (e) {
-        next(e instanceof HttpError || e instanceof DomainError ? e : new HttpError(400, 'The file could not be read as CSV', { file: ['the file could not be read as CSV'] }));
+        next(e);
       }
     });
   });

@@ -3,11 +3,12 @@ import { and, count, eq, sql, type SQL } from 'drizzle-orm';
 import type { SQLiteColumn } from 'drizzle-orm/sqlite-core';
 import type { Db } from '../db/client';
 import { cartLines, carts, parts, partSpecs, savedFitments } from '../db/schema';
-import { ConflictError, NotAllowedError, NotFoundError } from './errors';
+import { parse } from 'csv-parse/sync';
+import { ConflictError, InvalidError, NotAllowedError, NotFoundError, TooLargeError } from './errors';
 import type { CurrentUser } from './current-user';
 import { normalizePartNumber } from '../../shared/part-number';
 import { DEALER_TIERS, priceOrder, type Buyer, type DeliveryZone } from '../../shared/pricing';
-import { CART_LINES_MAX, QUANTITY_MAX, type CartView, type OrderRowResult } from '../../shared/schemas/orders';
+import { CART_LINES_MAX, CSV_MAX_ROWS, QUANTITY_MAX, type CartView, type OrderRowResult } from '../../shared/schemas/orders';
 import type { SearchService } from './search';
 
 export type CartOwner = { userId: string } | { guestToken: string };
@@ -148,6 +149,27 @@ export function createCartService(db: Db, search: SearchService, config: { taxRa
   }
 
   /** Checks rows of part number + quantity as a person typed them (quick order, stock-list upload). */
+  /**
+   * Reads a quick-order file: part number and quantity columns, found by a header when there is one (any heading
+   * with "part", any starting with "q"), else the first two columns; then checks each row as the pad does.
+   */
+  function readOrderFile(text: string, buyer: Buyer): OrderRowResult[] {
+    let records: string[][];
+    try {
+      records = parse(text.replace(/^\uFEFF/, ''), { skip_empty_lines: true, relax_column_count: true, trim: true }) as string[][];
+    } catch {
+      throw new InvalidError('The file could not be read as CSV', { file: ['the file could not be read as CSV'] });
+    }
+    const header = records[0]?.map((h) => h.toLowerCase().replace(/[^a-z]/g, '')) ?? [];
+    const hasHeader = header.some((h) => h.includes('part')) || header.some((h) => h.startsWith('q'));
+    const pnCol = hasHeader ? Math.max(0, header.findIndex((h) => h.includes('part'))) : 0;
+    const qtyCol = hasHeader ? Math.max(0, header.findIndex((h) => h.startsWith('q'))) : 1;
+    const body = hasHeader ? records.slice(1) : records;
+    if (body.length === 0) throw new InvalidError('The file has no rows', { file: ['the file has no rows'] });
+    if (body.length > CSV_MAX_ROWS) throw new TooLargeError(`At most ${CSV_MAX_ROWS} rows per file`);
+    return validateRows(body.map((r) => ({ partNumber: r[pnCol] ?? '', quantity: r[qtyCol] ?? '' })), buyer);
+  }
+
   function validateRows(rows: Array<{ partNumber: string; quantity: string }>, buyer: Buyer): OrderRowResult[] {
     return rows.map((input, i) => {
       const base = { row: i + 1, input, partNumber: null, title: null, quantity: null, available: null, suggestions: [] as OrderRowResult['suggestions'] };
@@ -283,7 +305,7 @@ export function createCartService(db: Db, search: SearchService, config: { taxRa
     });
   }
 
-  return { view, addLines, updateLine, removeLine, setZone, mergeGuest, validateRows, resolvePart, cartId, newGuestToken: () => crypto.randomBytes(18).toString('base64url') };
+  return { view, addLines, updateLine, removeLine, setZone, mergeGuest, validateRows, readOrderFile, resolvePart, cartId, newGuestToken: () => crypto.randomBytes(18).toString('base64url') };
 }
 
 export type CartService = ReturnType<typeof createCartService>;
