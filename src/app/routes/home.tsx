@@ -3,6 +3,7 @@ import { Link } from 'react-router-dom';
 import { CATEGORIES } from '../../../shared/catalog';
 import { LoadingState, ErrorState } from '../../components/ui/states';
 import { buttonClass } from '../../components/ui/button';
+import { TableFrame, Td, Th } from '../../components/ui/table';
 import { useFrames } from '../../features/catalog/api/get-frames';
 
 export function HomeRoute() {
@@ -64,41 +65,41 @@ export function HomeRoute() {
         ) : frames.isError ? (
           <ErrorState message={frames.error.message} onRetry={() => frames.refetch()} />
         ) : (
-          <div className="mt-3 overflow-x-auto rounded-md border border-cast-line bg-white">
-            <table className="w-full text-left">
+          <TableFrame className="mt-3">
+            <table className="w-full border-collapse text-left">
               <caption className="sr-only">Frames and their ratings</caption>
               <thead className="bg-panel text-sm">
                 <tr>
-                  <th scope="col" className="px-3 py-2">Frame</th>
-                  <th scope="col" className="px-3 py-2 text-right">Power band</th>
-                  <th scope="col" className="px-3 py-2 text-right">Max flow</th>
-                  <th scope="col" className="px-3 py-2 text-right">Inducer / exducer</th>
-                  <th scope="col" className="px-3 py-2 text-right">Max shaft speed</th>
-                  <th scope="col" className="px-3 py-2 text-right">Weight</th>
+                  <Th>Frame</Th>
+                  <Th numeric>Power band</Th>
+                  <Th numeric>Max flow</Th>
+                  <Th numeric>Inducer / exducer</Th>
+                  <Th numeric>Max shaft speed</Th>
+                  <Th numeric>Weight</Th>
                 </tr>
               </thead>
-              <tbody className="tabular">
+              <tbody>
                 {frames.data.items.map((f) => (
                   <tr key={f.code} className="border-t border-cast-line">
-                    <th scope="row" className="px-3 py-2 font-normal">
+                    <Th scope="row" className="border-b-0 font-normal">
                       <Link to={`/catalogue?frame=${f.code}`} className="font-semibold text-temper hover:underline">
                         {f.code} {f.name}
                       </Link>
-                    </th>
-                    <td className="px-3 py-2 text-right">
+                    </Th>
+                    <Td numeric>
                       {f.powerBandHp[0]}–{f.powerBandHp[1]} hp
-                    </td>
-                    <td className="px-3 py-2 text-right">{f.maxFlowLbMin} lb/min</td>
-                    <td className="px-3 py-2 text-right">
+                    </Td>
+                    <Td numeric>{f.maxFlowLbMin} lb/min</Td>
+                    <Td numeric>
                       {f.inducerMm} / {f.exducerMm} mm
-                    </td>
-                    <td className="px-3 py-2 text-right">{f.maxShaftRpm.toLocaleString('en-US')} rpm</td>
-                    <td className="px-3 py-2 text-right">{f.weightKg} kg</td>
+                    </Td>
+                    <Td numeric>{f.maxShaftRpm.toLocaleString('en-US')} rpm</Td>
+                    <Td numeric>{f.weightKg} kg</Td>
                   </tr>
                 ))}
               </tbody>
             </table>
-          </div>
+          </TableFrame>
         )}
       </section>
     </div>

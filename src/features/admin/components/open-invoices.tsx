@@ -1,9 +1,11 @@
 import { CircleCheck, Clock, TriangleAlert } from 'lucide-react';
 import { useState } from 'react';
 import { formatPrice } from '../../../../shared/catalog';
+import { formatDate } from '../../../../shared/format';
 import { InvoicePaymentSchema, type OpenInvoice } from '../../../../shared/schemas/accounts';
 import { Button } from '../../../components/ui/button';
 import { EmptyState, ErrorState, LoadingState } from '../../../components/ui/states';
+import { TableFrame, Td, Th } from '../../../components/ui/table';
 import { useDealerInvoices } from '../api/get-dealer-invoices';
 import { useRecordInvoicePaid } from '../api/record-invoice-paid';
 
@@ -23,31 +25,31 @@ function InvoiceRow({ dealerId, invoice, today }: { dealerId: number; invoice: O
     record.mutate({ dealerId, number: invoice.number, reference: parsed.data.reference }, { onError: (e) => setError(e.message) });
   };
   return (
-    <tr className="border-b border-cast-line align-top">
-      <th scope="row" className="part-no px-3 py-2 text-left">
+    <tr className="border-t border-cast-line align-top first:border-t-0">
+      <Th scope="row" className="part-no border-b-0">
         {invoice.number}
         {invoice.purchaseOrder && <span className="block text-sm font-normal text-cast">PO {invoice.purchaseOrder}</span>}
-      </th>
-      <td className="tabular px-3 py-2">
+      </Th>
+      <Td className="tabular whitespace-nowrap">
         {overdue ? (
           <span className="inline-flex items-center gap-1 font-semibold text-oxide">
-            <TriangleAlert aria-hidden className="size-4" /> Overdue since {invoice.dueDate}
+            <TriangleAlert aria-hidden className="size-4" /> Overdue since <time dateTime={invoice.dueDate}>{formatDate(invoice.dueDate)}</time>
           </span>
         ) : (
           <span className="inline-flex items-center gap-1">
-            <Clock aria-hidden className="size-4 text-cast" /> Due {invoice.dueDate}
+            <Clock aria-hidden className="size-4 text-cast" /> Due <time dateTime={invoice.dueDate}>{formatDate(invoice.dueDate)}</time>
           </span>
         )}
-      </td>
-      <td className="tabular px-3 py-2 text-right">
+      </Td>
+      <Td numeric>
         {formatPrice(invoice.openCents)}
         {invoice.creditedCents > 0 && (
           <span className="block text-sm text-cast">
             after {formatPrice(invoice.creditedCents)} credited{invoice.creditNotes ? ` (${invoice.creditNotes})` : ''}
           </span>
         )}
-      </td>
-      <td className="px-3 py-2">
+      </Td>
+      <Td>
         <div className="flex flex-wrap items-start gap-2">
           <div>
             <label htmlFor={inputId} className="sr-only">
@@ -72,7 +74,7 @@ function InvoiceRow({ dealerId, invoice, today }: { dealerId: number; invoice: O
             Record payment
           </Button>
         </div>
-      </td>
+      </Td>
     </tr>
   );
 }
@@ -97,16 +99,17 @@ export function OpenInvoices({ dealerId, companyName }: { dealerId: number; comp
           </p>
         </EmptyState>
       ) : (
-        <div className="overflow-x-auto">
-          <table className="w-full text-left">
-            <thead className="text-sm">
-              <tr className="border-b-2 border-ink">
-                <th scope="col" className="px-3 py-2">Invoice</th>
-                <th scope="col" className="px-3 py-2">Due</th>
-                <th scope="col" className="px-3 py-2 text-right">Open</th>
-                <th scope="col" className="px-3 py-2">
+        <TableFrame>
+          <table className="w-full border-collapse text-left">
+            <caption className="sr-only">Open invoices of {companyName}</caption>
+            <thead className="bg-panel text-sm">
+              <tr>
+                <Th>Invoice</Th>
+                <Th>Due</Th>
+                <Th numeric>Open</Th>
+                <Th>
                   <span className="sr-only">Actions</span>
-                </th>
+                </Th>
               </tr>
             </thead>
             <tbody>
@@ -115,16 +118,18 @@ export function OpenInvoices({ dealerId, companyName }: { dealerId: number; comp
               ))}
             </tbody>
             <tfoot>
-              <tr>
-                <th scope="row" colSpan={2} className="px-3 py-2 text-right">
+              <tr className="border-t-2 border-ink">
+                <Th scope="row" colSpan={2} className="border-b-0 text-right">
                   Open balance
-                </th>
-                <td className="tabular px-3 py-2 text-right font-bold">{formatPrice(invoices.data.items.reduce((s, i) => s + i.openCents, 0))}</td>
+                </Th>
+                <Td numeric className="font-bold">
+                  {formatPrice(invoices.data.items.reduce((s, i) => s + i.openCents, 0))}
+                </Td>
                 <td />
               </tr>
             </tfoot>
           </table>
-        </div>
+        </TableFrame>
       )}
     </section>
   );

@@ -4,6 +4,7 @@ import { useForm } from 'react-hook-form';
 import { Link } from 'react-router-dom';
 import { SignInSchema, type Me, type SignIn } from '../../../../shared/schemas/accounts';
 import { Button, buttonClass } from '../../../components/ui/button';
+import { TableFrame, Td, Th } from '../../../components/ui/table';
 import { useSignIn } from '../api/sign-in';
 import { authErrorMessage } from '../auth-errors';
 import { useErrorSummary } from '../../../components/ui/error-summary';
@@ -90,35 +91,35 @@ function DemoAccounts({ accounts, onUse }: { accounts: NonNullable<Me['demoAccou
         Demo accounts <span className="rounded bg-white px-2 py-0.5 text-sm font-semibold uppercase tracking-wider text-amber">development only</span>
       </h2>
       <p className="text-sm text-cast">One account per role, shown here because this server runs in development. Production never lists them.</p>
-      <div className="relative mt-3 overflow-x-auto rounded-md border border-cast-line bg-white">
-        <table className="w-full text-left text-sm">
+      <TableFrame className="mt-3">
+        <table className="w-full border-collapse text-left text-sm">
           <caption className="sr-only">Demo accounts with their passwords</caption>
           <thead className="bg-panel">
             <tr>
-              <th scope="col" className="px-3 py-2">Role</th>
-              <th scope="col" className="px-3 py-2">E-mail</th>
-              <th scope="col" className="px-3 py-2">Password</th>
-              <th scope="col" className="px-3 py-2">
+              <Th>Role</Th>
+              <Th>E-mail</Th>
+              <Th>Password</Th>
+              <Th>
                 <span className="sr-only">Action</span>
-              </th>
+              </Th>
             </tr>
           </thead>
           <tbody>
             {accounts.map((a) => (
-              <tr key={a.email} className="border-t border-cast-line">
-                <td className="px-3 py-2 font-semibold whitespace-nowrap">{a.role}</td>
-                <td className="px-3 py-2 whitespace-nowrap">{a.email}</td>
-                <td className="px-3 py-2 font-mono whitespace-nowrap">{a.password}</td>
-                <td className="px-3 py-1 text-right">
+              <tr key={a.email} className="border-t border-cast-line first:border-t-0">
+                <Td className="whitespace-nowrap font-semibold">{a.role}</Td>
+                <Td className="whitespace-nowrap">{a.email}</Td>
+                <Td className="whitespace-nowrap font-mono">{a.password}</Td>
+                <Td className="text-right">
                   <Button variant="secondary" className="min-h-9" onClick={() => onUse(a.email, a.password)} aria-label={`Use ${a.email}`}>
                     Use
                   </Button>
-                </td>
+                </Td>
               </tr>
             ))}
           </tbody>
         </table>
-      </div>
+      </TableFrame>
     </section>
   );
 }

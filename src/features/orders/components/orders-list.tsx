@@ -6,6 +6,7 @@ import { ApiError } from '../../../lib/api-client';
 import { useOrders } from '../../../lib/orders';
 import { formatDate } from '../../../../shared/format';
 import { StatusBadge } from '../../../components/ui/status-badge';
+import { TableFrame, Td, Th } from '../../../components/ui/table';
 import { ReorderButton } from './reorder-button';
 
 export function OrdersList({ onReorderAdded, trade }: { onReorderAdded: () => void; trade: boolean }) {
@@ -38,54 +39,39 @@ export function OrdersList({ onReorderAdded, trade }: { onReorderAdded: () => vo
       </EmptyState>
     );
   }
-  const th = 'sticky top-0 bg-paper px-3 py-2 text-left font-semibold';
   return (
     <div className="grid min-w-0 gap-2">
       <p className="text-sm text-cast">
         <span className="tabular">{items.length}</span> {items.length === 1 ? 'order' : 'orders'}, newest first
       </p>
-      <div className="min-w-0 overflow-x-auto">
-        <table className="w-full border-collapse">
+      <TableFrame maxHeight="max-h-[70vh]">
+        <table className="w-full border-collapse text-left">
           <caption className="sr-only">Your orders</caption>
-          <thead className="border-b-2 border-ink text-sm">
+          <thead className="sticky top-0 z-10 bg-panel text-sm">
             <tr>
-              <th scope="col" className={th}>
-                Order
-              </th>
-              <th scope="col" className={th}>
-                Date
-              </th>
-              <th scope="col" className={th}>
-                Status
-              </th>
-              {trade && (
-                <th scope="col" className={th}>
-                  Purchase order
-                </th>
-              )}
-              <th scope="col" className={`${th} text-right`}>
-                Lines
-              </th>
-              <th scope="col" className={`${th} text-right`}>
-                Total
-              </th>
-              <th scope="col" className={th}>
+              <Th>Order</Th>
+              <Th>Date</Th>
+              <Th>Status</Th>
+              {trade && <Th>Purchase order</Th>}
+              <Th numeric>Lines</Th>
+              <Th numeric>Total</Th>
+              <Th>
                 <span className="sr-only">Actions</span>
-              </th>
+              </Th>
             </tr>
           </thead>
           <tbody>
             {items.map((o) => (
-              <tr key={o.number} className="border-b border-cast-line align-top">
-                <td className="px-3 py-3">
+              <tr key={o.number} className="border-t border-cast-line align-top first:border-t-0">
+                <Td>
                   <Link to={`/orders/${encodeURIComponent(o.number)}`} className="part-no text-temper underline">
                     {o.number}
                   </Link>
-                </td>
-                <td className="tabular whitespace-nowrap px-3 py-3">
+                </Td>
+                <Td className="tabular whitespace-nowrap">
                   <time dateTime={o.createdAt}>{formatDate(o.createdAt)}</time>
-                </td>
-                <td className="px-3 py-3">
+                </Td>
+                <Td>
                   <div className="grid justify-items-start gap-1">
                     <StatusBadge kind="order" status={o.status} />
                     {o.hasBackorder && o.status !== 'back_ordered' && (
@@ -94,16 +80,18 @@ export function OrdersList({ onReorderAdded, trade }: { onReorderAdded: () => vo
                       </span>
                     )}
                   </div>
-                </td>
-                {trade && <td className="part-no px-3 py-3">{o.purchaseOrder ?? '—'}</td>}
-                <td className="tabular px-3 py-3 text-right">{o.lineCount}</td>
-                <td className="tabular px-3 py-3 text-right font-semibold">{formatPrice(o.totalCents)}</td>
-                <td className="px-3 py-2">{o.status !== 'pending_payment' && <ReorderButton number={o.number} onAdded={onReorderAdded} compact />}</td>
+                </Td>
+                {trade && <Td className="part-no">{o.purchaseOrder ?? '—'}</Td>}
+                <Td numeric>{o.lineCount}</Td>
+                <Td numeric className="font-semibold">
+                  {formatPrice(o.totalCents)}
+                </Td>
+                <Td>{o.status !== 'pending_payment' && <ReorderButton number={o.number} onAdded={onReorderAdded} compact />}</Td>
               </tr>
             ))}
           </tbody>
         </table>
-      </div>
+      </TableFrame>
     </div>
   );
 }

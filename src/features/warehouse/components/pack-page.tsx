@@ -7,6 +7,7 @@ import type { OrderDetail } from '../../../../shared/schemas/orders';
 import { CARRIERS, DispatchSchema, PackSchema } from '../../../../shared/schemas/warehouse';
 import { Button, buttonClass } from '../../../components/ui/button';
 import { ErrorState, LoadingState } from '../../../components/ui/states';
+import { TableFrame, Td, Th } from '../../../components/ui/table';
 import { ApiError } from '../../../lib/api-client';
 import { useDispatchOrder } from '../api/dispatch-order';
 import { useOrder } from '../../../lib/orders';
@@ -104,31 +105,33 @@ export function PackPage({ number }: { number: string }) {
 
 function PackedLines({ order }: { order: OrderDetail }) {
   return (
-    <div className="relative overflow-x-auto rounded-md border border-cast-line bg-white">
-      <table className="w-full text-left">
+    <TableFrame>
+      <table className="w-full border-collapse text-left">
         <caption className="sr-only">Lines in this order</caption>
         <thead className="bg-panel">
           <tr>
-            <th scope="col" className="px-3 py-2">Part number</th>
-            <th scope="col" className="px-3 py-2">Title</th>
-            <th scope="col" className="px-3 py-2 text-right">Ordered</th>
-            <th scope="col" className="px-3 py-2 text-right">Picked</th>
-            <th scope="col" className="px-3 py-2 text-right">Back-ordered</th>
+            <Th>Part number</Th>
+            <Th>Title</Th>
+            <Th numeric>Ordered</Th>
+            <Th numeric>Picked</Th>
+            <Th numeric>Back-ordered</Th>
           </tr>
         </thead>
         <tbody>
           {order.lines.map((l) => (
-            <tr key={l.id} className="border-t border-cast-line">
-              <td className="part-no px-3 py-2 text-lg">{l.partNumber}</td>
-              <td className="px-3 py-2">{l.title}</td>
-              <td className="tabular px-3 py-2 text-right">{l.quantity}</td>
-              <td className="tabular px-3 py-2 text-right font-semibold">{l.quantityPicked}</td>
-              <td className="tabular px-3 py-2 text-right">{l.quantityBackordered > 0 ? <span className="font-semibold text-amber">{l.quantityBackordered}</span> : '—'}</td>
+            <tr key={l.id} className="border-t border-cast-line first:border-t-0">
+              <Td className="part-no text-lg">{l.partNumber}</Td>
+              <Td>{l.title}</Td>
+              <Td numeric>{l.quantity}</Td>
+              <Td numeric className="font-semibold">
+                {l.quantityPicked}
+              </Td>
+              <Td numeric>{l.quantityBackordered > 0 ? <span className="font-semibold text-amber">{l.quantityBackordered}</span> : '—'}</Td>
             </tr>
           ))}
         </tbody>
       </table>
-    </div>
+    </TableFrame>
   );
 }
 

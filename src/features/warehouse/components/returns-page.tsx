@@ -7,6 +7,7 @@ import { formatPrice } from '../../../../shared/catalog';
 import { CONDITION_GRADE_KEYS, CONDITION_GRADES, RETURN_KINDS, ReturnDecisionSchema, type ReturnDecision, type ReturnView } from '../../../../shared/schemas/warehouse';
 import { Button } from '../../../components/ui/button';
 import { StatusBadge } from '../../../components/ui/status-badge';
+import { TableFrame, Td, Th } from '../../../components/ui/table';
 import { EmptyState, ErrorState, LoadingState } from '../../../components/ui/states';
 import { useDecideReturn } from '../api/decide-return';
 import { useReturns, type ReturnFilter } from '../api/get-returns';
@@ -48,53 +49,53 @@ export function ReturnsPage({ status, openId, onStatus, onOpen }: { status: Retu
       ) : list.data.items.length === 0 ? (
         <EmptyState title={status === 'requested' ? 'No returns waiting' : 'No returns yet'}>Returns and exchange cores that customers send back appear here.</EmptyState>
       ) : (
-        <div className="relative overflow-x-auto rounded-md border border-cast-line bg-white">
-          <table className="w-full text-left">
+        <TableFrame>
+          <table className="w-full border-collapse text-left">
             <caption className="sr-only">{status === 'requested' ? 'Returns waiting to be received' : 'All returns'}, newest first</caption>
             <thead className="bg-panel">
               <tr>
-                <th scope="col" className="px-3 py-2">Return</th>
-                <th scope="col" className="px-3 py-2">Asked</th>
-                <th scope="col" className="px-3 py-2">Customer</th>
-                <th scope="col" className="px-3 py-2">Part</th>
-                <th scope="col" className="px-3 py-2">Why</th>
-                <th scope="col" className="px-3 py-2 text-right">Qty</th>
-                <th scope="col" className="px-3 py-2">Status</th>
-                <th scope="col" className="px-3 py-2">
+                <Th density="floor">Return</Th>
+                <Th density="floor">Asked</Th>
+                <Th density="floor">Customer</Th>
+                <Th density="floor">Part</Th>
+                <Th density="floor">Why</Th>
+                <Th numeric density="floor">Qty</Th>
+                <Th density="floor">Status</Th>
+                <Th density="floor">
                   <span className="sr-only">Actions</span>
-                </th>
+                </Th>
               </tr>
             </thead>
             <tbody>
               {list.data.items.map((r) => (
-                <tr key={r.id} className={`border-t border-cast-line ${r.id === openId ? 'bg-temper-tint/60' : ''}`}>
-                  <td className="part-no px-3 py-1">{r.reference}</td>
-                  <td className="whitespace-nowrap px-3 py-1">{formatDateTime(r.createdAt)}</td>
-                  <td className="px-3 py-1">
+                <tr key={r.id} className={`border-t border-cast-line first:border-t-0 ${r.id === openId ? 'bg-temper-tint/60' : ''}`}>
+                  <Td density="floor" className="part-no">{r.reference}</Td>
+                  <Td density="floor" className="whitespace-nowrap">{formatDateTime(r.createdAt)}</Td>
+                  <Td density="floor">
                     {r.customer}
                     <span className="block text-sm text-cast">
                       order <span className="part-no">{r.orderNumber}</span>
                     </span>
-                  </td>
-                  <td className="px-3 py-1">
+                  </Td>
+                  <Td density="floor">
                     <span className="part-no">{r.partNumber}</span>
                     <span className="block max-w-64 truncate text-sm text-cast">{r.title}</span>
-                  </td>
-                  <td className="px-3 py-1">{RETURN_KINDS[r.kind]}</td>
-                  <td className="tabular px-3 py-1 text-right">{r.quantity}</td>
-                  <td className="px-3 py-1">
+                  </Td>
+                  <Td density="floor">{RETURN_KINDS[r.kind]}</Td>
+                  <Td numeric density="floor">{r.quantity}</Td>
+                  <Td density="floor">
                     <StatusBadge kind="return" status={r.status} />
-                  </td>
-                  <td className="px-3 py-1 text-right">
+                  </Td>
+                  <Td density="floor" className="text-right">
                     <Button variant="secondary" className="min-h-12" onClick={() => onOpen(r.id)} aria-label={`Open ${r.reference}`}>
                       {r.status === 'requested' ? 'Receive' : 'View'}
                     </Button>
-                  </td>
+                  </Td>
                 </tr>
               ))}
             </tbody>
           </table>
-        </div>
+        </TableFrame>
       )}
     </div>
   );

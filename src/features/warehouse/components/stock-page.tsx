@@ -6,6 +6,8 @@ import type { z } from 'zod';
 import { AdjustmentSchema, type StockDetailSchema } from '../../../../shared/schemas/warehouse';
 import { Button } from '../../../components/ui/button';
 import { EmptyState, ErrorState, LoadingState } from '../../../components/ui/states';
+import { StatusBadge } from '../../../components/ui/status-badge';
+import { TableFrame, Td, Th } from '../../../components/ui/table';
 import { ApiError } from '../../../lib/api-client';
 import { useAdjustStock, type Adjustment } from '../api/adjust-stock';
 import { useBins } from '../api/get-bins';
@@ -90,28 +92,36 @@ function PartStock({ partNumber }: { partNumber: string }) {
       {s.bins.length === 0 ? (
         <EmptyState title="Not stocked in any bin">Receive it on Goods in to give it a bin.</EmptyState>
       ) : (
-        <div className="relative overflow-x-auto rounded-md border border-cast-line bg-white">
-          <table className="w-full text-left">
+        <TableFrame>
+          <table className="w-full border-collapse text-left">
             <caption className="sr-only">Bins holding {s.partNumber}, with the ledger sums beside the counts</caption>
             <thead className="bg-panel">
               <tr>
-                <th scope="col" className="px-3 py-2">Bin</th>
-                <th scope="col" className="px-3 py-2 text-right">On hand</th>
-                <th scope="col" className="px-3 py-2 text-right">Ledger on hand</th>
-                <th scope="col" className="px-3 py-2 text-right">Reserved</th>
-                <th scope="col" className="px-3 py-2 text-right">Ledger reserved</th>
-                <th scope="col" className="px-3 py-2">Check</th>
+                <Th>Bin</Th>
+                <Th numeric>On hand</Th>
+                <Th numeric>Ledger on hand</Th>
+                <Th numeric>Reserved</Th>
+                <Th numeric>Ledger reserved</Th>
+                <Th>Check</Th>
               </tr>
             </thead>
             <tbody>
               {s.bins.map((b) => (
-                <tr key={b.binCode} className={`border-t border-cast-line ${ledgerAgrees(b) ? '' : 'bg-oxide-tint'}`}>
-                  <td className="part-no px-3 py-2 text-2xl">{b.binCode}</td>
-                  <td className="tabular px-3 py-2 text-right text-xl font-bold">{b.onHand}</td>
-                  <td className="tabular px-3 py-2 text-right text-xl">{b.ledgerOnHand}</td>
-                  <td className="tabular px-3 py-2 text-right text-xl">{b.reserved}</td>
-                  <td className="tabular px-3 py-2 text-right text-xl">{b.ledgerReserved}</td>
-                  <td className="px-3 py-2">
+                <tr key={b.binCode} className={`border-t border-cast-line first:border-t-0 ${ledgerAgrees(b) ? '' : 'bg-oxide-tint'}`}>
+                  <Td className="part-no text-2xl">{b.binCode}</Td>
+                  <Td numeric className="text-xl font-bold">
+                    {b.onHand}
+                  </Td>
+                  <Td numeric className="text-xl">
+                    {b.ledgerOnHand}
+                  </Td>
+                  <Td numeric className="text-xl">
+                    {b.reserved}
+                  </Td>
+                  <Td numeric className="text-xl">
+                    {b.ledgerReserved}
+                  </Td>
+                  <Td>
                     {ledgerAgrees(b) ? (
                       <span className="inline-flex items-center gap-1 font-semibold text-machined">
                         <CircleCheckBig aria-hidden className="size-5" />
@@ -123,12 +133,12 @@ function PartStock({ partNumber }: { partNumber: string }) {
                         MISMATCH
                       </span>
                     )}
-                  </td>
+                  </Td>
                 </tr>
               ))}
             </tbody>
           </table>
-        </div>
+        </TableFrame>
       )}
       <AdjustForm detail={s} />
       <Movements detail={s} />
@@ -224,35 +234,35 @@ function Movements({ detail }: { detail: StockDetail }) {
       {detail.movements.length === 0 ? (
         <EmptyState title="No movements yet" />
       ) : (
-        <div className="relative max-h-[60vh] overflow-auto rounded-md border border-cast-line bg-white">
-          <table className="w-full text-left">
+        <TableFrame maxHeight="max-h-[60vh]">
+          <table className="w-full border-collapse text-left">
             <caption className="sr-only">Ledger movements for {detail.partNumber}, newest first</caption>
-            <thead className="sticky top-0 bg-panel">
+            <thead className="sticky top-0 z-10 bg-panel">
               <tr>
-                <th scope="col" className="px-3 py-2">When</th>
-                <th scope="col" className="px-3 py-2">Bin</th>
-                <th scope="col" className="px-3 py-2">Kind</th>
-                <th scope="col" className="px-3 py-2 text-right">On hand</th>
-                <th scope="col" className="px-3 py-2 text-right">Reserved</th>
-                <th scope="col" className="px-3 py-2">Order</th>
-                <th scope="col" className="px-3 py-2">Note</th>
+                <Th>When</Th>
+                <Th>Bin</Th>
+                <Th>Kind</Th>
+                <Th numeric>On hand</Th>
+                <Th numeric>Reserved</Th>
+                <Th>Order</Th>
+                <Th>Note</Th>
               </tr>
             </thead>
             <tbody>
               {detail.movements.map((m) => (
-                <tr key={m.id} className="border-t border-cast-line">
-                  <td className="whitespace-nowrap px-3 py-2">{formatDateTime(m.createdAt)}</td>
-                  <td className="part-no px-3 py-2">{m.binCode}</td>
-                  <td className="px-3 py-2 font-semibold">{m.kind}</td>
-                  <td className="tabular px-3 py-2 text-right">{m.onHandDelta === 0 ? '—' : signed(m.onHandDelta)}</td>
-                  <td className="tabular px-3 py-2 text-right">{m.reservedDelta === 0 ? '—' : signed(m.reservedDelta)}</td>
-                  <td className="part-no px-3 py-2">{m.orderNumber ?? '—'}</td>
-                  <td className="px-3 py-2 text-cast">{m.note ?? ''}</td>
+                <tr key={m.id} className="border-t border-cast-line first:border-t-0">
+                  <Td className="whitespace-nowrap">{formatDateTime(m.createdAt)}</Td>
+                  <Td className="part-no">{m.binCode}</Td>
+                  <Td className="font-semibold">{m.kind}</Td>
+                  <Td numeric>{m.onHandDelta === 0 ? '—' : signed(m.onHandDelta)}</Td>
+                  <Td numeric>{m.reservedDelta === 0 ? '—' : signed(m.reservedDelta)}</Td>
+                  <Td className="part-no">{m.orderNumber ?? '—'}</Td>
+                  <Td className="text-cast">{m.note ?? ''}</Td>
                 </tr>
               ))}
             </tbody>
           </table>
-        </div>
+        </TableFrame>
       )}
     </section>
   );
@@ -273,42 +283,41 @@ function LowStock({ onLookUp }: { onLookUp: (partNumber: string) => void }) {
       ) : low.data.items.length === 0 ? (
         <EmptyState title="Nothing is low">Every active part is above its minimum.</EmptyState>
       ) : (
-        <div className="relative max-h-[60vh] overflow-auto rounded-md border border-cast-line bg-white">
-          <table className="w-full text-left">
+        <TableFrame maxHeight="max-h-[60vh]">
+          <table className="w-full border-collapse text-left">
             <caption className="sr-only">Parts at or under their minimum stock</caption>
-            <thead className="sticky top-0 bg-panel">
+            <thead className="sticky top-0 z-10 bg-panel">
               <tr>
-                <th scope="col" className="px-3 py-2">Part number</th>
-                <th scope="col" className="px-3 py-2">Title</th>
-                <th scope="col" className="px-3 py-2 text-right">Available</th>
-                <th scope="col" className="px-3 py-2 text-right">On hand</th>
-                <th scope="col" className="px-3 py-2 text-right">Minimum</th>
-                <th scope="col" className="px-3 py-2 text-right">Back-orders waiting</th>
+                <Th density="floor">Part number</Th>
+                <Th density="floor">Title</Th>
+                <Th numeric density="floor">Available</Th>
+                <Th numeric density="floor">On hand</Th>
+                <Th numeric density="floor">Minimum</Th>
+                <Th numeric density="floor">Back-orders waiting</Th>
               </tr>
             </thead>
             <tbody>
               {low.data.items.map((i) => (
-                <tr key={i.partNumber} className="border-t border-cast-line">
-                  <td className="px-3 py-1">
+                <tr key={i.partNumber} className="border-t border-cast-line first:border-t-0">
+                  <Td density="floor">
                     <button type="button" onClick={() => onLookUp(i.partNumber)} className="part-no min-h-12 text-lg text-temper underline-offset-2 hover:underline">
                       {i.partNumber}
                     </button>
-                  </td>
-                  <td className="px-3 py-1">{i.title}</td>
-                  <td className="tabular px-3 py-1 text-right font-semibold">
-                    <span className="inline-flex items-center gap-1 text-amber">
-                      <TriangleAlert aria-hidden className="size-4" />
+                  </Td>
+                  <Td density="floor">{i.title}</Td>
+                  <Td numeric density="floor">
+                    <StatusBadge kind="stock" status="low" look="plain">
                       {i.available}
-                    </span>
-                  </td>
-                  <td className="tabular px-3 py-1 text-right">{i.onHand}</td>
-                  <td className="tabular px-3 py-1 text-right">{i.minStock}</td>
-                  <td className="tabular px-3 py-1 text-right">{i.waitingBackorders > 0 ? <span className="font-bold text-oxide">{i.waitingBackorders}</span> : '—'}</td>
+                    </StatusBadge>
+                  </Td>
+                  <Td numeric density="floor">{i.onHand}</Td>
+                  <Td numeric density="floor">{i.minStock}</Td>
+                  <Td numeric density="floor">{i.waitingBackorders > 0 ? <span className="font-bold text-oxide">{i.waitingBackorders}</span> : '—'}</Td>
                 </tr>
               ))}
             </tbody>
           </table>
-        </div>
+        </TableFrame>
       )}
     </section>
   );
