@@ -36,6 +36,11 @@ export function openBalanceCents(orders: readonly CreditOrder[]): number {
   return orders.reduce((sum, o) => (isOpenInvoice(o) ? sum + invoiceOpenCents(o) : sum), 0);
 }
 
+/** What a dealer may still buy on account: the limit less the open balance, never below nothing. */
+export function availableCreditCents(input: { openBalanceCents: number; creditLimitCents: number }): number {
+  return Math.max(0, input.creditLimitCents - input.openBalanceCents);
+}
+
 export type CreditCheck = { fits: true; balanceAfterCents: number } | { fits: false; balanceAfterCents: number; message: string };
 
 /** An order fits when the open balance with it stays at or under the limit; otherwise the buyer is told why. */

@@ -1,6 +1,6 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { checkCredit, invoiceDueDate, isOpenInvoice, openBalanceCents, type CreditOrder } from '../../shared/credit';
+import { availableCreditCents, checkCredit, invoiceDueDate, isOpenInvoice, openBalanceCents, type CreditOrder } from '../../shared/credit';
 import { ORDER_STATUS_KEYS } from '../../shared/schemas/orders';
 
 function createOrder(overrides: Partial<CreditOrder> = {}): CreditOrder {
@@ -71,6 +71,26 @@ describe('credit check', () => {
 
   it('refuses any order on account when the limit is zero', () => {
     expect(checkCredit({ openBalanceCents: 0, orderCents: 1, creditLimitCents: 0 }).fits).toBe(false);
+  });
+});
+
+describe('available credit', () => {
+  it('is the limit less the open balance', () => {
+    expect(availableCreditCents({ openBalanceCents: 350_000, creditLimitCents: 1_000_000 })).toBe(650_000);
+  });
+
+  it('is nothing, not a negative amount, once the balance is over the limit', () => {
+    expect(availableCreditCents({ openBalanceCents: 1_200_000, creditLimitCents: 1_000_000 })).toBe(0);
+  });
+
+  it('is the most an order may be and still pass the credit check', () => {
+    fc.assert(
+      fc.property(fc.nat(100_000_000), fc.nat(100_000_000), (openBalance, limit) => {
+        const available = availableCreditCents({ openBalanceCents: openBalance, creditLimitCents: limit });
+        if (available > 0) expect(checkCredit({ openBalanceCents: openBalance, orderCents: available, creditLimitCents: limit }).fits).toBe(true);
+        expect(checkCredit({ openBalanceCents: openBalance, orderCents: available + 1, creditLimitCents: limit }).fits).toBe(false);
+      }),
+    );
   });
 });
 

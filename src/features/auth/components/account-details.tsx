@@ -1,6 +1,7 @@
 import { BadgeCheck, CircleSlash, Clock } from 'lucide-react';
 import type { ReactNode } from 'react';
 import { formatPrice } from '../../../../shared/catalog';
+import { availableCreditCents } from '../../../../shared/credit';
 import type { Me } from '../../../../shared/schemas/accounts';
 import { DEALER_TIERS } from '../../../../shared/pricing';
 import { ROLE_LABELS } from '../roles';
@@ -38,7 +39,7 @@ export function AccountDetails({ user }: { user: User }) {
 export function DealerTerms({ dealer }: { dealer: Dealer }) {
   const tier = dealer.tier ? DEALER_TIERS[dealer.tier] : null;
   const balance = dealer.openBalanceCents ?? 0;
-  const available = Math.max(0, dealer.creditLimitCents - balance);
+  const available = availableCreditCents({ openBalanceCents: balance, creditLimitCents: dealer.creditLimitCents });
   return (
     <section aria-labelledby="account-trade" className="rounded-md border border-cast-line bg-white p-4">
       <h2 id="account-trade" className="text-xl font-bold">

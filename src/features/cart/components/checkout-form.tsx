@@ -4,7 +4,7 @@ import { lazy, Suspense, useRef, useState } from 'react';
 import { useForm, type FieldError, type FieldErrors, type Resolver } from 'react-hook-form';
 import { Link } from 'react-router-dom';
 import { formatPrice } from '../../../../shared/catalog';
-import { checkCredit } from '../../../../shared/credit';
+import { availableCreditCents, checkCredit } from '../../../../shared/credit';
 import { DELIVERY_ZONE_KEYS, DELIVERY_ZONES, type DeliveryZone } from '../../../../shared/pricing';
 import type { Me } from '../../../../shared/schemas/accounts';
 import { CheckoutSchema, PURCHASE_ORDER_MAX, type CartView, type Checkout } from '../../../../shared/schemas/orders';
@@ -104,7 +104,7 @@ function CreditCheck({ dealer, orderCents }: { dealer: NonNullable<NonNullable<M
       ) : (
         <p className="inline-flex items-start gap-1 text-sm text-machined">
           <CircleCheck aria-hidden className="mt-0.5 size-4 shrink-0" />
-          Within your credit limit ({formatPrice(dealer.creditLimitCents - after)} to spare).
+          Within your credit limit ({formatPrice(availableCreditCents({ openBalanceCents: after, creditLimitCents: dealer.creditLimitCents }))} to spare).
         </p>
       )}
     </section>
