@@ -94,7 +94,9 @@ export function createApp(deps: AppDeps) {
   const partPhotosDir = path.join(config.uploadsDir, 'parts');
   const warehouse = createWarehouseService({ db, stock, notify: notifications.warehouse });
   const returns = createReturnsService({ db, stock, payments: deps.payments, notify: notifications.returns, photosDir: returnPhotosDir, taxRatePct: config.taxRatePct });
-  const shaftLogs = createShaftLogService({ db, fitment: createFitmentService(db) });
+  // One fitment service: the check, the saved checks and the shaft logs share its parsed frames and map tables.
+  const fitment = createFitmentService(db);
+  const shaftLogs = createShaftLogService({ db, fitment });
   const catalogAdmin = createCatalogAdmin({ db, refreshSearch: (ids) => search.refresh(ids), rebuildSearch: () => search.rebuild() });
   const auth = createAuth({
     db,
@@ -181,9 +183,9 @@ export function createApp(deps: AppDeps) {
       ...(config.devTools && config.demoAccounts ? { demoAccounts: config.demoAccounts } : {}),
     }),
   );
-  app.use('/api/fitment', fitmentRouter({ db }));
+  app.use('/api/fitment', fitmentRouter({ fitment }));
   app.use('/api/fitments/:fitmentId/shaft-logs', shaftLogsRouter(shaftLogs));
-  app.use('/api/fitments', savedFitmentsRouter({ db }));
+  app.use('/api/fitments', savedFitmentsRouter({ fitment }));
   app.use('/api/cart', cartRouter(cart));
   app.use('/api/checkout', checkoutRouter(orders, cart));
   app.use('/api/orders', ordersRouter(orders));
@@ -202,5 +204,5 @@ export function createApp(deps: AppDeps) {
     });
   }
   app.use(createErrorHandler(log));
-  return { app, search, catalog, stock, cart, orders, dealers, auth, notifications, warehouse, returns, catalogAdmin, shaftLogs };
+  return { app, search, catalog, stock, cart, orders, dealers, auth, notifications, warehouse, returns, catalogAdmin, shaftLogs, fitment };
 }

@@ -1,21 +1,9 @@
 import { Router } from 'express';
-import type { Db } from '../db/client';
 import { FitmentRequestSchema } from '../../shared/schemas/fitment';
 import { SaveFitmentSchema } from '../../shared/schemas/saved-fitments';
 import { HttpError, parseOr400 } from '../middleware/errors';
 import { requireUser } from '../middleware/session';
-import { createFitmentService, type FitmentService } from '../services/fitment';
-
-// Both routers share one service per database, so the frames are read and parsed once.
-const services = new WeakMap<Db, FitmentService>();
-function serviceFor(db: Db): FitmentService {
-  let service = services.get(db);
-  if (!service) {
-    service = createFitmentService(db);
-    services.set(db, service);
-  }
-  return service;
-}
+import type { FitmentService } from '../services/fitment';
 
 /**
  * The request schema's power check is a refinement, which zod runs only once every other field parses; a body
@@ -36,8 +24,8 @@ function parseFitmentRequest(body: unknown) {
 const idOf = (raw: string | undefined) => (raw && /^\d{1,12}$/.test(raw) ? Number(raw) : Number.NaN);
 
 /** POST /api/fitment — the fitment check; GET /api/fitment/frames — the frames' compressor maps for the chart. */
-export function fitmentRouter(deps: { db: Db }): Router {
-  const fitment = serviceFor(deps.db);
+export function fitmentRouter(deps: { fitment: FitmentService }): Router {
+  const { fitment } = deps;
   const router = Router();
   router.post('/', (req, res) => {
     const input = parseFitmentRequest(req.body);
@@ -51,8 +39,8 @@ export function fitmentRouter(deps: { db: Db }): Router {
 }
 
 /** /api/fitments — a signed-in user's saved checks; another user's check answers 404, as if it did not exist. */
-export function savedFitmentsRouter(deps: { db: Db }): Router {
-  const fitment = serviceFor(deps.db);
+export function savedFitmentsRouter(deps: { fitment: FitmentService }): Router {
+  const { fitment } = deps;
   const router = Router();
   router.get('/', (_req, res) => {
     const user = requireUser(res);
