@@ -14,12 +14,13 @@ import {
   ShaftLogsResponseSchema,
 } from '../../shared/schemas/shaft-logs';
 import { formatShaftLogCsv, parseShaftLogCsv } from '../../shared/shaft-log-csv';
+import { createCustomer, createDealer } from '../support/factories';
 import { signIn, type Client } from '../support/session';
 import { startTestApp, type TestApp } from '../support/test-app';
 
 let t: TestApp;
 let retail: Client;
-let dealer2: Client;
+let otherDealer: Client;
 let check: SavedFitment;
 let sampleCsv: string;
 
@@ -35,9 +36,9 @@ function csvForm(csv: string, fields: Record<string, string>, fileName = 'pull.c
 }
 
 beforeAll(async () => {
+  // Seeded for the test of the demo dealer's logged check; the other tests use users of their own.
   t = await startTestApp({ accounts: true });
-  retail = await signIn(t, 'retail@spoolyard.test');
-  dealer2 = await signIn(t, 'dealer2@spoolyard.test');
+  [retail, otherDealer] = (await Promise.all([createCustomer(t), createDealer(t)])).map((u) => u.client) as [Client, Client];
   const saved = await retail.send('POST', '/api/fitments', { name: 'logged street car', input: INPUT });
   expect(saved.status, JSON.stringify(saved.body)).toBe(201);
   check = SavedFitmentSchema.parse(saved.body);
@@ -164,11 +165,11 @@ describe('/api/fitments/:id/shaft-logs', () => {
   it('shows a check’s logs to its owner only: anyone else is told there is no such check', async () => {
     const [log] = ShaftLogsResponseSchema.parse((await retail.get(base())).body).items;
     if (!log) throw new Error('no log');
-    expect((await dealer2.get(base())).status).toBe(404);
-    expect((await dealer2.get(`${base()}/${log.id}`)).status).toBe(404);
-    expect((await dealer2.get(`${base()}/sample.csv?frameCode=${check.bestFrameCode}`)).status).toBe(404);
-    expect((await dealer2.upload(base(), csvForm(sampleCsv, { frameCode: check.bestFrameCode ?? '' }))).status).toBe(404);
-    expect((await dealer2.send('DELETE', `${base()}/${log.id}`)).status).toBe(404);
+    expect((await otherDealer.get(base())).status).toBe(404);
+    expect((await otherDealer.get(`${base()}/${log.id}`)).status).toBe(404);
+    expect((await otherDealer.get(`${base()}/sample.csv?frameCode=${check.bestFrameCode}`)).status).toBe(404);
+    expect((await otherDealer.upload(base(), csvForm(sampleCsv, { frameCode: check.bestFrameCode ?? '' }))).status).toBe(404);
+    expect((await otherDealer.send('DELETE', `${base()}/${log.id}`)).status).toBe(404);
     // A log id under another of the owner's checks is not found either.
     const other = SavedFitmentSchema.parse((await retail.send('POST', '/api/fitments', { name: 'second car', input: { ...INPUT, powerHp: 200 } })).body);
     expect((await retail.get(`/api/fitments/${other.id}/shaft-logs/${log.id}`)).status).toBe(404);
