@@ -43,22 +43,21 @@ export function changeFeedFor(db: Db): ChangeFeed {
 }
 
 function createChangeFeed(db: Db): ChangeFeed {
-  const dataVersion = db.$client.prepare('PRAGMA data_version').pluck();
-  const ownWrites = db.$client.prepare('SELECT total_changes()').pluck();
-  const latestPartChange = db.select({ id: max(partChanges.id) }).from(partChanges).prepare();
-  const counters = db.select().from(changeVersions).prepare();
+  // The two raw reads (see the comment on ChangeVersions): a pragma and a FROM-less select.
+  const dataVersion = () => db.$client.pragma('data_version', { simple: true });
+  const ownWrites = () => db.get<{ n: number }>(sql`SELECT total_changes() AS n`).n;
   let seenData = -1;
   let seenOwn = -1;
   let versions: ChangeVersions = { parts: 0, stock: 0, frames: 0, search: 0 };
 
   function current(): ChangeVersions {
-    const data = Number(dataVersion.get());
-    const own = Number(ownWrites.get());
+    const data = Number(dataVersion());
+    const own = Number(ownWrites());
     if (data !== seenData || own !== seenOwn) {
       seenData = data;
       seenOwn = own;
-      const next: ChangeVersions = { parts: latestPartChange.get()?.id ?? 0, stock: 0, frames: 0, search: 0 };
-      for (const row of counters.all()) next[row.topic] = row.version;
+      const next: ChangeVersions = { parts: db.select({ id: max(partChanges.id) }).from(partChanges).get()?.id ?? 0, stock: 0, frames: 0, search: 0 };
+      for (const row of db.select().from(changeVersions).all()) next[row.topic] = row.version;
       if (next.parts !== versions.parts || next.stock !== versions.stock || next.frames !== versions.frames || next.search !== versions.search) versions = next;
     }
     return versions;

@@ -1,6 +1,6 @@
 import type { NextFunction, Request, RequestHandler, Response } from 'express';
 import { fromNodeHeaders } from 'better-auth/node';
-import { eq, sql } from 'drizzle-orm';
+import { eq } from 'drizzle-orm';
 import type { Db } from '../db/client';
 import { dealerAccounts, dealerMembers } from '../db/schema';
 import type { Auth, Role } from '../services/auth';
@@ -9,25 +9,25 @@ import { HttpError } from './errors';
 
 /** Reads the session cookie once per request; routes ask for the user through currentUser(). */
 export function loadSession(auth: Auth, db: Db): RequestHandler {
-  // Runs on every signed-in request: prepared once.
-  const dealerOf = db
-    .select({
-      id: dealerAccounts.id,
-      companyName: dealerAccounts.companyName,
-      status: dealerAccounts.status,
-      tier: dealerAccounts.tier,
-      creditLimitCents: dealerAccounts.creditLimitCents,
-      paymentTermsDays: dealerAccounts.paymentTermsDays,
-      deliveryZone: dealerAccounts.deliveryZone,
-      declineReason: dealerAccounts.declineReason,
-      line1: dealerAccounts.addressLine1,
-      city: dealerAccounts.city,
-      postcode: dealerAccounts.postcode,
-    })
-    .from(dealerMembers)
-    .innerJoin(dealerAccounts, eq(dealerAccounts.id, dealerMembers.dealerAccountId))
-    .where(eq(dealerMembers.userId, sql.placeholder('userId')))
-    .prepare();
+  const dealerOf = (userId: string) =>
+    db
+      .select({
+        id: dealerAccounts.id,
+        companyName: dealerAccounts.companyName,
+        status: dealerAccounts.status,
+        tier: dealerAccounts.tier,
+        creditLimitCents: dealerAccounts.creditLimitCents,
+        paymentTermsDays: dealerAccounts.paymentTermsDays,
+        deliveryZone: dealerAccounts.deliveryZone,
+        declineReason: dealerAccounts.declineReason,
+        line1: dealerAccounts.addressLine1,
+        city: dealerAccounts.city,
+        postcode: dealerAccounts.postcode,
+      })
+      .from(dealerMembers)
+      .innerJoin(dealerAccounts, eq(dealerAccounts.id, dealerMembers.dealerAccountId))
+      .where(eq(dealerMembers.userId, userId))
+      .get();
   return async (req, res, next) => {
     // Most catalogue requests carry no session cookie: skip the look-up for them.
     if (!req.headers.cookie?.includes('better-auth.session_token')) return next();
@@ -40,7 +40,7 @@ export function loadSession(auth: Auth, db: Db): RequestHandler {
           email: result.user.email,
           name: result.user.name,
           role,
-          dealer: dealerInfo(dealerOf.get({ userId: result.user.id })),
+          dealer: dealerInfo(dealerOf(result.user.id)),
         } satisfies CurrentUser;
       }
       next();

@@ -62,30 +62,29 @@ export function compatibilityWarnings(lines: Array<{ lineId: number; partNumber:
 }
 
 export function createCartService(db: Db, search: SearchService, config: { taxRatePct: number }) {
-  // Read on every cart request and for each row of a quick order or stock-list upload (up to 500 rows), so
-  // these are built and prepared once.
-  const partBy = (where: SQL) => db.select(partColumns).from(parts).leftJoin(partSpecs, eq(partSpecs.partId, parts.id)).where(where).prepare();
-  const partByNumber = partBy(eq(parts.normalizedNumber, sql.placeholder('number')));
-  const partById = partBy(eq(parts.id, sql.placeholder('id')));
-  const cartByUser = db.select({ id: carts.id, zone: carts.deliveryZone }).from(carts).where(eq(carts.userId, sql.placeholder('userId'))).prepare();
-  const cartByGuest = db.select({ id: carts.id, zone: carts.deliveryZone }).from(carts).where(eq(carts.guestToken, sql.placeholder('guestToken'))).prepare();
-  const linesOf = db
-    .select({
-      lineId: cartLines.id,
-      quantity: cartLines.quantity,
-      allowBackorder: cartLines.allowBackorder,
-      fitmentId: cartLines.fitmentId,
-      fitmentName: savedFitments.name,
-      fitmentSummary: savedFitments.summary,
-      ...partColumns,
-    })
-    .from(cartLines)
-    .innerJoin(parts, eq(parts.id, cartLines.partId))
-    .leftJoin(partSpecs, eq(partSpecs.partId, parts.id))
-    .leftJoin(savedFitments, eq(savedFitments.id, cartLines.fitmentId))
-    .where(eq(cartLines.cartId, sql.placeholder('cartId')))
-    .orderBy(cartLines.id)
-    .prepare();
+  const partBy = (where: SQL) => db.select(partColumns).from(parts).leftJoin(partSpecs, eq(partSpecs.partId, parts.id)).where(where).get();
+  const partByNumber = (number: string) => partBy(eq(parts.normalizedNumber, number));
+  const partById = (id: number) => partBy(eq(parts.id, id));
+  const cartByUser = (userId: string) => db.select({ id: carts.id, zone: carts.deliveryZone }).from(carts).where(eq(carts.userId, userId)).get();
+  const cartByGuest = (guestToken: string) => db.select({ id: carts.id, zone: carts.deliveryZone }).from(carts).where(eq(carts.guestToken, guestToken)).get();
+  const linesOf = (cartId: number) =>
+    db
+      .select({
+        lineId: cartLines.id,
+        quantity: cartLines.quantity,
+        allowBackorder: cartLines.allowBackorder,
+        fitmentId: cartLines.fitmentId,
+        fitmentName: savedFitments.name,
+        fitmentSummary: savedFitments.summary,
+        ...partColumns,
+      })
+      .from(cartLines)
+      .innerJoin(parts, eq(parts.id, cartLines.partId))
+      .leftJoin(partSpecs, eq(partSpecs.partId, parts.id))
+      .leftJoin(savedFitments, eq(savedFitments.id, cartLines.fitmentId))
+      .where(eq(cartLines.cartId, cartId))
+      .orderBy(cartLines.id)
+      .all();
 
   const upsertLine = (line: { cartId: number; partId: number; quantity: number; fitmentId: number | null; allowBackorder: boolean }) =>
     db
@@ -113,7 +112,7 @@ export function createCartService(db: Db, search: SearchService, config: { taxRa
       .where(and(eq(savedFitments.id, fitmentId), eq(savedFitments.userId, userId)))
       .get();
 
-  const cartRow = (owner: CartOwner) => ('userId' in owner ? cartByUser.get({ userId: owner.userId }) : cartByGuest.get({ guestToken: owner.guestToken }));
+  const cartRow = (owner: CartOwner) => ('userId' in owner ? cartByUser(owner.userId) : cartByGuest(owner.guestToken));
 
   function cartId(owner: CartOwner, create: boolean): number | null {
     const found = cartRow(owner);
@@ -129,11 +128,11 @@ export function createCartService(db: Db, search: SearchService, config: { taxRa
 
   /** Resolves a typed number to the part sold today, following supersessions. */
   function resolvePart(typed: string) {
-    let part = partByNumber.get({ number: normalizePartNumber(typed) });
+    let part = partByNumber(normalizePartNumber(typed));
     if (!part) return null;
     let replacedFrom: string | null = null;
     for (let hops = 0; part.status === 'superseded' && part.supersededBy && hops < 5; hops++) {
-      const next = partByNumber.get({ number: normalizePartNumber(part.supersededBy) });
+      const next = partByNumber(normalizePartNumber(part.supersededBy));
       if (!next) break;
       replacedFrom ??= part.partNumber;
       part = next;
@@ -143,7 +142,7 @@ export function createCartService(db: Db, search: SearchService, config: { taxRa
 
   function suggestionsFor(typed: string) {
     return search.search(typed, 3).flatMap((h) => {
-      const p = partById.get({ id: h.partId });
+      const p = partById(h.partId);
       return p && p.status !== 'superseded' ? [{ partNumber: p.partNumber, title: p.title }] : [];
     });
   }
@@ -198,7 +197,7 @@ export function createCartService(db: Db, search: SearchService, config: { taxRa
 
   function view(owner: CartOwner, user: CurrentUser | null, notices: string[] = []): CartView {
     const cart = cartRow(owner);
-    const rows = cart ? linesOf.all({ cartId: cart.id }) : [];
+    const rows = cart ? linesOf(cart.id) : [];
     const zone = cart?.zone ?? 'national';
     const buyer = buyerOf(user);
     // A dealer's freight is priced to the trade account's zone; the view reports the zone it priced with.
@@ -295,7 +294,7 @@ export function createCartService(db: Db, search: SearchService, config: { taxRa
   /** At sign-in the guest cart's lines join the user's cart (quantities add up), and the guest cart goes. */
   function mergeGuest(guestToken: string, userId: string) {
     db.transaction((tx) => {
-      const guest = cartByGuest.get({ guestToken });
+      const guest = cartByGuest(guestToken);
       if (!guest) return;
       const target = cartId({ userId }, true)!;
       for (const l of tx.select({ partId: cartLines.partId, quantity: cartLines.quantity }).from(cartLines).where(eq(cartLines.cartId, guest.id)).all()) {

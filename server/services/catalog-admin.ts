@@ -36,40 +36,13 @@ export function createCatalogAdmin(deps: { db: Db; refreshSearch: (ids: number[]
   const { db } = deps;
 
   // Helpers query through db: better-sqlite3 has one connection, so they run inside whichever transaction is open.
-  // A price file has up to 60,000 rows, each checked on upload and again on apply: these run once per row, so
-  // they are built and prepared once.
-  const partByNumber = db
-    .select({ partNumber: parts.partNumber, title: parts.title, price: parts.priceCents, core: parts.coreDepositCents, condition: parts.condition })
-    .from(parts)
-    .where(eq(parts.normalizedNumber, sql.placeholder('number')))
-    .prepare();
-  const frameByCode = db.select({ code: frames.code }).from(frames).where(eq(frames.code, sql.placeholder('code'))).prepare();
-  const updatePrice = db
-    .update(parts)
-    .set({
-      priceCents: sql`${sql.placeholder('priceCents')}`,
-      coreDepositCents: sql`COALESCE(${sql.placeholder('coreDepositCents')}, ${parts.coreDepositCents})`,
-      updatedAt: NOW,
-    })
-    .where(eq(parts.normalizedNumber, sql.placeholder('number')))
-    .returning({ id: parts.id })
-    .prepare();
-  const insertPart = db
-    .insert(parts)
-    .values({
-      partNumber: sql.placeholder('partNumber'),
-      normalizedNumber: sql.placeholder('normalizedNumber'),
-      title: sql.placeholder('title'),
-      category: sql.placeholder('category'),
-      frameCode: sql.placeholder('frameCode'),
-      condition: sql.placeholder('condition'),
-      priceCents: sql.placeholder('priceCents'),
-      coreDepositCents: sql.placeholder('coreDepositCents'),
-      weightGrams: sql.placeholder('weightGrams'),
-    })
-    .returning({ id: parts.id })
-    .prepare();
-  const insertBlankSpecs = db.insert(partSpecs).values({ partId: sql.placeholder('partId') }).prepare();
+  const partByNumber = (number: string) =>
+    db
+      .select({ partNumber: parts.partNumber, title: parts.title, price: parts.priceCents, core: parts.coreDepositCents, condition: parts.condition })
+      .from(parts)
+      .where(eq(parts.normalizedNumber, number))
+      .get();
+  const frameByCode = (code: string) => db.select({ code: frames.code }).from(frames).where(eq(frames.code, code)).get();
 
   const findPart = (partNumber: string) =>
     db
@@ -82,7 +55,7 @@ export function createCatalogAdmin(deps: { db: Db; refreshSearch: (ids: number[]
     if (!part) throw new NotFoundError(`No part ${partNumber}`);
     return part;
   };
-  const frameExists = (code: string) => frameByCode.get({ code }) !== undefined;
+  const frameExists = (code: string) => frameByCode(code) !== undefined;
 
   function getForm(partNumber: string) {
     const { id } = partOr404(partNumber);
@@ -251,7 +224,7 @@ export function createCatalogAdmin(deps: { db: Db; refreshSearch: (ids: number[]
     if (price === null || price <= 0) return { ...base, message: `price “${(input.price ?? '').slice(0, 20)}” is not an amount in dollars such as 123.45` };
     const core = input.core_deposit?.trim() ? parseMoneyToCents(input.core_deposit) : null;
     if (input.core_deposit?.trim() && core === null) return { ...base, message: `core_deposit “${input.core_deposit.slice(0, 20)}” is not an amount in dollars` };
-    const existing = partByNumber.get({ number: normalizePartNumber(partNumber) });
+    const existing = partByNumber(normalizePartNumber(partNumber));
     if (existing) {
       if (core !== null && core > 0 && existing.condition !== 'exchange') return { ...base, title: existing.title, message: 'only exchange units carry a core deposit' };
       const changed = existing.price !== price || (core !== null && core !== existing.core);
@@ -366,22 +339,35 @@ export function createCatalogAdmin(deps: { db: Db; refreshSearch: (ids: number[]
       }
       for (const r of rows) {
         if (r.status === 'changed') {
-          const row = updatePrice.get({ priceCents: r.newPriceCents, coreDepositCents: r.coreDepositCents ?? null, number: normalizePartNumber(r.partNumber) });
+          const row = tx
+            .update(parts)
+            .set({
+              priceCents: r.newPriceCents!,
+              coreDepositCents: sql`COALESCE(${r.coreDepositCents ?? null}, ${parts.coreDepositCents})`,
+              updatedAt: NOW,
+            })
+            .where(eq(parts.normalizedNumber, normalizePartNumber(r.partNumber)))
+            .returning({ id: parts.id })
+            .get();
           if (row) touched.push(row.id);
         } else if (r.status === 'new' && r.create) {
           const c = r.create;
-          const row = insertPart.get({
-            partNumber: r.partNumber,
-            normalizedNumber: normalizePartNumber(r.partNumber),
-            title: c.title,
-            category: c.category,
-            frameCode: c.frameCode,
-            condition: c.coreDepositCents > 0 ? 'exchange' : 'new',
-            priceCents: r.newPriceCents,
-            coreDepositCents: c.coreDepositCents,
-            weightGrams: c.weightGrams,
-          });
-          insertBlankSpecs.run({ partId: row.id });
+          const row = tx
+            .insert(parts)
+            .values({
+              partNumber: r.partNumber,
+              normalizedNumber: normalizePartNumber(r.partNumber),
+              title: c.title,
+              category: c.category,
+              frameCode: c.frameCode,
+              condition: c.coreDepositCents > 0 ? 'exchange' : 'new',
+              priceCents: r.newPriceCents!,
+              coreDepositCents: c.coreDepositCents,
+              weightGrams: c.weightGrams,
+            })
+            .returning({ id: parts.id })
+            .get();
+          tx.insert(partSpecs).values({ partId: row.id }).run();
           touched.push(row.id);
         }
       }

@@ -65,37 +65,37 @@ function whereFor(query: PartsQuery, skip: Filter | null, includeSuperseded: boo
 export function createCatalogService(db: Db, search: SearchService) {
   const selectSummary = () => db.select(summaryColumns).from(parts).leftJoin(partSpecs, specsJoin).leftJoin(frames, framesJoin);
 
-  // The part page runs these on every view and nothing caches it; building the wide summary select costs more than
-  // running it, so they are built and prepared once.
-  const partByNumber = db
-    .select({ ...summaryColumns, description: parts.description, images: parts.images })
-    .from(parts)
-    .leftJoin(partSpecs, specsJoin)
-    .leftJoin(frames, framesJoin)
-    .where(eq(parts.normalizedNumber, sql.placeholder('number')))
-    .prepare();
-  const frameByCode = db
-    .select({ code: frames.code, name: frames.name, minHp: frames.powerMinHp, maxHp: frames.powerMaxHp, maxShaftRpm: frames.maxShaftRpm, flangePattern: frames.flangePattern })
-    .from(frames)
-    .where(eq(frames.code, sql.placeholder('code')))
-    .prepare();
-  const aliasesOf = db
-    .select({ alias: partAliases.alias, kind: partAliases.kind, source: partAliases.source })
-    .from(partAliases)
-    .where(eq(partAliases.partId, sql.placeholder('id')))
-    .orderBy(partAliases.alias)
-    .prepare();
-  const summaryById = selectSummary().where(eq(parts.id, sql.placeholder('id'))).prepare();
-  const successorOf = db
-    .select({ id: parts.id, supersededBy: parts.supersededBy })
-    .from(parts)
-    .where(eq(parts.normalizedNumber, sql.placeholder('number')))
-    .prepare();
-  const goesWithOf = selectSummary()
-    .innerJoin(partLinks, eq(partLinks.relatedPartId, parts.id))
-    .where(and(eq(partLinks.partId, sql.placeholder('id')), ne(parts.status, 'superseded')))
-    .orderBy(parts.category, parts.partNumber)
-    .prepare();
+  // The part page's reads, built at the call like every other query.
+  const partByNumber = (number: string) =>
+    db
+      .select({ ...summaryColumns, description: parts.description, images: parts.images })
+      .from(parts)
+      .leftJoin(partSpecs, specsJoin)
+      .leftJoin(frames, framesJoin)
+      .where(eq(parts.normalizedNumber, number))
+      .get();
+  const frameByCode = (code: string) =>
+    db
+      .select({ code: frames.code, name: frames.name, minHp: frames.powerMinHp, maxHp: frames.powerMaxHp, maxShaftRpm: frames.maxShaftRpm, flangePattern: frames.flangePattern })
+      .from(frames)
+      .where(eq(frames.code, code))
+      .get();
+  const aliasesOf = (id: number) =>
+    db
+      .select({ alias: partAliases.alias, kind: partAliases.kind, source: partAliases.source })
+      .from(partAliases)
+      .where(eq(partAliases.partId, id))
+      .orderBy(partAliases.alias)
+      .all();
+  const summaryById = (id: number) => selectSummary().where(eq(parts.id, id)).get();
+  const successorOf = (number: string) =>
+    db.select({ id: parts.id, supersededBy: parts.supersededBy }).from(parts).where(eq(parts.normalizedNumber, number)).get();
+  const goesWithOf = (id: number) =>
+    selectSummary()
+      .innerJoin(partLinks, eq(partLinks.relatedPartId, parts.id))
+      .where(and(eq(partLinks.partId, id), ne(parts.status, 'superseded')))
+      .orderBy(parts.category, parts.partNumber)
+      .all();
 
   type SummaryRow = ReturnType<ReturnType<typeof selectSummary>['all']>[number];
 
@@ -221,18 +221,18 @@ export function createCatalogService(db: Db, search: SearchService) {
   }
 
   function getPart(partNumber: string, opts: { withBins?: boolean } = {}): PartDetail | null {
-    const row = partByNumber.get({ number: normalizePartNumber(partNumber) });
+    const row = partByNumber(normalizePartNumber(partNumber));
     if (!row) return null;
-    const frame = row.frameCode ? frameByCode.get({ code: row.frameCode }) : undefined;
-    const aliases = aliasesOf.all({ id: row.id });
+    const frame = row.frameCode ? frameByCode(row.frameCode) : undefined;
+    const aliases = aliasesOf(row.id);
     let replacement: PartSummary | null = null;
     if (row.supersededBy) {
       // Follow a chain of supersessions to the part sold today.
       let next: string | null = row.supersededBy;
       for (let hops = 0; next && hops < 5; hops++) {
-        const r = successorOf.get({ number: normalizePartNumber(next) });
+        const r = successorOf(normalizePartNumber(next));
         if (!r) break;
-        const summary = summaryById.get({ id: r.id });
+        const summary = summaryById(r.id);
         replacement = summary ? toSummary(summary) : null;
         next = r.supersededBy;
       }
@@ -245,7 +245,7 @@ export function createCatalogService(db: Db, search: SearchService) {
       crossReferences: aliases.filter((a) => a.kind === 'cross-reference').map((a) => ({ number: a.alias, source: a.source })),
       earlierNumbers: aliases.filter((a) => a.kind === 'superseded').map((a) => a.alias),
       replacement,
-      goesWith: goesWithOf.all({ id: row.id }).map(toSummary),
+      goesWith: goesWithOf(row.id).map(toSummary),
     };
     if (opts.withBins) {
       detail.stockByBin = db

@@ -1,4 +1,4 @@
-import { eq, sql } from 'drizzle-orm';
+import { eq } from 'drizzle-orm';
 import { z } from 'zod';
 import type { Db } from '../db/client';
 import { creditNotes, dealerAccounts, dealerMembers, orderLines, orders, parts, returns, shipments, user } from '../db/schema';
@@ -30,50 +30,50 @@ const categorySlug = z.enum(CATEGORY_SLUGS);
 export function createNotifications(deps: { db: Db; mailer: MailerPort; publicUrl: string; track?: (p: Promise<boolean>) => void }) {
   const { db } = deps;
   const track = deps.track ?? (() => {});
-  // Prepared once: every checkout and every payment webhook loads its order here, on the request's turn of the
-  // event loop, and building and compiling these two per call costs some hundreds of microseconds.
-  const orderRow = db
-    .select({
-      number: orders.number,
-      email: orders.email,
-      userName: user.name,
-      createdAt: orders.createdAt,
-      paymentMethod: orders.paymentMethod,
-      paymentState: orders.paymentState,
-      purchaseOrder: orders.purchaseOrder,
-      paymentTermsDays: orders.paymentTermsDays,
-      goodsCents: orders.goodsCents,
-      discountCents: orders.discountCents,
-      coreDepositCents: orders.coreDepositCents,
-      freightCents: orders.freightCents,
-      taxCents: orders.taxCents,
-      totalCents: orders.totalCents,
-      shipName: orders.shipName,
-      shipLine1: orders.shipLine1,
-      shipCity: orders.shipCity,
-      shipPostcode: orders.shipPostcode,
-      companyName: dealerAccounts.companyName,
-    })
-    .from(orders)
-    .innerJoin(user, eq(user.id, orders.userId))
-    .leftJoin(dealerAccounts, eq(dealerAccounts.id, orders.dealerAccountId))
-    .where(eq(orders.id, sql.placeholder('orderId')))
-    .prepare();
-  const orderLinesOf = db
-    .select({
-      partNumber: orderLines.partNumber,
-      title: orderLines.title,
-      category: parts.category,
-      quantity: orderLines.quantity,
-      unitPriceCents: orderLines.unitPriceCents,
-      coreDepositCents: orderLines.coreDepositCents,
-      backordered: orderLines.quantityBackordered,
-    })
-    .from(orderLines)
-    .innerJoin(parts, eq(parts.id, orderLines.partId))
-    .where(eq(orderLines.orderId, sql.placeholder('orderId')))
-    .orderBy(orderLines.id)
-    .prepare();
+  const orderRow = (orderId: number) =>
+    db
+      .select({
+        number: orders.number,
+        email: orders.email,
+        userName: user.name,
+        createdAt: orders.createdAt,
+        paymentMethod: orders.paymentMethod,
+        paymentState: orders.paymentState,
+        purchaseOrder: orders.purchaseOrder,
+        paymentTermsDays: orders.paymentTermsDays,
+        goodsCents: orders.goodsCents,
+        discountCents: orders.discountCents,
+        coreDepositCents: orders.coreDepositCents,
+        freightCents: orders.freightCents,
+        taxCents: orders.taxCents,
+        totalCents: orders.totalCents,
+        shipName: orders.shipName,
+        shipLine1: orders.shipLine1,
+        shipCity: orders.shipCity,
+        shipPostcode: orders.shipPostcode,
+        companyName: dealerAccounts.companyName,
+      })
+      .from(orders)
+      .innerJoin(user, eq(user.id, orders.userId))
+      .leftJoin(dealerAccounts, eq(dealerAccounts.id, orders.dealerAccountId))
+      .where(eq(orders.id, orderId))
+      .get();
+  const orderLinesOf = (orderId: number) =>
+    db
+      .select({
+        partNumber: orderLines.partNumber,
+        title: orderLines.title,
+        category: parts.category,
+        quantity: orderLines.quantity,
+        unitPriceCents: orderLines.unitPriceCents,
+        coreDepositCents: orderLines.coreDepositCents,
+        backordered: orderLines.quantityBackordered,
+      })
+      .from(orderLines)
+      .innerJoin(parts, eq(parts.id, orderLines.partId))
+      .where(eq(orderLines.orderId, orderId))
+      .orderBy(orderLines.id)
+      .all();
   const dealerRow = (dealerAccountId: number) =>
     db
       .select({
@@ -92,14 +92,14 @@ export function createNotifications(deps: { db: Db; mailer: MailerPort; publicUr
       .where(eq(dealerAccounts.id, dealerAccountId))
       .limit(1)
       .get();
-  type OrderMailRow = NonNullable<ReturnType<typeof orderRow.get>>;
+  type OrderMailRow = NonNullable<ReturnType<typeof orderRow>>;
 
   const send = (label: string, build: () => { to: string; subject: string; text: string; html: string }) => track(sendSafely(deps.mailer, build, label));
   const url = (path: string) => `${deps.publicUrl.replace(/\/$/, '')}${path}`;
   const address = (o: OrderMailRow): MailAddress => ({ name: o.shipName, company: o.companyName ?? undefined, lines: [o.shipLine1], city: o.shipCity, postalCode: o.shipPostcode });
   const load = (orderId: number) => {
-    const order = orderRow.get({ orderId });
-    const lines = orderLinesOf.all({ orderId });
+    const order = orderRow(orderId);
+    const lines = orderLinesOf(orderId);
     return order ? { order, lines } : null;
   };
 

@@ -10,80 +10,72 @@ export type MovementKind = (typeof stockMovements.$inferSelect)['kind'];
  * together or not at all.
  */
 export function createStockService(db: Db) {
-  const param = { partId: sql.placeholder('partId'), binCode: sql.placeholder('binCode'), orderId: sql.placeholder('orderId') };
   const free = sql<number>`${stock.onHand} - ${stock.reserved}`;
   const held = sql<number>`sum(${stockMovements.reservedDelta})`;
-  const thisBin = and(eq(stock.partId, param.partId), eq(stock.binCode, param.binCode));
+  const thisBin = (partId: number, binCode: string) => and(eq(stock.partId, partId), eq(stock.binCode, binCode));
 
-  // Prepared once: every checkout, payment webhook and dispatch runs these inside its write transaction, which
-  // holds SQLite's single write lock, so building and compiling them per call would cut order throughput.
-  const stmt = {
-    available: db.select({ n: parts.available }).from(parts).where(eq(parts.id, param.partId)).prepare(),
-    freeBins: db
-      .select({ binCode: stock.binCode, free })
-      .from(stock)
-      .innerJoin(bins, eq(bins.code, stock.binCode))
-      .where(and(eq(stock.partId, param.partId), gt(free, 0)))
-      .orderBy(bins.walkOrder)
-      .prepare(),
-    ensureRow: db.insert(stock).values({ partId: param.partId, binCode: param.binCode, onHand: 0, reserved: 0 }).onConflictDoNothing().prepare(),
-    apply: db
-      .update(stock)
-      .set({ onHand: sql`${stock.onHand} + ${sql.placeholder('onHandDelta')}`, reserved: sql`${stock.reserved} + ${sql.placeholder('reservedDelta')}` })
-      .where(thisBin)
-      .prepare(),
-    applyPart: db
-      .update(parts)
-      .set({ available: sql`${parts.available} + ${sql.placeholder('delta')}` })
-      .where(eq(parts.id, param.partId))
-      .prepare(),
-    movement: db
-      .insert(stockMovements)
-      .values({
-        partId: param.partId,
-        binCode: param.binCode,
-        kind: sql.placeholder('kind'),
-        onHandDelta: sql.placeholder('onHandDelta'),
-        reservedDelta: sql.placeholder('reservedDelta'),
-        orderId: param.orderId,
-        note: sql.placeholder('note'),
-      })
-      .prepare(),
-    heldForOrder: db
-      .select({ binCode: stockMovements.binCode, held })
-      .from(stockMovements)
-      .where(and(eq(stockMovements.orderId, param.orderId), eq(stockMovements.partId, param.partId)))
-      .groupBy(stockMovements.binCode)
-      .having(gt(held, 0))
-      .prepare(),
-    row: db.select({ onHand: stock.onHand, reserved: stock.reserved }).from(stock).where(thisBin).prepare(),
-    defaultBin: db
-      .select({ binCode: stock.binCode })
-      .from(stock)
-      .innerJoin(bins, eq(bins.code, stock.binCode))
-      .where(eq(stock.partId, param.partId))
-      .orderBy(bins.walkOrder)
-      .limit(1)
-      .prepare(),
+  // Built at the call like every other query; callers' transactions run them (one connection).
+  const q = {
+    available: (partId: number) => db.select({ n: parts.available }).from(parts).where(eq(parts.id, partId)).get(),
+    freeBins: (partId: number) =>
+      db
+        .select({ binCode: stock.binCode, free })
+        .from(stock)
+        .innerJoin(bins, eq(bins.code, stock.binCode))
+        .where(and(eq(stock.partId, partId), gt(free, 0)))
+        .orderBy(bins.walkOrder)
+        .all(),
+    ensureRow: (partId: number, binCode: string) => db.insert(stock).values({ partId, binCode, onHand: 0, reserved: 0 }).onConflictDoNothing().run(),
+    apply: (partId: number, binCode: string, onHandDelta: number, reservedDelta: number) =>
+      db
+        .update(stock)
+        .set({ onHand: sql`${stock.onHand} + ${onHandDelta}`, reserved: sql`${stock.reserved} + ${reservedDelta}` })
+        .where(thisBin(partId, binCode))
+        .run(),
+    applyPart: (partId: number, delta: number) =>
+      db
+        .update(parts)
+        .set({ available: sql`${parts.available} + ${delta}` })
+        .where(eq(parts.id, partId))
+        .run(),
+    movement: (row: typeof stockMovements.$inferInsert) => db.insert(stockMovements).values(row).run(),
+    heldForOrder: (orderId: number, partId: number) =>
+      db
+        .select({ binCode: stockMovements.binCode, held })
+        .from(stockMovements)
+        .where(and(eq(stockMovements.orderId, orderId), eq(stockMovements.partId, partId)))
+        .groupBy(stockMovements.binCode)
+        .having(gt(held, 0))
+        .all(),
+    row: (partId: number, binCode: string) => db.select({ onHand: stock.onHand, reserved: stock.reserved }).from(stock).where(thisBin(partId, binCode)).get(),
+    defaultBin: (partId: number) =>
+      db
+        .select({ binCode: stock.binCode })
+        .from(stock)
+        .innerJoin(bins, eq(bins.code, stock.binCode))
+        .where(eq(stock.partId, partId))
+        .orderBy(bins.walkOrder)
+        .limit(1)
+        .get(),
   };
 
   function move(partId: number, binCode: string, kind: MovementKind, onHandDelta: number, reservedDelta: number, orderId: number | null, note: string | null) {
-    stmt.ensureRow.run({ partId, binCode });
-    const current = stmt.row.get({ partId, binCode });
+    q.ensureRow(partId, binCode);
+    const current = q.row(partId, binCode);
     if (!current) throw new Error(`No stock row for part ${partId} in ${binCode}`);
     const onHand = current.onHand + onHandDelta;
     const reserved = current.reserved + reservedDelta;
     if (onHand < 0 || reserved < 0 || reserved > onHand) {
       throw new Error(`Stock for part ${partId} in ${binCode} would become on hand ${onHand}, reserved ${reserved}`);
     }
-    stmt.apply.run({ onHandDelta, reservedDelta, partId, binCode });
-    if (onHandDelta !== reservedDelta) stmt.applyPart.run({ delta: onHandDelta - reservedDelta, partId });
-    stmt.movement.run({ partId, binCode, kind, onHandDelta, reservedDelta, orderId, note });
+    q.apply(partId, binCode, onHandDelta, reservedDelta);
+    if (onHandDelta !== reservedDelta) q.applyPart(partId, onHandDelta - reservedDelta);
+    q.movement({ partId, binCode, kind, onHandDelta, reservedDelta, orderId, note });
   }
 
   return {
     available(partId: number): number {
-      const part = stmt.available.get({ partId });
+      const part = q.available(partId);
       if (!part) throw new Error(`No part ${partId}`);
       return part.n;
     },
@@ -91,7 +83,7 @@ export function createStockService(db: Db) {
     /** Reserves up to `quantity` from the bins in walk order; answers how many it could reserve. */
     reserve(partId: number, quantity: number, orderId: number): number {
       let left = quantity;
-      for (const bin of stmt.freeBins.all({ partId })) {
+      for (const bin of q.freeBins(partId)) {
         if (left <= 0) break;
         const take = Math.min(left, bin.free);
         move(partId, bin.binCode, 'reserve', 0, take, orderId, null);
@@ -102,13 +94,13 @@ export function createStockService(db: Db) {
 
     /** Stock held for an order line, per bin in walk order. */
     heldFor(orderId: number, partId: number) {
-      return stmt.heldForOrder.all({ orderId, partId });
+      return q.heldForOrder(orderId, partId);
     },
 
     /** Gives back what an order holds of a part (all of it, or `quantity`). */
     release(orderId: number, partId: number, quantity = Infinity, note: string | null = null): number {
       let released = 0;
-      for (const bin of stmt.heldForOrder.all({ orderId, partId })) {
+      for (const bin of q.heldForOrder(orderId, partId)) {
         const give = Math.min(quantity - released, bin.held);
         if (give <= 0) break;
         move(partId, bin.binCode, 'release', 0, -give, orderId, note);
@@ -120,7 +112,7 @@ export function createStockService(db: Db) {
     /** Stock leaves the building: on hand and reserved fall together, once, for what the order holds. */
     dispatch(orderId: number, partId: number): number {
       let total = 0;
-      for (const bin of stmt.heldForOrder.all({ orderId, partId })) {
+      for (const bin of q.heldForOrder(orderId, partId)) {
         move(partId, bin.binCode, 'dispatch', -bin.held, -bin.held, orderId, null);
         total += bin.held;
       }
@@ -129,7 +121,7 @@ export function createStockService(db: Db) {
 
     /** A record that a line was picked from a bin; it moves no quantity (dispatch does). */
     recordPick(orderId: number, partId: number, binCode: string, quantity: number) {
-      stmt.movement.run({ partId, binCode, kind: 'pick', onHandDelta: 0, reservedDelta: 0, orderId, note: `picked ${quantity}` });
+      q.movement({ partId, binCode, kind: 'pick', onHandDelta: 0, reservedDelta: 0, orderId, note: `picked ${quantity}` });
     },
 
     goodsIn(partId: number, binCode: string, quantity: number, note: string | null = null) {
@@ -145,7 +137,7 @@ export function createStockService(db: Db) {
     },
 
     defaultBin(partId: number): string | null {
-      return stmt.defaultBin.get({ partId })?.binCode ?? null;
+      return q.defaultBin(partId)?.binCode ?? null;
     },
   };
 }
