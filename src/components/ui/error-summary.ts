@@ -1,12 +1,15 @@
-import { useRef, useState, type ReactNode } from 'react';
+import { useEffect, useRef, useState, type ReactNode } from 'react';
 import { get, type FieldErrors, type FieldValues, type Path, type SubmitErrorHandler, type SubmitHandler, type UseFormReturn } from 'react-hook-form';
 import { ApiError } from '../../lib/api-client';
 
-/** A field the summary can name and link to: its form name (dotted for nested), its element id and its label. */
+/**
+ * A field the summary can name and link to: its form name (dotted for nested), its element id and its label. Leave
+ * the label out where the form's messages already name their field ("Displacement is required").
+ */
 export interface SummaryField {
   name: string;
   id: string;
-  label: string;
+  label?: string;
 }
 
 export interface SummaryItem {
@@ -19,7 +22,7 @@ export function summaryItems<T extends FieldValues>(errors: FieldErrors<T>, fiel
   const items: SummaryItem[] = [];
   for (const f of fields) {
     const message = (get(errors, f.name) as { message?: unknown } | undefined)?.message;
-    if (typeof message === 'string') items.push({ id: f.id, message: `${f.label}: ${message}` });
+    if (typeof message === 'string') items.push({ id: f.id, message: f.label ? `${f.label}: ${message}` : message });
   }
   return items;
 }
@@ -47,42 +50,65 @@ export function serverMessage(error: unknown, fields: readonly SummaryField[]): 
   return error.message;
 }
 
+export interface ErrorSummaryOptions {
+  /** Problems react-hook-form does not hold (a file the browser refused), listed after the fields. */
+  extraItems?: readonly SummaryItem[];
+  /** How a link reaches its field when plain focus is not enough (the field sits in a closed section). */
+  focusField?: (id: string) => void;
+}
+
 /**
  * The error summary at the top of a form (DESIGN.md, Forms): on a refused submit it lists each field's message
- * with a link that focuses the field, plus the server's message where it has one, and takes focus itself.
- * Render `{summary.shown && <ErrorSummary {...summary.props} />}` and submit through `summary.handleSubmit`.
+ * with a link that focuses the field, plus the server's message where it has one, and takes focus itself, again
+ * on every refused submit. Render `{summary.shown && <ErrorSummary {...summary.props} />}` and submit through
+ * `summary.handleSubmit`.
  */
-export function useErrorSummary<T extends FieldValues>(form: UseFormReturn<T>, fields: readonly SummaryField[]) {
+export function useErrorSummary<T extends FieldValues, TOut = T>(form: UseFormReturn<T, unknown, TOut>, fields: readonly SummaryField[], options: ErrorSummaryOptions = {}) {
   const ref = useRef<HTMLDivElement>(null);
   const [shown, setShown] = useState(false);
   const [formError, setFormError] = useState<ReactNode>(undefined);
+  const [refusedTitle, setRefusedTitle] = useState<string | undefined>(undefined);
+  // One per refusal: the summary takes focus after the render that shows it, again on every refused submit.
+  const [refusals, setRefusals] = useState(0);
+  useEffect(() => {
+    if (refusals > 0) ref.current?.focus();
+  }, [refusals]);
 
-  const show = (message: ReactNode) => {
+  const show = (message: ReactNode, title?: string) => {
     setFormError(message);
+    setRefusedTitle(title);
     setShown(true);
-    requestAnimationFrame(() => ref.current?.focus());
+    setRefusals((n) => n + 1);
   };
   const hide = () => {
     setShown(false);
     setFormError(undefined);
+    setRefusedTitle(undefined);
   };
 
   return {
     shown,
-    props: { ref, items: summaryItems(form.formState.errors, fields), formError },
+    props: {
+      ref,
+      items: [...summaryItems(form.formState.errors, fields), ...(options.extraItems ?? [])],
+      formError,
+      refusedTitle,
+      focusField: options.focusField,
+    },
     hide,
     /** The form's own rules refused it: list the fields. */
     showInvalid: () => show(undefined),
     /**
      * The server refused it: its field errors go beside their fields and into the list; `message` (default: the
-     * server's own, when it adds something) heads the summary.
+     * server's own, when it adds something) heads the summary, under `title` when no field is named (e.g.
+     * "Payment declined").
      */
-    showServerError: (error: unknown, message?: ReactNode) => {
+    showServerError: (error: unknown, message?: ReactNode, title?: string) => {
       for (const { name, message: m } of serverFieldErrors(error, fields)) form.setError(name as Path<T>, { type: 'server', message: m });
-      show(message ?? serverMessage(error, fields));
+      show(message ?? serverMessage(error, fields), title);
     },
     /** `form.handleSubmit` that hides the summary on a valid submit and shows it on an invalid one. */
-    handleSubmit: (onValid: SubmitHandler<T>, onInvalid?: SubmitErrorHandler<T>) =>
+    handleSubmit: (onValid: SubmitHandler<TOut>, onInvalid?: SubmitErrorHandler<T>) =>
       form.handleSubmit(
         (values, event) => {
           hide();

@@ -85,11 +85,15 @@ interface ErrorSummaryProps {
   variant?: SummaryVariant;
   /** When given, the summary takes focus each time this changes (one per failed submit) and there is something to show. */
   focusKey?: number;
+  /** The title when only the server's message shows, in place of the variant's "That did not work". */
+  refusedTitle?: string;
+  /** How a link reaches its field; plain focus by default. */
+  focusField?: (id: string) => void;
 }
 
 /** Shown on a failed submit: what went wrong, each with a link that moves focus to the field. */
 export const ErrorSummary = forwardRef<HTMLDivElement, ErrorSummaryProps>(function ErrorSummary(
-  { title = 'Please check the form', items, formError, variant = 'desk', focusKey },
+  { title = 'Please check the form', items, formError, variant = 'desk', focusKey, refusedTitle, focusField },
   ref,
 ) {
   const titleId = useId();
@@ -120,7 +124,7 @@ export const ErrorSummary = forwardRef<HTMLDivElement, ErrorSummaryProps>(functi
       <div>
         <p id={titleId} className={look.title}>
           {look.titleIcon && <AlertOctagon aria-hidden className={look.titleIcon} />}
-          {formError && items.length === 0 ? look.refused : title}
+          {formError && items.length === 0 ? (refusedTitle ?? look.refused) : title}
         </p>
         {formError && <div className={look.formError || undefined}>{formError}</div>}
         {items.length > 0 && (
@@ -132,7 +136,8 @@ export const ErrorSummary = forwardRef<HTMLDivElement, ErrorSummaryProps>(functi
                   className={look.link}
                   onClick={(e) => {
                     e.preventDefault();
-                    document.getElementById(item.id)?.focus();
+                    if (focusField) focusField(item.id);
+                    else document.getElementById(item.id)?.focus();
                   }}
                 >
                   {item.message}

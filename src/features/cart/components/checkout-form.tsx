@@ -17,7 +17,7 @@ import { useSetDeliveryZone } from '../api/set-delivery-zone';
 import { CartTotals } from './cart-totals';
 import { blockedLines } from '../lib/cart-lines';
 import { ErrorSummary } from '../../../components/ui/form';
-import type { SummaryItem } from '../../../components/ui/error-summary';
+import { useErrorSummary, type SummaryField } from '../../../components/ui/error-summary';
 import type { LiveCardHandle } from './live-card';
 
 // Loaded only in live mode, so test mode never fetches the provider's script.
@@ -46,16 +46,18 @@ const resolver: Resolver<CheckoutFormValues> = async (values, context, options) 
 
 const fieldId = (path: string) => `checkout-${path.replace(/\./g, '-')}`;
 
-const FIELD_ORDER = ['method', 'paymentMethod', 'purchaseOrder', 'delivery.name', 'delivery.line1', 'delivery.city', 'delivery.postcode', 'delivery.zone'] as const;
+/** The fields in the order they appear; the messages name what is missing, so they stand without a label. */
+const SUMMARY_FIELDS: readonly SummaryField[] = ['method', 'paymentMethod', 'purchaseOrder', 'delivery.name', 'delivery.line1', 'delivery.city', 'delivery.postcode', 'delivery.zone'].map((name) => ({
+  name,
+  // A card choice is a radio group: link to its first option.
+  id: name === 'paymentMethod' ? `${fieldId(name)}-0` : fieldId(name),
+}));
 
-function summaryOf(errors: FieldErrors<CheckoutFormValues>): SummaryItem[] {
-  const get = (path: string): FieldError | undefined => path.split('.').reduce<unknown>((o, k) => (o as Record<string, unknown> | undefined)?.[k], errors) as FieldError | undefined;
-  return FIELD_ORDER.flatMap((p) => {
-    const e = get(p);
-    if (!e?.message) return [];
-    // A card choice is a radio group: link to its first option.
-    return [{ id: p === 'paymentMethod' ? `${fieldId(p)}-0` : fieldId(p), message: e.message }];
-  });
+/** The heading of a refusal from the server that names no field. */
+function refusalTitle(err: unknown): string {
+  if (err instanceof ApiError && err.status === 402) return 'Payment declined';
+  if (err instanceof ApiError && err.status === 409) return 'The order was not placed';
+  return 'Something went wrong';
 }
 
 const inputClass = (invalid: boolean) =>
@@ -196,7 +198,6 @@ function CheckoutFields({ me, cart: c, place, onPlaced }: { me: Me; cart: CartVi
   const liveCard = useRef<LiveCardHandle | null>(null);
   const [liveError, setLiveError] = useState<string | null>(null);
   const setZone = useSetDeliveryZone();
-  const [submitCount, setSubmitCount] = useState(0);
 
   const form = useForm<CheckoutFormValues>({
     resolver,
@@ -208,17 +209,16 @@ function CheckoutFields({ me, cart: c, place, onPlaced }: { me: Me; cart: CartVi
       delivery: { name: dealer ? dealer.companyName : user.name, line1: '', city: '', postcode: '', zone: (dealer?.deliveryZone as DeliveryZone | undefined) ?? c.deliveryZone },
     },
   });
-  const { register, handleSubmit, watch, formState, setError } = form;
+  const { register, watch, formState } = form;
   const method = watch('method');
   const useAccountAddress = watch('useAccountAddress');
   const errors = formState.errors;
 
   const blocked = blockedLines(c);
   const showDelivery = method === 'card' || !useAccountAddress;
-  const summary = summaryOf(errors);
-  const placeError = place.error instanceof ApiError ? place.error : place.error ? new ApiError(0, place.error.message) : null;
+  const summary = useErrorSummary(form, SUMMARY_FIELDS);
 
-  const submitForm = handleSubmit(
+  const submitForm = summary.handleSubmit(
     (values) => {
       place.mutate(toPayload(values), {
         onSuccess: async (res) => {
@@ -231,17 +231,9 @@ function CheckoutFields({ me, cart: c, place, onPlaced }: { me: Me; cart: CartVi
           }
           if (!res.nextAction) onPlaced(res.order.number);
         },
-        onError: (err) => {
-          if (err instanceof ApiError && err.isValidation) {
-            for (const [path, messages] of Object.entries(err.fieldErrors)) {
-              if ((FIELD_ORDER as readonly string[]).includes(path)) setError(path as (typeof FIELD_ORDER)[number], { message: messages[0] ?? 'not valid' });
-            }
-          }
-          window.scrollTo({ top: 0 });
-        },
+        onError: (err) => summary.showServerError(err, undefined, refusalTitle(err)),
       });
     },
-    () => setSubmitCount((n) => n + 1),
   );
 
   // In live mode the card becomes a payment method in the provider's form first; its id is what we send.
@@ -268,18 +260,7 @@ function CheckoutFields({ me, cart: c, place, onPlaced }: { me: Me; cart: CartVi
   return (
     <div className="grid gap-8 lg:grid-cols-[minmax(0,1fr)_22rem]">
       <form onSubmit={onSubmit} noValidate className="grid content-start gap-6" aria-label="Checkout">
-        <ErrorSummary variant="banner" title="Please fix these before you continue" items={summary} focusKey={submitCount} />
-        {placeError && (
-          <div role="alert" className="flex gap-3 rounded-md border-2 border-oxide bg-oxide-tint p-4">
-            <OctagonAlert aria-hidden className="mt-0.5 size-5 shrink-0 text-oxide" />
-            <div>
-              <p className="font-bold text-oxide">
-                {placeError.status === 402 ? 'Payment declined' : placeError.status === 409 ? 'The order was not placed' : 'Something went wrong'}
-              </p>
-              <p>{placeError.message}</p>
-            </div>
-          </div>
-        )}
+        {summary.shown && <ErrorSummary variant="banner" title="Please fix these before you continue" {...summary.props} />}
 
         <fieldset className="grid gap-3">
           <legend className="mb-2 text-xl font-bold">How to pay</legend>

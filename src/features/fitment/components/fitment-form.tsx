@@ -25,6 +25,8 @@ import {
   type Fuel,
 } from '../../../../shared/schemas/fitment';
 import { Button } from '../../../components/ui/button';
+import { useErrorSummary, type SummaryField } from '../../../components/ui/error-summary';
+import { ErrorSummary } from '../../../components/ui/form';
 import { DISPLACEMENT_UNIT_LABELS, rememberDisplacementUnit, storedDisplacementUnit } from '../lib/displacement-unit';
 import {
   ADVANCED_FIELDS,
@@ -82,6 +84,12 @@ export function formValuesFor(request: Partial<FitmentRequest> | null, system: U
 }
 
 const fieldId = (name: FormField) => `fitment-${name}`;
+const fieldOfId = (id: string) => id.replace(/^fitment-/, '') as FormField;
+
+/** The fields in the order the form shows them; the messages name their field, so they stand without a label. */
+const SUMMARY_FIELDS: readonly SummaryField[] = (
+  ['displacement', 'power', 'rpm', 'fuel', 'application', 'altitude', 'inletTemp', 'intercooled', 'intercoolerEffectiveness', 'manifoldTemp', 'bsfc', 'afr', 'cylinders', 'volumetricEfficiency', 'compressorEfficiency', 'chargeLoss', 'inletLoss', 'fullBoostRpm'] satisfies FormField[]
+).map((name) => ({ name, id: fieldId(name) }));
 const capitalise = (s: string) => s.charAt(0).toUpperCase() + s.slice(1);
 
 function flatten(errors: FieldErrors, prefix = ''): Array<[string, string]> {
@@ -271,7 +279,7 @@ export function FitmentForm({ initialValues, system, onSystemChange, onSubmit, p
   const systemRef = useRef(system);
   systemRef.current = system;
   const [resolver] = useState(() => fitmentResolver(systemRef));
-  const { register, handleSubmit, formState, getValues, reset, setError, setFocus, trigger, watch } = useForm<FitmentFormValues>({
+  const form = useForm<FitmentFormValues>({
     defaultValues: initialValues,
     resolver,
     mode: 'onSubmit',
@@ -279,18 +287,16 @@ export function FitmentForm({ initialValues, system, onSystemChange, onSubmit, p
     // The error summary takes focus instead, so a screen reader hears every problem at once.
     shouldFocusError: false,
   });
+  const { register, formState, getValues, reset, setError, setFocus, trigger, watch } = form;
   const [advancedOpen, setAdvancedOpen] = useState(false);
-  const summaryRef = useRef<HTMLDivElement>(null);
-  // Set on a refused submit; the summary takes focus on the first render that shows it.
-  const focusSummary = useRef(false);
-  useEffect(() => {
-    if (focusSummary.current && summaryRef.current) {
-      focusSummary.current = false;
-      summaryRef.current.focus();
-    }
-  });
+
+  const goTo = (field: FormField) => {
+    if (ADVANCED_FIELDS.includes(field)) setAdvancedOpen(true);
+    requestAnimationFrame(() => setFocus(field));
+  };
+  const summary = useErrorSummary(form, SUMMARY_FIELDS, { focusField: (id) => goTo(fieldOfId(id)) });
+  const summaryCount = summary.props.items.length;
   const errors = formState.errors;
-  const errorList = (Object.keys(errors) as FormField[]).map((f) => [f, errors[f]?.message ?? ''] as const).filter(([, m]) => m);
 
   useEffect(() => {
     if (!serverFieldErrors) return;
@@ -303,7 +309,9 @@ export function FitmentForm({ initialValues, system, onSystemChange, onSubmit, p
       shown = true;
     }
     // The server's refusal is heard like the form's own: the summary takes focus.
-    if (shown) focusSummary.current = true;
+    if (shown) summary.showInvalid();
+    // Once per answer from the server; the summary's functions are new on each render.
+    // eslint-disable-next-line react-hooks/exhaustive-deps
   }, [serverFieldErrors, setError]);
 
   const switchUnits = (next: UnitSystem) => {
@@ -313,21 +321,15 @@ export function FitmentForm({ initialValues, system, onSystemChange, onSubmit, p
     onSystemChange(next);
   };
 
-  const submit = handleSubmit(
+  const submit = summary.handleSubmit(
     (values) => {
       onSubmit(FitmentRequestSchema.parse(formToRequest(values, systemRef.current)));
     },
     (invalid) => {
       if (ADVANCED_FIELDS.some((f) => f in invalid)) setAdvancedOpen(true);
-      focusSummary.current = true;
       onRefused?.();
     },
   );
-
-  const goTo = (field: FormField) => {
-    if (ADVANCED_FIELDS.includes(field)) setAdvancedOpen(true);
-    requestAnimationFrame(() => setFocus(field));
-  };
 
   const fuel = watch('fuel');
   const application = watch('application');
@@ -355,29 +357,7 @@ export function FitmentForm({ initialValues, system, onSystemChange, onSubmit, p
         <UnitSwitch value={system} onChange={switchUnits} />
       </div>
 
-      {formState.isSubmitted && errorList.length > 0 && (
-        <div ref={summaryRef} tabIndex={-1} role="alert" aria-labelledby="fitment-error-summary" className="rounded-md border-2 border-oxide bg-oxide-tint p-4">
-          <p id="fitment-error-summary" className="font-semibold">
-            {errorList.length === 1 ? 'One value needs fixing' : `${errorList.length} values need fixing`}
-          </p>
-          <ul className="mt-1 list-disc pl-5">
-            {errorList.map(([field, message]) => (
-              <li key={field}>
-                <a
-                  href={`#${fieldId(field)}`}
-                  onClick={(e) => {
-                    e.preventDefault();
-                    goTo(field);
-                  }}
-                  className="font-semibold text-oxide underline underline-offset-2"
-                >
-                  {message}
-                </a>
-              </li>
-            ))}
-          </ul>
-        </div>
-      )}
+      {summary.shown && <ErrorSummary title={summaryCount === 1 ? 'One value needs fixing' : `${summaryCount} values need fixing`} {...summary.props} />}
 
       <div className="grid gap-4 sm:grid-cols-2">
         <div className="sm:col-span-2">

@@ -1,6 +1,6 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { AlertOctagon, ImagePlus, Info, X } from 'lucide-react';
-import { useEffect, useId, useMemo, useRef, useState } from 'react';
+import { useEffect, useId, useMemo, useState } from 'react';
 import { useForm, useWatch } from 'react-hook-form';
 import type { z } from 'zod';
 import { formatPrice } from '../../../../shared/catalog';
@@ -11,7 +11,7 @@ import { ApiError } from '../../../lib/api-client';
 import { useCreateReturn } from '../api/create-return';
 import { checkPhotos, formatBytes, RETURN_PHOTO_TYPES } from '../lib/photo-checks';
 import { ErrorSummary, TextAreaField, TextField } from '../../../components/ui/form';
-import type { SummaryItem } from '../../../components/ui/error-summary';
+import { useErrorSummary, type SummaryField } from '../../../components/ui/error-summary';
 
 type Line = OrderDetail['lines'][number];
 type FormInput = z.input<typeof ReturnRequestSchema>;
@@ -38,6 +38,14 @@ function PhotoThumb({ file, onRemove }: { file: File; onRemove: () => void }) {
   );
 }
 
+/** The server's refusals of the photos themselves, in the words of the photo field; undefined for any other error. */
+function photoRefusal(err: unknown): string | undefined {
+  if (!(err instanceof ApiError)) return undefined;
+  if (err.status === 413) return `A photo is too large: each may be at most ${formatBytes(RETURN_PHOTO_MAX_BYTES)}.`;
+  if (err.status === 415) return 'One of the files is not an image we take (JPEG, PNG or WebP).';
+  return undefined;
+}
+
 export function ReturnForm({ order, line, returnable, onCreated }: { order: OrderDetail; line: Line; returnable: number; onCreated: (r: ReturnView) => void }) {
   const exchange = line.condition === 'exchange';
   const kinds = (Object.keys(RETURN_KINDS) as ReturnKind[]).filter((k) => k !== 'core' || exchange);
@@ -48,18 +56,18 @@ export function ReturnForm({ order, line, returnable, onCreated }: { order: Orde
   const create = useCreateReturn();
   const [photos, setPhotos] = useState<File[]>([]);
   const [photoProblems, setPhotoProblems] = useState<string[]>([]);
-  const [showSummary, setShowSummary] = useState(false);
-  const summaryRef = useRef<HTMLDivElement>(null);
   const photoInputId = useId();
   const kind = useWatch({ control: form.control, name: 'kind' });
   const errors = form.formState.errors;
-  const focusSummary = () => requestAnimationFrame(() => summaryRef.current?.focus());
-
-  const summary: SummaryItem[] = [];
-  if (errors.kind?.message) summary.push({ id: `return-kind-${kinds[0]}`, message: `Kind of return: ${errors.kind.message}` });
-  if (errors.quantity?.message) summary.push({ id: 'return-quantity', message: `Quantity: ${errors.quantity.message}` });
-  if (errors.reason?.message) summary.push({ id: 'return-reason', message: `Reason: ${errors.reason.message}` });
-  if (photoProblems.length > 0) summary.push({ id: photoInputId, message: `Photos: ${photoProblems.join(' ')}` });
+  const fields: SummaryField[] = [
+    // The kind is a radio group: its link goes to the first choice.
+    { name: 'kind', id: `return-kind-${kinds[0]}`, label: 'Kind of return' },
+    { name: 'quantity', id: 'return-quantity', label: 'Quantity' },
+    { name: 'reason', id: 'return-reason', label: 'Reason' },
+  ];
+  const summary = useErrorSummary(form, fields, {
+    extraItems: photoProblems.length > 0 ? [{ id: photoInputId, message: `Photos: ${photoProblems.join(' ')}` }] : [],
+  });
 
   const addPhotos = (list: FileList | null) => {
     const { accepted, problems } = checkPhotos(photos, Array.from(list ?? []));
@@ -67,46 +75,24 @@ export function ReturnForm({ order, line, returnable, onCreated }: { order: Orde
     setPhotoProblems(problems);
   };
 
-  const onSubmit = form.handleSubmit(
+  const onSubmit = summary.handleSubmit(
     (values) => {
       if (values.quantity > returnable) {
         form.setError('quantity', { message: `at most ${returnable} can come back from this line` });
-        setShowSummary(true);
-        focusSummary();
+        summary.showInvalid();
         return;
       }
-      setShowSummary(false);
       // mutateAsync rather than mutate's callbacks: the refreshed returns list can unmount this form before they would run.
-      create.mutateAsync({ request: values, photos }).then(onCreated, (err: unknown) => {
-        if (err instanceof ApiError) {
-          for (const key of ['kind', 'quantity', 'reason'] as const) {
-            const m = err.fieldErrors[key]?.[0];
-            if (m) form.setError(key, { type: 'server', message: m });
-          }
-        }
-        setShowSummary(true);
-        focusSummary();
-      });
+      create.mutateAsync({ request: values, photos }).then(onCreated, (err: unknown) => summary.showServerError(err, photoRefusal(err)));
     },
-    () => {
-      create.reset();
-      setShowSummary(true);
-      focusSummary();
-    },
+    () => create.reset(),
   );
 
   const depositTotal = line.coreDepositCents * Math.max(1, Number(form.watch('quantity')) || 1);
-  const formError = create.isError
-    ? create.error instanceof ApiError && create.error.status === 413
-      ? `A photo is too large: each may be at most ${formatBytes(RETURN_PHOTO_MAX_BYTES)}.`
-      : create.error instanceof ApiError && create.error.status === 415
-        ? 'One of the files is not an image we take (JPEG, PNG or WebP).'
-        : create.error.message
-    : undefined;
 
   return (
     <form noValidate onSubmit={onSubmit} className="grid gap-6" aria-label={`Return ${line.partNumber}`}>
-      {showSummary && <ErrorSummary ref={summaryRef} items={summary} formError={formError} />}
+      {summary.shown && <ErrorSummary {...summary.props} />}
 
       <fieldset className="grid gap-2" aria-describedby={errors.kind ? 'return-kind-error' : undefined}>
         <legend className="mb-1 text-lg font-bold">Why is it coming back?</legend>
