@@ -2,9 +2,10 @@ import { ChevronRight } from 'lucide-react';
 import { useState } from 'react';
 import { Link } from 'react-router-dom';
 import { formatPrice } from '../../../../shared/catalog';
-import { ORDER_STATUS_LABELS } from '../../../../shared/schemas/orders';
+import { formatDate } from '../../../../shared/format';
 import { buttonClass } from '../../../components/ui/button';
 import { EmptyState, ErrorState, LoadingState } from '../../../components/ui/states';
+import { StatusBadge } from '../../../components/ui/status-badge';
 import { useOrder, useOrders } from '../../../lib/orders';
 import { useReturns } from '../api/get-returns';
 import { hasLeftTheBuilding, returnableQuantity } from '../lib/returnable';
@@ -72,7 +73,8 @@ export function LinePicker() {
             <span className="grid">
               <span className="part-no">{o.number}</span>
               <span className="text-sm text-cast">
-                {new Date(o.createdAt).toLocaleDateString('en-US', { dateStyle: 'medium' })} · {ORDER_STATUS_LABELS[o.status]} · {o.lineCount} {o.lineCount === 1 ? 'line' : 'lines'}
+                <time dateTime={o.createdAt}>{formatDate(o.createdAt)}</time> · <StatusBadge kind="order" status={o.status} look="plain" /> · {o.lineCount}{' '}
+                {o.lineCount === 1 ? 'line' : 'lines'}
               </span>
             </span>
           </label>
