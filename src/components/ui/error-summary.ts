@@ -68,16 +68,23 @@ export function useErrorSummary<T extends FieldValues, TOut = T>(form: UseFormRe
   const [shown, setShown] = useState(false);
   const [formError, setFormError] = useState<ReactNode>(undefined);
   const [refusedTitle, setRefusedTitle] = useState<string | undefined>(undefined);
-  // One per refusal: the summary takes focus after the render that shows it, again on every refused submit.
-  const [refusals, setRefusals] = useState(0);
+  // Set on each refusal; the summary takes focus after the first render that shows it (the field errors may reach
+  // the form a render after the refusal itself), and again on every refused submit.
+  const focusPending = useRef(false);
+  // A refusal like the last one changes no other state; this still renders, so the focus moves again.
+  const [, setRefusals] = useState(0);
   useEffect(() => {
-    if (refusals > 0) ref.current?.focus();
-  }, [refusals]);
+    if (focusPending.current && ref.current) {
+      focusPending.current = false;
+      ref.current.focus();
+    }
+  });
 
   const show = (message: ReactNode, title?: string) => {
     setFormError(message);
     setRefusedTitle(title);
     setShown(true);
+    focusPending.current = true;
     setRefusals((n) => n + 1);
   };
   const hide = () => {
