@@ -93,6 +93,9 @@ export async function startTestApp(options: StartOptions = {}): Promise<TestApp>
   const listening: Server = await new Promise((resolve) => {
     const s = app.app.listen(port, '127.0.0.1', () => resolve(s));
   });
+  // The test client (fetch) drops idle sockets after 4 s; the server's 5 s default can close one just as a slow,
+  // loaded machine hands it a request (ECONNRESET). Keeping the server's side open longer leaves the closing to the client.
+  listening.keepAliveTimeout = 65_000;
   payments?.setWebhookUrl(`${url}/api/webhooks/payments`);
 
   const read = async (res: Response): Promise<Reply> => {
