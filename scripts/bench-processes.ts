@@ -1,11 +1,10 @@
-import { spawn, type ChildProcess } from 'node:child_process';
 import fs from 'node:fs';
 import { createRequire } from 'node:module';
-import net, { type AddressInfo } from 'node:net';
 import path from 'node:path';
 import { startMailFake } from '../fakes/mail/mail-fake';
 import { openDatabase } from '../server/db/client';
 import { createStockService } from '../server/services/stock';
+import { startServerProcess } from '../tests/support/server-process';
 import { setAvailable } from '../tests/support/stock';
 import { startPaymentsFake } from '../fakes/payments/payments-fake';
 import type { BenchEnv } from './bench-catalogues';
@@ -24,42 +23,6 @@ const autocannon = createRequire(import.meta.url)('autocannon') as Autocannon;
 const BUYERS = 16;
 const WEBHOOK_SECRET = 'whsec_spoolyard_bench';
 const DELIVERY = { name: 'Bench Buyer', line1: '1 Load Street', city: 'Quenchfold', postcode: 'QF1 1AA', zone: 'local' };
-
-async function freePort(): Promise<number> {
-  const probe = net.createServer();
-  await new Promise<void>((resolve) => probe.listen(0, '127.0.0.1', () => resolve()));
-  const { port } = probe.address() as AddressInfo;
-  await new Promise<void>((resolve) => probe.close(() => resolve()));
-  return port;
-}
-
-/** The real server as `npm start` runs it (server/index.ts), with APP_PROCESSES set; resolves once it listens. */
-async function startServer(root: string, env: Record<string, string>): Promise<{ child: ChildProcess; url: string; output: () => string }> {
-  const child = spawn(path.join(root, 'node_modules/.bin/tsx'), ['server/index.ts'], { cwd: root, env: { PATH: process.env.PATH, ...env } });
-  let output = '';
-  await new Promise<void>((resolve, reject) => {
-    const timer = setTimeout(() => reject(new Error(`the server did not start within 120 s:\n${output}`)), 120_000);
-    const onData = (chunk: Buffer) => {
-      output += chunk.toString();
-      if (output.includes('is running at')) {
-        clearTimeout(timer);
-        resolve();
-      }
-    };
-    child.stdout!.on('data', onData);
-    child.stderr!.on('data', onData);
-    child.once('exit', (code) => reject(new Error(`the server exited (${code}):\n${output}`)));
-  });
-  return { child, url: `http://127.0.0.1:${env.PORT}`, output: () => output };
-}
-
-async function stopServer(child: ChildProcess) {
-  if (child.exitCode !== null) return;
-  await new Promise<void>((resolve) => {
-    child.once('exit', () => resolve());
-    child.kill('SIGTERM');
-  });
-}
 
 /**
  * The same list and checkout loads against the real server with one app process and with two on one database,
@@ -91,12 +54,9 @@ export const processesSection = section<BenchEnv>('One app process vs two (APP_P
         .get() as string;
       setAvailable({ db: prepared, app: { stock: createStockService(prepared) } } as unknown as Pick<TestApp, 'db' | 'app'>, plenty, 100_000);
       prepared.$client.close();
-      const port = await freePort();
-      payments.setWebhookUrl(`http://127.0.0.1:${port}/api/webhooks/payments`);
-      const { child, url, output } = await startServer(env.root, {
+      const server = await startServerProcess(env.root, {
         NODE_ENV: 'test',
         HOST: '127.0.0.1',
-        PORT: String(port),
         APP_PROCESSES: String(processes),
         DATABASE_FILE: file,
         UPLOADS_DIR: path.join(dir, 'uploads'),
@@ -107,6 +67,8 @@ export const processesSection = section<BenchEnv>('One app process vs two (APP_P
         MAIL_PORT: String(mail.smtpPort),
         MAIL_INBOX_URL: mail.httpUrl,
       });
+      const { url, output } = server;
+      payments.setWebhookUrl(`${url}/api/webhooks/payments`);
       try {
         const load = async (target: string) => {
           await autocannon({ url: target, connections: 10, duration: 1 });
@@ -147,7 +109,7 @@ export const processesSection = section<BenchEnv>('One app process vs two (APP_P
         results[processes]!.checkout.push(latencies.length / seconds);
         results[processes]!.checkoutP95.push(summarize(latencies.sort((a, b) => a - b)).p95);
       } finally {
-        await stopServer(child);
+        await server.stop();
       }
       ctx.log(`round ${round + 1}: ${processes} process(es) done`);
     } finally {

@@ -1,8 +1,7 @@
-import { spawn, type ChildProcess } from 'node:child_process';
-import net, { type AddressInfo } from 'node:net';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { TEST_WEBHOOK_SECRET } from '../support/app-deps';
+import { startServerProcess, type ServerProcess } from '../support/server-process';
 import { signIn } from '../support/session';
 import { startTestApp, type TestApp } from '../support/test-app';
 
@@ -13,50 +12,11 @@ import { startTestApp, type TestApp } from '../support/test-app';
  */
 const root = path.resolve(import.meta.dirname, '../..');
 
-interface Proc {
-  url: string;
-  child: ChildProcess;
-  output: () => string;
-}
-
-async function freePort(): Promise<number> {
-  const probe = net.createServer();
-  await new Promise<void>((resolve) => probe.listen(0, '127.0.0.1', () => resolve()));
-  const { port } = probe.address() as AddressInfo;
-  await new Promise<void>((resolve) => probe.close(() => resolve()));
-  return port;
-}
-
-async function startProcess(env: Record<string, string>): Promise<Proc> {
-  const port = await freePort();
-  const child = spawn(path.join(root, 'node_modules/.bin/tsx'), ['server/index.ts'], {
-    cwd: root,
-    env: { PATH: process.env.PATH, ...env, PORT: String(port) },
-  });
-  let output = '';
-  await new Promise<void>((resolve, reject) => {
-    const timer = setTimeout(() => reject(new Error(`no start within 60 s:\n${output}`)), 60_000);
-    const onData = (chunk: Buffer) => {
-      output += chunk.toString();
-      if (output.includes('is running at')) {
-        clearTimeout(timer);
-        resolve();
-      }
-    };
-    child.stdout!.on('data', onData);
-    child.stderr!.on('data', onData);
-    child.on('exit', (code) => reject(new Error(`exited with ${code}:\n${output}`)));
-  });
-  return { url: `http://127.0.0.1:${port}`, child, output: () => output };
-}
-
-async function stop(p: Proc | undefined) {
-  if (!p || p.child.exitCode !== null) return;
-  await new Promise<void>((resolve) => {
-    p.child.once('exit', () => resolve());
-    p.child.kill('SIGTERM');
-  });
-}
+type Proc = ServerProcess;
+const startProcess = (env: Record<string, string>) => startServerProcess(root, env, 60_000);
+const stop = async (p: Proc | undefined) => {
+  await p?.stop();
+};
 
 let t: TestApp;
 let a: Proc;
@@ -188,9 +148,7 @@ describe('APP_PROCESSES', () => {
       const answers = await Promise.all(Array.from({ length: 8 }, () => fetch(`${p.url}/api/health`).then((r) => r.status)));
       expect(answers.every((s) => s === 200)).toBe(true);
     } finally {
-      const exited = new Promise<number | null>((resolve) => p.child.once('exit', (code) => resolve(code)));
-      p.child.kill('SIGTERM');
-      expect(await exited).toBe(0);
+      expect(await p.stop()).toBe(0);
     }
   }, 90_000);
 });
