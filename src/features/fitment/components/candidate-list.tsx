@@ -10,8 +10,10 @@ const sentence = (s: string) => `${s.charAt(0).toUpperCase()}${s.slice(1)}.`;
 const SHOWN_REASONS = 2;
 
 /** The frames after the build, compact: verdict (shape and word), the figures that decide it and every reason. */
-export function CandidateList({ candidates, onMap, cameFrom, onShowOnMap, onBuild }: {
+export function CandidateList({ candidates, onMap, cameFrom, onShowOnMap, onBuild, directions = true }: {
   candidates: FitmentCandidate[];
+  /** Show "go bigger" / "go smaller" on frames ruled out; off when no frame serves at all. */
+  directions?: boolean;
   /** The key of the candidate shown on the map. */
   onMap: string | null;
   /** The frame the buyer came from (a part page), marked in the list. */
@@ -36,7 +38,7 @@ export function CandidateList({ candidates, onMap, cameFrom, onShowOnMap, onBuil
                 <span className="part-no">{c.frameCode}</span> {c.frameName}
                 {c.layout === 'twin' && <span className="font-semibold text-cast"> · twin</span>}
               </h4>
-              <VerdictBadge verdict={c.verdict} />
+              <VerdictBadge verdict={c.verdict} direction={directions} />
               {cameFrom === c.frameCode && <span className="rounded bg-panel px-2 py-0.5 text-sm font-semibold text-cast">the frame you came from</span>}
             </div>
             <p className="tabular text-xs text-cast">

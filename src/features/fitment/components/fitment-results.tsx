@@ -170,7 +170,7 @@ function NextSteps({ steps, closest }: { steps: string[]; closest: FitmentCandid
             {closest.frameName}
             {closest.layout === 'twin' ? ' (twin)' : ''}
           </span>
-          <VerdictBadge verdict={closest.verdict} />
+          <VerdictBadge verdict={closest.verdict} direction={false} />
         </p>
       )}
     </section>
@@ -297,7 +297,7 @@ export function FitmentResults({ request, result, system, cameFrom, signedIn, ca
               On the map: <span className="part-no">{onMap?.frameCode}</span> {onMap?.frameName}
               {onMap?.layout === 'twin' ? ' (twin, per unit)' : ''}
             </span>
-            {onMap && <VerdictBadge verdict={onMap.verdict} />}
+            {onMap && <VerdictBadge verdict={onMap.verdict} direction={result.candidates.some((c) => c.verdict === 'fits' || c.verdict === 'marginal')} />}
           </h3>
           {build && onMap && onMap !== build && (
             <button
@@ -344,7 +344,14 @@ export function FitmentResults({ request, result, system, cameFrom, signedIn, ca
           {build ? 'The other frames' : 'Every frame, closest first'}
         </h3>
         <p className="text-cast">Each verdict follows the engine across its rev range, from where boost builds to peak power.</p>
-        <CandidateList candidates={others} onMap={onMap ? candidateKey(onMap) : null} cameFrom={cameFrom} onShowOnMap={showOnMap} onBuild={buildOn} />
+        <CandidateList
+          candidates={others}
+          onMap={onMap ? candidateKey(onMap) : null}
+          cameFrom={cameFrom}
+          onShowOnMap={showOnMap}
+          onBuild={buildOn}
+          directions={result.candidates.some((c) => c.verdict === 'fits' || c.verdict === 'marginal')}
+        />
       </section>
 
       {build && <FrameParts frameCode={build.frameCode} />}

@@ -27,13 +27,17 @@ export function VerdictShape({ verdict, className = 'size-4' }: { verdict: Verdi
   );
 }
 
-export function VerdictBadge({ verdict }: { verdict: Verdict }) {
+/**
+ * `direction` adds "go bigger" / "go smaller" to a frame ruled out. When no frame serves, the next frame in that
+ * direction does not serve either (the answer's next steps say what binds), so the results leave the hint out.
+ */
+export function VerdictBadge({ verdict, direction = true }: { verdict: Verdict; direction?: boolean }) {
   const text = VERDICT_TEXT[verdict];
   return (
     <span className={`inline-flex items-center gap-1.5 whitespace-nowrap rounded-full px-2.5 py-0.5 text-sm font-semibold ring-1 ${STYLE[verdict]}`}>
       <VerdictShape verdict={verdict} />
       {text.word}
-      {(verdict === 'too-small' || verdict === 'too-large') && <span className="font-normal">· {text.hint}</span>}
+      {direction && (verdict === 'too-small' || verdict === 'too-large') && <span className="font-normal">· {text.hint}</span>}
     </span>
   );
 }
