@@ -34,6 +34,8 @@ import { createCartService } from './services/cart';
 import { createCatalogService } from './services/catalog';
 import type { MailerPort } from './services/mailer';
 import { createNotifications } from './services/notifications';
+import { createMailOutbox, type OutboxPolicy } from './services/mail-outbox';
+import { adminMailRouter } from './routes/admin-mail';
 import { createOrderService } from './services/orders';
 import { createDealerAccountsService } from './services/dealer-accounts';
 import { createFitmentService } from './services/fitment';
@@ -69,8 +71,8 @@ export interface AppDeps {
   clientDir?: string;
   now?: () => Date;
   log?: (err: unknown) => void;
-  /** Sees each outgoing mail's promise (tests wait on them). */
-  trackMail?: (p: Promise<boolean>) => void;
+  /** Retry timing of the mail outbox (tests shorten it); the worker is started by whoever runs the app. */
+  mailPolicy?: Partial<OutboxPolicy>;
 }
 
 export function createApp(deps: AppDeps) {
@@ -84,10 +86,11 @@ export function createApp(deps: AppDeps) {
   const catalog = createCatalogService(db, search);
   const stock = createStockService(db);
   const cart = createCartService(db, search, { taxRatePct: config.taxRatePct });
-  const notifications = createNotifications({ db, mailer: deps.mailer, publicUrl: config.publicUrl, track: deps.trackMail });
+  const notifications = createNotifications({ db, publicUrl: config.publicUrl });
+  const mailOutbox = createMailOutbox({ db, mailer: deps.mailer, policy: deps.mailPolicy });
   const dealers = createDealerAccountsService({
     db,
-    notify: { applied: (id) => notifications.dealerApplied(id), decided: (id, decision) => notifications.dealerDecided(id, decision) },
+    notify: { applied: (tx, id) => notifications.dealerApplied(tx, id), decided: (tx, id, decision) => notifications.dealerDecided(tx, id, decision) },
   });
   const orders = createOrderService({ db, stock, cart, payments: deps.payments, notify: notifications.orders, taxRatePct: config.taxRatePct, now });
   const returnPhotosDir = path.join(config.uploadsDir, 'returns');
@@ -104,7 +107,8 @@ export function createApp(deps: AppDeps) {
     secret: config.authSecret,
     trustedOrigins,
     secureCookies: config.publicUrl.startsWith('https://'),
-    sendResetPassword: (to, url) => notifications.passwordReset(to, url),
+    // Written to the outbox, so the answer never waits for the mail server.
+    sendResetPassword: async (to, url) => notifications.passwordReset(to, url),
   });
 
   const app = express();
@@ -193,6 +197,7 @@ export function createApp(deps: AppDeps) {
   app.use('/api/returns', returnsRouter({ returns, photosDir: returnPhotosDir }));
   app.use('/api/admin', adminCatalogRouter({ admin: catalogAdmin, photosDir: partPhotosDir }));
   app.use('/api/admin/dealers', adminDealersRouter(dealers));
+  app.use('/api/admin/mail', adminMailRouter(mailOutbox));
   if (config.devTools) app.use('/api/dev', devRouter({ mailInboxUrl: config.mailInboxUrl, paymentsApiUrl: config.paymentsApiUrl, orders }));
   app.use('/api', apiNotFound);
 
@@ -204,5 +209,5 @@ export function createApp(deps: AppDeps) {
     });
   }
   app.use(createErrorHandler(log));
-  return { app, search, catalog, stock, cart, orders, dealers, auth, notifications, warehouse, returns, catalogAdmin, shaftLogs, fitment };
+  return { app, search, catalog, stock, cart, orders, dealers, auth, notifications, mailOutbox, warehouse, returns, catalogAdmin, shaftLogs, fitment };
 }

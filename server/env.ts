@@ -35,6 +35,10 @@ const EnvSchema = z
     MAIL_HOST: z.string().min(1).default('127.0.0.1'),
     MAIL_PORT: z.coerce.number().int().min(1).max(65535).default(12525),
     MAIL_FROM: z.string().min(3).default('Spoolyard Turbo Supply <orders@spoolyard.test>'),
+    /** How often each app process's mail worker looks for due messages in the outbox, in milliseconds. */
+    MAIL_OUTBOX_INTERVAL_MS: z.coerce.number().int().min(10).max(600_000).default(2000),
+    /** Attempts before a message is given up on and shown as failed in the Office (retries back off 5 s, 10 s … 15 min). */
+    MAIL_MAX_ATTEMPTS: z.coerce.number().int().min(1).max(100).default(12),
     /** The mail fake's message API, for the development inbox. */
     MAIL_INBOX_URL: z.url().default('http://127.0.0.1:12580'),
   })

@@ -67,10 +67,11 @@ function runApp(env: Env) {
   });
   const mailer = createMailer({ host: env.MAIL_HOST, port: env.MAIL_PORT, from: env.MAIL_FROM, ignoreTLS: env.NODE_ENV !== 'production' });
   const devTools = env.NODE_ENV !== 'production';
-  const { app, orders } = createApp({
+  const { app, orders, mailOutbox } = createApp({
     db,
     payments,
     mailer,
+    mailPolicy: { maxAttempts: env.MAIL_MAX_ATTEMPTS },
     clientDir: path.resolve(import.meta.dirname, '../dist/client'),
     config: {
       publicUrl: publicUrl(env),
@@ -113,12 +114,20 @@ function runApp(env: Env) {
   }, everyMs);
   sweep.unref();
 
+  // Every process runs the mail worker; each claims its messages in one UPDATE, so a message goes from one process only.
+  mailOutbox.start(env.MAIL_OUTBOX_INTERVAL_MS);
+
   function shutdown(signal: string) {
     console.log(`${signal}: shutting down`);
     server.close(() => {
-      void mailer.close();
-      db.$client.close();
-      process.exit(0);
+      // A send in progress finishes and is marked before the database closes; what is still queued waits for the next start.
+      void mailOutbox
+        .stop()
+        .then(() => mailer.close())
+        .finally(() => {
+          db.$client.close();
+          process.exit(0);
+        });
     });
     setTimeout(() => process.exit(0), 5000).unref();
   }

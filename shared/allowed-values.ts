@@ -39,6 +39,25 @@ export type ReturnStatus = (typeof RETURN_STATUSES)[number];
 
 export const PRICE_IMPORT_STATUSES = ['preview', 'applied'] as const;
 
+/** The e-mails the shop sends; each outbox row is one of these. */
+export const MAIL_KINDS = [
+  'order-confirmation',
+  'payment-failed',
+  'back-order',
+  'short-pick',
+  'dispatch',
+  'return-decision',
+  'dealer-application-received',
+  'dealer-approved',
+  'dealer-declined',
+  'password-reset',
+] as const;
+export type MailKind = (typeof MAIL_KINDS)[number];
+
+/** An outbox message waits (queued), is being handed to the mail server (sending), went (sent) or was given up on (failed). */
+export const MAIL_STATES = ['queued', 'sending', 'sent', 'failed'] as const;
+export type MailState = (typeof MAIL_STATES)[number];
+
 /** `column IN ('a', 'b', …)` for a CHECK constraint; the values are our own constants, never user input. */
 export function inListSql(column: string, values: readonly string[]): string {
   for (const v of values) if (!/^[\w -]+$/.test(v)) throw new Error(`not a plain allowed value: ${v}`);

@@ -3,6 +3,8 @@ import {
   ALIAS_KINDS,
   DEALER_STATUSES,
   inListSql,
+  MAIL_KINDS,
+  MAIL_STATES,
   ORDER_STATUSES,
   PART_CONDITIONS,
   PART_STATUSES,
@@ -605,3 +607,40 @@ export const jobLeases = sqliteTable('job_leases', {
   expiresAt: integer('expires_at').notNull(),
   lastRunAt: integer('last_run_at'),
 });
+
+/**
+ * Mail waiting to go, written in the same transaction as the change that causes it and rendered then, so the message
+ * says what was true at that moment. A worker claims due rows (state `sending`, with a claim that runs out) and marks
+ * each sent or schedules its next attempt; see server/services/mail-outbox.ts.
+ */
+export const mailOutbox = sqliteTable(
+  'mail_outbox',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    kind: text('kind', { enum: MAIL_KINDS }).notNull(),
+    recipient: text('recipient').notNull(),
+    subject: text('subject').notNull(),
+    text: text('text').notNull(),
+    html: text('html').notNull(),
+    state: text('state', { enum: MAIL_STATES }).notNull().default('queued'),
+    attempts: integer('attempts').notNull().default(0),
+    /** Epoch milliseconds: the worker takes a queued row once this has passed. */
+    nextAttemptAt: integer('next_attempt_at').notNull(),
+    /** The process sending the row and when its claim runs out (a process that died mid-send gives the row back). */
+    claimedBy: text('claimed_by'),
+    claimExpiresAt: integer('claim_expires_at'),
+    lastError: text('last_error'),
+    lastAttemptAt: text('last_attempt_at'),
+    /** When it last went; kept when a sent message is queued again. */
+    sentAt: text('sent_at'),
+    createdAt: createdAt(),
+  },
+  (t) => [
+    index('mail_outbox_due_idx').on(t.state, t.nextAttemptAt),
+    index('mail_outbox_created_idx').on(t.createdAt),
+    oneOf('mail_outbox', 'kind', MAIL_KINDS),
+    oneOf('mail_outbox', 'state', MAIL_STATES),
+    holds('mail_outbox', 'attempts', 'attempts >= 0'),
+    holds('mail_outbox', 'sent', "state <> 'sent' OR sent_at IS NOT NULL"),
+  ],
+);

@@ -6,10 +6,13 @@ import { invoiceDueDate, invoiceOpenCents, isOpenInvoice, openBalanceCents, type
 import type { DealerAccountRowSchema, DealerApplication, DealerDecision, OpenInvoice } from '../../shared/schemas/accounts';
 import { ConflictError, NotFoundError } from './errors';
 
-/** What the trade-account flow tells people; mail in the app. */
+/** The transaction a notice is written in (the mail outbox in the app). */
+type Tx = Pick<Db, 'select' | 'insert' | 'update'>;
+
+/** What the trade-account flow tells people, written in the transaction of the change that causes it. */
 export interface DealerNotifier {
-  applied(dealerAccountId: number): void;
-  decided(dealerAccountId: number, decision: DealerDecision['decision']): void;
+  applied(tx: Tx, dealerAccountId: number): void;
+  decided(tx: Tx, dealerAccountId: number, decision: DealerDecision['decision']): void;
 }
 
 type DealerStatus = (typeof dealerAccounts.$inferSelect)['status'];
@@ -158,13 +161,14 @@ export function createDealerAccountsService(deps: { db: Db; notify: DealerNotifi
           .set({ role: 'dealer' })
           .where(and(inArray(user.id, members), eq(user.role, 'customer')))
           .run();
+        notify.decided(tx, dealerAccountId, 'approve');
         return { id: dealerAccountId, status: 'approved' };
       }
       if (dealer.status === 'approved') throw new ConflictError('An approved account is not declined; change its terms instead');
       tx.update(dealerAccounts).set({ status: 'declined', declineReason: input.reason, decidedAt: now }).where(eq(dealerAccounts.id, dealerAccountId)).run();
+      notify.decided(tx, dealerAccountId, 'decline');
       return { id: dealerAccountId, status: 'declined' };
     });
-    notify.decided(dealerAccountId, input.decision);
     return result;
   }
 
@@ -193,9 +197,9 @@ export function createDealerAccountsService(deps: { db: Db; notify: DealerNotifi
         .returning({ id: dealerAccounts.id })
         .get();
       tx.insert(dealerMembers).values({ userId: applicant.id, dealerAccountId: row.id }).run();
+      notify.applied(tx, row.id);
       return row.id;
     });
-    notify.applied(id);
     return { id, status: 'pending' };
   }
 

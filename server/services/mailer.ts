@@ -33,7 +33,10 @@ export interface MailerOptions {
 
 export function createMailer(options: MailerOptions): Mailer {
   const timeout = options.timeoutMs ?? 10_000;
+  // Pooled: the outbox worker sends batches over a few kept-open connections rather than one handshake per message.
   const transport = nodemailer.createTransport({
+    pool: true,
+    maxConnections: 2,
     host: options.host,
     port: options.port,
     secure: options.secure ?? false,

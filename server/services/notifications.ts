@@ -4,7 +4,10 @@ import type { Db } from '../db/client';
 import { creditNotes, dealerAccounts, dealerMembers, orderLines, orders, parts, returns, shipments, user } from '../db/schema';
 import { CATEGORY_SLUGS } from '../../shared/catalog';
 import { DEALER_TIERS } from '../../shared/pricing';
-import { sendSafely, type MailerPort } from './mailer';
+import { enqueueMail } from './mail-outbox';
+import type { Query } from './orders/order-reads';
+import type { MailKind } from '../../shared/allowed-values';
+import type { OutgoingMail } from './mailer';
 import { renderBackOrderNotice } from './mail-templates/back-order-notice';
 import { renderDealerApplicationApproved } from './mail-templates/dealer-application-approved';
 import { renderDealerApplicationDeclined } from './mail-templates/dealer-application-declined';
@@ -24,14 +27,13 @@ import type { OrderNotifier } from './orders';
 const categorySlug = z.enum(CATEGORY_SLUGS);
 
 /**
- * Builds each message from the database after the change that causes it has committed, and sends it without
- * letting a mail failure reach the request.
+ * Builds each message inside the transaction of the change that causes it (every method takes that transaction) and
+ * writes it to the mail outbox there; the outbox worker sends it after the commit, so no request waits for the mail
+ * server and a change that rolls back leaves no message.
  */
-export function createNotifications(deps: { db: Db; mailer: MailerPort; publicUrl: string; track?: (p: Promise<boolean>) => void }) {
-  const { db } = deps;
-  const track = deps.track ?? (() => {});
-  const orderRow = (orderId: number) =>
-    db
+export function createNotifications(deps: { db: Db; publicUrl: string }) {
+  const orderRow = (q: Query, orderId: number) =>
+    q
       .select({
         number: orders.number,
         email: orders.email,
@@ -58,8 +60,8 @@ export function createNotifications(deps: { db: Db; mailer: MailerPort; publicUr
       .leftJoin(dealerAccounts, eq(dealerAccounts.id, orders.dealerAccountId))
       .where(eq(orders.id, orderId))
       .get();
-  const orderLinesOf = (orderId: number) =>
-    db
+  const orderLinesOf = (q: Query, orderId: number) =>
+    q
       .select({
         partNumber: orderLines.partNumber,
         title: orderLines.title,
@@ -74,8 +76,8 @@ export function createNotifications(deps: { db: Db; mailer: MailerPort; publicUr
       .where(eq(orderLines.orderId, orderId))
       .orderBy(orderLines.id)
       .all();
-  const dealerRow = (dealerAccountId: number) =>
-    db
+  const dealerRow = (q: Query, dealerAccountId: number) =>
+    q
       .select({
         companyName: dealerAccounts.companyName,
         contactName: dealerAccounts.contactName,
@@ -94,21 +96,21 @@ export function createNotifications(deps: { db: Db; mailer: MailerPort; publicUr
       .get();
   type OrderMailRow = NonNullable<ReturnType<typeof orderRow>>;
 
-  const send = (label: string, build: () => { to: string; subject: string; text: string; html: string }) => track(sendSafely(deps.mailer, build, label));
+  const send = (q: Query, kind: MailKind, build: () => OutgoingMail) => enqueueMail(q, kind, build);
   const url = (path: string) => `${deps.publicUrl.replace(/\/$/, '')}${path}`;
   const address = (o: OrderMailRow): MailAddress => ({ name: o.shipName, company: o.companyName ?? undefined, lines: [o.shipLine1], city: o.shipCity, postalCode: o.shipPostcode });
-  const load = (orderId: number) => {
-    const order = orderRow(orderId);
-    const lines = orderLinesOf(orderId);
+  const load = (q: Query, orderId: number) => {
+    const order = orderRow(q, orderId);
+    const lines = orderLinesOf(q, orderId);
     return order ? { order, lines } : null;
   };
 
   const orderMail: OrderNotifier = {
-    orderConfirmed(orderId) {
-      const found = load(orderId);
+    orderConfirmed(q, orderId) {
+      const found = load(q, orderId);
       if (!found) return;
       const { order, lines } = found;
-      send('order confirmation', () => ({
+      send(q, 'order-confirmation', () => ({
         to: order.email,
         ...renderOrderConfirmation({
           orderNumber: order.number,
@@ -141,22 +143,22 @@ export function createNotifications(deps: { db: Db; mailer: MailerPort; publicUr
         }),
       }));
     },
-    paymentFailed(orderId, reason) {
-      const found = load(orderId);
+    paymentFailed(q, orderId, reason) {
+      const found = load(q, orderId);
       if (!found) return;
       const { order } = found;
-      send('payment failure', () => ({
+      send(q, 'payment-failed', () => ({
         to: order.email,
         ...renderPaymentFailed({ orderNumber: order.number, customerName: order.userName, amountCents: order.totalCents, declineMessage: reason, retryUrl: url('/cart') }),
       }));
     },
-    backordered(orderId) {
-      const found = load(orderId);
+    backordered(q, orderId) {
+      const found = load(q, orderId);
       if (!found) return;
       const { order, lines } = found;
       const waiting = lines.filter((l) => l.backordered > 0);
       if (waiting.length === 0) return;
-      send('back-order notice', () => ({
+      send(q, 'back-order', () => ({
         to: order.email,
         ...renderBackOrderNotice({
           orderNumber: order.number,
@@ -170,11 +172,11 @@ export function createNotifications(deps: { db: Db; mailer: MailerPort; publicUr
   };
 
   const warehouseMail: WarehouseNotifier = {
-    shortPicked(orderId, short) {
-      const found = load(orderId);
+    shortPicked(q, orderId, short) {
+      const found = load(q, orderId);
       if (!found) return;
       const { order } = found;
-      send('short-pick back-order notice', () => ({
+      send(q, 'short-pick', () => ({
         to: order.email,
         ...renderBackOrderNotice({
           orderNumber: order.number,
@@ -185,16 +187,16 @@ export function createNotifications(deps: { db: Db; mailer: MailerPort; publicUr
         }),
       }));
     },
-    dispatched(orderId, shipmentId) {
-      const found = load(orderId);
-      const shipment = db
+    dispatched(q, orderId, shipmentId) {
+      const found = load(q, orderId);
+      const shipment = q
         .select({ carrier: shipments.carrier, trackingNumber: shipments.trackingNumber, cartons: shipments.cartons, grams: shipments.weightGrams, at: shipments.createdAt })
         .from(shipments)
         .where(eq(shipments.id, shipmentId))
         .get();
       if (!found || !shipment) return;
       const { order, lines } = found;
-      send('dispatch notice', () => ({
+      send(q, 'dispatch', () => ({
         to: order.email,
         ...renderDispatchNotice({
           orderNumber: order.number,
@@ -214,8 +216,8 @@ export function createNotifications(deps: { db: Db; mailer: MailerPort; publicUr
   };
 
   const returnsMail: ReturnsNotifier = {
-    returnDecided(returnId) {
-      const r = db
+    returnDecided(q, returnId) {
+      const r = q
         .select({
           reference: returns.reference,
           quantity: returns.quantity,
@@ -246,7 +248,7 @@ export function createNotifications(deps: { db: Db; mailer: MailerPort; publicUr
           : r.decision === 'core-refund'
             ? ({ kind: 'core-deposit-refund', amountCents: r.refundCents, route } as const)
             : ({ kind: 'refund', amountCents: r.refundCents, partial: r.decision === 'partial-refund', route } as const);
-      send('return decision', () => ({
+      send(q, 'return-decision', () => ({
         to: r.email,
         ...renderReturnDecision({
           customerName: r.name,
@@ -267,17 +269,17 @@ export function createNotifications(deps: { db: Db; mailer: MailerPort; publicUr
     orders: orderMail,
     warehouse: warehouseMail,
     returns: returnsMail,
-    dealerApplied(dealerAccountId: number) {
-      const d = dealerRow(dealerAccountId);
+    dealerApplied(q: Query, dealerAccountId: number) {
+      const d = dealerRow(q, dealerAccountId);
       if (!d) return;
-      send('dealer application received', () => ({ to: d.email, ...renderDealerApplicationReceived({ contactName: d.contactName, companyName: d.companyName, submittedAt: new Date(d.createdAt) }) }));
+      send(q, 'dealer-application-received', () => ({ to: d.email, ...renderDealerApplicationReceived({ contactName: d.contactName, companyName: d.companyName, submittedAt: new Date(d.createdAt) }) }));
     },
-    dealerDecided(dealerAccountId: number, decision: 'approve' | 'decline') {
-      const d = dealerRow(dealerAccountId);
+    dealerDecided(q: Query, dealerAccountId: number, decision: 'approve' | 'decline') {
+      const d = dealerRow(q, dealerAccountId);
       if (!d) return;
       if (decision === 'approve' && d.tier) {
         const tier = DEALER_TIERS[d.tier];
-        send('dealer approval', () => ({
+        send(q, 'dealer-approved', () => ({
           to: d.email,
           ...renderDealerApplicationApproved({
             contactName: d.contactName,
@@ -290,11 +292,12 @@ export function createNotifications(deps: { db: Db; mailer: MailerPort; publicUr
           }),
         }));
       } else {
-        send('dealer decline', () => ({ to: d.email, ...renderDealerApplicationDeclined({ contactName: d.contactName, companyName: d.companyName, reason: d.declineReason ?? '' }) }));
+        send(q, 'dealer-declined', () => ({ to: d.email, ...renderDealerApplicationDeclined({ contactName: d.contactName, companyName: d.companyName, reason: d.declineReason ?? '' }) }));
       }
     },
-    async passwordReset(to: { email: string; name: string }, resetUrl: string) {
-      await sendSafely(deps.mailer, () => ({ to: to.email, ...renderPasswordReset({ name: to.name, resetUrl, expiresInMinutes: 60 }) }), 'password reset');
+    /** Written on its own (the auth library has no transaction to share); the request only waits for the insert. */
+    passwordReset(to: { email: string; name: string }, resetUrl: string) {
+      send(deps.db, 'password-reset', () => ({ to: to.email, ...renderPasswordReset({ name: to.name, resetUrl, expiresInMinutes: 60 }) }));
     },
     send,
     url,

@@ -10,8 +10,9 @@ import type { ReturnDecision, ReturnRequest, ReturnView } from '../../shared/sch
 import type { StockService } from './stock';
 import type { StoredImage } from './uploads';
 
+/** What the returns desk tells the customer, written in the transaction of the decision (the mail outbox in the app). */
 export interface ReturnsNotifier {
-  returnDecided(returnId: number): void;
+  returnDecided(tx: DbOrTx, returnId: number): void;
 }
 
 /** The same expression as the schema's timestamp defaults. */
@@ -211,6 +212,7 @@ export function createReturnsService(deps: { db: Db; stock: StockService; paymen
         .where(eq(orders.id, r.orderId))
         .get();
       if (paidBack?.fully) tx.update(orders).set({ status: 'returned' }).where(eq(orders.id, r.orderId)).run();
+      deps.notify.returnDecided(tx, id);
     });
 
   /**
@@ -246,7 +248,6 @@ export function createReturnsService(deps: { db: Db; stock: StockService; paymen
       }
     }
     record(id, d, amount, refundId);
-    deps.notify.returnDecided(id);
     return view(get(db, id));
   }
 

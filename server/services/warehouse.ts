@@ -7,10 +7,10 @@ import { PickLineSchema, type Dispatch, type Pick as PickInput, type PickLine, t
 import type { OrderStatus } from '../../shared/schemas/orders';
 import type { StockService } from './stock';
 
-/** What the warehouse tells customers; mail in the app, a recorder in tests. */
+/** What the warehouse tells customers, written in the transaction of the pick or dispatch (the mail outbox in the app). */
 export interface WarehouseNotifier {
-  shortPicked(orderId: number, lines: Array<{ partNumber: string; title: string; ordered: number; backordered: number }>): void;
-  dispatched(orderId: number, shipmentId: number): void;
+  shortPicked(tx: DbOrTx, orderId: number, lines: Array<{ partNumber: string; title: string; ordered: number; backordered: number }>): void;
+  dispatched(tx: DbOrTx, orderId: number, shipmentId: number): void;
 }
 
 const PICKABLE: OrderStatus[] = ['paid', 'on_account', 'picking', 'back_ordered', 'packed'];
@@ -19,7 +19,7 @@ const PICKABLE: OrderStatus[] = ['paid', 'on_account', 'picking', 'back_ordered'
 const now = sql<string>`strftime('%Y-%m-%dT%H:%M:%fZ','now')`;
 
 /** The database or the transaction a query runs in: better-sqlite3 has one connection, so both see the same data. */
-type DbOrTx = Pick<Db, 'select' | 'insert' | 'update'>;
+export type DbOrTx = Pick<Db, 'select' | 'insert' | 'update'>;
 
 const lineColumns = {
   lineId: orderLines.id,
@@ -219,12 +219,12 @@ export function createWarehouseService(deps: { db: Db; stock: StockService; noti
         if (status === 'picking') addEvent(tx, order.id, 'picking', null);
       }
       const updated = after.find((l) => l.lineId === line.lineId)!;
+      if (shortLine) notify.shortPicked(tx, order.id, [shortLine]);
       return { line: pickLine(tx, updated), orderStatus: status, message, orderId: order.id, shortLine };
     });
 
   function pick(number: string, input: PickInput) {
     const result = recordPick(number, input);
-    if (result.shortLine) notify.shortPicked(result.orderId, [result.shortLine]);
     return { line: result.line, orderStatus: result.orderStatus, message: result.message };
   }
 
@@ -278,12 +278,12 @@ export function createWarehouseService(deps: { db: Db; stock: StockService; noti
       setStatus(tx, order.id, status);
       addEvent(tx, order.id, 'dispatched', `${input.carrier} ${input.trackingNumber}, ${units} unit${units === 1 ? '' : 's'}`);
       if (waiting) addEvent(tx, order.id, 'back_ordered', 'The rest follows when stock arrives');
+      notify.dispatched(tx, order.id, shipment.id);
       return { orderId: order.id, status, shipmentId: shipment.id, shipment: { carrier: input.carrier, trackingNumber: input.trackingNumber, cartons, units } };
     });
 
   function dispatch(number: string, input: Dispatch) {
     const result = dispatchOrder(number, input);
-    notify.dispatched(result.orderId, result.shipmentId);
     return { status: result.status, shipment: result.shipment };
   }
 

@@ -27,7 +27,10 @@ export interface TestApp {
   app: ReturnType<typeof createApp>;
   payments: PaymentsFake | null;
   mail: MailFake | null;
-  /** Resolves when every mail started so far has been handed to the SMTP server. */
+  /**
+   * Runs the mail outbox until nothing is due: resolves when every message queued so far has been handed to the mail
+   * server (or has had its attempt fail and waits for a later one).
+   */
   mailSettled: () => Promise<void>;
   get: (p: string, init?: RequestInit) => Promise<Reply>;
   send: (method: string, p: string, body?: unknown, headers?: Record<string, string>) => Promise<Reply>;
@@ -50,6 +53,9 @@ async function freePort(): Promise<number> {
   return port;
 }
 
+/** How often the test app's mail worker looks for due messages. */
+export const MAIL_WORKER_MS = 20;
+
 export interface StartOptions {
   /** Run the payments and mail fakes as real local servers and point the app at them. */
   fakes?: boolean;
@@ -64,7 +70,6 @@ export async function startTestApp(options: StartOptions = {}): Promise<TestApp>
   const { db, dir } = createTestDb(options.catalogue);
   let payments: PaymentsFake | null = null;
   let mail: MailFake | null = null;
-  const pending: Array<Promise<boolean>> = [];
   if (options.fakes) {
     payments = await startPaymentsFake({ port: 0, host: '127.0.0.1', webhookUrl: null, webhookSecret: TEST_WEBHOOK_SECRET, retryDelaysMs: [50, 100, 200] });
     mail = await startMailFake({ smtpPort: 0, httpPort: 0, host: '127.0.0.1' });
@@ -78,7 +83,8 @@ export async function startTestApp(options: StartOptions = {}): Promise<TestApp>
     ...base,
     payments: payments ? paymentsClient(payments.port) : base.payments,
     mailer,
-    trackMail: (p) => pending.push(p),
+    // Fast retries, so an outage in a test lasts a moment rather than minutes.
+    mailPolicy: { baseDelayMs: 50, maxDelayMs: 1_000 },
     config: testConfig({
       publicUrl: url,
       ...(payments ? { paymentsApiUrl: payments.url } : {}),
@@ -90,6 +96,8 @@ export async function startTestApp(options: StartOptions = {}): Promise<TestApp>
     ...options.deps,
   });
   if (options.accounts) await seedDemoAccounts(app.auth, db);
+  // The worker runs as in the real server, only faster; tests that wait for a message in the fake's inbox rely on it.
+  app.mailOutbox.start(MAIL_WORKER_MS);
   const listening: Server = await new Promise((resolve) => {
     const s = app.app.listen(port, '127.0.0.1', () => resolve(s));
   });
@@ -116,13 +124,13 @@ export async function startTestApp(options: StartOptions = {}): Promise<TestApp>
     payments,
     mail,
     mailSettled: async () => {
-      await Promise.all(pending);
+      await app.mailOutbox.drain();
     },
     get: async (p, init) => read(await fetch(`${url}${p}`, init)),
     send: async (method, p, body, headers = {}) =>
       read(await fetch(`${url}${p}`, { method, headers: { 'content-type': 'application/json', ...headers }, body: body === undefined ? undefined : JSON.stringify(body) })),
     close: async () => {
-      await Promise.all(pending);
+      await app.mailOutbox.stop();
       listening.closeAllConnections();
       await new Promise<void>((resolve) => listening.close(() => resolve()));
       await payments?.close();

@@ -8,13 +8,16 @@ import type { CurrentUser } from '../current-user';
 import type { Checkout, CheckoutResponse } from '../../../shared/schemas/orders';
 import type { CartOwner } from '../cart';
 import { addOrderEvent, setOrderState, type OrderPlacement } from './order-placement';
-import { findOrder } from './order-reads';
+import { findOrder, type Query } from './order-reads';
 
-/** What the order flow tells people; implemented with the mailer, replaced by a recorder in tests. */
+/**
+ * What the order flow tells people. Each call takes the transaction of the change that causes it and writes the
+ * message there (the mail outbox), so the message commits or rolls back with the change.
+ */
 export interface OrderNotifier {
-  orderConfirmed(orderId: number): void;
-  paymentFailed(orderId: number, reason: string): void;
-  backordered(orderId: number): void;
+  orderConfirmed(tx: Query, orderId: number): void;
+  paymentFailed(tx: Query, orderId: number, reason: string): void;
+  backordered(tx: Query, orderId: number): void;
 }
 
 export interface OrderPaymentsDeps {
@@ -42,10 +45,16 @@ export function createOrderPayments(deps: OrderPaymentsDeps) {
   const { db, payments, notify, placement } = deps;
 
   async function checkout(user: CurrentUser, owner: CartOwner, input: Checkout): Promise<CheckoutResponse> {
-    const placed = placement.placeFromCart(user, owner, input);
+    // The placing's own transaction becomes a savepoint inside this one, so an account order and its mail commit together.
+    const placed = db.transaction((tx) => {
+      const p = placement.placeFromCart(user, owner, input);
+      if (input.method === 'account') {
+        notify.orderConfirmed(tx, p.orderId);
+        if (p.backordered) notify.backordered(tx, p.orderId);
+      }
+      return p;
+    });
     if (input.method === 'account') {
-      notify.orderConfirmed(placed.orderId);
-      if (placed.backordered) notify.backordered(placed.orderId);
       return { order: { number: placed.number, status: placed.status, totalCents: placed.totalCents }, nextAction: null };
     }
     // The provider is called after the order's transaction has committed: better-sqlite3 cannot wait inside one.
@@ -76,7 +85,9 @@ export function createOrderPayments(deps: OrderPaymentsDeps) {
       const reason = declined
         ? `Your card was declined${err.decline_code ? ` (${err.decline_code.replace(/_/g, ' ')})` : ''}. No payment was taken.`
         : 'The payment service could not be reached. No payment was taken.';
-      if (placement.cancelUnpaid(placed.orderId, reason)) notify.paymentFailed(placed.orderId, reason);
+      db.transaction((tx) => {
+        if (placement.cancelUnpaid(placed.orderId, reason)) notify.paymentFailed(tx, placed.orderId, reason);
+      });
       const message = `${reason} Your cart is as it was: try another card.`;
       throw declined ? new PaymentDeclinedError(message) : new PaymentServiceError(message);
     }
@@ -117,24 +128,24 @@ export function createOrderPayments(deps: OrderPaymentsDeps) {
       return { applied: true, effect: null, orderId: order.id };
     });
 
-  function handlePaymentEvent(event: Stripe.Event) {
+  const handlePaymentEvent = (event: Stripe.Event) => db.transaction((tx) => {
     const result = applyEvent(event);
     if (result.effect === 'paid' && result.orderId) {
-      notify.orderConfirmed(result.orderId);
-      const backordered = db
+      notify.orderConfirmed(tx, result.orderId);
+      const backordered = tx
         .select({ id: orderLines.id })
         .from(orderLines)
         .where(and(eq(orderLines.orderId, result.orderId), gt(orderLines.quantityBackordered, 0)))
         .limit(1)
         .get();
-      if (backordered) notify.backordered(result.orderId);
+      if (backordered) notify.backordered(tx, result.orderId);
     }
     if (result.effect === 'failed' && result.orderId) {
       const reason = 'The card payment could not be completed (authentication failed). No payment was taken.';
-      if (placement.cancelUnpaid(result.orderId, reason)) notify.paymentFailed(result.orderId, reason);
+      if (placement.cancelUnpaid(result.orderId, reason)) notify.paymentFailed(tx, result.orderId, reason);
     }
     return result;
-  }
+  });
 
   /**
    * Card orders left unpaid (an authentication never finished, a tab closed) give their stock back after a while:
