@@ -1,4 +1,4 @@
-import type { APIRequestContext, Page } from '@playwright/test';
+import type { Page } from '@playwright/test';
 import { test, expect } from './fixtures';
 import { keepScreenshot } from './support/screens';
 
@@ -31,13 +31,12 @@ async function fillDelivery(page: Page) {
   await page.getByLabel('Delivery zone').selectOption('local');
 }
 
-async function mailTo(request: APIRequestContext, email: string, subjectPart: string) {
+async function mailTo(caughtMail: (to: string) => Promise<unknown>, email: string, subjectPart: string) {
   let found: { subject: string; text: string } | undefined;
   await expect
     .poll(
       async () => {
-        const res = await request.get(`/api/dev/mail?to=${encodeURIComponent(email)}`);
-        const body = (await res.json()) as { messages: Array<{ subject: string; text: string }> };
+        const body = (await caughtMail(email)) as { messages: Array<{ subject: string; text: string }> };
         found = body.messages.find((m) => m.subject.includes(subjectPart));
         return Boolean(found);
       },
@@ -47,7 +46,7 @@ async function mailTo(request: APIRequestContext, email: string, subjectPart: st
   return found!;
 }
 
-test('a new retail buyer adds a part, pays by test card and sees the order paid', async ({ page, baseURL, axe }) => {
+test('a new retail buyer adds a part, pays by test card and sees the order paid', async ({ page, baseURL, axe, caughtMail }) => {
   const email = await signUpFresh(page, baseURL, 'retail-card');
   await addPartFromItsPage(page);
 
@@ -79,7 +78,7 @@ test('a new retail buyer adds a part, pays by test card and sees the order paid'
   await axe();
   await keepScreenshot(page, 'checkout-order-paid');
 
-  const mail = await mailTo(page.request, email, `Order ${orderNumber} confirmed`);
+  const mail = await mailTo(caughtMail, email, `Order ${orderNumber} confirmed`);
   expect(mail.text).toContain(PART);
 
   await page.goto(`/orders/${orderNumber}/invoice`);

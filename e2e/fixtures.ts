@@ -19,6 +19,8 @@ interface Fixtures {
   login: (role: Role) => Promise<void>;
   /** Fails the test on serious or critical accessibility violations on the current page. */
   axe: (options?: AxeOptions) => Promise<void>;
+  /** Reads the development mail catcher for an address, as the administrator (the only role the server lets read it). */
+  caughtMail: (to: string) => Promise<unknown>;
 }
 
 // The fixture callback is named `provide`, not Playwright's usual `use`, so the React hooks lint rule leaves it alone.
@@ -35,6 +37,15 @@ export const test = base.extend<Fixtures>({
   },
   axe: async ({ page }, provide) => {
     await provide((options) => expectNoSeriousA11yViolations(page, options));
+  },
+  caughtMail: async ({ playwright, baseURL }, provide) => {
+    const base = baseURL ?? 'http://127.0.0.1:3100';
+    // Its own request context, so the page stays signed in as whoever the test is.
+    const admin = await playwright.request.newContext({ baseURL: base });
+    const res = await admin.post('/api/auth/sign-in/email', { data: { email: DEMO_EMAILS.admin, password: DEMO_PASSWORD }, headers: { origin: new URL(base).origin } });
+    expect(res.ok(), 'sign-in as admin to read caught mail').toBe(true);
+    await provide(async (to) => (await admin.get(`/api/dev/mail?to=${encodeURIComponent(to)}`)).json());
+    await admin.dispose();
   },
 });
 

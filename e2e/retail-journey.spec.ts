@@ -3,7 +3,7 @@ import { keepScreenshot } from './support/screens';
 
 // The retail buyer's whole journey: sign up, check fitment, add the build the check chose, pay by test card,
 // see the order paid and the confirmation in the development inbox.
-test('a retail buyer signs up, checks fitment, adds the build, pays by test card and finds the confirmation e-mail', async ({ page, axe }) => {
+test('a retail buyer signs up, checks fitment, adds the build, pays by test card and finds the confirmation e-mail', async ({ page, axe, login }) => {
   test.setTimeout(60_000);
   const email = `journey-${Date.now()}@spoolyard.test`;
   await page.goto('/sign-up');
@@ -50,6 +50,8 @@ test('a retail buyer signs up, checks fitment, adds the build, pays by test card
   await expect(page.getByText('Thank you: payment received')).toBeVisible({ timeout: 10_000 });
   await expect(page.getByText('my 2.0 L street build').first()).toBeVisible();
 
+  // The caught mail is for an administrator only, even in development.
+  await login('admin');
   await page.goto('/dev/inbox');
   const inbox = page.getByRole('list', { name: 'Caught messages, newest first' });
   await expect(inbox.getByText(`Order ${orderNumber} confirmed`).first()).toBeVisible({ timeout: 10_000 });

@@ -14,6 +14,7 @@ test('warehouse staff pick an order by typing part numbers (a wrong one first), 
   login,
   axe,
   baseURL,
+  caughtMail,
 }) => {
   const origin = new URL(baseURL ?? 'http://127.0.0.1:3100').origin;
 
@@ -105,7 +106,7 @@ test('warehouse staff pick an order by typing part numbers (a wrong one first), 
   // The dealer's dispatch e-mail carries the tracking number.
   await expect
     .poll(async () => {
-      const mail = MailSchema.parse(await (await page.request.get('/api/dev/mail?to=dealer@spoolyard.test')).json());
+      const mail = MailSchema.parse(await caughtMail('dealer@spoolyard.test'));
       return mail.messages.some((m) => m.to.includes('dealer@spoolyard.test') && m.subject.includes(orderNumber) && (m.text ?? '').includes(TRACKING));
     }, { message: 'dispatch e-mail with the tracking number', timeout: 10_000 })
     .toBe(true);

@@ -2,13 +2,18 @@ import { Router } from 'express';
 import { z } from 'zod';
 import { CaughtMailListSchema } from '../../shared/schemas/dev-mail';
 import { HttpError, parseOr400 } from '../middleware/errors';
-import { requireUser } from '../middleware/session';
+import { requireRole, requireUser } from '../middleware/session';
 import type { OrderService } from '../services/orders';
 
-/** Development only: the caught-mail inbox and the card-authentication step the provider's script would show. */
+/**
+ * Development only (absent in production): the caught-mail inbox and the card-authentication step the provider's
+ * script would show. The inbox holds every customer's mail, reset links included, so it is for a signed-in
+ * administrator only; the card step stays with the buyer, for their own order only, because it stands in for the page
+ * the provider shows that buyer.
+ */
 export function devRouter(deps: { mailInboxUrl: string; paymentsApiUrl: string; orders: OrderService }): Router {
   const router = Router();
-  router.get('/mail', async (req, res) => {
+  router.get('/mail', requireRole('admin'), async (req, res) => {
     const to = typeof req.query.to === 'string' ? `?to=${encodeURIComponent(req.query.to)}` : '';
     let response: Response;
     try {

@@ -192,7 +192,7 @@ export function Layout() {
               </nav>
               <div className="ml-auto flex items-center gap-3">
                 {role && <WorkspaceNav role={role} current={workspace} />}
-                {devTools && (
+                {devTools && role === 'admin' && (
                   <Link to="/dev/inbox" className="inline-flex items-center gap-1 rounded border border-dashed border-amber-line px-2 py-0.5 text-sm font-semibold text-amber hover:bg-amber-tint">
                     <Inbox aria-hidden className="size-4" />
                     Inbox <span className="sr-only">(development mail catcher)</span>

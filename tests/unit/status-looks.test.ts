@@ -1,4 +1,5 @@
 import { describe, expect, it } from 'vitest';
+import { MAIL_STATES } from '../../shared/allowed-values';
 import { DealerAccountRowSchema } from '../../shared/schemas/accounts';
 import { ORDER_STATUS_KEYS, ORDER_STATUS_LABELS } from '../../shared/schemas/orders';
 import { StockStateSchema } from '../../shared/schemas/parts';
@@ -12,6 +13,7 @@ const SHARED_VALUES: Record<StatusKind, readonly string[]> = {
   dealer: DealerAccountRowSchema.shape.status.options,
   stock: StockStateSchema.options,
   queue: [...PickQueueItemSchema.shape.ready.options, 'released'],
+  mail: MAIL_STATES,
 };
 
 describe('status badges: one word, shape and colour per shared status value', () => {

@@ -15,7 +15,7 @@ export function ForgotPasswordRoute() {
         inboxHint={
           devTools && (
             <p className="mt-2 text-sm">
-              Development: the message is in the{' '}
+              Development: an administrator can read the message in the{' '}
               <Link to="/dev/inbox" className="font-semibold text-temper underline underline-offset-2">
                 caught-mail inbox
               </Link>

@@ -14,6 +14,8 @@ import {
   Clock,
   FileText,
   Hourglass,
+  MailCheck,
+  Send,
   Package,
   PackageCheck,
   ReceiptText,
@@ -25,6 +27,8 @@ import {
 } from 'lucide-react';
 import type { z } from 'zod';
 import type { DealerAccountRowSchema } from '../../../shared/schemas/accounts';
+import type { MailState } from '../../../shared/allowed-values';
+import { MAIL_STATE_LABELS } from '../../../shared/schemas/mail-outbox';
 import { ORDER_STATUS_LABELS, type OrderStatus } from '../../../shared/schemas/orders';
 import type { StockStateSchema } from '../../../shared/schemas/parts';
 import type { PickQueueItemSchema, ReturnViewSchema } from '../../../shared/schemas/warehouse';
@@ -83,12 +87,20 @@ export const QUEUE_STATE_LOOKS: Record<QueueState, StatusLook> = {
   dispatch: { label: 'To dispatch', Icon: Truck, tone: 'machined' },
 };
 
+export const MAIL_STATE_LOOKS: Record<MailState, StatusLook> = {
+  queued: { label: MAIL_STATE_LABELS.queued, Icon: Hourglass, tone: 'amber' },
+  sending: { label: MAIL_STATE_LABELS.sending, Icon: Send, tone: 'temper' },
+  sent: { label: MAIL_STATE_LABELS.sent, Icon: MailCheck, tone: 'machined' },
+  failed: { label: MAIL_STATE_LABELS.failed, Icon: CircleX, tone: 'oxide' },
+};
+
 export const STATUS_LOOKS = {
   order: ORDER_STATUS_LOOKS,
   return: RETURN_STATUS_LOOKS,
   dealer: DEALER_STATUS_LOOKS,
   stock: STOCK_STATE_LOOKS,
   queue: QUEUE_STATE_LOOKS,
+  mail: MAIL_STATE_LOOKS,
 } as const;
 
 export type StatusKind = keyof typeof STATUS_LOOKS;

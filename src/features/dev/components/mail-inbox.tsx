@@ -87,10 +87,11 @@ export function MailInbox({ selectedId, onSelect }: { selectedId: string | null;
   if (mail.isPending) return <LoadingState label="Loading caught mail…" />;
   if (mail.isError) {
     const off = mail.error instanceof ApiError && mail.error.isNotFound;
+    const refused = mail.error instanceof ApiError && (mail.error.status === 401 || mail.error.status === 403);
     return (
       <ErrorState
-        title={off ? 'The inbox is off on this server' : 'The inbox did not load'}
-        message={off ? 'Development tools are switched off here (production), so no mail is caught.' : mail.error.message}
+        title={off ? 'The inbox is off on this server' : refused ? 'The inbox is for administrators' : 'The inbox did not load'}
+        message={off ? 'Development tools are switched off here (production), so no mail is caught.' : refused ? 'Sign in with an administrator account to read caught mail.' : mail.error.message}
         onRetry={off ? undefined : () => void mail.refetch()}
       />
     );

@@ -4,4 +4,6 @@ export const officeKeys = {
   part: (partNumber: string) => [...officeKeys.all, 'part', partNumber] as const,
   lookup: (partNumber: string) => [...officeKeys.all, 'lookup', partNumber] as const,
   priceImport: (id: number) => [...officeKeys.all, 'price-import', id] as const,
+  mail: () => [...officeKeys.all, 'mail'] as const,
+  mailList: (state: string, page: number) => [...officeKeys.mail(), { state, page }] as const,
 };
