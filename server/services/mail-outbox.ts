@@ -88,12 +88,15 @@ export function createMailOutbox(deps: { db: Db; mailer: MailerPort; policy?: Pa
       .run().changes;
   }
 
-  /** One UPDATE … RETURNING takes the due rows: SQLite runs it under the write lock, so a row goes to one process only. */
-  function claim(at: number) {
+  /**
+   * One UPDATE … RETURNING takes the due rows: SQLite runs it under the write lock, so a row goes to one process only.
+   * Only rows due when the pass began are taken, so a message that failed in this pass waits for its backoff.
+   */
+  function claim(at: number, dueBy: number) {
     const due = db
       .select({ id: mailOutbox.id })
       .from(mailOutbox)
-      .where(and(eq(mailOutbox.state, 'queued'), lte(mailOutbox.nextAttemptAt, at)))
+      .where(and(eq(mailOutbox.state, 'queued'), lte(mailOutbox.nextAttemptAt, dueBy)))
       .orderBy(mailOutbox.nextAttemptAt, mailOutbox.id)
       .limit(policy.batchSize);
     return db
@@ -106,15 +109,31 @@ export function createMailOutbox(deps: { db: Db; mailer: MailerPort; policy?: Pa
 
   const mine = (id: number) => and(eq(mailOutbox.id, id), eq(mailOutbox.state, 'sending'), eq(mailOutbox.claimedBy, holder));
 
-  /** Sends every due message once (one batch at a time) and returns what happened. */
+  /** Rows claimed but not tried when the worker stops go straight back, as if never claimed. */
+  function unclaim(ids: number[]) {
+    if (ids.length === 0) return;
+    db.update(mailOutbox)
+      .set({ state: 'queued', claimedBy: null, claimExpiresAt: null, attempts: sql`${mailOutbox.attempts} - 1` })
+      .where(and(inArray(mailOutbox.id, ids), eq(mailOutbox.state, 'sending'), eq(mailOutbox.claimedBy, holder)))
+      .run();
+  }
+
+  let stopped = false;
+
+  /** Sends every message due now (one batch at a time) and returns what happened. */
   async function runOnce(): Promise<OutboxRunResult> {
     const result: OutboxRunResult = { claimed: 0, sent: 0, retrying: 0, failed: 0 };
-    releaseStaleClaims(now());
-    for (;;) {
-      const rows = claim(now());
-      if (rows.length === 0) return result;
+    const began = now();
+    releaseStaleClaims(began);
+    while (!stopped) {
+      const rows = claim(now(), began);
+      if (rows.length === 0) break;
       result.claimed += rows.length;
-      for (const row of rows) {
+      for (const [i, row] of rows.entries()) {
+        if (stopped) {
+          unclaim(rows.slice(i).map((r) => r.id));
+          break;
+        }
         try {
           await mailer.send({ to: row.recipient, subject: row.subject, text: row.text, html: row.html });
         } catch (error) {
@@ -145,11 +164,11 @@ export function createMailOutbox(deps: { db: Db; mailer: MailerPort; policy?: Pa
         if (marked === 1) result.sent += 1;
       }
     }
+    return result;
   }
 
   let timer: NodeJS.Timeout | null = null;
   let running: Promise<unknown> | null = null;
-  let stopped = false;
 
   /** Passes that overlap are joined, not doubled: a caller waiting for the queue gets the pass in progress and then its own. */
   function pass(): Promise<OutboxRunResult> {
