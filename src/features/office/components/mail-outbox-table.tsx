@@ -67,9 +67,16 @@ export function MailOutboxTable({ messages, onResend, pendingId }: { messages: O
         label: 'Actions',
         cell: (row) =>
           row.original.resendable ? (
-            <Button variant="secondary" onClick={() => onResend(row.original)} disabled={pendingId === row.original.id} aria-label={`Send again: ${row.original.subject} to ${row.original.recipient}`}>
+            <Button
+              variant="secondary"
+              className="whitespace-nowrap"
+              onClick={() => onResend(row.original)}
+              disabled={pendingId === row.original.id}
+              aria-label={`${row.original.state === 'queued' ? 'Send now' : 'Send again'}: ${row.original.subject} to ${row.original.recipient}`}
+            >
               <RotateCcw aria-hidden className="size-4" />
-              Send again
+              {/* A waiting message is not sent twice: it only stops waiting for its next try. */}
+              {row.original.state === 'queued' ? 'Send now' : 'Send again'}
             </Button>
           ) : row.original.kind === 'password-reset' && row.original.state === 'sent' ? (
             <span className="block max-w-40 text-sm text-cast">Reset links are not kept once sent</span>
