@@ -74,9 +74,9 @@ function reason(error: unknown): string {
 }
 
 /**
- * Sends without ever rejecting: call it after the database work has committed, so a mail outage cannot turn a
- * placed order into an error page. Pass a function to have rendering failures caught the same way.
- * Resolves true when the message was handed to the server.
+ * Sends once without ever rejecting, for a message that needs no retry (a check that the relay answers). The shop's
+ * own mail goes through the outbox (mail-outbox.ts) instead, which keeps and retries it. Pass a function to have
+ * rendering failures caught the same way. Resolves true when the message was handed to the server.
  */
 export async function sendSafely(
   mailer: MailerPort,
