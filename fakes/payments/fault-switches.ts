@@ -34,6 +34,8 @@ interface Fault {
 export class FaultSwitches {
   private faults: Fault[] = [];
   private nextId = 1;
+  /** Requests held by a delay; clearing the faults lets them through at once (the host is back). */
+  private held = new Map<NodeJS.Timeout, () => void>();
 
   add(input: FaultInput): { id: number } {
     const f = FaultSchema.parse(input);
@@ -53,6 +55,18 @@ export class FaultSwitches {
   }
 
   clear(): void {
+    this.faults = [];
+    for (const [timer, release] of this.held) {
+      clearTimeout(timer);
+      release();
+    }
+    this.held.clear();
+  }
+
+  /** On shutdown: held requests are dropped, not carried out. */
+  dispose(): void {
+    for (const timer of this.held.keys()) clearTimeout(timer);
+    this.held.clear();
     this.faults = [];
   }
 
@@ -95,7 +109,12 @@ export class FaultSwitches {
         return next();
       }
       // A caller that gives up meanwhile does not stop it: the request is carried out late, as a slow provider's would be.
-      setTimeout(next, fault.delayMs);
+      const release = () => next();
+      const timer = setTimeout(() => {
+        this.held.delete(timer);
+        release();
+      }, fault.delayMs);
+      this.held.set(timer, release);
     };
   }
 }

@@ -394,6 +394,7 @@ export async function startPaymentsFake(options: PaymentsFakeOptions): Promise<P
     url: baseUrl,
     port,
     async close() {
+      faults.dispose();
       dispatcher.close();
       ledger.dispose();
       server.closeAllConnections();
