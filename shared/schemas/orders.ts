@@ -166,9 +166,16 @@ export const OrderDetailSchema = OrderSummarySchema.extend({
 });
 export type OrderDetail = z.infer<typeof OrderDetailSchema>;
 
+/**
+ * What the card provider said of the payment: confirmed (taken), processing (the webhook settles it), authenticate
+ * (the buyer's bank asks for a check), confirming (no answer yet: the buyer must not pay again; we e-mail them).
+ */
+export const CHECKOUT_OUTCOMES = ['confirmed', 'processing', 'authenticate', 'confirming'] as const;
 export const CheckoutResponseSchema = z.object({
   order: z.object({ number: z.string(), status: z.enum(ORDER_STATUS_KEYS), totalCents: z.number().int() }),
   nextAction: z.object({ type: z.literal('authenticate'), paymentIntentId: z.string(), clientSecret: z.string().nullable().optional() }).nullable().optional(),
+  outcome: z.enum(CHECKOUT_OUTCOMES).optional(),
+  message: z.string().optional(),
 });
 export type CheckoutResponse = z.infer<typeof CheckoutResponseSchema>;
 

@@ -143,6 +143,32 @@ function AuthenticationStep({ paymentIntentId, orderNumber, totalCents, onDone }
   );
 }
 
+/**
+ * The card provider has not said whether the card was charged. The order is kept and its stock held; the buyer is
+ * told plainly not to pay again, and nothing here offers another payment.
+ */
+function ConfirmingPayment({ orderNumber, totalCents, message }: { orderNumber: string; totalCents: number; message: string }) {
+  return (
+    <section aria-labelledby="confirming-heading" role="status" className="grid max-w-xl gap-3 rounded-lg bg-white p-6 shadow-sm ring-2 ring-amber">
+      <h2 id="confirming-heading" className="inline-flex items-center gap-2 text-2xl font-bold">
+        <LoaderCircle aria-hidden className="size-6 text-amber" />
+        We are confirming your payment
+      </h2>
+      <p>
+        Order <span className="part-no">{orderNumber}</span> for <span className="tabular font-semibold">{formatPrice(totalCents)}</span> is kept for
+        you, with its parts set aside.
+      </p>
+      <p className="font-semibold">{message}</p>
+      <p className="text-sm text-cast">
+        If the payment did not go through, the parts go back into your cart and we tell you by e-mail.{' '}
+        <Link to={`/orders/${encodeURIComponent(orderNumber)}`} className="font-semibold text-temper underline">
+          See the order
+        </Link>
+      </p>
+    </section>
+  );
+}
+
 function OrderLinesSummary({ cart }: { cart: CartView }) {
   return (
     <ul className="grid gap-2 text-sm">
@@ -166,6 +192,10 @@ export function CheckoutForm({ me, onPlaced }: { me: Me; onPlaced: (orderNumber:
   if (place.data?.nextAction) {
     const { order, nextAction } = place.data;
     return <AuthenticationStep paymentIntentId={nextAction.paymentIntentId} orderNumber={order.number} totalCents={order.totalCents} onDone={() => onPlaced(order.number)} />;
+  }
+  if (place.data?.outcome === 'confirming') {
+    const { order, message } = place.data;
+    return <ConfirmingPayment orderNumber={order.number} totalCents={order.totalCents} message={message ?? 'We are confirming your payment with the card provider. Do not pay again.'} />;
   }
   if (place.isSuccess) return <LoadingState label={`Order ${place.data.order.number} placed. Opening it…`} />;
   if (cart.isPending) return <LoadingState label="Loading your cart…" />;
@@ -229,7 +259,7 @@ function CheckoutFields({ me, cart: c, place, onPlaced }: { me: Me; cart: CartVi
             onPlaced(res.order.number);
             return;
           }
-          if (!res.nextAction) onPlaced(res.order.number);
+          if (!res.nextAction && res.outcome !== 'confirming') onPlaced(res.order.number);
         },
         onError: (err) => summary.showServerError(err, undefined, refusalTitle(err)),
       });

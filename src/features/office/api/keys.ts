@@ -4,4 +4,5 @@ export const officeKeys = {
   part: (partNumber: string) => [...officeKeys.all, 'part', partNumber] as const,
   lookup: (partNumber: string) => [...officeKeys.all, 'lookup', partNumber] as const,
   priceImport: (id: number) => [...officeKeys.all, 'price-import', id] as const,
+  paymentAlerts: () => [...officeKeys.all, 'payment-alerts'] as const,
 };
