@@ -39,7 +39,7 @@ export const DeliverySchema = z.object({
   line1: z.string().trim().min(3, 'street address is required').max(120, 'street address is too long'),
   city: z.string().trim().min(2, 'town or city is required').max(60, 'town or city is too long'),
   postcode: z.string().trim().min(3, 'postcode is required').max(12, 'postcode is too long'),
-  zone: z.enum(DELIVERY_ZONE_KEYS, { error: 'choose a delivery zone' }),
+  // No zone: the server prices freight to the postcode's zone (shared/pricing.ts zoneForPostcode).
 }, { error: 'enter a delivery address' });
 export type Delivery = z.infer<typeof DeliverySchema>;
 

@@ -1,11 +1,11 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { CircleCheck, CreditCard, FileText, LoaderCircle, OctagonAlert, ShieldCheck } from 'lucide-react';
-import { lazy, Suspense, useRef, useState } from 'react';
+import { lazy, Suspense, useEffect, useRef, useState } from 'react';
 import { useForm, type FieldError, type FieldErrors, type Resolver } from 'react-hook-form';
 import { Link } from 'react-router-dom';
 import { formatPrice } from '../../../../shared/catalog';
 import { availableCreditCents, checkCredit } from '../../../../shared/credit';
-import { DELIVERY_ZONE_KEYS, DELIVERY_ZONES, type DeliveryZone } from '../../../../shared/pricing';
+import { DELIVERY_ZONES, zoneForPostcode, type DeliveryZone } from '../../../../shared/pricing';
 import type { Me } from '../../../../shared/schemas/accounts';
 import { CheckoutSchema, PURCHASE_ORDER_MAX, type CartView, type Checkout } from '../../../../shared/schemas/orders';
 import { Button } from '../../../components/ui/button';
@@ -29,7 +29,7 @@ interface CheckoutFormValues {
   purchaseOrder: string;
   /** Dealers on account may ship to the address on their trade account. */
   useAccountAddress: boolean;
-  delivery: { name: string; line1: string; city: string; postcode: string; zone: DeliveryZone };
+  delivery: { name: string; line1: string; city: string; postcode: string };
 }
 
 function toPayload(v: CheckoutFormValues): Checkout {
@@ -47,7 +47,7 @@ const resolver: Resolver<CheckoutFormValues> = async (values, context, options) 
 const fieldId = (path: string) => `checkout-${path.replace(/\./g, '-')}`;
 
 /** The fields in the order they appear; the messages name what is missing, so they stand without a label. */
-const SUMMARY_FIELDS: readonly SummaryField[] = ['method', 'paymentMethod', 'purchaseOrder', 'delivery.name', 'delivery.line1', 'delivery.city', 'delivery.postcode', 'delivery.zone'].map((name) => ({
+const SUMMARY_FIELDS: readonly SummaryField[] = ['method', 'paymentMethod', 'purchaseOrder', 'delivery.name', 'delivery.line1', 'delivery.city', 'delivery.postcode'].map((name) => ({
   name,
   // A card choice is a radio group: link to its first option.
   id: name === 'paymentMethod' ? `${fieldId(name)}-0` : fieldId(name),
@@ -236,7 +236,7 @@ function CheckoutFields({ me, cart: c, place, onPlaced }: { me: Me; cart: CartVi
       paymentMethod: '',
       purchaseOrder: '',
       useAccountAddress: true,
-      delivery: { name: dealer ? dealer.companyName : user.name, line1: '', city: '', postcode: '', zone: (dealer?.deliveryZone as DeliveryZone | undefined) ?? c.deliveryZone },
+      delivery: { name: dealer ? dealer.companyName : user.name, line1: '', city: '', postcode: '' },
     },
   });
   const { register, watch, formState } = form;
@@ -281,11 +281,14 @@ function CheckoutFields({ me, cart: c, place, onPlaced }: { me: Me; cart: CartVi
     await submitForm(e);
   };
 
-  const zoneField = register('delivery.zone', {
-    onChange: (e: { target: { value: string } }) => {
-      if (!dealer) setZone.mutate(e.target.value as DeliveryZone);
-    },
-  });
+  // Freight goes by the postcode's zone (the server prices the order the same way); the cart is priced to it as the
+  // buyer types, so the summary beside the form is what will be charged. A trade account's zone is set by staff.
+  const postcode = watch('delivery.postcode');
+  const postcodeZone: DeliveryZone | null = !dealer && postcode.trim().length >= 3 ? zoneForPostcode(postcode) : null;
+  const { mutate: priceToZone } = setZone;
+  useEffect(() => {
+    if (postcodeZone && postcodeZone !== c.deliveryZone) priceToZone(postcodeZone);
+  }, [postcodeZone, c.deliveryZone, priceToZone]);
 
   return (
     <div className="grid gap-8 lg:grid-cols-[minmax(0,1fr)_22rem]">
@@ -423,21 +426,10 @@ function CheckoutFields({ me, cart: c, place, onPlaced }: { me: Me; cart: CartVi
                   </div>
                 );
               })}
-              <div className="grid content-start gap-1">
-                <label htmlFor={fieldId('delivery.zone')} className="font-semibold">
-                  Delivery zone
-                </label>
-                <select id={fieldId('delivery.zone')} disabled={!!dealer} aria-describedby={`${fieldId('delivery.zone')}-hint`} className={inputClass(!!errors.delivery?.zone)} {...zoneField}>
-                  {DELIVERY_ZONE_KEYS.map((z) => (
-                    <option key={z} value={z}>
-                      {DELIVERY_ZONES[z]}
-                    </option>
-                  ))}
-                </select>
-                <p id={`${fieldId('delivery.zone')}-hint`} className="text-sm text-cast">
-                  {dealer ? "Set on your trade account; freight is priced to it." : 'Freight is priced to this zone.'}
-                </p>
-                <FieldMessage id={fieldId('delivery.zone')} error={errors.delivery?.zone} />
+              <div className="grid content-start gap-1" role="status">
+                <span className="font-semibold">Delivery zone</span>
+                <span>{dealer ? DELIVERY_ZONES[c.deliveryZone as DeliveryZone] : postcodeZone ? DELIVERY_ZONES[postcodeZone] : 'From the postcode'}</span>
+                <p className="text-sm text-cast">{dealer ? "Set on your trade account; freight is priced to it." : 'Freight is priced to the postcode’s zone.'}</p>
               </div>
             </div>
           )}
