@@ -13,6 +13,7 @@ import { apiNotFound, createErrorHandler } from './middleware/errors';
 import { loadSession, refuseCrossSite } from './middleware/session';
 import { accountRouter } from './routes/account';
 import { adminDealersRouter } from './routes/admin-dealers';
+import { adminPaymentsRouter } from './routes/admin-payments';
 import { cartRouter } from './routes/cart';
 import { devRouter } from './routes/dev';
 import { fitmentRouter, savedFitmentsRouter } from './routes/fitment';
@@ -198,6 +199,7 @@ export function createApp(deps: AppDeps) {
   app.use('/api/admin', adminCatalogRouter({ admin: catalogAdmin, photosDir: partPhotosDir }));
   app.use('/api/admin/dealers', adminDealersRouter(dealers));
   app.use('/api/admin/mail', adminMailRouter(mailOutbox));
+  app.use('/api/admin/payment-alerts', adminPaymentsRouter(orders));
   if (config.devTools) app.use('/api/dev', devRouter({ mailInboxUrl: config.mailInboxUrl, paymentsApiUrl: config.paymentsApiUrl, orders }));
   app.use('/api', apiNotFound);
 

@@ -10,6 +10,7 @@ import { openDatabase } from './db/client';
 import { pruneRateLimits, runIfLeaseHeld } from './db/shared-state';
 import { parseEnv, publicUrl, type Env } from './env';
 import { createMailer } from './services/mailer';
+import { PAYMENTS_TIMEOUT_MS } from './services/orders/order-payments';
 import { createSearchService } from './services/search';
 
 let env: Env;
@@ -62,6 +63,9 @@ function runApp(env: Env) {
     host: env.PAYMENTS_API_HOST,
     port: env.PAYMENTS_API_PORT,
     protocol: env.PAYMENTS_API_PROTOCOL,
+    // An explicit bound on every call (the SDK's default is 80 s) and one retry on a network error, with the same
+    // idempotency key; checkout keeps its own tighter deadline on top (order-payments.ts).
+    timeout: PAYMENTS_TIMEOUT_MS,
     maxNetworkRetries: 1,
     telemetry: false,
   });
@@ -101,13 +105,17 @@ function runApp(env: Env) {
   });
 
   // Housekeeping runs in exactly one process at a time, the one holding its lease: unpaid card orders give their stock
-  // back after 30 minutes, ended rate-limit windows and old entries of the change log are dropped.
+  // back after 30 minutes, open card payments are reconciled with the provider, ended rate-limit windows and old
+  // entries of the change log are dropped.
   const holder = `${process.pid}-${randomUUID().slice(0, 8)}`;
   const everyMs = env.HOUSEKEEPING_SECONDS * 1000;
   const sweep = setInterval(() => {
     runIfLeaseHeld(db, 'housekeeping', holder, everyMs * 2.5, async () => {
       const expired = await orders.expireUnpaid(30);
       if (expired > 0) console.log(`housekeeping: ${expired} unpaid order${expired === 1 ? '' : 's'} expired`);
+      // Open card orders are compared with the provider: paid, failed or refunded payments the webhook missed.
+      const drift = await orders.reconcilePayments();
+      if (drift.paid + drift.cancelled + drift.refunded > 0) console.log(`housekeeping: payments reconciled ${JSON.stringify(drift)}`);
       pruneRateLimits(db);
       pruneChangeLog(db);
     }).catch((err: unknown) => console.warn('housekeeping failed:', (err as Error).message));

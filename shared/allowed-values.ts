@@ -29,6 +29,9 @@ export type DealerStatus = (typeof DEALER_STATUSES)[number];
 export const PAYMENT_METHODS = ['card', 'account'] as const;
 export const PAYMENT_STATES = ['awaiting', 'requires_action', 'failed', 'paid', 'on_account', 'refunded', 'partially_refunded'] as const;
 export type PaymentState = (typeof PAYMENT_STATES)[number];
+/** Where the automatic refund of a payment that arrived for an order no longer awaiting one stands. */
+export const PAYMENT_ALERT_REFUND_STATES = ['pending', 'refunded', 'failed'] as const;
+export type PaymentAlertRefundState = (typeof PAYMENT_ALERT_REFUND_STATES)[number];
 
 /** Every row of the stock ledger is one of these movements. */
 export const STOCK_MOVEMENT_KINDS = ['goods-in', 'reserve', 'release', 'pick', 'dispatch', 'adjustment', 'return'] as const;

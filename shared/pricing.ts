@@ -19,6 +19,31 @@ export const DELIVERY_ZONES = {
 export type DeliveryZone = keyof typeof DELIVERY_ZONES;
 export const DELIVERY_ZONE_KEYS = Object.keys(DELIVERY_ZONES) as [DeliveryZone, ...DeliveryZone[]];
 
+/**
+ * The freight zone of a delivery address, from the letters that open its postcode (the postcode area). The server
+ * prices freight with this, never with a zone the buyer picks; the checkout shows the same answer as the buyer types.
+ * The areas are the demo distributor's own (invented), around its warehouse at Emberleigh.
+ */
+export const POSTCODE_AREA_ZONES: Readonly<Record<string, DeliveryZone>> = {
+  EM: 'local', // Emberleigh, where the warehouse is
+  QF: 'local', // Quenchfold
+  KV: 'local', // Kettlevale
+  PF: 'remote', // Port Fennick, across the firth
+  GX: 'remote', // the Gannet Isles
+  VQ: 'remote', // Vorrin Quay and the outer isles
+};
+
+/** "em4 2qt" → "EM": the leading letters of a postcode, or null when it does not start with a letter. */
+export function postcodeArea(postcode: string): string | null {
+  return /^\s*([A-Za-z]{1,2})/.exec(postcode)?.[1]?.toUpperCase() ?? null;
+}
+
+/** Every postcode outside the listed areas is national. */
+export function zoneForPostcode(postcode: string): DeliveryZone {
+  const area = postcodeArea(postcode);
+  return (area && POSTCODE_AREA_ZONES[area]) || 'national';
+}
+
 /** Freight by the parcel's weight band; above the last band each further 10 kg costs the step. */
 export const FREIGHT_TABLE: { bands: Array<{ upToGrams: number; cents: Record<DeliveryZone, number> }>; stepGrams: number; stepCents: Record<DeliveryZone, number> } = {
   bands: [

@@ -6,6 +6,7 @@ import { IdempotencyStore, stableStringify } from './idempotency-store';
 import { asParams, type Params } from './params';
 import { PaymentsLedger, newId, type PaymentIntentObject, type RequestContext } from './payments-ledger';
 import { TEST_CARDS } from '../../shared/payment-test-methods';
+import { FaultSwitches, type FaultInput } from './fault-switches';
 import { WebhookDispatcher, type DeliveryAttempt, type EventRecord } from './webhook-dispatcher';
 
 /** The event types the storefront subscribes to. */
@@ -47,7 +48,10 @@ export interface PaymentsFake {
   setWebhookUrl(url: string | null): void;
   /** Resolves once no webhook is being posted or waiting for a retry. */
   waitForWebhooks(timeoutMs?: number): Promise<void>;
-  /** Forgets every object, event and idempotency key. */
+  /** Test-only faults on API requests (drop the reply, delay it, answer 5xx); also at POST/DELETE /_test/faults. */
+  addFault(fault: FaultInput): { id: number };
+  clearFaults(): void;
+  /** Forgets every object, event, idempotency key and fault. */
   reset(): void;
 }
 
@@ -116,6 +120,7 @@ export async function startPaymentsFake(options: PaymentsFakeOptions): Promise<P
     processingDelayMs: options.processingDelayMs ?? 0,
   });
   const idempotency = new IdempotencyStore();
+  const faults = new FaultSwitches();
   const testContext = (): RequestContext => ({ requestId: null, idempotencyKey: null });
 
   type Handler = (params: Params, req: Request, ctx: RequestContext) => unknown;
@@ -226,6 +231,7 @@ export async function startPaymentsFake(options: PaymentsFakeOptions): Promise<P
     res.locals.apiKey = apiKey;
     next();
   });
+  app.use('/v1', faults.middleware());
   app.use('/v1', express.urlencoded({ extended: true, limit: '1mb', parameterLimit: 2_000 }));
 
   app.post('/v1/customers', handle((p, _req, ctx) => ledger.createCustomer(p, ctx)));
@@ -331,6 +337,20 @@ export async function startPaymentsFake(options: PaymentsFakeOptions): Promise<P
     dispatcher.setUrl(url);
     res.json({ url });
   });
+  testHooks.get('/faults', (_req, res) => {
+    res.json({ data: faults.list() });
+  });
+  testHooks.post('/faults', (req, res) => {
+    try {
+      res.status(201).json(faults.add(req.body as FaultInput));
+    } catch (error) {
+      sendError(res, invalidRequest(error instanceof Error ? error.message : 'Invalid fault'));
+    }
+  });
+  testHooks.delete('/faults', (_req, res) => {
+    faults.clear();
+    res.status(204).end();
+  });
   testHooks.post('/reset', (_req, res) => {
     reset();
     res.status(204).end();
@@ -355,6 +375,7 @@ export async function startPaymentsFake(options: PaymentsFakeOptions): Promise<P
     ledger.reset();
     dispatcher.clear();
     idempotency.clear();
+    faults.clear();
   }
 
   const server: Server = createServer(app);
@@ -373,6 +394,7 @@ export async function startPaymentsFake(options: PaymentsFakeOptions): Promise<P
     url: baseUrl,
     port,
     async close() {
+      faults.dispose();
       dispatcher.close();
       ledger.dispose();
       server.closeAllConnections();
@@ -382,6 +404,8 @@ export async function startPaymentsFake(options: PaymentsFakeOptions): Promise<P
     resendEvent: (eventId) => dispatcher.resend(eventId),
     authenticate: (paymentIntentId, outcome) => ledger.authenticate(paymentIntentId, outcome, testContext()),
     setWebhookUrl: (url) => dispatcher.setUrl(url),
+    addFault: (fault) => faults.add(fault),
+    clearFaults: () => faults.clear(),
     waitForWebhooks: (timeoutMs) => dispatcher.idle(timeoutMs),
     reset,
   };

@@ -9,6 +9,7 @@ import {
   PART_CONDITIONS,
   PART_STATUSES,
   PAYMENT_METHODS,
+  PAYMENT_ALERT_REFUND_STATES,
   PAYMENT_STATES,
   PRICE_IMPORT_STATUSES,
   RETURN_STATUSES,
@@ -453,6 +454,33 @@ export const paymentEvents = sqliteTable('payment_events', {
   paymentIntentId: text('payment_intent_id'),
   receivedAt: createdAt(),
 });
+
+/**
+ * A card payment that succeeded for an order no longer awaiting one (cancelled, expired): refunded automatically,
+ * one row per payment intent, shown to staff in the Office.
+ */
+export const paymentAlerts = sqliteTable(
+  'payment_alerts',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    orderId: integer('order_id').notNull().references(() => orders.id, { onDelete: 'cascade' }),
+    paymentIntentId: text('payment_intent_id').notNull().unique(),
+    amountCents: integer('amount_cents').notNull(),
+    what: text('what').notNull(),
+    refundState: text('refund_state', { enum: PAYMENT_ALERT_REFUND_STATES }).notNull().default('pending'),
+    refundId: text('refund_id'),
+    /** Our own words for staff; the provider's detail goes to the log only. */
+    lastError: text('last_error'),
+    attempts: integer('attempts').notNull().default(0),
+    createdAt: createdAt(),
+    updatedAt: stamp('updated_at'),
+  },
+  (t) => [
+    index('payment_alerts_order_idx').on(t.orderId),
+    oneOf('payment_alerts', 'refund_state', PAYMENT_ALERT_REFUND_STATES),
+    holds('payment_alerts', 'money', 'amount_cents >= 0 AND attempts >= 0'),
+  ],
+);
 
 /** The stock ledger: on hand and reserved per part and bin are always the sums of these rows. */
 export const stockMovements = sqliteTable(

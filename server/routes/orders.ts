@@ -13,7 +13,9 @@ export function checkoutRouter(orders: OrderService, cart: CartService): Router 
     if (user.role === 'warehouse') throw new HttpError(403, 'Warehouse accounts do not place orders');
     const input = parseOr400(CheckoutSchema, req.body, 'Some checkout details are missing or not valid');
     const owner = cartOwner(req, res, cart, false)!;
-    res.status(201).json(await orders.checkout(user, owner, input));
+    const answer = await orders.checkout(user, owner, input);
+    // 202: the order exists but its payment is still being confirmed with the provider.
+    res.status(answer.outcome === 'confirming' ? 202 : 201).json(answer);
   });
   return router;
 }

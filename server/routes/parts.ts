@@ -7,7 +7,13 @@ export function partsRouter(catalog: CatalogService): Router {
   const router = Router();
   router.get('/', (req, res) => {
     const query = parseOr400(PartsQuerySchema, req.query, 'Some search options are not valid');
-    res.type('application/json').send(catalog.listPartsJson(query));
+    const list = catalog.listPartsJson(query);
+    res.set('ETag', list.etag);
+    if (req.fresh) {
+      res.status(304).end();
+      return;
+    }
+    res.type('application/json').send(list.json);
   });
   router.get('/:partNumber', (req, res) => {
     const part = catalog.getPart(String(req.params.partNumber).slice(0, 60));

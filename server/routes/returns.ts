@@ -1,5 +1,3 @@
-import fs from 'node:fs';
-import path from 'node:path';
 import { Router } from 'express';
 import { RETURN_PHOTO_MAX_BYTES, RETURN_PHOTOS_MAX, ReturnRequestSchema } from '../../shared/schemas/warehouse';
 import { HttpError, parseOr400 } from '../middleware/errors';
@@ -21,14 +19,9 @@ export function returnsRouter(deps: { returns: ReturnsService; photosDir: string
   router.post('/', signedIn, upload, (req, res) => {
     const user = requireUser(res);
     if (user.role !== 'customer' && user.role !== 'dealer') throw new HttpError(403, 'Only buyers return parts');
-    const photos = storedImages(req);
-    const parsed = ReturnRequestSchema.safeParse(req.body);
-    if (!parsed.success) {
-      // Bad fields: the photos that came with them are not kept.
-      for (const p of photos) fs.rmSync(path.join(deps.photosDir, p.storedName), { force: true });
-      parseOr400(ReturnRequestSchema, req.body);
-    }
-    res.status(201).json(deps.returns.request(user, parsed.data!, photos));
+    // A refusal here or in the service removes the photos that came with it (imageUpload).
+    const input = parseOr400(ReturnRequestSchema, req.body);
+    res.status(201).json(deps.returns.request(user, input, storedImages(req)));
   });
   router.get('/photos/:name', (req, res) => {
     const user = requireUser(res);

@@ -6,7 +6,7 @@ import type { OrderService } from '../services/orders';
 /** The payment service's webhooks: the signature is checked over the raw body before anything is parsed. */
 export function webhooksRouter(deps: { payments: Stripe; secret: string; orders: OrderService }): Router {
   const router = Router();
-  router.post('/payments', express.raw({ type: '*/*', limit: '512kb' }), (req, res) => {
+  router.post('/payments', express.raw({ type: '*/*', limit: '512kb' }), async (req, res) => {
     const signature = req.get('stripe-signature');
     if (!signature || !Buffer.isBuffer(req.body)) throw new HttpError(400, 'Missing signature');
     let event: Stripe.Event;
@@ -15,7 +15,7 @@ export function webhooksRouter(deps: { payments: Stripe; secret: string; orders:
     } catch {
       throw new HttpError(400, 'Signature does not match');
     }
-    const result = deps.orders.handlePaymentEvent(event);
+    const result = await deps.orders.handlePaymentEvent(event);
     res.json({ received: true, duplicate: !result.applied });
   });
   return router;

@@ -1,3 +1,4 @@
+import { createHash } from 'node:crypto';
 import { and, asc, count, desc, eq, getTableColumns, gt, gte, lte, ne, sql, type SQL } from 'drizzle-orm';
 import type { SelectedFields } from 'drizzle-orm/sqlite-core';
 import type { Db } from '../db/client';
@@ -289,26 +290,34 @@ export function createCatalogService(db: Db, search: SearchService) {
    * database (the change feed) — so repeated browsing of the same page costs a map lookup, and cart lines, sessions
    * and orders without stock moves leave it alone.
    */
-  const cache = new Map<string, string>();
+  const cache = new Map<string, CachedList>();
   const feed = changeFeedFor(db);
   let cachedFor: ChangeVersions | null = null;
-  function listPartsJson(query: PartsQuery): string {
+  function listPartsJson(query: PartsQuery): CachedList {
     const versions = feed.current();
     if (versions !== cachedFor) {
       cache.clear();
       cachedFor = versions;
     }
     const key = JSON.stringify(query);
-    let json = cache.get(key);
-    if (json === undefined) {
-      json = JSON.stringify(listParts(query));
+    let entry = cache.get(key);
+    if (entry === undefined) {
+      const json = JSON.stringify(listParts(query));
+      // The validator is made once per cached answer, not hashed again on every request that reads it.
+      entry = { json, etag: `W/"${createHash('sha1').update(json).digest('base64url')}"` };
       if (cache.size >= 500) cache.delete(cache.keys().next().value!);
-      cache.set(key, json);
+      cache.set(key, entry);
     }
-    return json;
+    return entry;
   }
 
   return { listParts, listPartsJson, getPart, listFrames };
+}
+
+/** A list answer as sent, with its entity tag. */
+export interface CachedList {
+  json: string;
+  etag: string;
 }
 
 export type CatalogService = ReturnType<typeof createCatalogService>;

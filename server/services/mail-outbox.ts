@@ -9,7 +9,7 @@ import type { MailerPort, OutgoingMail } from './mailer';
 import type { Query } from './orders/order-reads';
 
 /**
- * The durable outbox (docs/decisions/0006-mail-outbox.md). A message is a row written in the transaction of the change
+ * The durable outbox (docs/decisions/0007-mail-outbox.md). A message is a row written in the transaction of the change
  * that causes it, so an order and its confirmation commit or roll back together, and no request waits for the mail
  * server. A worker in each app process claims due rows in one UPDATE (so two processes never send the same row), hands
  * them to the mail server, and marks each sent once or schedules its next attempt with exponential backoff.

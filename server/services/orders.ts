@@ -24,6 +24,7 @@ export function createOrderService(deps: OrderServiceDeps) {
   const placement = createOrderPlacement({ db: deps.db, stock: deps.stock, cart: deps.cart, taxRatePct: deps.taxRatePct });
   const payments = createOrderPayments({ db: deps.db, payments: deps.payments, notify: deps.notify, placement, now: deps.now });
   const reads = createOrderReads({ db: deps.db, cart: deps.cart });
+  // cancelUnpaid cancels the order only; cancelForNonPayment cancels its payment at the provider first.
   return { ...reads, ...payments, cancelUnpaid: placement.cancelUnpaid };
 }
 

@@ -5,6 +5,7 @@ import { and, desc, eq, ne, sql, type SQL } from 'drizzle-orm';
 import type { Db } from '../db/client';
 import { creditNotes, orderEvents, orderLines, orders, parts, returnPhotos, returns } from '../db/schema';
 import { ConflictError, InvalidError, NotFoundError, PaymentServiceError } from './errors';
+import { REFUND_REFUSED_MESSAGE } from './orders/order-payments';
 import type { CurrentUser } from './current-user';
 import type { ReturnDecision, ReturnRequest, ReturnView } from '../../shared/schemas/warehouse';
 import type { StockService } from './stock';
@@ -244,7 +245,8 @@ export function createReturnsService(deps: { db: Db; stock: StockService; paymen
         );
         refundId = refund.id;
       } catch (err) {
-        throw new PaymentServiceError(`The payment service refused the refund: ${(err as Error).message}`);
+        console.warn(`payments: the refund for ${r.reference} failed:`, (err as Error).message);
+        throw new PaymentServiceError(REFUND_REFUSED_MESSAGE);
       }
     }
     record(id, d, amount, refundId);

@@ -24,13 +24,23 @@ export interface StoredImage {
 /**
  * Image uploads stored outside the web root under names the server makes. Anything that is not a JPEG, PNG or
  * WebP by its content is refused with 415; a file over the limit with 413.
+ *
+ * Every file written for a request is removed again unless the request succeeds: a refusal for any reason — the
+ * upload itself (size, count, type), the fields beside it, or the service that was to keep it — or a request that
+ * is cut off leaves nothing on disk. The names are noted as they are made, so a file multer was still writing when
+ * it gave up is removed too.
  */
 export function imageUpload(options: { dir: string; field: string; maxBytes: number; maxFiles: number }) {
   fs.mkdirSync(options.dir, { recursive: true });
+  const written = new WeakMap<Request, string[]>();
   const upload = multer({
     storage: multer.diskStorage({
       destination: options.dir,
-      filename: (_req, file, cb) => cb(null, `${crypto.randomBytes(16).toString('hex')}${IMAGE_TYPES[file.mimetype] ?? '.bin'}`),
+      filename: (req, file, cb) => {
+        const name = `${crypto.randomBytes(16).toString('hex')}${IMAGE_TYPES[file.mimetype] ?? '.bin'}`;
+        written.get(req)?.push(path.join(options.dir, name));
+        cb(null, name);
+      },
     }),
     limits: { fileSize: options.maxBytes, files: options.maxFiles, fields: 20, fieldSize: 4000 },
     fileFilter: (_req, file, cb) => {
@@ -39,9 +49,20 @@ export function imageUpload(options: { dir: string; field: string; maxBytes: num
     },
   });
   const handler: RequestHandler = (req: Request, res: Response, next: NextFunction) => {
+    const paths: string[] = [];
+    written.set(req, paths);
+    const discard = () => {
+      for (const p of paths.splice(0)) fs.rmSync(p, { force: true });
+    };
+    // Kept only when the answer is a success; 'close' without 'finish' is a request cut off.
+    res.once('finish', () => {
+      if (res.statusCode >= 300) discard();
+    });
+    res.once('close', () => {
+      if (!res.writableFinished) discard();
+    });
     upload.array(options.field, options.maxFiles)(req, res, (err: unknown) => {
       const files = (req.files as Express.Multer.File[] | undefined) ?? [];
-      const discard = () => files.forEach((f) => fs.rmSync(f.path, { force: true }));
       if (err) {
         discard();
         if (err instanceof multer.MulterError) {

@@ -39,7 +39,7 @@ export const DeliverySchema = z.object({
   line1: z.string().trim().min(3, 'street address is required').max(120, 'street address is too long'),
   city: z.string().trim().min(2, 'town or city is required').max(60, 'town or city is too long'),
   postcode: z.string().trim().min(3, 'postcode is required').max(12, 'postcode is too long'),
-  zone: z.enum(DELIVERY_ZONE_KEYS, { error: 'choose a delivery zone' }),
+  // No zone: the server prices freight to the postcode's zone (shared/pricing.ts zoneForPostcode).
 }, { error: 'enter a delivery address' });
 export type Delivery = z.infer<typeof DeliverySchema>;
 
@@ -166,9 +166,16 @@ export const OrderDetailSchema = OrderSummarySchema.extend({
 });
 export type OrderDetail = z.infer<typeof OrderDetailSchema>;
 
+/**
+ * What the card provider said of the payment: confirmed (taken), processing (the webhook settles it), authenticate
+ * (the buyer's bank asks for a check), confirming (no answer yet: the buyer must not pay again; we e-mail them).
+ */
+export const CHECKOUT_OUTCOMES = ['confirmed', 'processing', 'authenticate', 'confirming'] as const;
 export const CheckoutResponseSchema = z.object({
   order: z.object({ number: z.string(), status: z.enum(ORDER_STATUS_KEYS), totalCents: z.number().int() }),
   nextAction: z.object({ type: z.literal('authenticate'), paymentIntentId: z.string(), clientSecret: z.string().nullable().optional() }).nullable().optional(),
+  outcome: z.enum(CHECKOUT_OUTCOMES).optional(),
+  message: z.string().optional(),
 });
 export type CheckoutResponse = z.infer<typeof CheckoutResponseSchema>;
 

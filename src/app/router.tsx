@@ -43,6 +43,7 @@ const router = createBrowserRouter([
       page('trade/quick-order', () => import('./routes/quick-order'), 'QuickOrderRoute'),
       page('trade/stock-list', () => import('./routes/stock-list-upload'), 'StockListUploadRoute'),
       page('office/dealers', () => import('./routes/office-dealers'), 'OfficeDealersRoute'),
+      page('office/payment-alerts', () => import('./routes/office-payment-alerts'), 'OfficePaymentAlertsRoute'),
       page('returns', () => import('./routes/returns'), 'ReturnsRoute'),
       page('returns/new', () => import('./routes/return-new'), 'ReturnNewRoute'),
       page('floor', () => import('./routes/floor-queue'), 'FloorQueueRoute'),

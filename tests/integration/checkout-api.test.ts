@@ -179,6 +179,37 @@ describe('pricing per role and tier', () => {
   });
 });
 
+describe('freight zone at checkout', () => {
+  const freightOf = (number: string) => one<{ f: number; z: string }>('SELECT freight_cents AS f, delivery_zone AS z FROM orders WHERE number = ?', number);
+
+  it('comes from the delivery postcode for a retail buyer, whatever zone the client sends', async () => {
+    setAvailable(TURBO, 20);
+    const retail = await asCustomer();
+    await retail.add(TURBO, 1);
+    // The buyer sets the cheapest zone on the cart and sends it with the order, but the address is in a remote area.
+    await retail.call('PUT', '/api/cart/delivery-zone', { zone: 'local' });
+    const res = await retail.call('POST', '/api/checkout', { method: 'card', paymentMethod: 'pm_card_visa', delivery: { ...DELIVERY, postcode: 'PF1 8LD', zone: 'local' } });
+    expect(res.status, JSON.stringify(res.body)).toBe(201);
+    // 4.5 kg in the 1–5 kg band: 32.95 remote (shared/pricing.ts, invented rate card).
+    expect(freightOf(CheckoutResponseSchema.parse(res.body).order.number)).toEqual({ f: 3_295, z: 'remote' });
+  });
+
+  it('comes from the trade account for a dealer, to the account address or another', async () => {
+    setAvailable(TURBO, 20);
+    const dealer = await asDealer({ deliveryZone: 'remote' });
+    await dealer.add(TURBO, 1);
+    await dealer.call('PUT', '/api/cart/delivery-zone', { zone: 'local' });
+    expect((await dealer.cart()).totals.freightCents).toBe(3_295);
+    const own = await dealer.call('POST', '/api/checkout', { method: 'account', purchaseOrder: 'ZONE-1' });
+    expect(own.status, JSON.stringify(own.body)).toBe(201);
+    expect(freightOf(CheckoutResponseSchema.parse(own.body).order.number)).toEqual({ f: 3_295, z: 'remote' });
+    await dealer.add(TURBO, 1);
+    const other = await dealer.call('POST', '/api/checkout', { method: 'account', purchaseOrder: 'ZONE-2', delivery: { ...DELIVERY, zone: 'local' } });
+    expect(other.status, JSON.stringify(other.body)).toBe(201);
+    expect(freightOf(CheckoutResponseSchema.parse(other.body).order.number)).toEqual({ f: 3_295, z: 'remote' });
+  });
+});
+
 describe('checkout on account', () => {
   it('refuses an order that would take the dealer over the credit limit', async () => {
     // Standard tier with a $5,000.00 limit, like the demo data's second dealer (invented terms).

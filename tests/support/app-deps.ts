@@ -4,6 +4,7 @@ import Stripe from 'stripe';
 import type { AppConfig, AppDeps } from '../../server/app';
 import type { Db } from '../../server/db/client';
 import { createRecordingMailer } from '../../server/services/mailer';
+import { PAYMENTS_TIMEOUT_MS } from '../../server/services/orders/order-payments';
 
 export const TEST_WEBHOOK_SECRET = 'whsec_spoolyard_test_suite';
 export const TEST_SECRET_KEY = 'sk_test_spoolyard_test_suite';
@@ -26,7 +27,8 @@ export function testConfig(overrides: Partial<AppConfig> = {}): AppConfig {
 }
 
 export function paymentsClient(port: number): Stripe {
-  return new Stripe(TEST_SECRET_KEY, { host: '127.0.0.1', port, protocol: 'http', maxNetworkRetries: 0, telemetry: false });
+  // The same timeout and retry policy as server/index.ts.
+  return new Stripe(TEST_SECRET_KEY, { host: '127.0.0.1', port, protocol: 'http', timeout: PAYMENTS_TIMEOUT_MS, maxNetworkRetries: 1, telemetry: false });
 }
 
 /** The app's dependencies with nothing running behind them: a payment client aimed at a closed port, mail recorded. */

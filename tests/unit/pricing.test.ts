@@ -1,6 +1,6 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { DEALER_TIERS, FREIGHT_TABLE, dealerUnitPriceCents, freightCents, priceOrder } from '../../shared/pricing';
+import { DEALER_TIERS, FREIGHT_TABLE, POSTCODE_AREA_ZONES, dealerUnitPriceCents, freightCents, postcodeArea, priceOrder, zoneForPostcode } from '../../shared/pricing';
 
 describe('dealer prices', () => {
   it('take the tier discount off the retail price, to the nearest cent', () => {
@@ -34,6 +34,27 @@ describe('freight', () => {
   it('never falls as a parcel gets heavier, in any zone', () => {
     fc.assert(
       fc.property(fc.integer({ min: 1, max: 200_000 }), fc.integer({ min: 0, max: 50_000 }), fc.constantFrom('local', 'national', 'remote' as const), (w, extra, zone) => freightCents(w + extra, zone) >= freightCents(w, zone)),
+    );
+  });
+});
+
+describe('freight zone from the postcode', () => {
+  it('reads the postcode area whatever the case and spacing, and defaults to national', () => {
+    expect(postcodeArea(' em4 2qt')).toBe('EM');
+    expect(postcodeArea('P1 8LD')).toBe('P');
+    expect(postcodeArea('12345')).toBeNull();
+    expect(zoneForPostcode('EM4 2QT')).toBe('local');
+    expect(zoneForPostcode('pf1 8ld')).toBe('remote');
+    expect(zoneForPostcode('WH9 3AB')).toBe('national');
+    expect(zoneForPostcode('')).toBe('national');
+  });
+  it('gives every listed area its zone, and nothing else a zone other than national', () => {
+    for (const [area, zone] of Object.entries(POSTCODE_AREA_ZONES)) expect(zoneForPostcode(`${area}1 1AA`)).toBe(zone);
+    fc.assert(
+      fc.property(fc.string({ maxLength: 12 }), (postcode) => {
+        const area = postcodeArea(postcode);
+        expect(zoneForPostcode(postcode)).toBe((area && POSTCODE_AREA_ZONES[area]) || 'national');
+      }),
     );
   });
 });

@@ -1,14 +1,14 @@
-import { and, eq, gt, lt, sql } from 'drizzle-orm';
+import { and, desc, eq, gt, inArray, isNotNull, isNull, lt, sql } from 'drizzle-orm';
 import Stripe from 'stripe';
 import { z } from 'zod';
 import type { Db } from '../../db/client';
-import { orderLines, orders, paymentEvents } from '../../db/schema';
-import { PaymentDeclinedError, PaymentServiceError } from '../errors';
+import { orderLines, orders, paymentAlerts, paymentEvents } from '../../db/schema';
+import { PaymentDeclinedError } from '../errors';
 import type { CurrentUser } from '../current-user';
 import type { Checkout, CheckoutResponse } from '../../../shared/schemas/orders';
 import type { CartOwner } from '../cart';
 import { addOrderEvent, setOrderState, type OrderPlacement } from './order-placement';
-import { findOrder, type Query } from './order-reads';
+import { findOrder, type OrderHeader, type Query } from './order-reads';
 
 /**
  * What the order flow tells people. Each call takes the transaction of the change that causes it and writes the
@@ -26,7 +26,15 @@ export interface OrderPaymentsDeps {
   notify: OrderNotifier;
   placement: OrderPlacement;
   now: () => Date;
+  /** How long checkout may spend with the provider before it answers (default 14 s). */
+  checkoutBudgetMs?: number;
 }
+
+/** The SDK's timeout for one request; checkout uses it too, bounded by what is left of its budget. */
+export const PAYMENTS_TIMEOUT_MS = 10_000;
+const CHECKOUT_BUDGET_MS = 14_000;
+/** Below this, a second try cannot get an answer back in time. */
+const MIN_TRY_MS = 500;
 
 /**
  * The part of a webhook event's object this service reads. Events of every type are recorded, so the fields are
@@ -36,13 +44,167 @@ const EventObjectSchema = z.object({
   id: z.string().catch(''),
   object: z.string().catch(''),
   payment_intent: z.string().nullish().catch(null),
+  amount: z.number().optional().catch(undefined),
+  amount_received: z.number().optional().catch(undefined),
   amount_refunded: z.number().optional().catch(undefined),
+  metadata: z.object({ order_number: z.string().optional().catch(undefined) }).nullish().catch(null),
 });
 
-type EventEffect = null | 'paid' | 'failed' | 'refunded';
+type EventEffect = null | 'paid' | 'failed' | 'refunded' | 'stray';
+
+export const DECLINED_NOTE = 'No payment was taken.';
+/** What the buyer is told while the provider cannot say whether the card was charged. */
+export const CONFIRMING_MESSAGE =
+  'We are confirming your payment with the card provider. Do not pay again: we will e-mail you as soon as it is settled.';
+/** Staff's words for a refund the provider refused; the provider's own message goes to the log. */
+export const REFUND_REFUSED_MESSAGE = 'The card provider did not accept the refund; nothing was refunded. Try again later or refund by other means.';
+
+const money = (cents: number) => `$${(cents / 100).toFixed(2)}`;
+
+/** A card decline is an answer; anything else (no reply, a timeout, a 5xx, a refused request) leaves the truth unknown. */
+const isDecline = (err: unknown): err is Stripe.errors.StripeCardError => err instanceof Stripe.errors.StripeCardError;
+
+/** The intent's parameters, the same on every try, so a repeated create with its key is recognised as the first. */
+const intentParams = (order: { number: string; totalCents: number; email: string }, paymentMethod: string): Stripe.PaymentIntentCreateParams => ({
+  amount: order.totalCents,
+  currency: 'usd',
+  payment_method: paymentMethod,
+  description: `Spoolyard order ${order.number}`,
+  metadata: { order_number: order.number },
+  receipt_email: order.email,
+});
 
 export function createOrderPayments(deps: OrderPaymentsDeps) {
   const { db, payments, notify, placement } = deps;
+  const budgetMs = deps.checkoutBudgetMs ?? CHECKOUT_BUDGET_MS;
+
+  /**
+   * One provider call made at most twice (the second with the same idempotency key) within a deadline. A decline is
+   * thrown; any other failure comes back as `unknown`.
+   */
+  async function within<T>(deadline: number, call: (options: Stripe.RequestOptions) => Promise<T>): Promise<{ ok: true; value: T } | { ok: false; error: unknown }> {
+    let last: unknown = null;
+    for (let attempt = 0; attempt < 2; attempt++) {
+      const left = deadline - Date.now();
+      if (left < MIN_TRY_MS) break;
+      try {
+        return { ok: true, value: await call({ timeout: Math.min(PAYMENTS_TIMEOUT_MS, left), maxNetworkRetries: 0 }) };
+      } catch (err) {
+        if (isDecline(err)) throw err;
+        last = err;
+        // A refused request (bad parameters) gets the same answer again.
+        if (err instanceof Stripe.errors.StripeInvalidRequestError) break;
+      }
+    }
+    return { ok: false, error: last };
+  }
+
+  const orderById = (orderId: number) => findOrder(db, eq(orders.id, orderId));
+
+  /** Marks a pending order paid once; says whether this call did it (and so should send the confirmation). */
+  function markPaid(orderId: number, note: string) {
+    const done = db.transaction((tx) => {
+      const order = findOrder(tx, eq(orders.id, orderId));
+      if (!order || order.status !== 'pending_payment') return false;
+      setOrderState(tx, order.id, 'paid', 'paid');
+      addOrderEvent(tx, order.id, 'paid', note);
+      confirmPaid(tx, order.id);
+      return true;
+    });
+    return done;
+  }
+
+  /** Writes the confirmation (and a back-order notice) in the transaction that marks the order paid. */
+  function confirmPaid(tx: Query, orderId: number) {
+    notify.orderConfirmed(tx, orderId);
+    const backordered = tx
+      .select({ id: orderLines.id })
+      .from(orderLines)
+      .where(and(eq(orderLines.orderId, orderId), gt(orderLines.quantityBackordered, 0)))
+      .limit(1)
+      .get();
+    if (backordered) notify.backordered(tx, orderId);
+  }
+
+  /**
+   * Cancels an order that will not be paid: its payment is cancelled at the provider FIRST (idempotently), so a late
+   * confirmation cannot take money for a cancelled order. If the provider cannot be reached, or the payment turns out
+   * to have gone through, the order is not cancelled (the reconciliation job tries again).
+   */
+  async function cancelForNonPayment(orderId: number, reason: string): Promise<'cancelled' | 'paid' | 'kept'> {
+    const order = orderById(orderId);
+    if (!order || order.status !== 'pending_payment') return 'kept';
+    if (order.paymentIntentId) {
+      try {
+        let intent = await payments.paymentIntents.retrieve(order.paymentIntentId);
+        if (intent.status !== 'canceled' && intent.status !== 'succeeded' && intent.status !== 'processing') {
+          intent = await payments.paymentIntents.cancel(order.paymentIntentId, {}, { idempotencyKey: `order-${order.number}-cancel` });
+        }
+        if (intent.status === 'succeeded') return markPaid(orderId, 'Card payment received') ? 'paid' : 'kept';
+        if (intent.status !== 'canceled') return 'kept';
+      } catch (err) {
+        console.warn(`payments: could not cancel the payment of order ${order.number}; the order stays open:`, (err as Error).message);
+        return 'kept';
+      }
+    }
+    db.transaction((tx) => {
+      if (placement.cancelUnpaid(orderId, reason)) notify.paymentFailed(tx, orderId, reason);
+    });
+    return 'cancelled';
+  }
+
+  /**
+   * A payment that succeeded for an order no longer awaiting one is refunded in full, once (one idempotency key per
+   * intent), recorded on the order and listed for staff.
+   */
+  async function refundStray(order: OrderHeader, intentId: string, amountCents: number, what: string) {
+    const alert = db.transaction((tx) => {
+      const existing = tx.select().from(paymentAlerts).where(eq(paymentAlerts.paymentIntentId, intentId)).get();
+      if (existing) return existing;
+      addOrderEvent(tx, order.id, 'payment_alert', `${what} ${money(amountCents)}: refunding it automatically`);
+      return tx.insert(paymentAlerts).values({ orderId: order.id, paymentIntentId: intentId, amountCents, what }).returning().get();
+    });
+    if (alert.refundState === 'refunded') return alert;
+    try {
+      const refund = await payments.refunds.create(
+        { payment_intent: intentId, reason: 'duplicate', metadata: { order_number: order.number } },
+        { idempotencyKey: `stray-${intentId}-refund` },
+      );
+      db.transaction((tx) => {
+        const updated = tx
+          .update(paymentAlerts)
+          .set({ refundState: 'refunded', refundId: refund.id, lastError: null, attempts: sql`${paymentAlerts.attempts} + 1`, updatedAt: sql`strftime('%Y-%m-%dT%H:%M:%fZ','now')` })
+          .where(and(eq(paymentAlerts.id, alert.id), eq(paymentAlerts.refundState, alert.refundState)))
+          .run();
+        if (updated.changes === 1) addOrderEvent(tx, order.id, 'payment_refunded', `${money(amountCents)} refunded automatically (${refund.id})`);
+      });
+    } catch (err) {
+      console.warn(`payments: the automatic refund of ${intentId} (order ${order.number}) failed:`, (err as Error).message);
+      db.update(paymentAlerts)
+        .set({ refundState: 'failed', lastError: REFUND_REFUSED_MESSAGE, attempts: sql`${paymentAlerts.attempts} + 1`, updatedAt: sql`strftime('%Y-%m-%dT%H:%M:%fZ','now')` })
+        .where(and(eq(paymentAlerts.id, alert.id), inArray(paymentAlerts.refundState, ['pending', 'failed'])))
+        .run();
+    }
+    return db.select().from(paymentAlerts).where(eq(paymentAlerts.id, alert.id)).get();
+  }
+
+  /** Acts on what the provider says of an order's payment. */
+  async function settle(order: OrderHeader, intent: Stripe.PaymentIntent, reason: string): Promise<'paid' | 'cancelled' | 'refunded' | 'open'> {
+    if (intent.status === 'succeeded') {
+      if (order.status === 'pending_payment') return markPaid(order.id, 'Card payment received') ? 'paid' : 'open';
+      if (order.status === 'cancelled') {
+        await refundStray(order, intent.id, intent.amount_received || intent.amount, 'A card payment succeeded after the order was cancelled:');
+        return 'refunded';
+      }
+      return 'open';
+    }
+    if (order.status !== 'pending_payment') return 'open';
+    if (intent.status === 'canceled' || intent.status === 'requires_payment_method' || intent.status === 'requires_confirmation') {
+      const result = await cancelForNonPayment(order.id, reason);
+      return result === 'kept' ? 'open' : result;
+    }
+    return 'open';
+  }
 
   async function checkout(user: CurrentUser, owner: CartOwner, input: Checkout): Promise<CheckoutResponse> {
     // The placing's own transaction becomes a savepoint inside this one, so an account order and its mail commit together.
@@ -54,43 +216,95 @@ export function createOrderPayments(deps: OrderPaymentsDeps) {
       }
       return p;
     });
+    const answer = (status: CheckoutResponse['order']['status'], extra: Partial<CheckoutResponse> = {}): CheckoutResponse => ({
+      order: { number: placed.number, status, totalCents: placed.totalCents },
+      nextAction: null,
+      ...extra,
+    });
     if (input.method === 'account') {
-      return { order: { number: placed.number, status: placed.status, totalCents: placed.totalCents }, nextAction: null };
+      return answer(placed.status);
     }
     // The provider is called after the order's transaction has committed: better-sqlite3 cannot wait inside one.
-    try {
-      const intent = await payments.paymentIntents.create(
-        {
-          amount: placed.totalCents,
-          currency: 'usd',
-          payment_method: input.paymentMethod,
-          description: `Spoolyard order ${placed.number}`,
-          metadata: { order_number: placed.number },
-          receipt_email: user.email,
-        },
-        { idempotencyKey: `order-${placed.number}-intent` },
+    const deadline = Date.now() + budgetMs;
+    const confirming = () => {
+      addOrderEvent(db, placed.orderId, 'payment_unconfirmed', 'The card provider did not answer; the payment is being confirmed');
+      return answer('pending_payment', { outcome: 'confirming', message: CONFIRMING_MESSAGE });
+    };
+    const declined = async (err: Stripe.errors.StripeCardError): Promise<never> => {
+      const reason = `Your card was declined${err.decline_code ? ` (${err.decline_code.replace(/_/g, ' ')})` : ''}. ${DECLINED_NOTE}`;
+      const result = await cancelForNonPayment(placed.orderId, reason);
+      throw new PaymentDeclinedError(
+        result === 'cancelled' ? `${reason} Your cart is as it was: try another card.` : `${reason} Your cart comes back in a few minutes, once the card provider has closed the payment.`,
       );
-      db.update(orders).set({ paymentIntentId: intent.id }).where(eq(orders.id, placed.orderId)).run();
-      const confirmed = await payments.paymentIntents.confirm(intent.id, { payment_method: input.paymentMethod }, { idempotencyKey: `order-${placed.number}-confirm` });
-      if (confirmed.status === 'requires_action') {
-        setOrderState(db, placed.orderId, 'pending_payment', 'requires_action');
-        return {
-          order: { number: placed.number, status: 'pending_payment', totalCents: placed.totalCents },
-          nextAction: { type: 'authenticate', paymentIntentId: intent.id, clientSecret: confirmed.client_secret },
-        };
+    };
+    const header = { number: placed.number, totalCents: placed.totalCents, email: user.email };
+
+    let intent: Stripe.PaymentIntent;
+    try {
+      const created = await within(deadline, (o) => payments.paymentIntents.create(intentParams(header, input.paymentMethod), { ...o, idempotencyKey: `order-${placed.number}-intent` }));
+      if (!created.ok) {
+        console.warn(`payments: creating the payment of order ${placed.number} got no answer:`, (created.error as Error | null)?.message);
+        // A refused create took nothing: the order goes back to the cart.
+        if (created.error instanceof Stripe.errors.StripeInvalidRequestError) {
+          const reason = `The card payment could not be started. ${DECLINED_NOTE}`;
+          db.transaction((tx) => {
+            if (placement.cancelUnpaid(placed.orderId, reason)) notify.paymentFailed(tx, placed.orderId, reason);
+          });
+          throw new PaymentDeclinedError(`${reason} Your cart is as it was: try again or choose another card.`);
+        }
+        return confirming();
       }
-      return { order: { number: placed.number, status: 'pending_payment', totalCents: placed.totalCents }, nextAction: null };
+      intent = created.value;
+      db.update(orders).set({ paymentIntentId: intent.id }).where(eq(orders.id, placed.orderId)).run();
+      const confirmed = await within(deadline, (o) =>
+        payments.paymentIntents.confirm(intent.id, { payment_method: input.paymentMethod }, { ...o, idempotencyKey: `order-${placed.number}-confirm` }),
+      );
+      if (confirmed.ok) intent = confirmed.value;
+      else {
+        console.warn(`payments: confirming the payment of order ${placed.number} got no answer; asking the provider:`, (confirmed.error as Error | null)?.message);
+        const truth = await within(deadline, (o) => payments.paymentIntents.retrieve(intent.id, {}, o));
+        if (!truth.ok) return confirming();
+        intent = truth.value;
+        const order = orderById(placed.orderId)!;
+        if (intent.status === 'succeeded') {
+          markPaid(order.id, 'Card payment received (confirmed with the card provider after a lost reply)');
+          return answer('paid', { outcome: 'confirmed' });
+        }
+        if (intent.status === 'requires_confirmation') {
+          // The confirmation never reached the provider: nothing was taken.
+          const reason = `The card payment could not be completed. ${DECLINED_NOTE}`;
+          const result = await cancelForNonPayment(order.id, reason);
+          if (result === 'cancelled') throw new PaymentDeclinedError(`${reason} Your cart is as it was: try again.`);
+          return confirming();
+        }
+      }
     } catch (err) {
-      const declined = err instanceof Stripe.errors.StripeCardError;
-      const reason = declined
-        ? `Your card was declined${err.decline_code ? ` (${err.decline_code.replace(/_/g, ' ')})` : ''}. No payment was taken.`
-        : 'The payment service could not be reached. No payment was taken.';
-      db.transaction((tx) => {
-        if (placement.cancelUnpaid(placed.orderId, reason)) notify.paymentFailed(tx, placed.orderId, reason);
-      });
-      const message = `${reason} Your cart is as it was: try another card.`;
-      throw declined ? new PaymentDeclinedError(message) : new PaymentServiceError(message);
+      if (isDecline(err)) return declined(err);
+      throw err;
     }
+    if (intent.status === 'requires_action') {
+      setOrderState(db, placed.orderId, 'pending_payment', 'requires_action');
+      return answer('pending_payment', { outcome: 'authenticate', nextAction: { type: 'authenticate', paymentIntentId: intent.id, clientSecret: intent.client_secret } });
+    }
+    if (intent.status === 'requires_payment_method' || intent.status === 'canceled') {
+      const reason = `Your card was declined. ${DECLINED_NOTE}`;
+      const result = await cancelForNonPayment(placed.orderId, reason);
+      throw new PaymentDeclinedError(result === 'cancelled' ? `${reason} Your cart is as it was: try another card.` : `${reason} Your cart comes back in a few minutes.`);
+    }
+    // Succeeded or processing: the webhook (or the reconciliation job) marks the order paid.
+    return answer('pending_payment', { outcome: intent.status === 'succeeded' ? 'confirmed' : 'processing' });
+  }
+
+  /** The order a webhook's intent belongs to: by the stored intent, or by the order number the intent carries. */
+  function orderOfIntent(q: Parameters<typeof findOrder>[0], intentId: string | null, orderNumber: string | undefined) {
+    if (!intentId) return undefined;
+    const byIntent = findOrder(q, eq(orders.paymentIntentId, intentId));
+    if (byIntent || !orderNumber) return byIntent;
+    // The create's reply was lost, so the order never learnt its intent: adopt it now.
+    const byNumber = findOrder(q, and(eq(orders.number, orderNumber), isNull(orders.paymentIntentId), eq(orders.paymentMethod, 'card'))!);
+    if (!byNumber) return undefined;
+    q.update(orders).set({ paymentIntentId: intentId }).where(eq(orders.id, byNumber.id)).run();
+    return { ...byNumber, paymentIntentId: intentId };
   }
 
   /**
@@ -98,24 +312,28 @@ export function createOrderPayments(deps: OrderPaymentsDeps) {
    * repeat changes nothing, and a paid order is never moved back by a late failure event.
    */
   const applyEvent = (event: Stripe.Event) =>
-    db.transaction((tx): { applied: boolean; effect: EventEffect; orderId: number | null } => {
+    db.transaction((tx): { applied: boolean; effect: EventEffect; orderId: number | null; intentId: string | null; amountCents: number } => {
       const object = EventObjectSchema.parse(event.data.object);
       const intentId = object.object === 'payment_intent' ? object.id : (object.payment_intent ?? null);
+      const amountCents = object.amount_received || object.amount || 0;
+      const none = { applied: true, effect: null, orderId: null, intentId, amountCents };
       const inserted = tx.insert(paymentEvents).values({ eventId: event.id, type: event.type, paymentIntentId: intentId }).onConflictDoNothing().run();
-      if (inserted.changes === 0) return { applied: false, effect: null, orderId: null };
-      const order = intentId ? findOrder(tx, eq(orders.paymentIntentId, intentId)) : undefined;
-      if (!order) return { applied: true, effect: null, orderId: null };
+      if (inserted.changes === 0) return { ...none, applied: false };
+      const order = orderOfIntent(tx, intentId, object.object === 'payment_intent' ? (object.metadata?.order_number ?? undefined) : undefined);
+      if (!order) return none;
       if (event.type === 'payment_intent.succeeded') {
         if (order.status === 'pending_payment') {
           setOrderState(tx, order.id, 'paid', 'paid');
           addOrderEvent(tx, order.id, 'paid', 'Card payment received');
-          return { applied: true, effect: 'paid', orderId: order.id };
+          confirmPaid(tx, order.id);
+          return { ...none, effect: 'paid', orderId: order.id };
         }
-        return { applied: true, effect: null, orderId: order.id };
+        // Money taken for an order that no longer awaits it: refunded after this transaction.
+        return { ...none, effect: order.status === 'cancelled' ? 'stray' : null, orderId: order.id };
       }
       if (event.type === 'payment_intent.payment_failed') {
-        // The cancelling itself runs after this transaction, through cancelUnpaid.
-        return { applied: true, effect: order.status === 'pending_payment' ? 'failed' : null, orderId: order.id };
+        // The cancelling itself runs after this transaction, through cancelForNonPayment.
+        return { ...none, effect: order.status === 'pending_payment' ? 'failed' : null, orderId: order.id };
       }
       if (event.type === 'charge.refunded' && typeof object.amount_refunded === 'number') {
         const refunded = Math.min(object.amount_refunded, order.totalCents);
@@ -123,29 +341,22 @@ export function createOrderPayments(deps: OrderPaymentsDeps) {
           .set({ refundedCents: sql`max(${orders.refundedCents}, ${refunded})`, paymentState: refunded >= order.totalCents ? 'refunded' : 'partially_refunded' })
           .where(eq(orders.id, order.id))
           .run();
-        return { applied: true, effect: 'refunded', orderId: order.id };
+        return { ...none, effect: 'refunded', orderId: order.id };
       }
-      return { applied: true, effect: null, orderId: order.id };
+      return { ...none, orderId: order.id };
     });
 
-  const handlePaymentEvent = (event: Stripe.Event) => db.transaction((tx) => {
+  async function handlePaymentEvent(event: Stripe.Event) {
     const result = applyEvent(event);
-    if (result.effect === 'paid' && result.orderId) {
-      notify.orderConfirmed(tx, result.orderId);
-      const backordered = tx
-        .select({ id: orderLines.id })
-        .from(orderLines)
-        .where(and(eq(orderLines.orderId, result.orderId), gt(orderLines.quantityBackordered, 0)))
-        .limit(1)
-        .get();
-      if (backordered) notify.backordered(tx, result.orderId);
-    }
     if (result.effect === 'failed' && result.orderId) {
-      const reason = 'The card payment could not be completed (authentication failed). No payment was taken.';
-      if (placement.cancelUnpaid(result.orderId, reason)) notify.paymentFailed(tx, result.orderId, reason);
+      await cancelForNonPayment(result.orderId, `The card payment could not be completed (authentication failed). ${DECLINED_NOTE}`);
+    }
+    if (result.effect === 'stray' && result.orderId && result.intentId) {
+      const order = orderById(result.orderId)!;
+      await refundStray(order, result.intentId, result.amountCents || order.totalCents, 'A card payment succeeded after the order was cancelled:');
     }
     return result;
-  });
+  }
 
   /**
    * Card orders left unpaid (an authentication never finished, a tab closed) give their stock back after a while:
@@ -154,7 +365,7 @@ export function createOrderPayments(deps: OrderPaymentsDeps) {
   async function expireUnpaid(maxAgeMinutes: number) {
     const cutoff = new Date(deps.now().getTime() - maxAgeMinutes * 60_000).toISOString();
     const stale = db
-      .select({ id: orders.id, number: orders.number, intent: orders.paymentIntentId })
+      .select({ id: orders.id })
       .from(orders)
       .where(and(eq(orders.status, 'pending_payment'), lt(orders.createdAt, cutoff)))
       .orderBy(orders.id)
@@ -162,21 +373,123 @@ export function createOrderPayments(deps: OrderPaymentsDeps) {
       .all();
     let expired = 0;
     for (const o of stale) {
-      if (o.intent) {
-        try {
-          const intent = await payments.paymentIntents.retrieve(o.intent);
-          if (intent.status === 'succeeded' || intent.status === 'processing') continue; // the webhook will settle it
-          if (intent.status !== 'canceled') await payments.paymentIntents.cancel(o.intent, {}, { idempotencyKey: `order-${o.number}-expire` });
-        } catch {
-          continue; // the payment service is unreachable: try again on the next sweep
-        }
-      }
-      if (placement.cancelUnpaid(o.id, `Not paid within ${maxAgeMinutes} minutes; the stock went back on the shelf`)) expired++;
+      if ((await cancelForNonPayment(o.id, `Not paid within ${maxAgeMinutes} minutes; the stock went back on the shelf`)) === 'cancelled') expired++;
     }
     return expired;
   }
 
-  return { checkout, handlePaymentEvent, expireUnpaid };
+  /** The provider's intent for an order whose create reply was lost: found by the order number it carries. */
+  async function findIntentByOrderNumber(number: string, since: Date) {
+    const created = { gte: Math.floor(since.getTime() / 1000) - 300 };
+    let seen = 0;
+    for await (const intent of payments.paymentIntents.list({ limit: 100, created })) {
+      if (intent.metadata?.order_number === number) return intent;
+      if (++seen >= 1000) break;
+    }
+    return null;
+  }
+
+  /**
+   * Compares open card orders with the provider and fixes drift: paid → marked paid and confirmed; cancelled or
+   * failed → cancelled at the provider first, then the order, its stock released; a success on a cancelled order →
+   * refunded and listed for staff. Orders younger than `settleAfterMs` are left to their checkout.
+   */
+  async function reconcilePayments(options: { settleAfterMs?: number } = {}) {
+    const settleAfterMs = options.settleAfterMs ?? 60_000;
+    const cutoff = new Date(deps.now().getTime() - settleAfterMs).toISOString();
+    const figures = { checked: 0, paid: 0, cancelled: 0, refunded: 0, unreachable: 0 };
+    const open = db
+      .select({ id: orders.id, createdAt: orders.createdAt })
+      .from(orders)
+      .where(and(eq(orders.status, 'pending_payment'), eq(orders.paymentMethod, 'card'), lt(orders.updatedAt, cutoff)))
+      .orderBy(orders.id)
+      .limit(200)
+      .all();
+    // Cancelled card orders of the last two days, not yet flagged: a payment may still have gone through.
+    const recentCutoff = new Date(deps.now().getTime() - 2 * 86_400_000).toISOString();
+    const cancelled = db
+      .select({ id: orders.id, createdAt: orders.createdAt })
+      .from(orders)
+      .leftJoin(paymentAlerts, eq(paymentAlerts.orderId, orders.id))
+      .where(and(eq(orders.status, 'cancelled'), eq(orders.paymentMethod, 'card'), isNotNull(orders.paymentIntentId), gt(orders.updatedAt, recentCutoff), isNull(paymentAlerts.id)))
+      .orderBy(desc(orders.id))
+      .limit(50)
+      .all();
+    for (const row of [...open, ...cancelled]) {
+      let order = orderById(row.id);
+      if (!order) continue;
+      figures.checked++;
+      try {
+        if (!order.paymentIntentId) {
+          const found = await findIntentByOrderNumber(order.number, new Date(`${row.createdAt}`));
+          if (found) {
+            db.update(orders).set({ paymentIntentId: found.id }).where(and(eq(orders.id, order.id), isNull(orders.paymentIntentId))).run();
+            order = orderById(row.id)!;
+          } else if (order.status === 'pending_payment') {
+            // The create never reached the provider: nothing can have been taken.
+            const reason = `The card payment could not be confirmed with the card provider. ${DECLINED_NOTE}`;
+            const id = order.id;
+            const cancelled = db.transaction((tx) => {
+              const done = placement.cancelUnpaid(id, reason);
+              if (done) notify.paymentFailed(tx, id, reason);
+              return done;
+            });
+            if (cancelled) figures.cancelled++;
+            continue;
+          }
+        }
+        if (!order.paymentIntentId) continue;
+        const intent = await payments.paymentIntents.retrieve(order.paymentIntentId);
+        const result = await settle(order, intent, `The card payment did not go through. ${DECLINED_NOTE}`);
+        if (result === 'paid') figures.paid++;
+        if (result === 'cancelled') figures.cancelled++;
+        if (result === 'refunded') figures.refunded++;
+      } catch (err) {
+        figures.unreachable++;
+        console.warn(`payments: could not reconcile order ${order.number}:`, (err as Error).message);
+      }
+    }
+    // Automatic refunds the provider refused before are tried again.
+    const failed = db.select().from(paymentAlerts).where(inArray(paymentAlerts.refundState, ['pending', 'failed'])).limit(50).all();
+    for (const a of failed) {
+      const order = orderById(a.orderId);
+      if (order) await refundStray(order, a.paymentIntentId, a.amountCents, a.what);
+    }
+    return figures;
+  }
+
+  /** The Office's list of payment alerts, newest first. */
+  function listPaymentAlerts() {
+    return db
+      .select({
+        id: paymentAlerts.id,
+        orderNumber: orders.number,
+        amountCents: paymentAlerts.amountCents,
+        what: paymentAlerts.what,
+        refundState: paymentAlerts.refundState,
+        refundId: paymentAlerts.refundId,
+        lastError: paymentAlerts.lastError,
+        attempts: paymentAlerts.attempts,
+        createdAt: paymentAlerts.createdAt,
+        updatedAt: paymentAlerts.updatedAt,
+      })
+      .from(paymentAlerts)
+      .innerJoin(orders, eq(orders.id, paymentAlerts.orderId))
+      .orderBy(desc(paymentAlerts.id))
+      .limit(200)
+      .all();
+  }
+
+  /** Staff ask for a failed automatic refund to be tried again now. */
+  async function retryAlertRefund(id: number) {
+    const a = db.select().from(paymentAlerts).where(eq(paymentAlerts.id, id)).get();
+    const order = a ? orderById(a.orderId) : undefined;
+    if (!a || !order) return undefined;
+    await refundStray(order, a.paymentIntentId, a.amountCents, a.what);
+    return listPaymentAlerts().find((x) => x.id === id);
+  }
+
+  return { checkout, handlePaymentEvent, expireUnpaid, reconcilePayments, listPaymentAlerts, retryAlertRefund, cancelForNonPayment };
 }
 
 export type OrderPayments = ReturnType<typeof createOrderPayments>;

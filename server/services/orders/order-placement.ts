@@ -4,7 +4,7 @@ import { cartLines, dealerAccounts, orderEvents, orderLines, orders, parts, save
 import { ConflictError, InvalidError, NotAllowedError } from '../errors';
 import type { CurrentUser } from '../current-user';
 import { checkCredit } from '../../../shared/credit';
-import { DELIVERY_ZONE_KEYS, priceOrder, type DeliveryZone } from '../../../shared/pricing';
+import { DELIVERY_ZONE_KEYS, priceOrder, zoneForPostcode, type DeliveryZone } from '../../../shared/pricing';
 import type { Checkout, OrderStatus } from '../../../shared/schemas/orders';
 import { buyerOf, type CartOwner, type CartService } from '../cart';
 import { dealerOpenBalance } from '../dealer-accounts';
@@ -99,7 +99,9 @@ export function createOrderPlacement(deps: OrderPlacementDeps) {
         }
 
         const dealerZone = dealer?.deliveryZone;
-        const zone: DeliveryZone = input.delivery?.zone ?? (isDeliveryZone(dealerZone) ? dealerZone : 'national');
+        // Never a zone the client sends: a trade account's freight goes by the zone staff set on the account (what its
+        // cart shows), anyone else's by the delivery address's postcode.
+        const zone: DeliveryZone = dealer ? (isDeliveryZone(dealerZone) ? dealerZone : 'national') : zoneForPostcode(input.delivery?.postcode ?? '');
         const totals = priceOrder(
           lines.map((l) => ({ partNumber: l.partNumber, quantity: l.quantity, retailUnitCents: l.priceCents, coreDepositCents: l.coreDepositCents, weightGrams: l.weightGrams })),
           buyer,

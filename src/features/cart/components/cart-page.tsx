@@ -149,7 +149,7 @@ function ZoneSelect({ cart }: { cart: CartView }) {
         ))}
       </select>
       <p id="delivery-zone-hint" className="text-sm text-cast">
-        Freight goes by weight and zone.
+        An estimate: at checkout, freight goes by weight and the delivery postcode's zone.
       </p>
       {setZone.error && (
         <p role="alert" className="text-sm font-semibold text-oxide">

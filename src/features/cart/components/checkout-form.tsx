@@ -1,11 +1,11 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { CircleCheck, CreditCard, FileText, LoaderCircle, OctagonAlert, ShieldCheck } from 'lucide-react';
-import { lazy, Suspense, useRef, useState } from 'react';
+import { lazy, Suspense, useEffect, useRef, useState } from 'react';
 import { useForm, type FieldError, type FieldErrors, type Resolver } from 'react-hook-form';
 import { Link } from 'react-router-dom';
 import { formatPrice } from '../../../../shared/catalog';
 import { availableCreditCents, checkCredit } from '../../../../shared/credit';
-import { DELIVERY_ZONE_KEYS, DELIVERY_ZONES, type DeliveryZone } from '../../../../shared/pricing';
+import { DELIVERY_ZONES, zoneForPostcode, type DeliveryZone } from '../../../../shared/pricing';
 import type { Me } from '../../../../shared/schemas/accounts';
 import { CheckoutSchema, PURCHASE_ORDER_MAX, type CartView, type Checkout } from '../../../../shared/schemas/orders';
 import { Button } from '../../../components/ui/button';
@@ -29,7 +29,7 @@ interface CheckoutFormValues {
   purchaseOrder: string;
   /** Dealers on account may ship to the address on their trade account. */
   useAccountAddress: boolean;
-  delivery: { name: string; line1: string; city: string; postcode: string; zone: DeliveryZone };
+  delivery: { name: string; line1: string; city: string; postcode: string };
 }
 
 function toPayload(v: CheckoutFormValues): Checkout {
@@ -47,7 +47,7 @@ const resolver: Resolver<CheckoutFormValues> = async (values, context, options) 
 const fieldId = (path: string) => `checkout-${path.replace(/\./g, '-')}`;
 
 /** The fields in the order they appear; the messages name what is missing, so they stand without a label. */
-const SUMMARY_FIELDS: readonly SummaryField[] = ['method', 'paymentMethod', 'purchaseOrder', 'delivery.name', 'delivery.line1', 'delivery.city', 'delivery.postcode', 'delivery.zone'].map((name) => ({
+const SUMMARY_FIELDS: readonly SummaryField[] = ['method', 'paymentMethod', 'purchaseOrder', 'delivery.name', 'delivery.line1', 'delivery.city', 'delivery.postcode'].map((name) => ({
   name,
   // A card choice is a radio group: link to its first option.
   id: name === 'paymentMethod' ? `${fieldId(name)}-0` : fieldId(name),
@@ -143,6 +143,32 @@ function AuthenticationStep({ paymentIntentId, orderNumber, totalCents, onDone }
   );
 }
 
+/**
+ * The card provider has not said whether the card was charged. The order is kept and its stock held; the buyer is
+ * told plainly not to pay again, and nothing here offers another payment.
+ */
+function ConfirmingPayment({ orderNumber, totalCents, message }: { orderNumber: string; totalCents: number; message: string }) {
+  return (
+    <section aria-labelledby="confirming-heading" role="status" className="grid max-w-xl gap-3 rounded-lg bg-white p-6 shadow-sm ring-2 ring-amber">
+      <h2 id="confirming-heading" className="inline-flex items-center gap-2 text-2xl font-bold">
+        <LoaderCircle aria-hidden className="size-6 text-amber" />
+        We are confirming your payment
+      </h2>
+      <p>
+        Order <span className="part-no">{orderNumber}</span> for <span className="tabular font-semibold">{formatPrice(totalCents)}</span> is kept for
+        you, with its parts set aside.
+      </p>
+      <p className="font-semibold">{message}</p>
+      <p className="text-sm text-cast">
+        If the payment did not go through, the parts go back into your cart and we tell you by e-mail.{' '}
+        <Link to={`/orders/${encodeURIComponent(orderNumber)}`} className="font-semibold text-temper underline">
+          See the order
+        </Link>
+      </p>
+    </section>
+  );
+}
+
 function OrderLinesSummary({ cart }: { cart: CartView }) {
   return (
     <ul className="grid gap-2 text-sm">
@@ -166,6 +192,10 @@ export function CheckoutForm({ me, onPlaced }: { me: Me; onPlaced: (orderNumber:
   if (place.data?.nextAction) {
     const { order, nextAction } = place.data;
     return <AuthenticationStep paymentIntentId={nextAction.paymentIntentId} orderNumber={order.number} totalCents={order.totalCents} onDone={() => onPlaced(order.number)} />;
+  }
+  if (place.data?.outcome === 'confirming') {
+    const { order, message } = place.data;
+    return <ConfirmingPayment orderNumber={order.number} totalCents={order.totalCents} message={message ?? 'We are confirming your payment with the card provider. Do not pay again.'} />;
   }
   if (place.isSuccess) return <LoadingState label={`Order ${place.data.order.number} placed. Opening it…`} />;
   if (cart.isPending) return <LoadingState label="Loading your cart…" />;
@@ -206,7 +236,7 @@ function CheckoutFields({ me, cart: c, place, onPlaced }: { me: Me; cart: CartVi
       paymentMethod: '',
       purchaseOrder: '',
       useAccountAddress: true,
-      delivery: { name: dealer ? dealer.companyName : user.name, line1: '', city: '', postcode: '', zone: (dealer?.deliveryZone as DeliveryZone | undefined) ?? c.deliveryZone },
+      delivery: { name: dealer ? dealer.companyName : user.name, line1: '', city: '', postcode: '' },
     },
   });
   const { register, watch, formState } = form;
@@ -229,7 +259,7 @@ function CheckoutFields({ me, cart: c, place, onPlaced }: { me: Me; cart: CartVi
             onPlaced(res.order.number);
             return;
           }
-          if (!res.nextAction) onPlaced(res.order.number);
+          if (!res.nextAction && res.outcome !== 'confirming') onPlaced(res.order.number);
         },
         onError: (err) => summary.showServerError(err, undefined, refusalTitle(err)),
       });
@@ -251,11 +281,14 @@ function CheckoutFields({ me, cart: c, place, onPlaced }: { me: Me; cart: CartVi
     await submitForm(e);
   };
 
-  const zoneField = register('delivery.zone', {
-    onChange: (e: { target: { value: string } }) => {
-      if (!dealer) setZone.mutate(e.target.value as DeliveryZone);
-    },
-  });
+  // Freight goes by the postcode's zone (the server prices the order the same way); the cart is priced to it as the
+  // buyer types, so the summary beside the form is what will be charged. A trade account's zone is set by staff.
+  const postcode = watch('delivery.postcode');
+  const postcodeZone: DeliveryZone | null = !dealer && postcode.trim().length >= 3 ? zoneForPostcode(postcode) : null;
+  const { mutate: priceToZone } = setZone;
+  useEffect(() => {
+    if (postcodeZone && postcodeZone !== c.deliveryZone) priceToZone(postcodeZone);
+  }, [postcodeZone, c.deliveryZone, priceToZone]);
 
   return (
     <div className="grid gap-8 lg:grid-cols-[minmax(0,1fr)_22rem]">
@@ -393,21 +426,10 @@ function CheckoutFields({ me, cart: c, place, onPlaced }: { me: Me; cart: CartVi
                   </div>
                 );
               })}
-              <div className="grid content-start gap-1">
-                <label htmlFor={fieldId('delivery.zone')} className="font-semibold">
-                  Delivery zone
-                </label>
-                <select id={fieldId('delivery.zone')} disabled={!!dealer} aria-describedby={`${fieldId('delivery.zone')}-hint`} className={inputClass(!!errors.delivery?.zone)} {...zoneField}>
-                  {DELIVERY_ZONE_KEYS.map((z) => (
-                    <option key={z} value={z}>
-                      {DELIVERY_ZONES[z]}
-                    </option>
-                  ))}
-                </select>
-                <p id={`${fieldId('delivery.zone')}-hint`} className="text-sm text-cast">
-                  {dealer ? "Set on your trade account; freight is priced to it." : 'Freight is priced to this zone.'}
-                </p>
-                <FieldMessage id={fieldId('delivery.zone')} error={errors.delivery?.zone} />
+              <div className="grid content-start gap-1" role="status">
+                <span className="font-semibold">Delivery zone</span>
+                <span>{dealer ? DELIVERY_ZONES[c.deliveryZone as DeliveryZone] : postcodeZone ? DELIVERY_ZONES[postcodeZone] : 'From the postcode'}</span>
+                <p className="text-sm text-cast">{dealer ? "Set on your trade account; freight is priced to it." : 'Freight is priced to the postcode’s zone.'}</p>
               </div>
             </div>
           )}

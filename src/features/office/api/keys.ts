@@ -6,4 +6,5 @@ export const officeKeys = {
   priceImport: (id: number) => [...officeKeys.all, 'price-import', id] as const,
   mail: () => [...officeKeys.all, 'mail'] as const,
   mailList: (state: string, page: number) => [...officeKeys.mail(), { state, page }] as const,
+  paymentAlerts: () => [...officeKeys.all, 'payment-alerts'] as const,
 };

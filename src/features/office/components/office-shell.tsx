@@ -19,6 +19,9 @@ export function OfficeNav() {
       <NavLink to="/office/dealers" className={tab}>
         Dealer accounts
       </NavLink>
+      <NavLink to="/office/payment-alerts" className={tab}>
+        Payment alerts
+      </NavLink>
       <NavLink to="/office/mail" className={tab}>
         Mail
       </NavLink>
