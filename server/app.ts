@@ -1,6 +1,8 @@
 import fs from 'node:fs';
 import path from 'node:path';
+import compression from 'compression';
 import cookieParser from 'cookie-parser';
+import expressStaticGzip from 'express-static-gzip';
 import express from 'express';
 import helmet from 'helmet';
 import { rateLimit } from 'express-rate-limit';
@@ -135,6 +137,9 @@ export function createApp(deps: AppDeps) {
       hsts: config.publicUrl.startsWith('https://'),
     }),
   );
+  // Answers made per request (JSON, the page) are compressed as the client accepts; built files come precompressed
+  // and cached catalogue lists carry their compressed bytes (services/catalog.ts), so neither is compressed again.
+  app.use(compression({ threshold: 1024 }));
   app.set('query parser', 'simple');
   app.set('trust proxy', 'loopback');
 
@@ -200,9 +205,25 @@ export function createApp(deps: AppDeps) {
 
   if (deps.clientDir && fs.existsSync(path.join(deps.clientDir, 'index.html'))) {
     const clientDir = deps.clientDir;
-    app.use(express.static(clientDir, { index: false, maxAge: '1h' }));
+    // Built files are precompressed at build time (scripts/precompress.ts): brotli or gzip as the browser accepts.
+    // Vite names every file under assets/ by its content, so those never change and are cached for a year; anything
+    // else for an hour. The page itself is revalidated on every visit, so a new release is seen at once.
+    app.use(
+      expressStaticGzip(clientDir, {
+        enableBrotli: true,
+        orderPreference: ['br', 'gz'],
+        index: false,
+        serveStatic: {
+          index: false,
+          setHeaders: (res, file) => {
+            const hashed = path.relative(clientDir, file).startsWith(`assets${path.sep}`);
+            res.setHeader('Cache-Control', hashed ? 'public, max-age=31536000, immutable' : 'public, max-age=3600');
+          },
+        },
+      }),
+    );
     app.get('/{*splat}', (_req, res) => {
-      res.sendFile(path.join(clientDir, 'index.html'));
+      res.sendFile(path.join(clientDir, 'index.html'), { headers: { 'Cache-Control': 'no-cache' } });
     });
   }
   app.use(createErrorHandler(log));
