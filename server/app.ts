@@ -3,9 +3,11 @@ import path from 'node:path';
 import cookieParser from 'cookie-parser';
 import express from 'express';
 import helmet from 'helmet';
+import { rateLimit } from 'express-rate-limit';
 import { toNodeHandler } from 'better-auth/node';
 import type Stripe from 'stripe';
 import type { Db } from './db/client';
+import { sqliteRateLimitStore } from './db/shared-state';
 import { TEST_CARDS } from '../shared/payment-test-methods';
 import { apiNotFound, createErrorHandler } from './middleware/errors';
 import { loadSession, refuseCrossSite } from './middleware/session';
@@ -68,6 +70,8 @@ export interface AppConfig {
 
 /** Longer than the password hash and the database work of either path on a busy machine. */
 const UNIFORM_ANSWER_MS = 600;
+/** Order-pad checks, bulk adds and file imports per client address per minute. */
+const ORDER_PAD_LIMIT_PER_MINUTE = 20;
 
 export interface AppDeps {
   db: Db;
@@ -183,6 +187,17 @@ export function createApp(deps: AppDeps) {
   });
 
   app.use('/api', express.json({ limit: '100kb' }), cookieParser(), loadSession(auth, db));
+  // Checking a list of part numbers costs a look-up per row: one client address gets a few lists a minute.
+  const orderPadLimiter = rateLimit({
+    windowMs: 60_000,
+    limit: config.orderPadLimitPerMinute ?? ORDER_PAD_LIMIT_PER_MINUTE,
+    store: sqliteRateLimitStore(db, 'order-pad'),
+    standardHeaders: 'draft-8',
+    legacyHeaders: false,
+    handler: (_req, res) => {
+      res.status(429).json({ error: { message: 'Too many part lists checked from here in the last minute. Wait a minute and try again.' } });
+    },
+  });
   app.get('/api/parts/photos/:name', (req, res) => {
     const file = storedPath(partPhotosDir, String(req.params.name));
     if (!file) throw new HttpError(404, 'No such photo');
@@ -206,6 +221,7 @@ export function createApp(deps: AppDeps) {
   app.use('/api/fitment', fitmentRouter({ fitment }));
   app.use('/api/fitments/:fitmentId/shaft-logs', shaftLogsRouter(shaftLogs));
   app.use('/api/fitments', savedFitmentsRouter({ fitment }));
+  app.use(['/api/cart/check', '/api/cart/bulk', '/api/cart/import'], orderPadLimiter);
   app.use('/api/cart', cartRouter(cart));
   app.use('/api/checkout', checkoutRouter(orders, cart));
   app.use('/api/orders', ordersRouter(orders));

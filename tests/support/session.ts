@@ -57,7 +57,7 @@ export async function signUpAndConfirm(t: TestApp, input: { name: string; email:
   const reply = await t.send('POST', '/api/auth/sign-up/email', input, { origin: t.url });
   if (reply.status !== 200) throw new Error(`sign-up of ${input.email}: ${reply.status} ${JSON.stringify(reply.body)}`);
   const mail = await t.mail.waitForMessage((m) => m.to.includes(input.email) && /confirm your/i.test(m.subject));
-  const link = /https?:\/\/\S+\/api\/auth\/verify-email\?\S+/.exec(mail.text)?.[0];
+  const link = /https?:\/\/\S+\/api\/auth\/verify-email\?\S+/.exec(mail.text ?? '')?.[0];
   if (!link) throw new Error(`no confirmation link in the mail to ${input.email}`);
   const confirmed = await fetch(link.replace(/^https?:\/\/[^/]+/, t.url), { redirect: 'manual' });
   const cookie = confirmed.headers
