@@ -39,8 +39,11 @@ const partColumns = {
 /** The value an upsert tried to insert into a column. */
 const excluded = (column: SQLiteColumn) => sql.raw(`excluded.${column.name}`);
 
-/** Rows checked between two turns of the event loop. */
-const ROWS_PER_CHUNK = 25;
+/**
+ * Rows are checked in slices of at most this many milliseconds; between slices other requests run. Eight lists
+ * checked at once hold a waiting request for about eight slices.
+ */
+const SLICE_MS = 2;
 
 const MATCHING = new Set(['cartridges', 'compressor-housings', 'turbine-housings', 'gaskets-fittings', 'turbochargers']);
 
@@ -174,14 +177,18 @@ export function createCartService(db: Db, search: SearchService, config: { taxRa
   }
 
   /**
-   * Checks rows in chunks and lets the event loop run between them, so a long list from one client never holds
-   * the other requests (the health check among them) for more than one chunk's work.
+   * Checks rows in short slices and lets the event loop run between them, so a long list from one client never
+   * holds the other requests (the health check among them) for more than a slice's work.
    */
   async function validateRows(rows: Array<{ partNumber: string; quantity: string }>, buyer: Buyer): Promise<OrderRowResult[]> {
     const out: OrderRowResult[] = [];
-    for (let start = 0; start < rows.length; start += ROWS_PER_CHUNK) {
-      if (start > 0) await new Promise((resolve) => setImmediate(resolve));
-      rows.slice(start, start + ROWS_PER_CHUNK).forEach((input, i) => out.push(validateRow(input, start + i, buyer)));
+    let sliceStarted = performance.now();
+    for (const [i, input] of rows.entries()) {
+      if (performance.now() - sliceStarted > SLICE_MS) {
+        await new Promise((resolve) => setImmediate(resolve));
+        sliceStarted = performance.now();
+      }
+      out.push(validateRow(input, i, buyer));
     }
     return out;
   }

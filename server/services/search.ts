@@ -39,8 +39,6 @@ const NEAR_LIMIT = 40;
 const PREFIX_LIMIT = 60;
 /** Suggestions for an unknown number look at no more than this many candidates of each kind. */
 const SUGGEST_LIMIT = 10;
-const SUGGEST_NEAR_LIMIT = 30;
-const SUGGEST_GRAMS = 12;
 
 /** Levenshtein distance, for ordering a handful of suggested numbers. */
 export function editDistance(a: string, b: string): number {
@@ -107,8 +105,6 @@ export function createSearchService(db: Db) {
     aliasOneEdit: sqlite.prepare('SELECT part_id AS id, alias, kind FROM part_aliases WHERE normalized_alias IN (SELECT value FROM json_each(?))'),
     near: sqlite.prepare(`SELECT part_id AS id, kind, number FROM numbers_tri WHERE numbers_tri MATCH ? ORDER BY rank LIMIT ${NEAR_LIMIT}`),
     suggestPrefix: sqlite.prepare(`SELECT id, normalized_number AS number FROM parts WHERE normalized_number > ? AND normalized_number < ? ORDER BY normalized_number LIMIT ${SUGGEST_LIMIT}`),
-    // Unranked, with a small LIMIT: the first numbers sharing a piece, ordered by edit distance afterwards.
-    suggestNear: sqlite.prepare(`SELECT part_id AS id, number FROM numbers_tri WHERE numbers_tri MATCH ? LIMIT ${SUGGEST_NEAR_LIMIT}`),
     // No ORDER BY rank: scoring every match is what costs; fuse.js ranks the candidates instead.
     words: sqlite.prepare(`SELECT part_id AS id FROM parts_fts WHERE parts_fts MATCH ? LIMIT ${WORD_LIMIT}`),
   };
@@ -371,9 +367,10 @@ export function createSearchService(db: Db) {
     if (n.length >= 5) {
       const variants = JSON.stringify(oneEditVariants(n));
       for (const r of stmt.oneEdit.all(variants) as Array<{ id: number; number: string }>) take(r.id, r.number);
+      // Nothing one edit away: numbers that share all but the last few characters (same family and frame).
       if (found.size === 0) {
-        const grams = trigrams(n.toLowerCase()).slice(0, SUGGEST_GRAMS).map((g) => `"${g}"`);
-        for (const r of stmt.suggestNear.all(grams.join(' OR ')) as Array<{ id: number; number: string }>) take(r.id, r.number);
+        const stem = n.slice(0, Math.max(4, n.length - 3));
+        for (const r of stmt.suggestPrefix.all(stem, `${stem}\uffff`) as Array<{ id: number; number: string }>) take(r.id, r.number);
       }
     }
     return [...found]
