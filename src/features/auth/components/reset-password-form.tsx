@@ -52,7 +52,7 @@ export function ResetPasswordForm({ token, onDone, expiredHelp }: { token: strin
         label="New password"
         type="password"
         autoComplete="new-password"
-        hint={`At least ${PASSWORD_MIN} characters.`}
+        hint={`At least ${PASSWORD_MIN} characters, and not a common password.`}
         error={errors.password?.message}
         {...form.register('password')}
       />
