@@ -5,7 +5,8 @@ import { z } from 'zod';
 import type { Db } from '../db/client';
 import { sqliteRateLimitStore } from '../db/shared-state';
 import type { Auth } from '../services/auth';
-import { EMAIL_MAX, NewPasswordSchema, PASSWORD_MAX, PersonNameSchema, SignInSchema, SignUpSchema } from '../../shared/schemas/accounts';
+import { EMAIL_MAX, PASSWORD_MAX, PersonNameSchema, SignInSchema } from '../../shared/schemas/accounts';
+import { NewPasswordSchema, SignUpSchema } from '../../shared/schemas/sign-up';
 import { HttpError, parseOr400 } from './errors';
 
 /** Nothing the auth routes take (a name, an address, a password, a token) comes near this. */

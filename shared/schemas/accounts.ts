@@ -1,19 +1,11 @@
 import { z } from 'zod';
 import { DEALER_STATUSES, ROLES } from '../allowed-values';
 import { DEALER_TIER_KEYS, DELIVERY_ZONE_KEYS } from '../pricing';
-import { isStrongPassword, WEAK_PASSWORD_MESSAGE } from '../password-strength';
 
 export const PASSWORD_MIN = 10;
 export const PASSWORD_MAX = 128;
 export const NAME_MAX = 80;
 export const EMAIL_MAX = 254;
-
-/** A password someone chooses (sign-up, reset): long enough, and not a common one. */
-export const NewPasswordSchema = z
-  .string({ error: 'enter a password' })
-  .min(PASSWORD_MIN, `password must be at least ${PASSWORD_MIN} characters`)
-  .max(PASSWORD_MAX, 'password is too long')
-  .refine((p) => isStrongPassword(p), WEAK_PASSWORD_MESSAGE);
 
 export const PersonNameSchema = z.string({ error: 'enter your name' }).trim().min(2, 'enter your name').max(NAME_MAX, 'name is too long');
 
@@ -23,12 +15,6 @@ export const SignInSchema = z.object({
 });
 export type SignIn = z.infer<typeof SignInSchema>;
 
-export const SignUpSchema = z.object({
-  name: PersonNameSchema,
-  email: z.email('enter a valid e-mail address').max(EMAIL_MAX, 'e-mail address is too long'),
-  password: NewPasswordSchema,
-});
-export type SignUp = z.infer<typeof SignUpSchema>;
 
 export const DealerApplicationSchema = z.object({
   companyName: z.string().trim().min(2, 'enter the company name').max(100),

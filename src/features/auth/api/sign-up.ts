@@ -1,6 +1,6 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { SignUpReplySchema } from '../../../../shared/schemas/account-replies';
-import type { SignUp } from '../../../../shared/schemas/accounts';
+import type { SignUp } from '../../../../shared/schemas/sign-up';
 import { api } from '../../../lib/api-client';
 import { authKeys } from './keys';
 

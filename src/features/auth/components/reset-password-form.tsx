@@ -1,7 +1,8 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useForm } from 'react-hook-form';
 import { z } from 'zod';
-import { PASSWORD_MIN, SignUpSchema } from '../../../../shared/schemas/accounts';
+import { PASSWORD_MIN } from '../../../../shared/schemas/accounts';
+import { SignUpSchema } from '../../../../shared/schemas/sign-up';
 import { buttonClass } from '../../../components/ui/button';
 import { useResetPassword } from '../api/reset-password';
 import { authErrorMessage } from '../auth-errors';

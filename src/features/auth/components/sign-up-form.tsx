@@ -1,7 +1,8 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useForm } from 'react-hook-form';
 import { Link } from 'react-router-dom';
-import { PASSWORD_MIN, SignUpSchema, type SignUp } from '../../../../shared/schemas/accounts';
+import { PASSWORD_MIN } from '../../../../shared/schemas/accounts';
+import { SignUpSchema, type SignUp } from '../../../../shared/schemas/sign-up';
 import { buttonClass } from '../../../components/ui/button';
 import { useSignUp } from '../api/sign-up';
 import { authErrorMessage } from '../auth-errors';
