@@ -13,10 +13,12 @@ import { sqliteRateLimitStore } from './db/shared-state';
 import { TEST_CARDS } from '../shared/payment-test-methods';
 import { apiNotFound, createErrorHandler } from './middleware/errors';
 import { loadSession, refuseCrossSite } from './middleware/session';
+import { authBodyLimit, authInputGuard, DEFAULT_SIGNIN_LIMITS, signInLimiters, uniformAnswers, type SignInLimits } from './middleware/auth-guard';
+import { noStorePersonal } from './middleware/no-store';
 import { accountRouter } from './routes/account';
 import { adminDealersRouter } from './routes/admin-dealers';
 import { adminPaymentsRouter } from './routes/admin-payments';
-import { cartRouter } from './routes/cart';
+import { cartRouter, GUEST_CART_COOKIE } from './routes/cart';
 import { devRouter } from './routes/dev';
 import { fitmentRouter, savedFitmentsRouter } from './routes/fitment';
 import { framesRouter } from './routes/frames';
@@ -61,7 +63,18 @@ export interface AppConfig {
   trustedOrigins?: string[];
   /** Uploaded photos live here, outside the web root, under names the server makes. */
   uploadsDir: string;
+  /** Per-account sign-in and reset limits; the defaults are in middleware/auth-guard.ts. */
+  signinLimits?: Partial<Omit<SignInLimits, 'perAddressPerMinute'>>;
+  /** Sign-up and reset answer no sooner than this after the request, known address or not. */
+  uniformAnswerMs?: number;
+  /** Anonymous order-pad checks (check, bulk add, file import) per client address per minute. */
+  orderPadLimitPerMinute?: number;
 }
+
+/** Longer than the password hash and the database work of either path on a busy machine. */
+const UNIFORM_ANSWER_MS = 600;
+/** Order-pad checks, bulk adds and file imports per client address per minute. */
+const ORDER_PAD_LIMIT_PER_MINUTE = 20;
 
 export interface AppDeps {
   db: Db;
@@ -108,6 +121,18 @@ export function createApp(deps: AppDeps) {
     trustedOrigins,
     secureCookies: config.publicUrl.startsWith('https://'),
     sendResetPassword: (to, url) => notifications.passwordReset(to, url),
+    sendConfirmEmail: (to, url) => notifications.accountConfirm(to, url),
+    sendExistingAccountNotice: (to) => notifications.existingAccountNotice(to),
+    background: (task) => {
+      const settled = task.then(
+        () => true,
+        (err: unknown) => {
+          log(err);
+          return false;
+        },
+      );
+      deps.trackMail?.(settled);
+    },
   });
 
   const app = express();
@@ -151,24 +176,34 @@ export function createApp(deps: AppDeps) {
   app.use('/api/webhooks', webhooksRouter({ payments: deps.payments, secret: config.webhookSecret, orders }));
 
   app.use('/api', refuseCrossSite(trustedOrigins));
-  const signInLimiter = rateLimit({
-    windowMs: 60_000,
-    limit: config.signinLimitPerMinute,
-    // Counted in the database, so every app process on it counts one client together.
-    store: sqliteRateLimitStore(db, 'sign-in'),
-    standardHeaders: 'draft-8',
-    legacyHeaders: false,
-    handler: (_req, res) => {
-      res.status(429).json({ error: { message: 'Too many sign-in attempts. Wait a minute and try again.' } });
-    },
-  });
-  app.use(['/api/auth/sign-in', '/api/auth/request-password-reset'], signInLimiter);
+  app.use('/api', noStorePersonal(['better-auth.session_token', GUEST_CART_COOKIE]));
+
+  // The auth library's routes: a small body limit, our own schemas on its inputs, the sign-in and reset limits,
+  // and answers to sign-up and reset that do not tell whether an account exists.
+  const limiters = signInLimiters(db, { perAddressPerMinute: config.signinLimitPerMinute, ...DEFAULT_SIGNIN_LIMITS, ...config.signinLimits });
+  app.use('/api/auth', ...authBodyLimit());
+  app.use(['/api/auth/sign-in', '/api/auth/request-password-reset'], limiters.perAddress);
+  app.use('/api/auth', authInputGuard());
+  app.use('/api/auth/sign-in/email', limiters.signInPerAccount);
+  app.use('/api/auth/request-password-reset', limiters.resetPerAccount);
+  app.use('/api/auth', uniformAnswers(auth, config.publicUrl, config.uniformAnswerMs ?? UNIFORM_ANSWER_MS));
   const authHandler = toNodeHandler(auth);
   app.all('/api/auth/{*splat}', (req, res) => {
     void authHandler(req, res);
   });
 
   app.use('/api', express.json({ limit: '100kb' }), cookieParser(), loadSession(auth, db));
+  // Checking a list of part numbers costs a look-up per row: one client address gets a few lists a minute.
+  const orderPadLimiter = rateLimit({
+    windowMs: 60_000,
+    limit: config.orderPadLimitPerMinute ?? ORDER_PAD_LIMIT_PER_MINUTE,
+    store: sqliteRateLimitStore(db, 'order-pad'),
+    standardHeaders: 'draft-8',
+    legacyHeaders: false,
+    handler: (_req, res) => {
+      res.status(429).json({ error: { message: 'Too many part lists checked from here in the last minute. Wait a minute and try again.' } });
+    },
+  });
   app.get('/api/parts/photos/:name', (req, res) => {
     const file = storedPath(partPhotosDir, String(req.params.name));
     if (!file) throw new HttpError(404, 'No such photo');
@@ -192,6 +227,7 @@ export function createApp(deps: AppDeps) {
   app.use('/api/fitment', fitmentRouter({ fitment }));
   app.use('/api/fitments/:fitmentId/shaft-logs', shaftLogsRouter(shaftLogs));
   app.use('/api/fitments', savedFitmentsRouter({ fitment }));
+  app.use(['/api/cart/check', '/api/cart/bulk', '/api/cart/import'], orderPadLimiter);
   app.use('/api/cart', cartRouter(cart));
   app.use('/api/checkout', checkoutRouter(orders, cart));
   app.use('/api/orders', ordersRouter(orders));

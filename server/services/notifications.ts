@@ -11,6 +11,7 @@ import { renderDealerApplicationDeclined } from './mail-templates/dealer-applica
 import { renderDealerApplicationReceived } from './mail-templates/dealer-application-received';
 import { renderOrderConfirmation } from './mail-templates/order-confirmation';
 import { renderPasswordReset } from './mail-templates/password-reset';
+import { renderAccountConfirm, renderExistingAccountNotice } from './mail-templates/account-confirm';
 import { renderPaymentFailed } from './mail-templates/payment-failed';
 import { renderDispatchNotice } from './mail-templates/dispatch-notice';
 import { renderReturnDecision } from './mail-templates/return-decision';
@@ -295,6 +296,12 @@ export function createNotifications(deps: { db: Db; mailer: MailerPort; publicUr
     },
     async passwordReset(to: { email: string; name: string }, resetUrl: string) {
       await sendSafely(deps.mailer, () => ({ to: to.email, ...renderPasswordReset({ name: to.name, resetUrl, expiresInMinutes: 60 }) }), 'password reset');
+    },
+    async accountConfirm(to: { email: string; name: string }, confirmUrl: string) {
+      await sendSafely(deps.mailer, () => ({ to: to.email, ...renderAccountConfirm({ name: to.name, confirmUrl, expiresInMinutes: 24 * 60 }) }), 'account confirmation');
+    },
+    async existingAccountNotice(to: { email: string; name: string }) {
+      await sendSafely(deps.mailer, () => ({ to: to.email, ...renderExistingAccountNotice({ name: to.name, signInUrl: url('/sign-in'), resetUrl: url('/forgot-password') }) }), 'existing account notice');
     },
     send,
     url,
