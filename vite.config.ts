@@ -1,11 +1,12 @@
 import { defineConfig } from 'vite';
 import react from '@vitejs/plugin-react';
 import tailwindcss from '@tailwindcss/vite';
+import { precompressPlugin } from './scripts/precompress';
 
 const apiPort = Number(process.env.PORT ?? 3000);
 
 export default defineConfig({
-  plugins: [react(), tailwindcss()],
+  plugins: [react(), tailwindcss(), precompressPlugin()],
   build: {
     outDir: 'dist/client',
     emptyOutDir: true,

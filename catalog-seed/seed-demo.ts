@@ -24,7 +24,11 @@ export async function seedDemo(env: Env): Promise<void> {
       secret: env.AUTH_SECRET,
       trustedOrigins: [],
       secureCookies: false,
+      // Demo accounts are marked confirmed right after; nothing is mailed.
       sendResetPassword: async () => {},
+      sendConfirmEmail: async () => {},
+      sendExistingAccountNotice: async () => {},
+      background: () => {},
     });
     const made = await seedDemoAccounts(auth, db);
     if (made > 0) console.log(`Seeded ${made} demo accounts`);

@@ -14,7 +14,7 @@ CREATE TABLE `mail_outbox` (
 	`last_attempt_at` text,
 	`sent_at` text,
 	`created_at` text DEFAULT (strftime('%Y-%m-%dT%H:%M:%fZ','now')) NOT NULL,
-	CONSTRAINT "mail_outbox_kind_ck" CHECK(kind IN ('order-confirmation', 'payment-failed', 'back-order', 'short-pick', 'dispatch', 'return-decision', 'dealer-application-received', 'dealer-approved', 'dealer-declined', 'password-reset')),
+	CONSTRAINT "mail_outbox_kind_ck" CHECK(kind IN ('order-confirmation', 'payment-failed', 'back-order', 'short-pick', 'dispatch', 'return-decision', 'dealer-application-received', 'dealer-approved', 'dealer-declined', 'password-reset', 'account-confirm', 'existing-account-notice')),
 	CONSTRAINT "mail_outbox_state_ck" CHECK(state IN ('queued', 'sending', 'sent', 'failed')),
 	CONSTRAINT "mail_outbox_attempts_ck" CHECK(attempts >= 0),
 	CONSTRAINT "mail_outbox_sent_ck" CHECK(state <> 'sent' OR sent_at IS NOT NULL)

@@ -1,5 +1,6 @@
 import type { Page } from '@playwright/test';
 import { test, expect } from './fixtures';
+import { confirmationLink } from './support/mail';
 import { keepScreenshot } from './support/screens';
 
 // An in-stock new turbocharger from the demo catalogue (AWL frame).
@@ -12,6 +13,8 @@ async function signUpFresh(page: Page, baseURL: string | undefined, label: strin
     headers: { origin: new URL(baseURL ?? 'http://127.0.0.1:3100').origin },
   });
   expect(res.ok(), 'sign-up').toBe(true);
+  // The mailed link confirms the address and signs the browser in.
+  await page.goto(await confirmationLink(page.request, email));
   return email;
 }
 

@@ -62,6 +62,7 @@ export const processesSection = section<BenchEnv>('One app process vs two (APP_P
         UPLOADS_DIR: path.join(dir, 'uploads'),
         SEED_DEMO: 'false',
         SIGNIN_LIMIT_PER_MINUTE: '10000',
+        ORDER_PAD_LIMIT_PER_MINUTE: '10000',
         PAYMENTS_API_PORT: String(payments.port),
         PAYMENTS_WEBHOOK_SECRET: WEBHOOK_SECRET,
         MAIL_PORT: String(mail.smtpPort),

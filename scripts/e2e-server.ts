@@ -34,6 +34,7 @@ const child = spawn(tsx, ['scripts/start.ts'], {
     NODE_ENV: 'test',
     SEED_DEMO: 'true',
     SIGNIN_LIMIT_PER_MINUTE: '200',
+    ORDER_PAD_LIMIT_PER_MINUTE: '1000',
     PAYMENTS_API_PORT: String(offset + 11),
     MAIL_PORT: String(offset + 25),
     MAIL_INBOX_URL: `http://127.0.0.1:${offset + 80}`,

@@ -1,6 +1,8 @@
 import fs from 'node:fs';
 import path from 'node:path';
+import compression from 'compression';
 import cookieParser from 'cookie-parser';
+import expressStaticGzip from 'express-static-gzip';
 import express from 'express';
 import helmet from 'helmet';
 import { rateLimit } from 'express-rate-limit';
@@ -11,10 +13,12 @@ import { sqliteRateLimitStore } from './db/shared-state';
 import { TEST_CARDS } from '../shared/payment-test-methods';
 import { apiNotFound, createErrorHandler } from './middleware/errors';
 import { loadSession, refuseCrossSite } from './middleware/session';
+import { authBodyLimit, authInputGuard, DEFAULT_SIGNIN_LIMITS, signInLimiters, uniformAnswers, type SignInLimits } from './middleware/auth-guard';
+import { noStorePersonal } from './middleware/no-store';
 import { accountRouter } from './routes/account';
 import { adminDealersRouter } from './routes/admin-dealers';
 import { adminPaymentsRouter } from './routes/admin-payments';
-import { cartRouter } from './routes/cart';
+import { cartRouter, GUEST_CART_COOKIE } from './routes/cart';
 import { devRouter } from './routes/dev';
 import { fitmentRouter, savedFitmentsRouter } from './routes/fitment';
 import { framesRouter } from './routes/frames';
@@ -61,7 +65,18 @@ export interface AppConfig {
   trustedOrigins?: string[];
   /** Uploaded photos live here, outside the web root, under names the server makes. */
   uploadsDir: string;
+  /** Per-account sign-in and reset limits; the defaults are in middleware/auth-guard.ts. */
+  signinLimits?: Partial<Omit<SignInLimits, 'perAddressPerMinute'>>;
+  /** Sign-up and reset answer no sooner than this after the request, known address or not. */
+  uniformAnswerMs?: number;
+  /** Anonymous order-pad checks (check, bulk add, file import) per client address per minute. */
+  orderPadLimitPerMinute?: number;
 }
+
+/** Longer than the password hash and the database work of either path on a busy machine. */
+const UNIFORM_ANSWER_MS = 600;
+/** Order-pad checks, bulk adds and file imports per client address per minute. */
+const ORDER_PAD_LIMIT_PER_MINUTE = 20;
 
 export interface AppDeps {
   db: Db;
@@ -108,8 +123,13 @@ export function createApp(deps: AppDeps) {
     secret: config.authSecret,
     trustedOrigins,
     secureCookies: config.publicUrl.startsWith('https://'),
-    // Written to the outbox, so the answer never waits for the mail server.
+    // Each is written to the mail outbox, so no answer waits for the mail server (and none is faster for it).
     sendResetPassword: async (to, url) => notifications.passwordReset(to, url),
+    sendConfirmEmail: async (to, url) => notifications.accountConfirm(to, url),
+    sendExistingAccountNotice: async (to) => notifications.existingAccountNotice(to),
+    background: (task) => {
+      task.catch((err: unknown) => log(err));
+    },
   });
 
   const app = express();
@@ -139,6 +159,9 @@ export function createApp(deps: AppDeps) {
       hsts: config.publicUrl.startsWith('https://'),
     }),
   );
+  // Answers made per request (JSON, the page) are compressed as the client accepts; built files come precompressed
+  // and cached catalogue lists carry their compressed bytes (services/catalog.ts), so neither is compressed again.
+  app.use(compression({ threshold: 1024 }));
   app.set('query parser', 'simple');
   app.set('trust proxy', 'loopback');
 
@@ -150,24 +173,34 @@ export function createApp(deps: AppDeps) {
   app.use('/api/webhooks', webhooksRouter({ payments: deps.payments, secret: config.webhookSecret, orders }));
 
   app.use('/api', refuseCrossSite(trustedOrigins));
-  const signInLimiter = rateLimit({
-    windowMs: 60_000,
-    limit: config.signinLimitPerMinute,
-    // Counted in the database, so every app process on it counts one client together.
-    store: sqliteRateLimitStore(db, 'sign-in'),
-    standardHeaders: 'draft-8',
-    legacyHeaders: false,
-    handler: (_req, res) => {
-      res.status(429).json({ error: { message: 'Too many sign-in attempts. Wait a minute and try again.' } });
-    },
-  });
-  app.use(['/api/auth/sign-in', '/api/auth/request-password-reset'], signInLimiter);
+  app.use('/api', noStorePersonal(['better-auth.session_token', GUEST_CART_COOKIE]));
+
+  // The auth library's routes: a small body limit, our own schemas on its inputs, the sign-in and reset limits,
+  // and answers to sign-up and reset that do not tell whether an account exists.
+  const limiters = signInLimiters(db, { perAddressPerMinute: config.signinLimitPerMinute, ...DEFAULT_SIGNIN_LIMITS, ...config.signinLimits });
+  app.use('/api/auth', ...authBodyLimit());
+  app.use(['/api/auth/sign-in', '/api/auth/request-password-reset'], limiters.perAddress);
+  app.use('/api/auth', authInputGuard());
+  app.use('/api/auth/sign-in/email', limiters.signInPerAccount);
+  app.use('/api/auth/request-password-reset', limiters.resetPerAccount);
+  app.use('/api/auth', uniformAnswers(auth, config.publicUrl, config.uniformAnswerMs ?? UNIFORM_ANSWER_MS));
   const authHandler = toNodeHandler(auth);
   app.all('/api/auth/{*splat}', (req, res) => {
     void authHandler(req, res);
   });
 
   app.use('/api', express.json({ limit: '100kb' }), cookieParser(), loadSession(auth, db));
+  // Checking a list of part numbers costs a look-up per row: one client address gets a few lists a minute.
+  const orderPadLimiter = rateLimit({
+    windowMs: 60_000,
+    limit: config.orderPadLimitPerMinute ?? ORDER_PAD_LIMIT_PER_MINUTE,
+    store: sqliteRateLimitStore(db, 'order-pad'),
+    standardHeaders: 'draft-8',
+    legacyHeaders: false,
+    handler: (_req, res) => {
+      res.status(429).json({ error: { message: 'Too many part lists checked from here in the last minute. Wait a minute and try again.' } });
+    },
+  });
   app.get('/api/parts/photos/:name', (req, res) => {
     const file = storedPath(partPhotosDir, String(req.params.name));
     if (!file) throw new HttpError(404, 'No such photo');
@@ -191,6 +224,7 @@ export function createApp(deps: AppDeps) {
   app.use('/api/fitment', fitmentRouter({ fitment }));
   app.use('/api/fitments/:fitmentId/shaft-logs', shaftLogsRouter(shaftLogs));
   app.use('/api/fitments', savedFitmentsRouter({ fitment }));
+  app.use(['/api/cart/check', '/api/cart/bulk', '/api/cart/import'], orderPadLimiter);
   app.use('/api/cart', cartRouter(cart));
   app.use('/api/checkout', checkoutRouter(orders, cart));
   app.use('/api/orders', ordersRouter(orders));
@@ -205,9 +239,25 @@ export function createApp(deps: AppDeps) {
 
   if (deps.clientDir && fs.existsSync(path.join(deps.clientDir, 'index.html'))) {
     const clientDir = deps.clientDir;
-    app.use(express.static(clientDir, { index: false, maxAge: '1h' }));
+    // Built files are precompressed at build time (scripts/precompress.ts): brotli or gzip as the browser accepts.
+    // Vite names every file under assets/ by its content, so those never change and are cached for a year; anything
+    // else for an hour. The page itself is revalidated on every visit, so a new release is seen at once.
+    app.use(
+      expressStaticGzip(clientDir, {
+        enableBrotli: true,
+        orderPreference: ['br', 'gz'],
+        index: false,
+        serveStatic: {
+          index: false,
+          setHeaders: (res, file) => {
+            const hashed = path.relative(clientDir, file).startsWith(`assets${path.sep}`);
+            res.setHeader('Cache-Control', hashed ? 'public, max-age=31536000, immutable' : 'public, max-age=3600');
+          },
+        },
+      }),
+    );
     app.get('/{*splat}', (_req, res) => {
-      res.sendFile(path.join(clientDir, 'index.html'));
+      res.sendFile(path.join(clientDir, 'index.html'), { headers: { 'Cache-Control': 'no-cache' } });
     });
   }
   app.use(createErrorHandler(log));

@@ -19,6 +19,7 @@ const EnvSchema = z
     SEED_DEMO: z.enum(['true', 'false']).optional(),
     AUTH_SECRET: z.string().min(32, 'must be at least 32 characters').default(DEV_AUTH_SECRET),
     SIGNIN_LIMIT_PER_MINUTE: z.coerce.number().int().min(1).max(10_000).default(10),
+    ORDER_PAD_LIMIT_PER_MINUTE: z.coerce.number().int().min(1).max(10_000).default(20),
     /** App processes serving the one port on the one database file (Node's cluster module); 1 runs in-process. */
     APP_PROCESSES: z.coerce.number().int().min(1).max(64).default(1),
     /** How often the housekeeping job (unpaid-order expiry, counters) runs, in the one process holding its lease. */

@@ -82,6 +82,7 @@ function runApp(env: Env) {
       authSecret: env.AUTH_SECRET,
       taxRatePct: env.TAX_RATE_PCT,
       signinLimitPerMinute: env.SIGNIN_LIMIT_PER_MINUTE,
+      orderPadLimitPerMinute: env.ORDER_PAD_LIMIT_PER_MINUTE,
       paymentsMode: env.PAYMENTS_MODE,
       publishableKey: env.PAYMENTS_PUBLISHABLE_KEY,
       webhookSecret: env.PAYMENTS_WEBHOOK_SECRET,

@@ -54,6 +54,8 @@ export const MAIL_KINDS = [
   'dealer-approved',
   'dealer-declined',
   'password-reset',
+  'account-confirm',
+  'existing-account-notice',
 ] as const;
 export type MailKind = (typeof MAIL_KINDS)[number];
 

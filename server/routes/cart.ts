@@ -30,6 +30,13 @@ export function cartOwner(req: Request, res: Response, cart: CartService, create
 
 const emptyGuest: CartOwner = { guestToken: '' };
 
+const CheckLinesSchema = z.object({
+  lines: z
+    .array(z.object({ partNumber: z.string().max(40), quantity: z.string().max(12) }))
+    .min(1, 'add at least one line')
+    .max(CSV_MAX_ROWS, `at most ${CSV_MAX_ROWS} lines per check`),
+});
+
 export function cartRouter(cart: CartService): Router {
   const router = Router();
   const upload = multer({
@@ -55,10 +62,10 @@ export function cartRouter(cart: CartService): Router {
     res.status(201).json(cart.addLines(owner, user, [input]));
   });
 
-  router.post('/bulk', (req, res) => {
+  router.post('/bulk', async (req, res) => {
     const input = parseOr400(BulkCartLinesSchema, req.body);
     const user = currentUser(res);
-    const rows = cart.validateRows(input.lines.map((l) => ({ partNumber: l.partNumber, quantity: String(l.quantity) })), buyerOf(user));
+    const rows = await cart.validateRows(input.lines.map((l) => ({ partNumber: l.partNumber, quantity: String(l.quantity) })), buyerOf(user));
     const bad = rows.filter((r) => r.status === 'error');
     if (bad.length > 0) {
       throw new HttpError(400, `${bad.length} ${bad.length === 1 ? 'line needs' : 'lines need'} fixing`, Object.fromEntries(bad.map((r) => [`lines.${r.row - 1}`, [r.message ?? 'not valid']])));
@@ -68,10 +75,10 @@ export function cartRouter(cart: CartService): Router {
     res.status(201).json(cart.addLines(owner, user, rows.map((r) => ({ partNumber: r.partNumber!, quantity: r.quantity!, allowBackorder: dealer && r.quantity! > (r.available ?? 0) }))));
   });
 
-  router.post('/check', (req, res) => {
-    const input = parseOr400(z.object({ lines: z.array(z.object({ partNumber: z.string().max(40), quantity: z.string().max(12) })).min(1).max(CSV_MAX_ROWS) }), req.body);
-    const rows = cart.validateRows(input.lines, buyerOf(currentUser(res)));
-    res.json({ rows, validCount: rows.filter((r) => r.status !== 'error').length, errorCount: rows.filter((r) => r.status === 'error').length });
+  router.post('/check', async (req, res) => {
+    const input = parseOr400(CheckLinesSchema, req.body, `At most ${CSV_MAX_ROWS} lines per check`);
+    const rows = await cart.validateRows(input.lines, buyerOf(currentUser(res)));
+    res.json({ rows, validCount: rows.filter((r) => r.status !== 'error').length, errorCount: rows.filter((r) => r.status === 'error').length, maxRows: CSV_MAX_ROWS });
   });
 
   router.post('/import', (req, res, next) => {
@@ -83,8 +90,9 @@ export function cartRouter(cart: CartService): Router {
       }
       try {
         if (!req.file) throw new HttpError(400, 'Choose a CSV file to upload', { file: ['choose a CSV file'] });
-        const rows = cart.readOrderFile(req.file.buffer.toString('utf8'), buyerOf(currentUser(res)));
-        res.json({ rows, validCount: rows.filter((r) => r.status !== 'error').length, errorCount: rows.filter((r) => r.status === 'error').length });
+        cart
+          .readOrderFile(req.file.buffer.toString('utf8'), buyerOf(currentUser(res)))
+          .then((rows) => res.json({ rows, validCount: rows.filter((r) => r.status !== 'error').length, errorCount: rows.filter((r) => r.status === 'error').length, maxRows: CSV_MAX_ROWS }), next);
       } catch (e) {
         next(e);
       }

@@ -13,7 +13,13 @@ export function partsRouter(catalog: CatalogService): Router {
       res.status(304).end();
       return;
     }
-    res.type('application/json').send(list.json);
+    res.type('application/json').vary('Accept-Encoding');
+    // Small answers are not worth compressing (as the compression middleware's threshold); large ones go out as the
+    // bytes compressed once for the cached answer.
+    // Brotli whenever it is accepted at all (browsers list gzip first, at the same weight); else gzip; else plain.
+    const encoding = list.json.length < 1024 ? 'identity' : req.acceptsEncodings('br') ? 'br' : req.acceptsEncodings('gzip') ? 'gzip' : 'identity';
+    if (encoding === 'br' || encoding === 'gzip') res.set('Content-Encoding', encoding).send(list.encoded(encoding));
+    else res.send(list.json);
   });
   router.get('/:partNumber', (req, res) => {
     const part = catalog.getPart(String(req.params.partNumber).slice(0, 60));

@@ -3,6 +3,7 @@ import { drizzleAdapter } from 'better-auth/adapters/drizzle';
 import { admin } from 'better-auth/plugins';
 import type { Db } from '../db/client';
 import * as schema from '../db/schema';
+import { PASSWORD_MAX, PASSWORD_MIN } from '../../shared/schemas/accounts';
 
 export { ROLES, type Role } from '../../shared/allowed-values';
 
@@ -13,6 +14,12 @@ export interface AuthOptions {
   trustedOrigins: string[];
   /** Called with the reset link; the mailer sends it. */
   sendResetPassword: (to: { email: string; name: string }, url: string) => Promise<void>;
+  /** Called with the link that confirms a new account's e-mail address. */
+  sendConfirmEmail: (to: { email: string; name: string }, url: string) => Promise<void>;
+  /** Someone tried to sign up with an address that already has an account: its owner is told, the asker is not. */
+  sendExistingAccountNotice: (to: { email: string; name: string }) => Promise<void>;
+  /** Takes the mail the auth library sends, so no answer waits for the mail server (and none is faster for it). */
+  background: (task: Promise<unknown>) => void;
   secureCookies: boolean;
 }
 
@@ -29,18 +36,34 @@ export function createAuth(options: AuthOptions) {
     }),
     emailAndPassword: {
       enabled: true,
-      minPasswordLength: 10,
-      maxPasswordLength: 128,
+      minPasswordLength: PASSWORD_MIN,
+      maxPasswordLength: PASSWORD_MAX,
       resetPasswordTokenExpiresIn: 60 * 60,
       revokeSessionsOnPasswordReset: true,
+      // A new account signs in once its address is confirmed. That is what lets sign-up answer the same for an
+      // address that already has an account: the owner gets a notice instead of a confirmation link.
+      requireEmailVerification: true,
+      onExistingUserSignUp: async ({ user }) => {
+        await options.sendExistingAccountNotice({ email: user.email, name: user.name });
+      },
       sendResetPassword: async ({ user, url }) => {
         await options.sendResetPassword({ email: user.email, name: user.name }, url);
       },
     },
+    emailVerification: {
+      sendOnSignUp: true,
+      sendOnSignIn: true,
+      autoSignInAfterVerification: true,
+      expiresIn: 60 * 60 * 24,
+      sendVerificationEmail: async ({ user, url }) => {
+        await options.sendConfirmEmail({ email: user.email, name: user.name }, url);
+      },
+    },
     session: { expiresIn: 60 * 60 * 24 * 14, updateAge: 60 * 60 * 24 },
-    // Sign-in is rate-limited by our own middleware in front of this handler (per client address).
+    // Sign-in and reset are rate-limited by our own middleware in front of this handler (per address and per account).
     rateLimit: { enabled: false },
     advanced: {
+      backgroundTasks: { handler: options.background },
       useSecureCookies: options.secureCookies,
       defaultCookieAttributes: { httpOnly: true, sameSite: 'lax', secure: options.secureCookies },
     },

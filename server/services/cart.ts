@@ -39,6 +39,12 @@ const partColumns = {
 /** The value an upsert tried to insert into a column. */
 const excluded = (column: SQLiteColumn) => sql.raw(`excluded.${column.name}`);
 
+/**
+ * Rows are checked in slices of at most this many milliseconds; between slices other requests run. Eight lists
+ * checked at once hold a waiting request for about eight slices.
+ */
+const SLICE_MS = 2;
+
 const MATCHING = new Set(['cartridges', 'compressor-housings', 'turbine-housings', 'gaskets-fittings', 'turbochargers']);
 
 /** Warnings for lines that will not bolt together: housings and cartridges of different frames, or flanges that differ. */
@@ -140,9 +146,10 @@ export function createCartService(db: Db, search: SearchService, config: { taxRa
     return { part, replacedFrom };
   }
 
+  /** A few numbers close to one that matched nothing: bounded index look-ups, never a full search. */
   function suggestionsFor(typed: string) {
-    return search.search(typed, 3).flatMap((h) => {
-      const p = partById(h.partId);
+    return search.suggest(typed, 3).flatMap((id) => {
+      const p = partById(id);
       return p && p.status !== 'superseded' ? [{ partNumber: p.partNumber, title: p.title }] : [];
     });
   }
@@ -152,7 +159,7 @@ export function createCartService(db: Db, search: SearchService, config: { taxRa
    * Reads a quick-order file: part number and quantity columns, found by a header when there is one (any heading
    * with "part", any starting with "q"), else the first two columns; then checks each row as the pad does.
    */
-  function readOrderFile(text: string, buyer: Buyer): OrderRowResult[] {
+  async function readOrderFile(text: string, buyer: Buyer): Promise<OrderRowResult[]> {
     let records: string[][];
     try {
       records = parse(text.replace(/^\uFEFF/, ''), { skip_empty_lines: true, relax_column_count: true, trim: true }) as string[][];
@@ -165,34 +172,49 @@ export function createCartService(db: Db, search: SearchService, config: { taxRa
     const qtyCol = hasHeader ? Math.max(0, header.findIndex((h) => h.startsWith('q'))) : 1;
     const body = hasHeader ? records.slice(1) : records;
     if (body.length === 0) throw new InvalidError('The file has no rows', { file: ['the file has no rows'] });
-    if (body.length > CSV_MAX_ROWS) throw new TooLargeError(`At most ${CSV_MAX_ROWS} rows per file`);
+    if (body.length > CSV_MAX_ROWS) throw new TooLargeError(`At most ${CSV_MAX_ROWS} rows per file; this one has ${body.length}`);
     return validateRows(body.map((r) => ({ partNumber: r[pnCol] ?? '', quantity: r[qtyCol] ?? '' })), buyer);
   }
 
-  function validateRows(rows: Array<{ partNumber: string; quantity: string }>, buyer: Buyer): OrderRowResult[] {
-    return rows.map((input, i) => {
-      const base = { row: i + 1, input, partNumber: null, title: null, quantity: null, available: null, suggestions: [] as OrderRowResult['suggestions'] };
-      const typed = input.partNumber.trim();
-      if (!typed) return { ...base, status: 'error', message: 'Part number is missing' };
-      const qtyText = input.quantity.trim();
-      const qty = Number(qtyText);
-      const resolved = resolvePart(typed);
-      if (!resolved) {
-        const suggestions = suggestionsFor(typed);
-        return { ...base, status: 'error', message: suggestions.length ? `No part ${typed}. Did you mean ${suggestions[0]!.partNumber}?` : `No part ${typed}`, suggestions };
+  /**
+   * Checks rows in short slices and lets the event loop run between them, so a long list from one client never
+   * holds the other requests (the health check among them) for more than a slice's work.
+   */
+  async function validateRows(rows: Array<{ partNumber: string; quantity: string }>, buyer: Buyer): Promise<OrderRowResult[]> {
+    const out: OrderRowResult[] = [];
+    let sliceStarted = performance.now();
+    for (const [i, input] of rows.entries()) {
+      if (performance.now() - sliceStarted > SLICE_MS) {
+        await new Promise((resolve) => setImmediate(resolve));
+        sliceStarted = performance.now();
       }
-      const { part, replacedFrom } = resolved;
-      const known = { ...base, partNumber: part.partNumber, title: part.title, available: Math.max(0, part.available) };
-      if (!/^\d+$/.test(qtyText) || !Number.isInteger(qty)) return { ...known, status: 'error', message: `Quantity “${qtyText}” is not a whole number` };
-      if (qty < 1 || qty > QUANTITY_MAX) return { ...known, status: 'error', message: `Quantity must be between 1 and ${QUANTITY_MAX}` };
-      if (part.status === 'discontinued' && part.available < qty) return { ...known, status: 'error', message: `${part.partNumber} is discontinued; ${Math.max(0, part.available)} left` };
-      if (qty > part.available && buyer.kind === 'retail') {
-        return { ...known, quantity: qty, status: 'error', message: `Only ${Math.max(0, part.available)} of ${part.partNumber} available` };
-      }
-      const backorderNote = qty > part.available ? ` ${qty - Math.max(0, part.available)} will be back-ordered.` : '';
-      if (replacedFrom) return { ...known, quantity: qty, status: 'replaced', message: `${replacedFrom} is superseded by ${part.partNumber}; the new number is used.${backorderNote}` };
-      return { ...known, quantity: qty, status: 'ok', message: backorderNote ? backorderNote.trim() : null };
-    });
+      out.push(validateRow(input, i, buyer));
+    }
+    return out;
+  }
+
+  function validateRow(input: { partNumber: string; quantity: string }, i: number, buyer: Buyer): OrderRowResult {
+    const base = { row: i + 1, input, partNumber: null, title: null, quantity: null, available: null, suggestions: [] as OrderRowResult['suggestions'] };
+    const typed = input.partNumber.trim();
+    if (!typed) return { ...base, status: 'error', message: 'Part number is missing' };
+    const qtyText = input.quantity.trim();
+    const qty = Number(qtyText);
+    const resolved = resolvePart(typed);
+    if (!resolved) {
+      const suggestions = suggestionsFor(typed);
+      return { ...base, status: 'error', message: suggestions.length ? `No part ${typed}. Did you mean ${suggestions[0]!.partNumber}?` : `No part ${typed}`, suggestions };
+    }
+    const { part, replacedFrom } = resolved;
+    const known = { ...base, partNumber: part.partNumber, title: part.title, available: Math.max(0, part.available) };
+    if (!/^\d+$/.test(qtyText) || !Number.isInteger(qty)) return { ...known, status: 'error', message: `Quantity “${qtyText}” is not a whole number` };
+    if (qty < 1 || qty > QUANTITY_MAX) return { ...known, status: 'error', message: `Quantity must be between 1 and ${QUANTITY_MAX}` };
+    if (part.status === 'discontinued' && part.available < qty) return { ...known, status: 'error', message: `${part.partNumber} is discontinued; ${Math.max(0, part.available)} left` };
+    if (qty > part.available && buyer.kind === 'retail') {
+      return { ...known, quantity: qty, status: 'error', message: `Only ${Math.max(0, part.available)} of ${part.partNumber} available` };
+    }
+    const backorderNote = qty > part.available ? ` ${qty - Math.max(0, part.available)} will be back-ordered.` : '';
+    if (replacedFrom) return { ...known, quantity: qty, status: 'replaced', message: `${replacedFrom} is superseded by ${part.partNumber}; the new number is used.${backorderNote}` };
+    return { ...known, quantity: qty, status: 'ok', message: backorderNote ? backorderNote.trim() : null };
   }
 
   function view(owner: CartOwner, user: CurrentUser | null, notices: string[] = []): CartView {

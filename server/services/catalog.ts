@@ -1,4 +1,5 @@
 import { createHash } from 'node:crypto';
+import zlib from 'node:zlib';
 import { and, asc, count, desc, eq, getTableColumns, gt, gte, lte, ne, sql, type SQL } from 'drizzle-orm';
 import type { SelectedFields } from 'drizzle-orm/sqlite-core';
 import type { Db } from '../db/client';
@@ -303,8 +304,7 @@ export function createCatalogService(db: Db, search: SearchService) {
     let entry = cache.get(key);
     if (entry === undefined) {
       const json = JSON.stringify(listParts(query));
-      // The validator is made once per cached answer, not hashed again on every request that reads it.
-      entry = { json, etag: `W/"${createHash('sha1').update(json).digest('base64url')}"` };
+      entry = cachedList(json);
       if (cache.size >= 500) cache.delete(cache.keys().next().value!);
       cache.set(key, entry);
     }
@@ -314,10 +314,28 @@ export function createCatalogService(db: Db, search: SearchService) {
   return { listParts, listPartsJson, getPart, listFrames };
 }
 
-/** A list answer as sent, with its entity tag. */
+/** A list answer as sent, with its entity tag and its compressed bytes (made when first asked for, then kept). */
 export interface CachedList {
   json: string;
   etag: string;
+  encoded(encoding: 'br' | 'gzip'): Buffer;
+}
+
+function cachedList(json: string): CachedList {
+  const made: Partial<Record<'br' | 'gzip', Buffer>> = {};
+  return {
+    json,
+    // The validator is made once per cached answer, not hashed again on every request that reads it.
+    etag: `W/"${createHash('sha1').update(json).digest('base64url')}"`,
+    encoded(encoding) {
+      // Brotli at quality 5 and gzip at level 6: most of the gain for a little CPU, once per cached answer.
+      made[encoding] ??=
+        encoding === 'br'
+          ? zlib.brotliCompressSync(json, { params: { [zlib.constants.BROTLI_PARAM_QUALITY]: 5, [zlib.constants.BROTLI_PARAM_MODE]: zlib.constants.BROTLI_MODE_TEXT } })
+          : zlib.gzipSync(json, { level: 6 });
+      return made[encoding];
+    },
+  };
 }
 
 export type CatalogService = ReturnType<typeof createCatalogService>;

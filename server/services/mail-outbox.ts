@@ -28,6 +28,9 @@ export interface OutboxPolicy {
   batchSize: number;
 }
 
+/** Messages whose link signs someone in or sets a password; their bodies are cleared once sent. */
+const CARRIES_A_CREDENTIAL: ReadonlySet<MailKind> = new Set(['password-reset', 'account-confirm']);
+
 export const DEFAULT_OUTBOX_POLICY: OutboxPolicy = { baseDelayMs: 5_000, maxDelayMs: 15 * 60_000, maxAttempts: 12, claimMs: 2 * 60_000, batchSize: 20 };
 
 /**
@@ -154,8 +157,8 @@ export function createMailOutbox(deps: { db: Db; mailer: MailerPort; policy?: Pa
           } else result.retrying += 1;
           continue;
         }
-        // A reset link is a credential: once it has gone it is not kept in the database.
-        const clear = row.kind === 'password-reset' ? { text: '', html: '' } : {};
+        // A reset or confirmation link is a credential: once it has gone it is not kept in the database.
+        const clear = CARRIES_A_CREDENTIAL.has(row.kind) ? { text: '', html: '' } : {};
         const marked = db
           .update(mailOutbox)
           .set({ state: 'sent', sentAt: new Date(now()).toISOString(), claimedBy: null, claimExpiresAt: null, lastError: null, ...clear })
@@ -265,7 +268,11 @@ export function createMailOutbox(deps: { db: Db; mailer: MailerPort; policy?: Pa
       if (!row) throw new NotFoundError('No such message');
       if (row.text === '') {
         throw new ConflictError(
-          row.kind === 'password-reset' ? 'A reset link is not kept once it has gone. The customer can ask for a new one from the sign-in page.' : 'This message was never written, so there is nothing to send again.',
+          row.kind === 'password-reset'
+            ? 'A reset link is not kept once it has gone. The customer can ask for a new one from the sign-in page.'
+            : row.kind === 'account-confirm'
+              ? 'A confirmation link is not kept once it has gone. Signing in with the new account sends a fresh one.'
+              : 'This message was never written, so there is nothing to send again.',
         );
       }
       const changed = db

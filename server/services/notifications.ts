@@ -14,6 +14,7 @@ import { renderDealerApplicationDeclined } from './mail-templates/dealer-applica
 import { renderDealerApplicationReceived } from './mail-templates/dealer-application-received';
 import { renderOrderConfirmation } from './mail-templates/order-confirmation';
 import { renderPasswordReset } from './mail-templates/password-reset';
+import { renderAccountConfirm, renderExistingAccountNotice } from './mail-templates/account-confirm';
 import { renderPaymentFailed } from './mail-templates/payment-failed';
 import { renderDispatchNotice } from './mail-templates/dispatch-notice';
 import { renderReturnDecision } from './mail-templates/return-decision';
@@ -295,9 +296,15 @@ export function createNotifications(deps: { db: Db; publicUrl: string }) {
         send(q, 'dealer-declined', () => ({ to: d.email, ...renderDealerApplicationDeclined({ contactName: d.contactName, companyName: d.companyName, reason: d.declineReason ?? '' }) }));
       }
     },
-    /** Written on its own (the auth library has no transaction to share); the request only waits for the insert. */
+    /** The auth library's mails are written on their own (it has no transaction to share); the answer waits for one insert. */
     passwordReset(to: { email: string; name: string }, resetUrl: string) {
       send(deps.db, 'password-reset', () => ({ to: to.email, ...renderPasswordReset({ name: to.name, resetUrl, expiresInMinutes: 60 }) }));
+    },
+    accountConfirm(to: { email: string; name: string }, confirmUrl: string) {
+      send(deps.db, 'account-confirm', () => ({ to: to.email, ...renderAccountConfirm({ name: to.name, confirmUrl, expiresInMinutes: 24 * 60 }) }));
+    },
+    existingAccountNotice(to: { email: string; name: string }) {
+      send(deps.db, 'existing-account-notice', () => ({ to: to.email, ...renderExistingAccountNotice({ name: to.name, signInUrl: url('/sign-in'), resetUrl: url('/forgot-password') }) }));
     },
     send,
     url,

@@ -37,6 +37,19 @@ const WORD_LIMIT = 300;
 const RANKED = 100;
 const NEAR_LIMIT = 40;
 const PREFIX_LIMIT = 60;
+/** Suggestions for an unknown number look at no more than this many candidates of each kind. */
+const SUGGEST_LIMIT = 10;
+
+/** Levenshtein distance, for ordering a handful of suggested numbers. */
+export function editDistance(a: string, b: string): number {
+  let prev = Array.from({ length: b.length + 1 }, (_, j) => j);
+  for (let i = 1; i <= a.length; i++) {
+    const cur = [i];
+    for (let j = 1; j <= b.length; j++) cur[j] = Math.min(prev[j]! + 1, cur[j - 1]! + 1, prev[j - 1]! + (a[i - 1] === b[j - 1] ? 0 : 1));
+    prev = cur;
+  }
+  return prev[b.length]!;
+}
 
 function trigrams(s: string): string[] {
   const out = new Set<string>();
@@ -91,6 +104,7 @@ export function createSearchService(db: Db) {
     oneEdit: sqlite.prepare('SELECT id, normalized_number AS number FROM parts WHERE normalized_number IN (SELECT value FROM json_each(?))'),
     aliasOneEdit: sqlite.prepare('SELECT part_id AS id, alias, kind FROM part_aliases WHERE normalized_alias IN (SELECT value FROM json_each(?))'),
     near: sqlite.prepare(`SELECT part_id AS id, kind, number FROM numbers_tri WHERE numbers_tri MATCH ? ORDER BY rank LIMIT ${NEAR_LIMIT}`),
+    suggestPrefix: sqlite.prepare(`SELECT id, normalized_number AS number FROM parts WHERE normalized_number > ? AND normalized_number < ? ORDER BY normalized_number LIMIT ${SUGGEST_LIMIT}`),
     // No ORDER BY rank: scoring every match is what costs; fuse.js ranks the candidates instead.
     words: sqlite.prepare(`SELECT part_id AS id FROM parts_fts WHERE parts_fts MATCH ? LIMIT ${WORD_LIMIT}`),
   };
@@ -335,7 +349,38 @@ export function createSearchService(db: Db) {
     return list.slice(0, limit).map((c) => ({ partId: c.doc.id, reasons: c.reasons }));
   }
 
-  return { rebuild, refresh, search, size: () => docs.size };
+  /**
+   * Suggestions for a part number that matched nothing (the order pad, a file upload): index look-ups only, each
+   * with a small LIMIT, ranked by edit distance in a few microseconds. No word search and no fuzzy ranking, so a
+   * file of 500 unknown numbers costs a few look-ups per row rather than a full search per row.
+   */
+  function suggest(query: string, limit = 3): number[] {
+    const n = normalizePartNumber(query.trim().slice(0, 40));
+    if (n.length < 3 || n.length > 24) return [];
+    if (feed.current().parts !== syncedTo) follow();
+    const found = new Map<number, string>();
+    const take = (id: number, number: string) => {
+      if (docs.has(id) && !found.has(id)) found.set(id, number);
+    };
+    for (const r of stmt.aliasExact.all(n) as Array<{ id: number; alias: string }>) take(r.id, n);
+    for (const r of stmt.suggestPrefix.all(n, `${n}\uffff`) as Array<{ id: number; number: string }>) take(r.id, r.number);
+    if (n.length >= 5) {
+      const variants = JSON.stringify(oneEditVariants(n));
+      for (const r of stmt.oneEdit.all(variants) as Array<{ id: number; number: string }>) take(r.id, r.number);
+      // Nothing one edit away: numbers that share all but the last few characters (same family and frame).
+      if (found.size === 0) {
+        const stem = n.slice(0, Math.max(4, n.length - 3));
+        for (const r of stmt.suggestPrefix.all(stem, `${stem}\uffff`) as Array<{ id: number; number: string }>) take(r.id, r.number);
+      }
+    }
+    return [...found]
+      .map(([id, number]) => ({ id, d: editDistance(n, number) }))
+      .sort((a, b) => a.d - b.d || a.id - b.id)
+      .slice(0, limit)
+      .map((c) => c.id);
+  }
+
+  return { rebuild, refresh, search, suggest, size: () => docs.size };
 }
 
 export type SearchService = ReturnType<typeof createSearchService>;

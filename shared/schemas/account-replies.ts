@@ -6,6 +6,9 @@ export const AuthUserReplySchema = z.object({
 });
 export type AuthUserReply = z.infer<typeof AuthUserReplySchema>;
 
+/** Sign-up's answer: the same words for a new address and one that has an account; the next step is in the mail. */
+export const SignUpReplySchema = z.object({ status: z.literal(true), message: z.string() });
+
 /** better-auth's plain acknowledgements (sign-out, reset request, reset). */
 export const AuthStatusReplySchema = z.object({ status: z.boolean().optional(), success: z.boolean().optional() }).loose();
 

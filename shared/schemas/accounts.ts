@@ -3,6 +3,11 @@ import { DEALER_STATUSES, ROLES } from '../allowed-values';
 import { DEALER_TIER_KEYS, DELIVERY_ZONE_KEYS } from '../pricing';
 
 export const PASSWORD_MIN = 10;
+export const PASSWORD_MAX = 128;
+export const NAME_MAX = 80;
+export const EMAIL_MAX = 254;
+
+export const PersonNameSchema = z.string({ error: 'enter your name' }).trim().min(2, 'enter your name').max(NAME_MAX, 'name is too long');
 
 export const SignInSchema = z.object({
   email: z.email('enter your e-mail address'),
@@ -10,12 +15,6 @@ export const SignInSchema = z.object({
 });
 export type SignIn = z.infer<typeof SignInSchema>;
 
-export const SignUpSchema = z.object({
-  name: z.string().trim().min(2, 'enter your name').max(80, 'name is too long'),
-  email: z.email('enter a valid e-mail address'),
-  password: z.string().min(PASSWORD_MIN, `password must be at least ${PASSWORD_MIN} characters`).max(128, 'password is too long'),
-});
-export type SignUp = z.infer<typeof SignUpSchema>;
 
 export const DealerApplicationSchema = z.object({
   companyName: z.string().trim().min(2, 'enter the company name').max(100),

@@ -13,6 +13,8 @@ export const MAIL_KIND_LABELS = {
   'dealer-approved': 'Dealer approval',
   'dealer-declined': 'Dealer decline',
   'password-reset': 'Password reset link',
+  'account-confirm': 'Account confirmation link',
+  'existing-account-notice': 'Sign-up for an existing account',
 } as const satisfies Record<(typeof MAIL_KINDS)[number], string>;
 
 export const MAIL_STATE_LABELS = {
@@ -44,7 +46,7 @@ export const OutboxMessageSchema = z.object({
   lastAttemptAt: z.string().nullable(),
   sentAt: z.string().nullable(),
   createdAt: z.string(),
-  /** False for a reset link that has gone (it is not kept) and for a message that could not be written. */
+  /** False for a reset or confirmation link that has gone (it is not kept) and for a message that could not be written. */
   resendable: z.boolean(),
 });
 export type OutboxMessage = z.infer<typeof OutboxMessageSchema>;

@@ -2,6 +2,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { DealerAccountsSchema, MeSchema } from '../../shared/schemas/accounts';
 import type { StoredMessage } from '../../fakes/mail/mail-fake';
 import { createAccount, createCustomer, createDealer, createUser } from '../support/factories';
+import { signUpAndConfirm } from '../support/session';
 import { startTestApp, type Reply, type TestApp } from '../support/test-app';
 
 let t: TestApp;
@@ -45,12 +46,11 @@ const application = {
 };
 
 describe('sign-up and sign-in', () => {
-  it('self sign-up makes a signed-in customer', async () => {
-    const reply = await t.send('POST', '/api/auth/sign-up/email', { name: 'Lee Marrowby', email: 'lee@example.test', password: 'a-long-enough-password' }, { origin: t.url });
-    expect(reply.status, JSON.stringify(reply.body)).toBe(200);
-    const row = t.db.$client.prepare('SELECT role FROM user WHERE email = ?').get('lee@example.test') as { role: string };
-    expect(row.role).toBe('customer');
-    const who = await me(cookiesOf(reply));
+  it('self sign-up makes a customer, signed in once the mailed link confirms the address', async () => {
+    const cookie = await signUpAndConfirm(t, { name: 'Lee Marrowby', email: 'lee@example.test', password: 'a-long-enough-password' });
+    const row = t.db.$client.prepare('SELECT role, email_verified AS verified FROM user WHERE email = ?').get('lee@example.test') as { role: string; verified: number };
+    expect(row).toEqual({ role: 'customer', verified: 1 });
+    const who = await me(cookie);
     expect(who.user).toMatchObject({ email: 'lee@example.test', name: 'Lee Marrowby', role: 'customer', dealer: null });
   });
 
@@ -113,9 +113,7 @@ describe('dealer application and approval', () => {
     // An account approved before this application, so "pending first" below is about order, not about id.
     await createDealer(t);
     const email = 'pat.quillon@example.test';
-    const signUp = await t.send('POST', '/api/auth/sign-up/email', { name: 'Pat Quillon', email, password: 'harrowgate-diesel-9' }, { origin: t.url });
-    expect(signUp.status).toBe(200);
-    const cookie = cookiesOf(signUp);
+    const cookie = await signUpAndConfirm(t, { name: 'Pat Quillon', email, password: 'harrowgate-diesel-9' });
 
     const invalid = await t.send('POST', '/api/account/dealer-applications', { ...application, phone: 'call me' }, { origin: t.url, cookie });
     expect(invalid.status).toBe(400);
@@ -172,8 +170,7 @@ describe('dealer application and approval', () => {
 
   it('declines with a reason and mails it', async () => {
     const email = 'dana.crewe@example.test';
-    const signUp = await t.send('POST', '/api/auth/sign-up/email', { name: 'Dana Crewe', email, password: 'crewe-garage-2024' }, { origin: t.url });
-    const cookie = cookiesOf(signUp);
+    const cookie = await signUpAndConfirm(t, { name: 'Dana Crewe', email, password: 'crewe-garage-2024' });
     const applied = await t.send('POST', '/api/account/dealer-applications', { ...application, companyName: 'Crewe Garage' }, { origin: t.url, cookie });
     const dealerId = (applied.body as { id: number }).id;
     const admin = (await createUser(t, { role: 'admin' })).client.cookie();

@@ -15,6 +15,7 @@ export function testConfig(overrides: Partial<AppConfig> = {}): AppConfig {
     authSecret: 'spoolyard-test-secret-0123456789-abcdefghij',
     taxRatePct: 8,
     signinLimitPerMinute: 1000,
+    orderPadLimitPerMinute: 1000,
     paymentsMode: 'test',
     publishableKey: 'pk_test_spoolyard_test_suite',
     webhookSecret: TEST_WEBHOOK_SECRET,

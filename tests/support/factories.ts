@@ -42,8 +42,8 @@ export interface UserOverrides {
   password?: string;
 }
 
-/** Signs up through the auth library, which also opens a session; the role is then set as the office would. */
-async function signUp(t: TestApp, overrides: UserOverrides): Promise<TestAccount & { setCookies: string[] }> {
+/** Signs up through the auth library; the address is then marked confirmed and the role set as the office would. */
+async function signUp(t: TestApp, overrides: UserOverrides): Promise<TestAccount> {
   const n = next();
   const role = overrides.role ?? 'customer';
   const name = overrides.name ?? `Factory ${role} ${n}`;
@@ -53,19 +53,23 @@ async function signUp(t: TestApp, overrides: UserOverrides): Promise<TestAccount
   if (!res.ok) throw new Error(`sign-up of ${email}: ${res.status} ${await res.text()}`);
   const { user } = SignUpReplySchema.parse(await res.json());
   t.db.update(users).set({ role, emailVerified: true }).where(eq(users.id, user.id)).run();
-  return { id: user.id, email, name, password, role, setCookies: res.headers.getSetCookie() };
+  return { id: user.id, email, name, password, role };
 }
 
 /** An account whose session nobody holds (for tests that count sign-ins). */
 export async function createAccount(t: TestApp, overrides: UserOverrides = {}): Promise<TestAccount> {
-  const { setCookies: _, ...account } = await signUp(t, overrides);
-  return account;
+  return signUp(t, overrides);
 }
 
-/** A user and a client signed in as them: the session the sign-up opened, so only one password hash is spent. */
+/**
+ * A user and a client signed in as them. A new account signs in only once its address is confirmed, so the
+ * session comes from a sign-in through the auth library (not through HTTP, where the sign-in limits apply).
+ */
 export async function createUser(t: TestApp, overrides: UserOverrides = {}): Promise<TestUser> {
-  const { setCookies, ...account } = await signUp(t, overrides);
-  return { ...account, client: clientOf(t, setCookies) };
+  const account = await signUp(t, overrides);
+  const res = await t.app.auth.api.signInEmail({ body: { email: account.email, password: account.password }, asResponse: true });
+  if (!res.ok) throw new Error(`sign-in of ${account.email}: ${res.status} ${await res.text()}`);
+  return { ...account, client: clientOf(t, res.headers.getSetCookie()) };
 }
 
 export const createCustomer = (t: TestApp, overrides: Omit<UserOverrides, 'role'> = {}) => createUser(t, { ...overrides, role: 'customer' });

@@ -47,3 +47,23 @@ export async function signIn(t: TestApp, email: string, password = 'spoolyard-de
   if (res.status !== 200) throw new Error(`sign-in as ${email} failed: ${res.status} ${JSON.stringify(res.body)}`);
   return client;
 }
+
+/**
+ * Signs up through HTTP as a person does, then follows the confirmation link from the mail fake's inbox; the link
+ * signs the new account in. Returns the session as one Cookie header.
+ */
+export async function signUpAndConfirm(t: TestApp, input: { name: string; email: string; password: string }): Promise<string> {
+  if (!t.mail) throw new Error('signUpAndConfirm needs the mail fake');
+  const reply = await t.send('POST', '/api/auth/sign-up/email', input, { origin: t.url });
+  if (reply.status !== 200) throw new Error(`sign-up of ${input.email}: ${reply.status} ${JSON.stringify(reply.body)}`);
+  const mail = await t.mail.waitForMessage((m) => m.to.includes(input.email) && /confirm your/i.test(m.subject));
+  const link = /https?:\/\/\S+\/api\/auth\/verify-email\?\S+/.exec(mail.text ?? '')?.[0];
+  if (!link) throw new Error(`no confirmation link in the mail to ${input.email}`);
+  const confirmed = await fetch(link.replace(/^https?:\/\/[^/]+/, t.url), { redirect: 'manual' });
+  const cookie = confirmed.headers
+    .getSetCookie()
+    .map((c) => c.split(';')[0]!)
+    .join('; ');
+  if (!cookie.includes('session_token')) throw new Error(`confirming ${input.email} did not sign in: ${confirmed.status}`);
+  return cookie;
+}

@@ -1,22 +1,28 @@
-import { useQueryClient } from '@tanstack/react-query';
-import { useNavigate, useSearchParams } from 'react-router-dom';
-import { authKeys } from '../../features/auth/api/keys';
+import { useState } from 'react';
+import { useSearchParams } from 'react-router-dom';
 import { SignUpForm } from '../../features/auth/components/sign-up-form';
 import { safeNextPath, signInHref } from '../../features/auth/next-path';
-import { cartKeys } from '../../features/cart/api/keys';
 
 export function SignUpRoute() {
   const [params] = useSearchParams();
   const nextParam = params.get('next');
   const next = safeNextPath(nextParam, '/account');
-  const navigate = useNavigate();
-  const client = useQueryClient();
+  // The account is used once its address is confirmed: the mailed link signs it in and opens `next`, where a
+  // guest cart joins it as at sign-in. The answer says the same for an address that already has an account.
+  const [sent, setSent] = useState<{ email: string; message: string } | null>(null);
 
-  // A new account is signed in straight away; a guest cart joins it like at sign-in.
-  const onSignedUp = async () => {
-    await Promise.all([client.invalidateQueries({ queryKey: authKeys.all }), client.invalidateQueries({ queryKey: cartKeys.all })]);
-    navigate(next, { replace: true, state: { welcome: true } });
-  };
+  if (sent) {
+    return (
+      <div className="mx-auto grid max-w-2xl grid-cols-[minmax(0,1fr)] gap-4">
+        <h1 className="text-3xl font-bold">Check your e-mail</h1>
+        <div role="status" className="rounded border border-machined bg-machined-tint p-4">
+          <p className="font-semibold">We have sent a message to {sent.email}.</p>
+          <p className="mt-1">{sent.message}</p>
+        </div>
+        <p className="text-cast">The link in it works for 24 hours. You can close this page.</p>
+      </div>
+    );
+  }
 
   return (
     <div className="mx-auto grid max-w-2xl grid-cols-[minmax(0,1fr)] gap-6">
@@ -26,7 +32,7 @@ export function SignUpRoute() {
           A retail account keeps your orders and saved fitment checks. Workshops and resellers can apply for a trade account once signed in.
         </p>
       </div>
-      <SignUpForm onSignedUp={() => void onSignedUp()} signInHref={nextParam ? signInHref(next) : '/sign-in'} />
+      <SignUpForm onSignedUp={(email, message) => setSent({ email, message })} signInHref={nextParam ? signInHref(next) : '/sign-in'} next={next} />
     </div>
   );
 }

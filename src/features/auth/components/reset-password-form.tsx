@@ -1,7 +1,8 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useForm } from 'react-hook-form';
 import { z } from 'zod';
-import { PASSWORD_MIN, SignUpSchema } from '../../../../shared/schemas/accounts';
+import { PASSWORD_MIN } from '../../../../shared/schemas/accounts';
+import { SignUpSchema } from '../../../../shared/schemas/sign-up';
 import { buttonClass } from '../../../components/ui/button';
 import { useResetPassword } from '../api/reset-password';
 import { authErrorMessage } from '../auth-errors';
@@ -52,7 +53,7 @@ export function ResetPasswordForm({ token, onDone, expiredHelp }: { token: strin
         label="New password"
         type="password"
         autoComplete="new-password"
-        hint={`At least ${PASSWORD_MIN} characters.`}
+        hint={`At least ${PASSWORD_MIN} characters, and not a common password.`}
         error={errors.password?.message}
         {...form.register('password')}
       />

@@ -1,7 +1,8 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useForm } from 'react-hook-form';
 import { Link } from 'react-router-dom';
-import { PASSWORD_MIN, SignUpSchema, type SignUp } from '../../../../shared/schemas/accounts';
+import { PASSWORD_MIN } from '../../../../shared/schemas/accounts';
+import { SignUpSchema, type SignUp } from '../../../../shared/schemas/sign-up';
 import { buttonClass } from '../../../components/ui/button';
 import { useSignUp } from '../api/sign-up';
 import { authErrorMessage } from '../auth-errors';
@@ -14,7 +15,7 @@ const FIELDS = [
   { name: 'password', id: 'sign-up-password', label: 'Password' },
 ] as const;
 
-export function SignUpForm({ onSignedUp, signInHref }: { onSignedUp: () => void; signInHref: string }) {
+export function SignUpForm({ onSignedUp, signInHref, next }: { onSignedUp: (email: string, message: string) => void; signInHref: string; next: string }) {
   const form = useForm<SignUp>({ shouldFocusError: false, resolver: zodResolver(SignUpSchema), defaultValues: { name: '', email: '', password: '' } });
   const signUp = useSignUp();
   const summary = useErrorSummary(form, FIELDS);
@@ -22,7 +23,7 @@ export function SignUpForm({ onSignedUp, signInHref }: { onSignedUp: () => void;
 
   const onSubmit = summary.handleSubmit(
     (values) => {
-      signUp.mutate(values, { onSuccess: onSignedUp, onError: (error) => summary.showServerError(error, authErrorMessage(error, 'sign-up')) });
+      signUp.mutate({ ...values, callbackURL: next }, { onSuccess: (reply) => onSignedUp(values.email, reply.message), onError: (error) => summary.showServerError(error, authErrorMessage(error, 'sign-up')) });
     },
     () => signUp.reset(),
   );
@@ -45,7 +46,7 @@ export function SignUpForm({ onSignedUp, signInHref }: { onSignedUp: () => void;
         label="Password"
         type="password"
         autoComplete="new-password"
-        hint={`At least ${PASSWORD_MIN} characters. A short sentence is easier to remember than a jumble.`}
+        hint={`At least ${PASSWORD_MIN} characters, and not a common password. A few unusual words are easier to remember than a jumble.`}
         error={errors.password?.message}
         {...form.register('password')}
       />

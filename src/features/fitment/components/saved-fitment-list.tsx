@@ -2,10 +2,10 @@ import { ChartLine, FolderOpen, Trash2 } from 'lucide-react';
 import { useState } from 'react';
 import { Link } from 'react-router-dom';
 import type { SavedFitment } from '../../../../shared/schemas/saved-fitments';
+import { formatDate } from '../../../../shared/format';
 import { Button, buttonClass } from '../../../components/ui/button';
 import { useDeleteSavedFitment } from '../api/delete-saved-fitment';
 
-const when = (iso: string) => new Date(iso).toLocaleDateString('en-US', { year: 'numeric', month: 'short', day: 'numeric' });
 
 function SavedRow({ item }: { item: SavedFitment }) {
   const remove = useDeleteSavedFitment();
@@ -18,7 +18,7 @@ function SavedRow({ item }: { item: SavedFitment }) {
         </h2>
         <p>{item.summary}</p>
         <p className="text-sm text-cast">
-          Saved <time dateTime={item.createdAt}>{when(item.createdAt)}</time>
+          Saved <time dateTime={item.createdAt}>{formatDate(item.createdAt)}</time>
         </p>
       </div>
       {confirming ? (

@@ -2,10 +2,10 @@ import { ChartLine, Trash2 } from 'lucide-react';
 import { useState } from 'react';
 import type { ShaftLog } from '../../../../shared/schemas/shaft-logs';
 import { BOOST_UNIT_LABELS } from '../../../../shared/shaft-log-csv';
+import { formatDate } from '../../../../shared/format';
 import { Button } from '../../../components/ui/button';
 import { useDeleteShaftLog } from '../api/delete-shaft-log';
 
-const when = (iso: string) => new Date(iso).toLocaleDateString('en-US', { year: 'numeric', month: 'short', day: 'numeric' });
 
 function LogRow({ log, selected, onSelect, onDeleted }: { log: ShaftLog; selected: boolean; onSelect: () => void; onDeleted: () => void }) {
   const remove = useDeleteShaftLog();
@@ -18,7 +18,7 @@ function LogRow({ log, selected, onSelect, onDeleted }: { log: ShaftLog; selecte
         </h3>
         <p className="tabular text-sm text-cast">
           Frame <span className="part-no text-ink">{log.frameCode}</span> · {log.rowCount.toLocaleString('en-US')} rows · {log.durationS.toFixed(1)} s · boost in{' '}
-          {BOOST_UNIT_LABELS[log.boostUnit]} · uploaded <time dateTime={log.createdAt}>{when(log.createdAt)}</time>
+          {BOOST_UNIT_LABELS[log.boostUnit]} · uploaded <time dateTime={log.createdAt}>{formatDate(log.createdAt)}</time>
         </p>
       </div>
       {confirming ? (

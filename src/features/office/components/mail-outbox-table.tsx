@@ -78,8 +78,8 @@ export function MailOutboxTable({ messages, onResend, pendingId }: { messages: O
               {/* A waiting message is not sent twice: it only stops waiting for its next try. */}
               {row.original.state === 'queued' ? 'Send now' : 'Send again'}
             </Button>
-          ) : row.original.kind === 'password-reset' && row.original.state === 'sent' ? (
-            <span className="block max-w-40 text-sm text-cast">Reset links are not kept once sent</span>
+          ) : (row.original.kind === 'password-reset' || row.original.kind === 'account-confirm') && row.original.state === 'sent' ? (
+            <span className="block max-w-40 text-sm text-cast">{row.original.kind === 'password-reset' ? 'Reset' : 'Confirmation'} links are not kept once sent</span>
           ) : null,
       }}
     />
