@@ -65,37 +65,6 @@ export function createMailer(options: MailerOptions): Mailer {
   };
 }
 
-function reason(error: unknown): string {
-  if (error instanceof Error) {
-    const code = 'code' in error ? error.code : undefined;
-    return typeof code === 'string' && !error.message.includes(code) ? `${code} ${error.message}` : error.message;
-  }
-  return String(error);
-}
-
-/**
- * Sends once without ever rejecting, for a message that needs no retry (a check that the relay answers). The shop's
- * own mail goes through the outbox (mail-outbox.ts) instead, which keeps and retries it. Pass a function to have
- * rendering failures caught the same way. Resolves true when the message was handed to the server.
- */
-export async function sendSafely(
-  mailer: MailerPort,
-  message: OutgoingMail | (() => OutgoingMail),
-  label = 'mail',
-): Promise<boolean> {
-  let subject = '';
-  try {
-    const outgoing = typeof message === 'function' ? message() : message;
-    subject = outgoing.subject;
-    await mailer.send(outgoing);
-    return true;
-  } catch (error) {
-    // warn, not error: the caller's work succeeded and the failure is an operational notice.
-    console.warn(`${label} not sent${subject ? ` ("${subject}")` : ''}: ${reason(error)}`);
-    return false;
-  }
-}
-
 export interface RecordingMailer extends MailerPort {
   sent: OutgoingMail[];
   /** Makes every later send reject with this error, to exercise failure paths. */

@@ -1,8 +1,8 @@
 import { createServer } from 'node:net';
 import type { AddressInfo } from 'node:net';
-import { afterAll, beforeAll, beforeEach, describe, expect, it, vi } from 'vitest';
+import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest';
 import { startMailFake, type MailFake } from '../../fakes/mail/mail-fake';
-import { createMailer, createRecordingMailer, sendSafely, type Mailer } from '../../server/services/mailer';
+import { createMailer, type Mailer } from '../../server/services/mailer';
 import { renderDispatchNotice } from '../../server/services/mail-templates/dispatch-notice';
 import { renderOrderConfirmation } from '../../server/services/mail-templates/order-confirmation';
 
@@ -90,43 +90,21 @@ describe('mailer over SMTP', () => {
       deliveryAddress: { name: 'Sam Ferrow', lines: ['2 Mill Yard'], city: 'Ashcombe', postalCode: '00043' },
       orderUrl: 'http://127.0.0.1:5173/orders/SY-2002',
     });
-    expect(await sendSafely(mailer, { to: 'sam@dealer.test', ...rendered }, 'dispatch notice')).toBe(true);
+    await mailer.send({ to: 'sam@dealer.test', ...rendered });
     const message = await fake.waitForMessage((m) => m.to.includes('sam@dealer.test'));
     expect(message.text).toContain('MF987654321');
     expect(message.html).toContain('MF987654321');
   });
 });
 
-describe('sendSafely', () => {
-  it('resolves false with a short warning when the mail server is down', async () => {
-    const warn = vi.spyOn(console, 'warn').mockImplementation(() => undefined);
+describe('a mail server that is down', () => {
+  it('makes a send fail fast with the connection error (the outbox keeps the message and tries again)', async () => {
     const down = createMailer({ host: '127.0.0.1', port: await closedPort(), from: FROM, timeoutMs: 2_000 });
     try {
       await expect(down.verify()).rejects.toThrow();
-      await expect(sendSafely(down, { to: 'buyer@retail.test', ...orderMail() }, 'order confirmation')).resolves.toBe(false);
+      await expect(down.send({ to: 'buyer@retail.test', ...orderMail() })).rejects.toThrow(/ECONNREFUSED/);
     } finally {
       await down.close();
     }
-    expect(warn).toHaveBeenCalledTimes(1);
-    const line = String(warn.mock.calls[0]?.[0]);
-    expect(line).toMatch(/^order confirmation not sent \("Order SY-2001 confirmed"\): .*ECONNREFUSED/);
-    expect(line.length).toBeLessThan(200);
-  });
-
-  it('catches a failure while rendering when given a function', async () => {
-    const warn = vi.spyOn(console, 'warn').mockImplementation(() => undefined);
-    const recorder = createRecordingMailer();
-    const sent = await sendSafely(recorder, () => {
-      throw new TypeError('Mail links must be http(s), got javascript:');
-    });
-    expect(sent).toBe(false);
-    expect(recorder.sent).toHaveLength(0);
-    expect(warn).toHaveBeenCalledWith('mail not sent: Mail links must be http(s), got javascript:');
-  });
-
-  it('hands the message to the mailer once when it works', async () => {
-    const recorder = createRecordingMailer();
-    await expect(sendSafely(recorder, () => ({ to: 'a@retail.test', ...orderMail() }))).resolves.toBe(true);
-    expect(recorder.sent.map((m) => [m.to, m.subject])).toEqual([['a@retail.test', 'Order SY-2001 confirmed']]);
   });
 });

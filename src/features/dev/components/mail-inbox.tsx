@@ -1,12 +1,12 @@
 import { Mail, RefreshCw } from 'lucide-react';
 import { Tab, TabList, TabPanel, Tabs } from 'react-aria-components';
 import type { CaughtMail } from '../../../../shared/schemas/dev-mail';
+import { formatDateTime } from '../../../../shared/format';
 import { Button } from '../../../components/ui/button';
 import { EmptyState, ErrorState, LoadingState } from '../../../components/ui/states';
 import { ApiError } from '../../../lib/api-client';
 import { useMail } from '../api/get-mail';
 
-const when = (iso: string) => new Date(iso).toLocaleString('en-US', { dateStyle: 'medium', timeStyle: 'medium' });
 
 const tabClass =
   'cursor-pointer rounded-t-md border border-b-0 border-transparent px-4 py-2 font-semibold text-cast outline-none data-[selected]:border-cast-line data-[selected]:bg-white data-[selected]:text-ink data-[focus-visible]:outline-3 data-[focus-visible]:outline-temper';
@@ -29,7 +29,7 @@ function Reader({ message }: { message: CaughtMail }) {
         <dt className="font-semibold text-cast">To</dt>
         <dd className="break-all">{message.to.join(', ')}</dd>
         <dt className="font-semibold text-cast">Date</dt>
-        <dd>{when(message.date)}</dd>
+        <dd>{formatDateTime(message.date)}</dd>
       </dl>
       {links.length > 0 && (
         <div className="text-sm">
@@ -127,7 +127,7 @@ export function MailInbox({ selectedId, onSelect }: { selectedId: string | null;
                       {m.subject || '(no subject)'}
                     </span>
                     <span className="text-sm break-all text-cast">To {m.to.join(', ')}</span>
-                    <span className="text-sm text-cast">{when(m.date)}</span>
+                    <span className="text-sm text-cast">{formatDateTime(m.date)}</span>
                   </button>
                 </li>
               );
