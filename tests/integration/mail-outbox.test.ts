@@ -12,18 +12,11 @@ import { MailOutboxListSchema } from '../../shared/schemas/mail-outbox';
 import { createCustomer, createDealer, createOrder } from '../support/factories';
 import { signIn } from '../support/session';
 import { createTestDb, startTestApp, type TestApp } from '../support/test-app';
+import { freePort } from '../support/server-process';
 
 // An in-stock gasket from the demo catalogue (catalog-seed): cheap, so many orders fit any credit limit.
 const GASKET = 'FLG-50-0201';
 const FROM = 'Spoolyard Turbo Supply <orders@spoolyard.test>';
-
-async function freePort(): Promise<number> {
-  const probe = net.createServer();
-  await new Promise<void>((resolve) => probe.listen(0, '127.0.0.1', () => resolve()));
-  const { port } = probe.address() as AddressInfo;
-  await new Promise<void>((resolve) => probe.close(() => resolve()));
-  return port;
-}
 
 async function until<T>(what: string, check: () => T | undefined | null | false, timeoutMs = 20_000, everyMs = 25): Promise<T> {
   const started = Date.now();

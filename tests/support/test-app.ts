@@ -1,8 +1,6 @@
 import fs from 'node:fs';
 import os from 'node:os';
-import net from 'node:net';
 import path from 'node:path';
-import type { AddressInfo } from 'node:net';
 import type { Server } from 'node:http';
 import { generateCatalogue, type GenerateOptions } from '../../catalog-seed/generate';
 import { loadCatalogue } from '../../catalog-seed/load';
@@ -13,6 +11,7 @@ import { createApp, type AppConfig, type AppDeps } from '../../server/app';
 import { openDatabase, type Db } from '../../server/db/client';
 import { createMailer, createRecordingMailer } from '../../server/services/mailer';
 import { offlineDeps, paymentsClient, testConfig, TEST_WEBHOOK_SECRET } from './app-deps';
+import { freePort } from './server-process';
 
 export interface Reply {
   status: number;
@@ -43,14 +42,6 @@ export function createTestDb(options: GenerateOptions = {}): { db: Db; dir: stri
   const db = openDatabase(path.join(dir, 'test.db'));
   loadCatalogue(db, generateCatalogue(options));
   return { db, dir };
-}
-
-async function freePort(): Promise<number> {
-  const probe = net.createServer();
-  await new Promise<void>((resolve) => probe.listen(0, '127.0.0.1', () => resolve()));
-  const { port } = probe.address() as AddressInfo;
-  await new Promise<void>((resolve) => probe.close(() => resolve()));
-  return port;
 }
 
 /** How often the test app's mail worker looks for due messages. */

@@ -10,7 +10,7 @@ import { useDealers } from '../../features/admin/api/get-dealers';
 import type { DecisionDone } from '../../features/admin/components/decision-forms';
 import { DealersTable } from '../../features/admin/components/dealers-table';
 import { OpenInvoices } from '../../features/admin/components/open-invoices';
-import { OfficeNav } from '../../features/office/components/office-shell';
+import { OfficeNav, OfficePageHeader } from '../../features/office/components/office-shell';
 import { useMe } from '../../features/auth/api/get-me';
 import { signInHref } from '../../features/auth/next-path';
 
@@ -61,11 +61,10 @@ export function OfficeDealersRoute() {
   return (
     <div className="grid grid-cols-[minmax(0,1fr)] gap-5">
       <OfficeNav />
-      <div>
-        <p className="text-sm font-semibold uppercase tracking-wider text-cast">Office</p>
-        <h1 className="text-3xl font-bold">Dealer accounts</h1>
-        <p className="mt-1 text-cast">Trade applications wait here, pending first. Approving sets the tier, credit limit and payment terms, and e-mails the dealer.</p>
-      </div>
+      <OfficePageHeader title="Dealer accounts">
+        Trade applications wait here, pending first. Approving sets the tier, credit limit and payment terms,
+        and e-mails the dealer.
+      </OfficePageHeader>
       <div role="status">
         {done && (
           <div className="flex gap-3 rounded-md border border-machined bg-machined-tint p-4">

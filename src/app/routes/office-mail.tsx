@@ -9,7 +9,7 @@ import { useMe } from '../../features/auth/api/get-me';
 import { useMailOutbox } from '../../features/office/api/get-mail-outbox';
 import { useResendMail } from '../../features/office/api/resend-mail';
 import { MailOutboxTable } from '../../features/office/components/mail-outbox-table';
-import { OfficeGate, OfficeNav } from '../../features/office/components/office-shell';
+import { OfficeGate, OfficeNav, OfficePageHeader } from '../../features/office/components/office-shell';
 import { officeAccess } from '../../features/office/lib/office-access';
 
 const isState = (v: string | null): v is MailState => (MAIL_STATES as readonly string[]).includes(v ?? '');
@@ -102,14 +102,11 @@ export function OfficeMailRoute() {
     <OfficeGate access={officeAccess(me)}>
       <div className="grid grid-cols-[minmax(0,1fr)] gap-5">
         <OfficeNav />
-        <div>
-          <p className="text-sm font-semibold uppercase tracking-wider text-cast">Office</p>
-          <h1 className="text-3xl font-bold">Mail</h1>
-          <p className="mt-1 text-cast">
-            Every e-mail the shop sends waits here until the mail server takes it. One that cannot go is tried again, further apart each time, and after the last try shows
-            as gave up with the reason. Send again queues it once more.
-          </p>
-        </div>
+        <OfficePageHeader title="Mail">
+          Every e-mail the shop sends waits here until the mail server takes it. One that cannot go is tried
+          again, further apart each time, and after the last try shows as gave up with the reason. Send again
+          queues it once more.
+        </OfficePageHeader>
         <Outbox />
       </div>
     </OfficeGate>

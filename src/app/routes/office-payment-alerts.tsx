@@ -4,7 +4,7 @@ import { Button } from '../../components/ui/button';
 import { EmptyState, ErrorState, LoadingState } from '../../components/ui/states';
 import { useMe } from '../../features/auth/api/get-me';
 import { usePaymentAlerts, useRetryAlertRefund } from '../../features/office/api/payment-alerts';
-import { OfficeGate, OfficeNav } from '../../features/office/components/office-shell';
+import { OfficeGate, OfficeNav, OfficePageHeader } from '../../features/office/components/office-shell';
 import { officeAccess } from '../../features/office/lib/office-access';
 
 /** Payments that arrived for orders no longer awaiting one: each is refunded automatically; a refused refund can be retried. */
@@ -71,14 +71,10 @@ export function OfficePaymentAlertsRoute() {
     <OfficeGate access={officeAccess(me)}>
       <div className="grid grid-cols-[minmax(0,1fr)] gap-5">
         <OfficeNav />
-        <div>
-          <p className="text-sm font-semibold uppercase tracking-wider text-cast">Office</p>
-          <h1 className="text-3xl font-bold">Payment alerts</h1>
-          <p className="mt-1 text-cast">
-            Card payments that arrived after their order was cancelled or expired. Each is refunded in full automatically; the order's timeline says
-            so too.
-          </p>
-        </div>
+        <OfficePageHeader title="Payment alerts">
+          Card payments that arrived after their order was cancelled or expired. Each is refunded in full
+          automatically; the order's timeline says so too.
+        </OfficePageHeader>
         <PaymentAlerts />
       </div>
     </OfficeGate>

@@ -29,6 +29,17 @@ export function OfficeNav() {
   );
 }
 
+/** The heading of an Office page: the workspace's name, the page's title and what the page is for. */
+export function OfficePageHeader({ title, children }: { title: string; children: ReactNode }) {
+  return (
+    <div>
+      <p className="text-sm font-semibold uppercase tracking-wider text-cast">Office</p>
+      <h1 className="text-3xl font-bold">{title}</h1>
+      <p className="mt-1 text-cast">{children}</p>
+    </div>
+  );
+}
+
 type Access = { state: 'loading' } | { state: 'signed-out' } | { state: 'denied'; roleLabel: string } | { state: 'allowed' };
 
 /** Admins only: anybody else gets a plain answer and a way on, never a broken page. */
