@@ -9,6 +9,7 @@ import { createRecordingMailer } from '../../server/services/mailer';
 import { CSV_MAX_ROWS } from '../../shared/schemas/orders';
 import { offlineDeps, testConfig } from '../support/app-deps';
 import { createAccount, createCustomer } from '../support/factories';
+import { startServerProcess } from '../support/server-process';
 import { startTestApp, type TestApp } from '../support/test-app';
 
 let t: TestApp;
@@ -23,6 +24,8 @@ const median = (xs: number[]) => {
   const s = [...xs].sort((a, b) => a - b);
   return s.length % 2 ? s[(s.length - 1) / 2]! : (s[s.length / 2 - 1]! + s[s.length / 2]!) / 2;
 };
+/** Part numbers that exist nowhere, each one a suggestion search. */
+const unknownLines = (seed: number, n = CSV_MAX_ROWS) => Array.from({ length: n }, (_, i) => ({ partNumber: `QZX-${seed}${i % 10}-${String(7000 + i).padStart(4, '0')}`, quantity: '2' }));
 const userCount = () => (t.db.$client.prepare('SELECT COUNT(*) AS n FROM user').get() as { n: number }).n;
 
 /** Posts a body of `bytes` bytes through node:http, so the test sees the server's answer even if it stops reading early. */
@@ -219,7 +222,6 @@ describe('sign-up and reset do not tell whether an account exists', () => {
 });
 
 describe('expensive anonymous routes', () => {
-  const unknownLines = (seed: number, n = CSV_MAX_ROWS) => Array.from({ length: n }, (_, i) => ({ partNumber: `QZX-${seed}${i % 10}-${String(7000 + i).padStart(4, '0')}`, quantity: '2' }));
 
   it('caps the rows of a check and says so', async () => {
     const reply = await t.send('POST', '/api/cart/check', { lines: unknownLines(1, CSV_MAX_ROWS + 1) });
@@ -277,14 +279,70 @@ describe('expensive anonymous routes', () => {
     const figures = { samples: latencies.length, median: median(latencies), max: Math.max(...latencies) };
     console.log(`/api/health during 8 parallel checks of ${CSV_MAX_ROWS} unknown numbers (${burstMs.toFixed(0)} ms): ${figures.samples} samples, median ${figures.median.toFixed(1)} ms, max ${figures.max.toFixed(1)} ms`);
     expect(figures.samples).toBeGreaterThan(3);
-    // The target is 50 ms (median ~31 ms here, alone or beside the full suite); the bounds leave room for a loaded CI
-    // machine and still fail if a search per row came back: then health waited ~270 ms median, ~690 ms at worst.
-    expect(figures.median).toBeLessThan(100);
+    // The target is 50 ms (here, with this test's own client on the same event loop: median ~5 ms, max ~25 ms; the
+    // next test measures the server alone). The bounds leave room for a loaded CI machine and still fail if the slices
+    // stopped taking turns (median ~186 ms, max ~980 ms) or a search per row came back.
+    expect(figures.median).toBeLessThan(50);
     expect(figures.max).toBeLessThan(300);
     // Suggestions come from bounded index look-ups: the full search (word search, fuzzy ranking) is never run.
     expect(fullSearch).not.toHaveBeenCalled();
     fullSearch.mockRestore();
   }, 60_000);
+});
+
+describe('/api/health beside a burst of expensive checks, server in its own process', () => {
+  it('answers within a few milliseconds while eight maximal order-pad checks run', async () => {
+    // The server as `npm start` runs it, so the figures are the server's alone (in the test app above, this test
+    // process's own client work shares the event loop).
+    const root = path.resolve(import.meta.dirname, '../..');
+    const server = await startServerProcess(root, {
+      NODE_ENV: 'test',
+      HOST: '127.0.0.1',
+      DATABASE_FILE: path.join(t.dir, 'test.db'),
+      UPLOADS_DIR: path.join(t.dir, 'uploads-process'),
+      SEED_DEMO: 'false',
+      ORDER_PAD_LIMIT_PER_MINUTE: '1000',
+    });
+    try {
+      const burst = async (round: number) => {
+        let done = false;
+        const started = performance.now();
+        const checks = Promise.all(
+          Array.from({ length: 8 }, (_, k) =>
+            fetch(`${server.url}/api/cart/check`, {
+              method: 'POST',
+              headers: { 'content-type': 'application/json', 'x-forwarded-for': `198.51.100.${10 * round + k}` },
+              body: JSON.stringify({ lines: unknownLines(k + 3) }),
+            }).then(async (r) => ({ status: r.status, text: await r.text() })),
+          ),
+        ).finally(() => (done = true));
+        const latencies: number[] = [];
+        while (!done) {
+          const t0 = performance.now();
+          await (await fetch(`${server.url}/api/health`)).text();
+          latencies.push(performance.now() - t0);
+          await new Promise((resolve) => setTimeout(resolve, 5));
+        }
+        const replies = await checks;
+        expect(replies.every((r) => r.status === 200)).toBe(true);
+        latencies.sort((a, b) => a - b);
+        return { burstMs: performance.now() - started, samples: latencies.length, median: median(latencies), p95: latencies[Math.floor(latencies.length * 0.95)]!, max: latencies.at(-1)! };
+      };
+      await burst(0); // warm-up: the first run compiles the code paths
+      const figures = await burst(1);
+      console.log(
+        `/api/health during 8 parallel checks of ${CSV_MAX_ROWS} unknown numbers, server in its own process (${figures.burstMs.toFixed(0)} ms): ` +
+          `${figures.samples} samples, median ${figures.median.toFixed(1)} ms, p95 ${figures.p95.toFixed(1)} ms, max ${figures.max.toFixed(1)} ms`,
+      );
+      expect(figures.samples).toBeGreaterThan(10);
+      // Target 50 ms at worst. Measured here: median ~4 ms, p95 ~8 ms, max ~15 ms; with the slices of all lists run
+      // at once per turn (the earlier design) the median was ~15 ms, and with a search per row several hundred ms.
+      expect(figures.median).toBeLessThan(12);
+      expect(figures.p95).toBeLessThan(50);
+    } finally {
+      await server.stop();
+    }
+  }, 120_000);
 });
 
 describe('Cache-Control on personal answers', () => {
