@@ -9,6 +9,7 @@ import { pruneChangeLog } from './db/change-feed';
 import { openDatabase } from './db/client';
 import { pruneRateLimits, runIfLeaseHeld } from './db/shared-state';
 import { parseEnv, publicUrl, type Env } from './env';
+import { PROJECT_ROOT } from './paths';
 import { createMailer } from './services/mailer';
 import { PAYMENTS_TIMEOUT_MS } from './services/orders/order-payments';
 import { createSearchService } from './services/search';
@@ -76,7 +77,7 @@ function runApp(env: Env) {
     payments,
     mailer,
     mailPolicy: { maxAttempts: env.MAIL_MAX_ATTEMPTS },
-    clientDir: path.resolve(import.meta.dirname, '../dist/client'),
+    clientDir: path.join(PROJECT_ROOT, 'dist/client'),
     config: {
       publicUrl: publicUrl(env),
       authSecret: env.AUTH_SECRET,

@@ -3,11 +3,12 @@ import path from 'node:path';
 import Database from 'better-sqlite3';
 import { drizzle, type BetterSQLite3Database } from 'drizzle-orm/better-sqlite3';
 import { migrate } from 'drizzle-orm/better-sqlite3/migrator';
+import { PROJECT_ROOT } from '../paths';
 import * as schema from './schema';
 
 export type Db = BetterSQLite3Database<typeof schema> & { $client: Database.Database };
 
-const migrationsFolder = path.resolve(import.meta.dirname, '../../drizzle');
+const migrationsFolder = path.join(PROJECT_ROOT, 'drizzle');
 
 /** Opens (and creates) the SQLite file with WAL and foreign keys on, and applies pending migrations. */
 export function openDatabase(file: string): Db {
