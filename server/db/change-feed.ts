@@ -21,6 +21,8 @@ export interface ChangeVersions {
   frames: number;
   /** Moves when the search index's tables are rewritten (after the parts they index changed). */
   search: number;
+  /** Moves when a session ends or changes, or a user, trade account or membership changes (drizzle/0010). */
+  accounts: number;
 }
 
 export interface ChangeFeed {
@@ -52,7 +54,7 @@ function createChangeFeed(db: Db): ChangeFeed {
   const ownWrites = () => ownWritesStatement.get();
   let seenData = -1;
   let seenOwn = -1;
-  let versions: ChangeVersions = { parts: 0, stock: 0, frames: 0, search: 0 };
+  let versions: ChangeVersions = { parts: 0, stock: 0, frames: 0, search: 0, accounts: 0 };
 
   function current(): ChangeVersions {
     const data = Number(dataVersion());
@@ -60,9 +62,9 @@ function createChangeFeed(db: Db): ChangeFeed {
     if (data !== seenData || own !== seenOwn) {
       seenData = data;
       seenOwn = own;
-      const next: ChangeVersions = { parts: db.select({ id: max(partChanges.id) }).from(partChanges).get()?.id ?? 0, stock: 0, frames: 0, search: 0 };
+      const next: ChangeVersions = { parts: db.select({ id: max(partChanges.id) }).from(partChanges).get()?.id ?? 0, stock: 0, frames: 0, search: 0, accounts: 0 };
       for (const row of db.select().from(changeVersions).all()) next[row.topic] = row.version;
-      if (next.parts !== versions.parts || next.stock !== versions.stock || next.frames !== versions.frames || next.search !== versions.search) versions = next;
+      if ((Object.keys(next) as Array<keyof ChangeVersions>).some((k) => next[k] !== versions[k])) versions = next;
     }
     return versions;
   }

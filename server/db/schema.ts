@@ -611,7 +611,7 @@ export const priceImports = sqliteTable(
 
 /** Counters that move when a kind of data changes; written by triggers (drizzle/0007), read by each process's caches. */
 export const changeVersions = sqliteTable('change_versions', {
-  topic: text('topic', { enum: ['stock', 'frames', 'search'] }).primaryKey(),
+  topic: text('topic', { enum: ['stock', 'frames', 'search', 'accounts'] }).primaryKey(),
   version: integer('version').notNull().default(0),
 });
 

@@ -1,6 +1,7 @@
 import type { NextFunction, Request, RequestHandler, Response } from 'express';
 import { fromNodeHeaders } from 'better-auth/node';
 import { eq } from 'drizzle-orm';
+import { changeFeedFor } from '../db/change-feed';
 import type { Db } from '../db/client';
 import { dealerAccounts, dealerMembers } from '../db/schema';
 import type { Auth, Role } from '../services/auth';
@@ -28,27 +29,56 @@ export function loadSession(auth: Auth, db: Db): RequestHandler {
       .innerJoin(dealerAccounts, eq(dealerAccounts.id, dealerMembers.dealerAccountId))
       .where(eq(dealerMembers.userId, userId))
       .get();
+  // Signed-in requests are answered from a short-lived memory of recent sessions, keyed by the whole signed cookie
+  // (so only a cookie the auth library has already accepted can hit). Every entry is dropped as soon as any session,
+  // user or trade account changes in the database — sign-out, revocation, a role or ban, an approval — in this
+  // process or another (the change feed's `accounts` counter, drizzle/0010), and none outlives its session or a minute.
+  const feed = changeFeedFor(db);
+  const remembered = new Map<string, { user: CurrentUser; until: number }>();
+  let rememberedAt = -1;
+  const lookUp = async (req: Request, cookie: string): Promise<CurrentUser | null> => {
+    const accounts = feed.current().accounts;
+    if (accounts !== rememberedAt) {
+      remembered.clear();
+      rememberedAt = accounts;
+    }
+    const now = Date.now();
+    const hit = remembered.get(cookie);
+    if (hit && hit.until > now) return hit.user;
+    const result = await auth.api.getSession({ headers: fromNodeHeaders(req.headers) });
+    if (!result?.user || result.user.banned) return null;
+    const user: CurrentUser = {
+      id: result.user.id,
+      email: result.user.email,
+      name: result.user.name,
+      role: (result.user.role ?? 'customer') as Role,
+      dealer: dealerInfo(dealerOf(result.user.id)),
+    };
+    // Kept only if nothing moved while the session was being read.
+    if (feed.current().accounts === rememberedAt) {
+      if (remembered.size >= SESSIONS_REMEMBERED) remembered.delete(remembered.keys().next().value!);
+      remembered.set(cookie, { user, until: Math.min(now + SESSION_MEMORY_MS, new Date(result.session.expiresAt).getTime()) });
+    }
+    return user;
+  };
   return async (req, res, next) => {
     // Most catalogue requests carry no session cookie: skip the look-up for them.
-    if (!req.headers.cookie?.includes('better-auth.session_token')) return next();
+    const cookie = SESSION_COOKIE.exec(req.headers.cookie ?? '')?.[1];
+    if (!cookie) return next();
     try {
-      const result = await auth.api.getSession({ headers: fromNodeHeaders(req.headers) });
-      if (result?.user && !result.user.banned) {
-        const role = (result.user.role ?? 'customer') as Role;
-        res.locals.user = {
-          id: result.user.id,
-          email: result.user.email,
-          name: result.user.name,
-          role,
-          dealer: dealerInfo(dealerOf(result.user.id)),
-        } satisfies CurrentUser;
-      }
+      const user = await lookUp(req, cookie);
+      if (user) res.locals.user = user;
       next();
     } catch (err) {
       next(err);
     }
   };
 }
+
+/** The auth library's session cookie (with the __Secure- prefix over https); its value is the signed token. */
+const SESSION_COOKIE = /(?:^|;\s*)(?:__Secure-)?better-auth\.session_token=([^;]+)/;
+const SESSION_MEMORY_MS = 60_000;
+const SESSIONS_REMEMBERED = 10_000;
 
 function dealerInfo(row: (Omit<DealerInfo, 'address'> & { line1: string; city: string; postcode: string }) | undefined): DealerInfo | null {
   if (!row) return null;

@@ -296,7 +296,9 @@ export function createCatalogService(db: Db, search: SearchService) {
   let cachedFor: ChangeVersions | null = null;
   function listPartsJson(query: PartsQuery): CachedList {
     const versions = feed.current();
-    if (versions !== cachedFor) {
+    // The catalogue, its search index, stock and frames shape a list; sessions and accounts moving leave it alone.
+    const stale = !cachedFor || (['parts', 'search', 'stock', 'frames'] as const).some((k) => versions[k] !== cachedFor![k]);
+    if (stale) {
       cache.clear();
       cachedFor = versions;
     }
