@@ -14,5 +14,8 @@ export const mailQueryOptions = () =>
     select: (data) => [...data.messages].sort((a, b) => b.date.localeCompare(a.date)),
   });
 
-/** Messages the development mail catcher holds. */
-export const useMail = () => useQuery(mailQueryOptions());
+/**
+ * Messages the development mail catcher holds, looked at again every few seconds: mail leaves through the outbox a
+ * moment after what caused it, so a message often arrives after the page has opened.
+ */
+export const useMail = () => useQuery({ ...mailQueryOptions(), refetchInterval: 3_000 });
