@@ -55,6 +55,37 @@ describe('the server compiled ahead of time', () => {
       expect((await fetch(`${app.url}/api/health`)).status).toBe(200);
       const list = (await (await fetch(`${app.url}/api/parts?category=turbochargers`)).json()) as { total: number };
       expect(list.total).toBeGreaterThan(0);
+
+      // The bundled packages at work: sign-in (the auth library), an order on account and one by card (the payment
+      // SDK against the bundled fake), and the confirmations through the outbox and the mail library to the catcher.
+      const asUser = async (email: string) => {
+        const signIn = await fetch(`${app.url}/api/auth/sign-in/email`, {
+          method: 'POST',
+          headers: { 'content-type': 'application/json', origin: app.url },
+          body: JSON.stringify({ email, password: 'spoolyard-demo-1' }),
+        });
+        expect(signIn.status, email).toBe(200);
+        const cookie = signIn.headers.getSetCookie().map((c) => c.split(';')[0]).join('; ');
+        return (method: string, p: string, body?: unknown) =>
+          fetch(`${app.url}${p}`, { method, headers: { 'content-type': 'application/json', origin: app.url, cookie }, body: body === undefined ? undefined : JSON.stringify(body) });
+      };
+      const dealer = await asUser('dealer@spoolyard.test');
+      expect((await dealer('POST', '/api/cart/lines', { partNumber: 'FLG-50-0201', quantity: 1 })).status).toBe(201);
+      expect((await dealer('POST', '/api/checkout', { method: 'account', purchaseOrder: 'PO-BUNDLE-1' })).status).toBe(201);
+      const retail = await asUser('retail@spoolyard.test');
+      expect((await retail('POST', '/api/cart/lines', { partNumber: 'FLG-50-0201', quantity: 1 })).status).toBe(201);
+      const card = await retail('POST', '/api/checkout', { method: 'card', paymentMethod: 'pm_card_visa', delivery: { name: 'Robin Ashdown', line1: '1 Test Street', city: 'Quenchfold', postcode: 'QF1 1AA' } });
+      expect(card.status, await card.clone().text()).toBe(201);
+      const confirmed = async (to: string) => {
+        for (let i = 0; i < 100; i++) {
+          const caught = (await (await fetch(`http://127.0.0.1:${inbox}/messages?to=${encodeURIComponent(to)}`)).json()) as { messages: Array<{ subject: string }> };
+          if (caught.messages.some((m) => /confirmed/.test(m.subject))) return true;
+          await new Promise((resolve) => setTimeout(resolve, 200));
+        }
+        return false;
+      };
+      expect(await confirmed('dealer@spoolyard.test')).toBe(true);
+      expect(await confirmed('retail@spoolyard.test')).toBe(true);
     } finally {
       await app.stop();
     }
