@@ -11,6 +11,7 @@ import { offlineDeps, testConfig } from '../support/app-deps';
 import { createAccount, createCustomer } from '../support/factories';
 import { startServerProcess } from '../support/server-process';
 import { startTestApp, type TestApp } from '../support/test-app';
+import { envBesideTestApp } from '../support/process-env';
 
 let t: TestApp;
 beforeAll(async () => {
@@ -295,14 +296,7 @@ describe('/api/health beside a burst of expensive checks, server in its own proc
     // The server as `npm start` runs it, so the figures are the server's alone (in the test app above, this test
     // process's own client work shares the event loop).
     const root = path.resolve(import.meta.dirname, '../..');
-    const server = await startServerProcess(root, {
-      NODE_ENV: 'test',
-      HOST: '127.0.0.1',
-      DATABASE_FILE: path.join(t.dir, 'test.db'),
-      UPLOADS_DIR: path.join(t.dir, 'uploads-process'),
-      SEED_DEMO: 'false',
-      ORDER_PAD_LIMIT_PER_MINUTE: '1000',
-    });
+    const server = await startServerProcess(root, envBesideTestApp(t, { UPLOADS_DIR: path.join(t.dir, 'uploads-process'), ORDER_PAD_LIMIT_PER_MINUTE: '1000' }));
     try {
       const burst = async (round: number) => {
         let done = false;

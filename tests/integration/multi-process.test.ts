@@ -1,9 +1,9 @@
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { TEST_WEBHOOK_SECRET } from '../support/app-deps';
 import { startServerProcess, type ServerProcess } from '../support/server-process';
 import { signIn } from '../support/session';
 import { startTestApp, type TestApp } from '../support/test-app';
+import { envBesideTestApp } from '../support/process-env';
 
 /**
  * Two app processes on one SQLite file (docs/decisions/0005-several-processes.md), started as `npm start` starts
@@ -24,19 +24,7 @@ let b: Proc;
 beforeAll(async () => {
   // The test app makes the database (catalogue, demo accounts) and runs the payment and mail fakes both processes use.
   t = await startTestApp({ fakes: true, accounts: true });
-  const env = {
-    NODE_ENV: 'test',
-    HOST: '127.0.0.1',
-    DATABASE_FILE: path.join(t.dir, 'test.db'),
-    UPLOADS_DIR: path.join(t.dir, 'uploads'),
-    SEED_DEMO: 'false',
-    SIGNIN_LIMIT_PER_MINUTE: '6',
-    HOUSEKEEPING_SECONDS: '1',
-    PAYMENTS_API_PORT: String(t.payments!.port),
-    PAYMENTS_WEBHOOK_SECRET: TEST_WEBHOOK_SECRET,
-    MAIL_PORT: String(t.mail!.smtpPort),
-    MAIL_INBOX_URL: t.mail!.httpUrl,
-  };
+  const env = envBesideTestApp(t, { SIGNIN_LIMIT_PER_MINUTE: '6', HOUSEKEEPING_SECONDS: '1' });
   [a, b] = await Promise.all([startProcess(env), startProcess(env)]);
 }, 120_000);
 afterAll(async () => {
@@ -135,14 +123,7 @@ describe('two app processes on one database', () => {
 
 describe('APP_PROCESSES', () => {
   it('runs that many processes on one port, and a signal stops them all', async () => {
-    const p = await startProcess({
-      NODE_ENV: 'test',
-      HOST: '127.0.0.1',
-      DATABASE_FILE: path.join(t.dir, 'test.db'),
-      UPLOADS_DIR: path.join(t.dir, 'uploads'),
-      SEED_DEMO: 'false',
-      APP_PROCESSES: '2',
-    });
+    const p = await startProcess(envBesideTestApp(t, { APP_PROCESSES: '2' }));
     try {
       expect(p.output()).toMatch(/2 app processes share port \d+/);
       const answers = await Promise.all(Array.from({ length: 8 }, () => fetch(`${p.url}/api/health`).then((r) => r.status)));

@@ -2,11 +2,12 @@ import { execFileSync, type ChildProcess } from 'node:child_process';
 import path from 'node:path';
 import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
 import { CheckoutResponseSchema } from '../../shared/schemas/orders';
-import { paymentsClient, TEST_WEBHOOK_SECRET } from '../support/app-deps';
+import { paymentsClient } from '../support/app-deps';
 import { createCustomer, FACTORY_PASSWORD, TEST_DELIVERY } from '../support/factories';
 import { startServerProcess } from '../support/server-process';
 import { signIn } from '../support/session';
 import { startTestApp, type TestApp } from '../support/test-app';
+import { envBesideTestApp } from '../support/process-env';
 
 /**
  * Faults between the storefront and the card provider, made with the payments fake's test switches: a lost reply, a
@@ -231,19 +232,7 @@ describe('payment faults', () => {
     const buyers = await Promise.all(Array.from({ length: 12 }, () => createCustomer(t)));
     const proc = await startServerProcess(
       root,
-      {
-        NODE_ENV: 'test',
-        HOST: '127.0.0.1',
-        DATABASE_FILE: path.join(t.dir, 'test.db'),
-        UPLOADS_DIR: path.join(t.dir, 'uploads'),
-        SEED_DEMO: 'false',
-        HOUSEKEEPING_SECONDS: '3600',
-        SIGNIN_LIMIT_PER_MINUTE: '1000',
-        PAYMENTS_API_PORT: String(t.payments!.port),
-        PAYMENTS_WEBHOOK_SECRET: TEST_WEBHOOK_SECRET,
-        MAIL_PORT: String(t.mail!.smtpPort),
-        MAIL_INBOX_URL: t.mail!.httpUrl,
-      },
+      envBesideTestApp(t, { HOUSEKEEPING_SECONDS: '3600', SIGNIN_LIMIT_PER_MINUTE: '1000' }),
       40_000,
     );
     try {
