@@ -27,6 +27,7 @@ import { partsRouter } from './routes/parts';
 import { webhooksRouter } from './routes/webhooks';
 import { warehouseRouter } from './routes/warehouse';
 import { returnsRouter } from './routes/returns';
+import { noticesRouter } from './routes/notices';
 import { shaftLogsRouter } from './routes/shaft-logs';
 import { adminCatalogRouter } from './routes/admin-catalog';
 import { createWarehouseService } from './services/warehouse';
@@ -39,6 +40,7 @@ import { createCartService } from './services/cart';
 import { createCatalogService } from './services/catalog';
 import type { MailerPort } from './services/mailer';
 import { createNotifications } from './services/notifications';
+import { createNotices, withNotices } from './services/notices';
 import { createMailOutbox, type OutboxPolicy } from './services/mail-outbox';
 import { adminMailRouter } from './routes/admin-mail';
 import { createOrderService } from './services/orders';
@@ -47,6 +49,7 @@ import { createFitmentService } from './services/fitment';
 import { createShaftLogService } from './services/shaft-logs';
 import { createSearchService } from './services/search';
 import { createStockService } from './services/stock';
+import { DEFAULT_TRACKING_URLS, type TrackingUrlPatterns } from '../shared/carriers';
 
 export interface AppConfig {
   publicUrl: string;
@@ -71,6 +74,8 @@ export interface AppConfig {
   uniformAnswerMs?: number;
   /** Anonymous order-pad checks (check, bulk add, file import) per client address per minute. */
   orderPadLimitPerMinute?: number;
+  /** Carriers' tracking pages laid over the invented defaults (shared/carriers.ts). */
+  trackingUrls?: TrackingUrlPatterns;
 }
 
 /** Longer than the password hash and the database work of either path on a busy machine. */
@@ -103,16 +108,18 @@ export function createApp(deps: AppDeps) {
   const stock = createStockService(db);
   const cart = createCartService(db, search, { taxRatePct: config.taxRatePct });
   const notifications = createNotifications({ db, publicUrl: config.publicUrl });
+  const notices = createNotices({ db });
+  const notify = withNotices(notifications, notices);
   const mailOutbox = createMailOutbox({ db, mailer: deps.mailer, policy: deps.mailPolicy });
   const dealers = createDealerAccountsService({
     db,
     notify: { applied: (tx, id) => notifications.dealerApplied(tx, id), decided: (tx, id, decision) => notifications.dealerDecided(tx, id, decision) },
   });
-  const orders = createOrderService({ db, stock, cart, payments: deps.payments, notify: notifications.orders, taxRatePct: config.taxRatePct, now });
+  const orders = createOrderService({ db, stock, cart, payments: deps.payments, notify: notify.orders, taxRatePct: config.taxRatePct, now, trackingUrls: { ...DEFAULT_TRACKING_URLS, ...config.trackingUrls } });
   const returnPhotosDir = path.join(config.uploadsDir, 'returns');
   const partPhotosDir = path.join(config.uploadsDir, 'parts');
-  const warehouse = createWarehouseService({ db, stock, notify: notifications.warehouse });
-  const returns = createReturnsService({ db, stock, payments: deps.payments, notify: notifications.returns, photosDir: returnPhotosDir, taxRatePct: config.taxRatePct });
+  const warehouse = createWarehouseService({ db, stock, notify: notify.warehouse });
+  const returns = createReturnsService({ db, stock, payments: deps.payments, notify: notify.returns, photosDir: returnPhotosDir, taxRatePct: config.taxRatePct });
   // One fitment service: the check, the saved checks and the shaft logs share its parsed frames and map tables.
   const fitment = createFitmentService(db);
   const shaftLogs = createShaftLogService({ db, fitment });
@@ -230,6 +237,7 @@ export function createApp(deps: AppDeps) {
   app.use('/api/orders', ordersRouter(orders));
   app.use('/api/warehouse', warehouseRouter({ db, warehouse, returns }));
   app.use('/api/returns', returnsRouter({ returns, photosDir: returnPhotosDir }));
+  app.use('/api/notices', noticesRouter(notices));
   app.use('/api/admin', adminCatalogRouter({ admin: catalogAdmin, photosDir: partPhotosDir }));
   app.use('/api/admin/dealers', adminDealersRouter(dealers));
   app.use('/api/admin/mail', adminMailRouter(mailOutbox));
@@ -261,5 +269,5 @@ export function createApp(deps: AppDeps) {
     });
   }
   app.use(createErrorHandler(log));
-  return { app, search, catalog, stock, cart, orders, dealers, auth, notifications, mailOutbox, warehouse, returns, catalogAdmin, shaftLogs, fitment };
+  return { app, search, catalog, stock, cart, orders, dealers, auth, notifications, notices, mailOutbox, warehouse, returns, catalogAdmin, shaftLogs, fitment };
 }

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { TrackingUrlPatternsSchema } from '../shared/carriers';
 
 const DEV_AUTH_SECRET = 'spoolyard-development-secret-change-me-0001';
 
@@ -42,6 +43,22 @@ const EnvSchema = z
     MAIL_MAX_ATTEMPTS: z.coerce.number().int().min(1).max(100).default(12),
     /** The mail fake's message API, for the development inbox. */
     MAIL_INBOX_URL: z.url().default('http://127.0.0.1:12580'),
+    /**
+     * Carriers' tracking pages as JSON, {"Carrier name": "https://…{tracking}…"}, laid over the defaults in
+     * shared/carriers.ts; a carrier with no pattern shows its number without a link.
+     */
+    CARRIER_TRACKING_URLS: z
+      .string()
+      .transform((text, ctx) => {
+        try {
+          return JSON.parse(text) as unknown;
+        } catch {
+          ctx.addIssue({ code: 'custom', message: 'must be JSON: {"Carrier name": "https://…{tracking}…"}' });
+          return z.NEVER;
+        }
+      })
+      .pipe(TrackingUrlPatternsSchema)
+      .optional(),
   })
   .superRefine((env, ctx) => {
     if (env.NODE_ENV !== 'production') return;

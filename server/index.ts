@@ -92,6 +92,7 @@ function runApp(env: Env) {
       devTools,
       uploadsDir: path.resolve(env.UPLOADS_DIR),
       demoAccounts: devTools ? demoAccountList() : undefined,
+      trackingUrls: env.CARRIER_TRACKING_URLS,
       trustedOrigins: [`http://127.0.0.1:${env.PORT}`, `http://localhost:${env.PORT}`, 'http://localhost:5173', 'http://127.0.0.1:5173'],
     },
   });

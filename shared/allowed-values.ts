@@ -68,3 +68,7 @@ export function inListSql(column: string, values: readonly string[]): string {
   for (const v of values) if (!/^[\w -]+$/.test(v)) throw new Error(`not a plain allowed value: ${v}`);
   return `${column} IN (${values.map((v) => `'${v}'`).join(', ')})`;
 }
+
+/** What an on-site notice tells a buyer: the changes of their orders and returns that also go out by e-mail. */
+export const NOTICE_KINDS = ['paid', 'on-account', 'picking', 'back-ordered', 'dispatched', 'return-decided'] as const;
+export type NoticeKind = (typeof NOTICE_KINDS)[number];

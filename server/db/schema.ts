@@ -5,6 +5,7 @@ import {
   inListSql,
   MAIL_KINDS,
   MAIL_STATES,
+  NOTICE_KINDS,
   ORDER_STATUSES,
   PART_CONDITIONS,
   PART_STATUSES,
@@ -536,6 +537,8 @@ export const returns = sqliteTable(
     decision: text('decision'),
     refundCents: integer('refund_cents').notNull().default(0),
     rejectReason: text('reject_reason'),
+    /** Why a partial refund is less than the most it could be; the customer reads it. */
+    decisionReason: text('decision_reason'),
     paymentRefundId: text('payment_refund_id'),
     createdAt: createdAt(),
     decidedAt: text('decided_at'),
@@ -671,4 +674,24 @@ export const mailOutbox = sqliteTable(
     holds('mail_outbox', 'attempts', 'attempts >= 0'),
     holds('mail_outbox', 'sent', "state <> 'sent' OR sent_at IS NOT NULL"),
   ],
+);
+
+/** On-site notices: what changed on a buyer's orders and returns, written beside the e-mail in the same transaction. */
+export const notices = sqliteTable(
+  'notices',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    userId: text('user_id')
+      .notNull()
+      .references(() => user.id, { onDelete: 'cascade' }),
+    orderId: integer('order_id').references(() => orders.id),
+    kind: text('kind', { enum: NOTICE_KINDS }).notNull(),
+    title: text('title').notNull(),
+    body: text('body').notNull(),
+    /** A path inside the shop, e.g. /orders/SY-100123. */
+    link: text('link').notNull(),
+    readAt: text('read_at'),
+    createdAt: createdAt(),
+  },
+  (t) => [index('notices_user_idx').on(t.userId, t.id), index('notices_unread_idx').on(t.userId, t.readAt), oneOf('notices', 'kind', NOTICE_KINDS)],
 );

@@ -9,8 +9,11 @@ export function returnsRouter(deps: { returns: ReturnsService; photosDir: string
   const router = Router();
   const upload = imageUpload({ dir: deps.photosDir, field: 'photos', maxBytes: RETURN_PHOTO_MAX_BYTES, maxFiles: RETURN_PHOTOS_MAX });
 
-  router.get('/', (_req, res) => {
-    res.json({ items: deps.returns.listOwn(requireUser(res)) });
+  router.get('/', (req, res) => {
+    res.json(deps.returns.listOwn(requireUser(res), Number(req.query.page) || 1));
+  });
+  router.get('/:reference/label', async (req, res) => {
+    res.json(await deps.returns.label(requireUser(res), String(req.params.reference)));
   });
   const signedIn = (_req: unknown, res: Parameters<typeof requireUser>[0], next: () => void) => {
     requireUser(res);

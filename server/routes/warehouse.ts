@@ -59,7 +59,11 @@ export function warehouseRouter(deps: { db: Db; warehouse: WarehouseService; ret
     res.json({ items: deps.db.select({ code: bins.code, zone: bins.zone, walkOrder: bins.walkOrder }).from(bins).orderBy(bins.walkOrder).all() });
   });
   router.get('/returns', (req, res) => {
-    res.json({ items: returns.listAll(req.query.status === 'all' ? 'all' : 'requested') });
+    res.json(returns.listAll(req.query.status === 'all' ? 'all' : 'requested', Number(req.query.page) || 1));
+  });
+  // The returns desk's scan field: a label's code as a keyboard-wedge scanner types it.
+  router.get('/returns/by-code/:code', (req, res) => {
+    res.json(returns.byReference(String(req.params.code)));
   });
   router.post('/returns/:id/receive', async (req, res) => {
     const decision = parseOr400(ReturnDecisionSchema, req.body);

@@ -5,6 +5,7 @@ import type { StockService } from './stock';
 import { createOrderPayments, type OrderNotifier } from './orders/order-payments';
 import { createOrderPlacement } from './orders/order-placement';
 import { createOrderReads } from './orders/order-reads';
+import type { TrackingUrlPatterns } from '../../shared/carriers';
 
 // notifications.ts implements the notifier under this path; the type itself lives with the payments flow.
 export type { OrderNotifier } from './orders/order-payments';
@@ -17,13 +18,15 @@ export interface OrderServiceDeps {
   notify: OrderNotifier;
   taxRatePct: number;
   now: () => Date;
+  /** Carriers' tracking pages (shared/carriers.ts); the invented defaults when not given. */
+  trackingUrls?: TrackingUrlPatterns;
 }
 
 /** The order flow as the routes and the unpaid-order sweep use it, built from placing, paying and reading. */
 export function createOrderService(deps: OrderServiceDeps) {
   const placement = createOrderPlacement({ db: deps.db, stock: deps.stock, cart: deps.cart, taxRatePct: deps.taxRatePct });
   const payments = createOrderPayments({ db: deps.db, payments: deps.payments, notify: deps.notify, placement, now: deps.now });
-  const reads = createOrderReads({ db: deps.db, cart: deps.cart });
+  const reads = createOrderReads({ db: deps.db, cart: deps.cart, trackingUrls: deps.trackingUrls });
   // cancelUnpaid cancels the order only; cancelForNonPayment cancels its payment at the provider first.
   return { ...reads, ...payments, cancelUnpaid: placement.cancelUnpaid };
 }

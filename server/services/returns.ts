@@ -1,13 +1,25 @@
 import fs from 'node:fs';
 import path from 'node:path';
 import type Stripe from 'stripe';
-import { and, desc, eq, ne, sql, type SQL } from 'drizzle-orm';
+import { and, count, desc, eq, inArray, ne, sql, type SQL } from 'drizzle-orm';
 import type { Db } from '../db/client';
 import { creditNotes, orderEvents, orderLines, orders, parts, returnPhotos, returns } from '../db/schema';
 import { ConflictError, InvalidError, NotFoundError, PaymentServiceError } from './errors';
 import { REFUND_REFUSED_MESSAGE } from './orders/order-payments';
 import type { CurrentUser } from './current-user';
-import type { ReturnDecision, ReturnRequest, ReturnView } from '../../shared/schemas/warehouse';
+import {
+  DECISIONS_FOR_KIND,
+  kindRestocks,
+  normalizeReturnReference,
+  RETURN_KINDS,
+  RETURNS_PAGE_SIZE,
+  type ReturnDecision,
+  type ReturnLabel,
+  type ReturnRequest,
+  type ReturnsPage,
+  type ReturnView,
+} from '../../shared/schemas/warehouse';
+import { code128Svg } from './barcodes';
 import type { StockService } from './stock';
 import type { StoredImage } from './uploads';
 
@@ -40,6 +52,7 @@ const returnColumns = {
   decision: returns.decision,
   refundCents: returns.refundCents,
   rejectReason: returns.rejectReason,
+  decisionReason: returns.decisionReason,
   creditNoteNumber: creditNotes.number,
   paymentMethod: orders.paymentMethod,
   paymentState: orders.paymentState,
@@ -50,6 +63,9 @@ const returnColumns = {
   unitPriceCents: orderLines.unitPriceCents,
   lineCoreDepositCents: orderLines.coreDepositCents,
   customer: orders.shipName,
+  shipLine1: orders.shipLine1,
+  shipCity: orders.shipCity,
+  shipPostcode: orders.shipPostcode,
   createdAt: returns.createdAt,
   decidedAt: returns.decidedAt,
 };
@@ -74,19 +90,26 @@ export function createReturnsService(deps: { db: Db; stock: StockService; paymen
     const lineValue = r.quantity * (unitWithTax + r.lineCoreDepositCents);
     const paid = r.paymentMethod === 'card' ? (['paid', 'partially_refunded', 'refunded'].includes(r.paymentState) ? r.orderTotalCents : 0) : r.orderTotalCents;
     const left = Math.max(0, paid - r.orderRefundedCents);
-    return { full: Math.min(lineValue, left), core: Math.min(r.quantity * r.lineCoreDepositCents, left), max: Math.min(lineValue, left) };
+    const core = Math.min(r.quantity * r.lineCoreDepositCents, left);
+    // A core settles only its deposit: no decision on it may pay back more than that.
+    return { full: Math.min(lineValue, left), core, max: r.kind === 'core' ? core : Math.min(lineValue, left) };
   }
 
-  const photosOf = (returnId: number) =>
-    db
-      .select({ name: returnPhotos.storedName })
+  /** The photos of many returns in one query, by return id. */
+  function photosOf(ids: number[]): Map<number, string[]> {
+    const byReturn = new Map<number, string[]>();
+    if (ids.length === 0) return byReturn;
+    const rows = db
+      .select({ returnId: returnPhotos.returnId, name: returnPhotos.storedName })
       .from(returnPhotos)
-      .where(eq(returnPhotos.returnId, returnId))
+      .where(inArray(returnPhotos.returnId, ids))
       .orderBy(returnPhotos.id)
-      .all()
-      .map((p) => p.name);
+      .all();
+    for (const p of rows) byReturn.set(p.returnId, [...(byReturn.get(p.returnId) ?? []), p.name]);
+    return byReturn;
+  }
 
-  function view(r: ReturnRow): ReturnView {
+  function view(r: ReturnRow, photos: string[]): ReturnView {
     const l = limits(r);
     return {
       id: r.id,
@@ -102,16 +125,23 @@ export function createReturnsService(deps: { db: Db; stock: StockService; paymen
       decision: r.decision,
       refundCents: r.refundCents,
       rejectReason: r.rejectReason,
+      decisionReason: r.decisionReason,
       creditNoteNumber: r.creditNoteNumber,
       paymentMethod: r.paymentMethod,
       maxRefundCents: r.status === 'requested' ? l.max : 0,
       coreDepositCents: r.quantity * r.lineCoreDepositCents,
-      photos: photosOf(r.id),
+      photos,
       customer: r.customer,
       createdAt: r.createdAt,
       decidedAt: r.decidedAt,
     };
   }
+
+  const viewAll = (rows: ReturnRow[]) => {
+    const photos = photosOf(rows.map((r) => r.id));
+    return rows.map((r) => view(r, photos.get(r.id) ?? []));
+  };
+  const viewOne = (r: ReturnRow) => view(r, photosOf([r.id]).get(r.id) ?? []);
 
   const get = (q: DbOrTx, id: number) => {
     const r = returnRows(q, eq(returns.id, id)).get();
@@ -155,7 +185,7 @@ export function createReturnsService(deps: { db: Db; stock: StockService; paymen
 
   function request(user: CurrentUser, input: ReturnRequest, photos: StoredImage[]) {
     try {
-      return view(get(db, create(user, input, photos)));
+      return viewOne(get(db, create(user, input, photos)));
     } catch (err) {
       for (const p of photos) fs.rmSync(path.join(deps.photosDir, p.storedName), { force: true });
       throw err;
@@ -186,7 +216,8 @@ export function createReturnsService(deps: { db: Db; stock: StockService; paymen
             .where(eq(orders.id, r.orderId))
             .run();
         }
-        if (d.decision === 'full-refund' && d.restock && d.conditionGrade === 'as-new') {
+        const restock = (d.decision === 'full-refund' || d.decision === 'partial-refund') && d.restock === true;
+        if (restock && kindRestocks(r.kind) && d.conditionGrade === 'as-new') {
           const bin = stock.defaultBin(r.partId) ?? 'A-01-1';
           stock.returnIn(r.partId, bin, r.quantity, r.orderId, `${r.reference} back to stock`);
         }
@@ -198,6 +229,7 @@ export function createReturnsService(deps: { db: Db; stock: StockService; paymen
           decision: d.decision,
           refundCents: amount,
           rejectReason: d.decision === 'reject' ? d.rejectReason : null,
+          decisionReason: d.decision === 'partial-refund' ? d.reason : null,
           paymentRefundId: refundId,
           decidedAt: now,
         })
@@ -216,6 +248,21 @@ export function createReturnsService(deps: { db: Db; stock: StockService; paymen
       deps.notify.returnDecided(tx, id);
     });
 
+  /** A decision must fit the kind of return (shared/schemas/warehouse.ts DECISIONS_FOR_KIND); anything else is refused before money moves. */
+  function refuseMisfit(r: ReturnRow, d: ReturnDecision) {
+    const fits = DECISIONS_FOR_KIND[r.kind];
+    if (!fits.includes(d.decision)) {
+      const why =
+        r.kind === 'core'
+          ? `${r.reference} is an exchange core: it settles the core deposit (all, part or none), never a refund of the unit`
+          : `${r.reference} is a ${RETURN_KINDS[r.kind].toLowerCase()} return: it is refunded in full or in part, or rejected`;
+      throw new InvalidError(why, { decision: [`choose one of: ${fits.join(', ')}`] });
+    }
+    if ('restock' in d && d.restock && !kindRestocks(r.kind)) {
+      throw new InvalidError(`${r.reference} is an exchange core: it goes to the rebuild bench, not back on the shelf`, { restock: ['a core is not restocked'] });
+    }
+  }
+
   /**
    * Grades a received return and settles it. Card refunds go through the payment service with an idempotency key
    * per return, so a repeated request refunds once; the amount never exceeds what is left of the payment.
@@ -223,14 +270,18 @@ export function createReturnsService(deps: { db: Db; stock: StockService; paymen
   async function decide(id: number, d: ReturnDecision): Promise<ReturnView> {
     const r = get(db, id);
     if (r.status !== 'requested') throw new ConflictError(`${r.reference} was already decided`);
+    refuseMisfit(r, d);
     const l = limits(r);
     let amount = 0;
     if (d.decision === 'core-refund') {
-      if (r.kind !== 'core' && r.lineCoreDepositCents === 0) throw new ConflictError('This line carried no core deposit');
+      if (r.lineCoreDepositCents === 0) throw new ConflictError('This line carried no core deposit');
       amount = l.core;
     } else if (d.decision === 'full-refund') {
       amount = l.full;
     } else if (d.decision === 'partial-refund') {
+      if (d.amountCents > l.max && r.kind === 'core') {
+        throw new InvalidError(`A core's refund is at most its deposit, $${(l.max / 100).toFixed(2)}`, { amountCents: [`at most ${l.max} cents`] });
+      }
       if (d.amountCents > l.max) throw new InvalidError(`At most $${(l.max / 100).toFixed(2)} can be refunded on this return`, { amountCents: [`at most ${l.max} cents`] });
       amount = d.amountCents;
     }
@@ -250,18 +301,59 @@ export function createReturnsService(deps: { db: Db; stock: StockService; paymen
       }
     }
     record(id, d, amount, refundId);
-    return view(get(db, id));
+    return viewOne(get(db, id));
   }
 
-  function listOwn(user: CurrentUser) {
-    return returnRows(db, eq(returns.userId, user.id)).orderBy(desc(returns.id)).all().map(view);
+  function page(where: SQL | undefined, order: SQL[], pageNumber: number): ReturnsPage {
+    const total = db.select({ n: count() }).from(returns).where(where).get()?.n ?? 0;
+    const last = Math.max(1, Math.ceil(total / RETURNS_PAGE_SIZE));
+    const p = Math.min(Math.max(1, Math.trunc(pageNumber) || 1), last);
+    const rows = returnRows(db, where)
+      .orderBy(...order)
+      .limit(RETURNS_PAGE_SIZE)
+      .offset((p - 1) * RETURNS_PAGE_SIZE)
+      .all();
+    return { items: viewAll(rows), total, page: p, pageSize: RETURNS_PAGE_SIZE };
   }
-  function listAll(status: 'requested' | 'all') {
-    return returnRows(db, status === 'requested' ? eq(returns.status, 'requested') : undefined)
-      .orderBy(ne(returns.status, 'requested'), returns.id)
-      .all()
-      .map(view);
+
+  /** A buyer's own returns, newest first, a page at a time. */
+  function listOwn(user: CurrentUser, pageNumber = 1) {
+    return page(eq(returns.userId, user.id), [desc(returns.id)], pageNumber);
   }
+  /** The Floor's list: those waiting first (oldest first, the order they arrive in), then the decided, newest first. */
+  function listAll(status: 'requested' | 'all', pageNumber = 1) {
+    return page(status === 'requested' ? eq(returns.status, 'requested') : undefined, [ne(returns.status, 'requested'), sql`case when ${returns.status} = 'requested' then ${returns.id} else -${returns.id} end`], pageNumber);
+  }
+
+  /** The return a scanned or typed label code names, for the Floor. */
+  function byReference(code: string): ReturnView {
+    const reference = normalizeReturnReference(code);
+    if (!reference) throw new InvalidError(`${code.trim().slice(0, 40)} is not a return label: those read like RT-5001`, { code: ['scan the return label'] });
+    const r = returnRows(db, eq(returns.reference, reference)).get();
+    if (!r) throw new NotFoundError(`No return ${reference}`);
+    return viewOne(r);
+  }
+
+  /** The printable label of a return the buyer is sending: whose it is, where it goes, and its scannable code. */
+  async function label(user: CurrentUser, code: string): Promise<ReturnLabel> {
+    const reference = normalizeReturnReference(code);
+    const r = reference ? returnRows(db, eq(returns.reference, reference)).get() : undefined;
+    const staff = user.role === 'warehouse' || user.role === 'admin';
+    if (!r || (r.userId !== user.id && !staff)) throw new NotFoundError(`No return ${code.slice(0, 20)}`);
+    if (r.status !== 'requested') throw new ConflictError(`${r.reference} has already been received and decided: it needs no label`);
+    return {
+      reference: r.reference,
+      orderNumber: r.orderNumber,
+      partNumber: r.partNumber,
+      title: r.title,
+      quantity: r.quantity,
+      kind: r.kind,
+      createdAt: r.createdAt,
+      from: { name: r.customer, line1: r.shipLine1, city: r.shipCity, postcode: r.shipPostcode },
+      barcodeSvg: await code128Svg(r.reference),
+    };
+  }
+
   function photoAllowed(user: CurrentUser, storedName: string) {
     const owner = db
       .select({ userId: returns.userId })
@@ -272,7 +364,7 @@ export function createReturnsService(deps: { db: Db; stock: StockService; paymen
     return owner !== undefined && (owner === user.id || user.role === 'warehouse' || user.role === 'admin');
   }
 
-  return { request, decide, listOwn, listAll, photoAllowed, get: (id: number) => view(get(db, id)), row: (id: number) => get(db, id) };
+  return { request, decide, listOwn, listAll, byReference, label, photoAllowed, get: (id: number) => viewOne(get(db, id)), row: (id: number) => get(db, id) };
 }
 
 export type ReturnsService = ReturnType<typeof createReturnsService>;

@@ -9,6 +9,8 @@ import type { StockService } from './stock';
 
 /** What the warehouse tells customers, written in the transaction of the pick or dispatch (the mail outbox in the app). */
 export interface WarehouseNotifier {
+  /** The first pick of an order (no e-mail goes out for it; the on-site notices record it). */
+  pickingStarted?(tx: DbOrTx, orderId: number): void;
   shortPicked(tx: DbOrTx, orderId: number, lines: Array<{ partNumber: string; title: string; ordered: number; backordered: number }>): void;
   dispatched(tx: DbOrTx, orderId: number, shipmentId: number): void;
 }
@@ -217,6 +219,8 @@ export function createWarehouseService(deps: { db: Db; stock: StockService; noti
       if (order.status !== status) {
         setStatus(tx, order.id, status);
         if (status === 'picking') addEvent(tx, order.id, 'picking', null);
+        // Only the first time: an order back to picking after a released back-order is not news to the buyer again.
+        if (status === 'picking' && (order.status === 'paid' || order.status === 'on_account')) notify.pickingStarted?.(tx, order.id);
       }
       const updated = after.find((l) => l.lineId === line.lineId)!;
       if (shortLine) notify.shortPicked(tx, order.id, [shortLine]);

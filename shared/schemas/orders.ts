@@ -136,6 +136,8 @@ export const OrderSummarySchema = z.object({
   createdAt: z.string(),
   lineCount: z.number().int(),
   hasBackorder: z.boolean(),
+  /** Units that have left the warehouse: an order with any may have lines to return, whatever its status. */
+  unitsDispatched: z.number().int(),
 });
 export type OrderSummary = z.infer<typeof OrderSummarySchema>;
 
@@ -146,6 +148,9 @@ export const OrderLineViewSchema = z.object({
   quantity: z.number().int(),
   quantityBackordered: z.number().int(),
   quantityPicked: z.number().int(),
+  quantityDispatched: z.number().int(),
+  /** Dispatched units not already on a return that is open or settled: what the buyer may still send back. */
+  quantityReturnable: z.number().int(),
   unitPriceCents: z.number().int(),
   coreDepositCents: z.number().int(),
   lineCents: z.number().int(),
@@ -163,6 +168,12 @@ export const OrderDetailSchema = OrderSummarySchema.extend({
   dispatch: z.object({ carrier: z.string().nullable(), trackingNumber: z.string().nullable(), cartons: z.number().int().nullable() }),
   timeline: z.array(z.object({ status: z.string(), note: z.string().nullable(), at: z.string() })),
   dealer: z.object({ companyName: z.string() }).nullable(),
+  /** Each dispatch (a back-order that arrives later leaves in a shipment of its own), with the carrier's tracking page. */
+  shipments: z.array(
+    z.object({ carrier: z.string(), trackingNumber: z.string(), trackingUrl: z.string().nullable(), cartons: z.number().int(), units: z.number().int(), at: z.string() }),
+  ),
+  /** Returns asked for on this order's lines. */
+  returns: z.array(z.object({ reference: z.string(), lineId: z.number().int(), quantity: z.number().int(), status: z.string(), kind: z.string() })),
 });
 export type OrderDetail = z.infer<typeof OrderDetailSchema>;
 

@@ -117,6 +117,8 @@ export const ReturnRequestSchema = z.object({
 });
 export type ReturnRequest = z.infer<typeof ReturnRequestSchema>;
 
+const decisionReason = z.string().trim().min(3, 'give a reason').max(300, 'at most 300 characters');
+
 export const ReturnDecisionSchema = z.discriminatedUnion('decision', [
   z.object({ decision: z.literal('core-refund'), conditionGrade: z.enum(CONDITION_GRADE_KEYS) }),
   z.object({ decision: z.literal('full-refund'), conditionGrade: z.enum(CONDITION_GRADE_KEYS), restock: z.boolean().optional() }),
@@ -124,8 +126,11 @@ export const ReturnDecisionSchema = z.discriminatedUnion('decision', [
     decision: z.literal('partial-refund'),
     conditionGrade: z.enum(CONDITION_GRADE_KEYS),
     amountCents: z.number().int('amount must be whole cents').min(1, 'amount must be above 0'),
+    /** Why less than the most: the customer reads it in the decision. */
+    reason: decisionReason,
+    restock: z.boolean().optional(),
   }),
-  z.object({ decision: z.literal('reject'), conditionGrade: z.enum(CONDITION_GRADE_KEYS), rejectReason: z.string().trim().min(3, 'give a reason').max(300) }),
+  z.object({ decision: z.literal('reject'), conditionGrade: z.enum(CONDITION_GRADE_KEYS), rejectReason: decisionReason }),
 ]);
 export type ReturnDecision = z.infer<typeof ReturnDecisionSchema>;
 
@@ -143,9 +148,10 @@ export const ReturnViewSchema = z.object({
   decision: z.string().nullable(),
   refundCents: z.number().int(),
   rejectReason: z.string().nullable(),
+  decisionReason: z.string().nullable(),
   creditNoteNumber: z.string().nullable(),
   paymentMethod: z.enum(['card', 'account']),
-  /** What a refund may be at most: the line's value, capped by what is left of the payment. */
+  /** What a refund may be at most: the line's value (a core's deposit), capped by what is left of the payment. */
   maxRefundCents: z.number().int(),
   coreDepositCents: z.number().int(),
   photos: z.array(z.string()),
@@ -154,4 +160,47 @@ export const ReturnViewSchema = z.object({
   decidedAt: z.string().nullable(),
 });
 export type ReturnView = z.infer<typeof ReturnViewSchema>;
-export const ReturnsSchema = z.object({ items: z.array(ReturnViewSchema) });
+
+export type ReturnDecisionKey = ReturnDecision['decision'];
+
+/**
+ * The decisions that fit each kind of return. A core is the customer's old unit coming back for the deposit: it
+ * settles only the deposit (all of it, part of it, or none), never the exchange unit the customer keeps. A wrong or
+ * faulty part comes back in place of what was bought: its refund is the line's value. The server refuses the rest.
+ */
+export const DECISIONS_FOR_KIND: Record<ReturnKind, readonly ReturnDecisionKey[]> = {
+  core: ['core-refund', 'partial-refund', 'reject'],
+  'wrong-part': ['full-refund', 'partial-refund', 'reject'],
+  faulty: ['full-refund', 'partial-refund', 'reject'],
+};
+/** Only a returned part may go back on the shelf; a core goes to the rebuild bench. */
+export const kindRestocks = (kind: ReturnKind) => kind !== 'core';
+
+export const RETURNS_PAGE_SIZE = 20;
+export const ReturnsPageSchema = z.object({
+  items: z.array(ReturnViewSchema),
+  total: z.number().int(),
+  page: z.number().int(),
+  pageSize: z.number().int(),
+});
+export type ReturnsPage = z.infer<typeof ReturnsPageSchema>;
+
+/** A return reference as typed or scanned: "RT-5001", "rt5001" and "RT 5001" are the same return. */
+export function normalizeReturnReference(input: string): string | null {
+  const m = /^\s*RT[\s-]*(\d{1,9})\s*$/i.exec(input);
+  return m ? `RT-${m[1]}` : null;
+}
+
+/** What a printed return label carries; the barcode is Code 128 of the reference, drawn by the server as SVG. */
+export const ReturnLabelSchema = z.object({
+  reference: z.string(),
+  orderNumber: z.string(),
+  partNumber: z.string(),
+  title: z.string(),
+  quantity: z.number().int(),
+  kind: z.enum(RETURN_KIND_KEYS),
+  createdAt: z.string(),
+  from: z.object({ name: z.string(), line1: z.string(), city: z.string(), postcode: z.string() }),
+  barcodeSvg: z.string(),
+});
+export type ReturnLabel = z.infer<typeof ReturnLabelSchema>;

@@ -1,6 +1,7 @@
 import { count, desc, eq, sql, type SQL } from 'drizzle-orm';
 import type { Db } from '../../db/client';
-import { dealerAccounts, orderEvents, orderLines, orders, parts } from '../../db/schema';
+import { dealerAccounts, orderEvents, orderLines, orders, parts, returns, shipments } from '../../db/schema';
+import { DEFAULT_TRACKING_URLS, trackingUrl, type TrackingUrlPatterns } from '../../../shared/carriers';
 import { NotFoundError } from '../errors';
 import type { CurrentUser } from '../current-user';
 import type { OrderDetail, OrderSummary } from '../../../shared/schemas/orders';
@@ -29,8 +30,12 @@ export function findOrder(q: Query, where: SQL) {
 
 export type OrderHeader = NonNullable<ReturnType<typeof findOrder>>;
 
-export function createOrderReads(deps: { db: Db; cart: CartService }) {
+/** Units of a line already on a return that is open or settled; a rejected one gives them back. */
+const claimedByReturns = sql<number>`(select coalesce(sum(${returns.quantity}), 0) from ${returns} where ${returns.orderLineId} = ${orderLines.id} and ${returns.status} <> 'rejected')`;
+
+export function createOrderReads(deps: { db: Db; cart: CartService; trackingUrls?: TrackingUrlPatterns }) {
   const { db, cart } = deps;
+  const trackingPatterns = deps.trackingUrls ?? DEFAULT_TRACKING_URLS;
 
   /** A signed-in user's own order; someone else's answers 404 exactly like a missing one. */
   function ownOrder(user: CurrentUser, number: string): OrderHeader {
@@ -52,6 +57,7 @@ export function createOrderReads(deps: { db: Db; cart: CartService }) {
         createdAt: orders.createdAt,
         lineCount: count(orderLines.id),
         hasBackorder: sql<boolean>`max(${orderLines.quantityBackordered} > 0)`.mapWith((v: number) => v === 1),
+        unitsDispatched: sql<number>`sum(${orderLines.quantityDispatched})`,
       })
       .from(orders)
       .innerJoin(orderLines, eq(orderLines.orderId, orders.id))
@@ -80,6 +86,8 @@ export function createOrderReads(deps: { db: Db; cart: CartService }) {
         quantity: orderLines.quantity,
         quantityBackordered: orderLines.quantityBackordered,
         quantityPicked: orderLines.quantityPicked,
+        quantityDispatched: orderLines.quantityDispatched,
+        quantityReturnable: sql<number>`max(0, ${orderLines.quantityDispatched} - ${claimedByReturns})`,
         unitPriceCents: orderLines.unitPriceCents,
         coreDepositCents: orderLines.coreDepositCents,
         lineCents: sql<number>`${orderLines.unitPriceCents} * ${orderLines.quantity}`,
@@ -98,6 +106,18 @@ export function createOrderReads(deps: { db: Db; cart: CartService }) {
       .where(eq(orderEvents.orderId, id))
       .orderBy(orderEvents.id)
       .all();
+    const sent = db
+      .select({ carrier: shipments.carrier, trackingNumber: shipments.trackingNumber, cartons: shipments.cartons, units: shipments.units, at: shipments.createdAt })
+      .from(shipments)
+      .where(eq(shipments.orderId, id))
+      .orderBy(shipments.id)
+      .all();
+    const asked = db
+      .select({ reference: returns.reference, lineId: returns.orderLineId, quantity: returns.quantity, status: returns.status, kind: returns.kind })
+      .from(returns)
+      .where(eq(returns.orderId, id))
+      .orderBy(returns.id)
+      .all();
     return {
       number: o.number,
       status: o.status,
@@ -108,6 +128,7 @@ export function createOrderReads(deps: { db: Db; cart: CartService }) {
       createdAt: o.createdAt,
       lineCount: lines.length,
       hasBackorder: lines.some((l) => l.quantityBackordered > 0),
+      unitsDispatched: lines.reduce((n, l) => n + l.quantityDispatched, 0),
       email: o.email,
       paymentTermsDays: o.paymentTermsDays,
       lines,
@@ -125,6 +146,8 @@ export function createOrderReads(deps: { db: Db; cart: CartService }) {
       dispatch: { carrier: o.carrier, trackingNumber: o.trackingNumber, cartons: o.cartons },
       timeline,
       dealer: companyName ? { companyName } : null,
+      shipments: sent.map((x) => ({ ...x, trackingUrl: trackingUrl(trackingPatterns, x.carrier, x.trackingNumber) })),
+      returns: asked,
     };
   }
 

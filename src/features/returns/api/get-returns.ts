@@ -1,9 +1,9 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import { ReturnsSchema } from '../../../../shared/schemas/warehouse';
+import { ReturnsPageSchema } from '../../../../shared/schemas/warehouse';
 import { api } from '../../../lib/api-client';
 import { returnsKeys } from './keys';
 
-export const getReturns = (signal?: AbortSignal) => api('/returns', ReturnsSchema, { signal });
+export const getReturns = (signal?: AbortSignal) => api('/returns', ReturnsPageSchema, { signal });
 
 export const returnsQueryOptions = () => queryOptions({ queryKey: returnsKeys.list(), queryFn: ({ signal }) => getReturns(signal), staleTime: 10_000 });
 

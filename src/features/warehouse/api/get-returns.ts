@@ -1,11 +1,11 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import { ReturnsSchema } from '../../../../shared/schemas/warehouse';
+import { ReturnsPageSchema } from '../../../../shared/schemas/warehouse';
 import { api } from '../../../lib/api-client';
 import { warehouseKeys } from './keys';
 
 export type ReturnFilter = 'requested' | 'all';
 
-export const getReturns = (status: ReturnFilter, signal?: AbortSignal) => api(`/warehouse/returns?status=${status}`, ReturnsSchema, { signal });
+export const getReturns = (status: ReturnFilter, signal?: AbortSignal) => api(`/warehouse/returns?status=${status}`, ReturnsPageSchema, { signal });
 
 export const returnsQueryOptions = (status: ReturnFilter) =>
   queryOptions({ queryKey: warehouseKeys.returnList(status), queryFn: ({ signal }) => getReturns(status, signal), staleTime: 0 });
