@@ -68,3 +68,7 @@ export function inListSql(column: string, values: readonly string[]): string {
   for (const v of values) if (!/^[\w -]+$/.test(v)) throw new Error(`not a plain allowed value: ${v}`);
   return `${column} IN (${values.map((v) => `'${v}'`).join(', ')})`;
 }
+
+/** What a catalogue audit entry records: each change to a part, by hand or by a price import. */
+export const AUDIT_ACTIONS = ['part-created', 'part-edited', 'part-superseded', 'part-links-set', 'part-photos-added', 'price-imported', 'part-imported'] as const;
+export type AuditAction = (typeof AUDIT_ACTIONS)[number];
