@@ -33,6 +33,7 @@ import { adminCatalogRouter } from './routes/admin-catalog';
 import { createWarehouseService } from './services/warehouse';
 import { createReturnsService } from './services/returns';
 import { createCatalogAdmin } from './services/catalog-admin';
+import { createAuditLogReader } from './services/audit-log';
 import { storedPath } from './services/uploads';
 import { HttpError } from './middleware/errors';
 import { createAuth } from './services/auth';
@@ -238,7 +239,7 @@ export function createApp(deps: AppDeps) {
   app.use('/api/warehouse', warehouseRouter({ db, warehouse, returns }));
   app.use('/api/returns', returnsRouter({ returns, photosDir: returnPhotosDir }));
   app.use('/api/notices', noticesRouter(notices));
-  app.use('/api/admin', adminCatalogRouter({ admin: catalogAdmin, photosDir: partPhotosDir }));
+  app.use('/api/admin', adminCatalogRouter({ admin: catalogAdmin, audit: createAuditLogReader({ db }), photosDir: partPhotosDir }));
   app.use('/api/admin/dealers', adminDealersRouter(dealers));
   app.use('/api/admin/mail', adminMailRouter(mailOutbox));
   app.use('/api/admin/payment-alerts', adminPaymentsRouter(orders));

@@ -72,3 +72,7 @@ export function inListSql(column: string, values: readonly string[]): string {
 /** What an on-site notice tells a buyer: the changes of their orders and returns that also go out by e-mail. */
 export const NOTICE_KINDS = ['paid', 'on-account', 'picking', 'back-ordered', 'dispatched', 'return-decided'] as const;
 export type NoticeKind = (typeof NOTICE_KINDS)[number];
+
+/** What a catalogue audit entry records: each change to a part, by hand or by a price import. */
+export const AUDIT_ACTIONS = ['part-created', 'part-edited', 'part-superseded', 'part-links-set', 'part-photos-added', 'price-imported', 'part-imported'] as const;
+export type AuditAction = (typeof AUDIT_ACTIONS)[number];

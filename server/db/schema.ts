@@ -1,6 +1,7 @@
 import { sql } from 'drizzle-orm';
 import {
   ALIAS_KINDS,
+  AUDIT_ACTIONS,
   DEALER_STATUSES,
   inListSql,
   MAIL_KINDS,
@@ -22,6 +23,7 @@ import { BOOST_UNITS } from '../../shared/schemas/shaft-logs';
 import { CONDITION_GRADE_KEYS, RETURN_KIND_KEYS } from '../../shared/schemas/warehouse';
 import { BEARINGS, CATEGORIES, CATEGORY_SLUGS, type Bearing } from '../../shared/catalog';
 import type { PriceImportRow } from '../../shared/schemas/admin-catalog';
+import type { PriceFlag } from '../../shared/price-import-flags';
 import { SHAFT_LOG_MAX_ROWS } from '../../shared/schemas/shaft-logs';
 import { check, index, integer, primaryKey, real, sqliteTable, text, uniqueIndex } from 'drizzle-orm/sqlite-core';
 
@@ -592,6 +594,8 @@ export type PriceImportStoredRow = PriceImportRow & {
   /** For a new part: the fields that create it. */
   create?: { title: string; category: string; weightGrams: number; frameCode: string | null; coreDepositCents: number } | undefined;
   coreDepositCents?: number | null | undefined;
+  /** The flags staff acknowledged on this row (an acknowledgement holds only for the flags seen). */
+  acknowledged?: PriceFlag[] | null | undefined;
 };
 
 export const priceImports = sqliteTable(
@@ -604,8 +608,19 @@ export const priceImports = sqliteTable(
     rows: text('rows', { mode: 'json' }).$type<PriceImportStoredRow[]>().notNull(),
     createdAt: createdAt(),
     appliedAt: text('applied_at'),
+    /** A price moving more than this share (either way) is flagged for a look before applying. */
+    maxChangePct: integer('max_change_pct').notNull().default(30),
+    appliedBy: text('applied_by').references(() => user.id),
+    /** Counted when applied, so the history lists imports without reading every row. */
+    changedCount: integer('changed_count').notNull().default(0),
+    newCount: integer('new_count').notNull().default(0),
+    flaggedCount: integer('flagged_count').notNull().default(0),
   },
-  (t) => [index('price_imports_user_idx').on(t.userId), oneOf('price_imports', 'status', PRICE_IMPORT_STATUSES)],
+  (t) => [
+    index('price_imports_user_idx').on(t.userId),
+    index('price_imports_created_idx').on(t.createdAt),
+    oneOf('price_imports', 'status', PRICE_IMPORT_STATUSES),
+  ],
 );
 
 /*
@@ -694,4 +709,46 @@ export const notices = sqliteTable(
     createdAt: createdAt(),
   },
   (t) => [index('notices_user_idx').on(t.userId, t.id), index('notices_unread_idx').on(t.userId, t.readAt), oneOf('notices', 'kind', NOTICE_KINDS)],
+);
+
+/** Who changed what in the catalogue and when: one row per part changed, by hand or by a price import. Never updated. */
+export const auditLog = sqliteTable(
+  'audit_log',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    /** Null for a change made by the system itself (a script, not a person). */
+    userId: text('user_id').references(() => user.id),
+    action: text('action', { enum: AUDIT_ACTIONS }).notNull(),
+    partId: integer('part_id').references(() => parts.id),
+    partNumber: text('part_number'),
+    priceImportId: integer('price_import_id').references(() => priceImports.id),
+    /** Field by field, what it was and what it became. */
+    changes: text('changes', { mode: 'json' }).$type<Record<string, { from: unknown; to: unknown }>>().notNull().default(sql`'{}'`),
+    createdAt: createdAt(),
+  },
+  (t) => [
+    index('audit_log_part_idx').on(t.partNumber, t.id),
+    index('audit_log_user_idx').on(t.userId, t.id),
+    index('audit_log_created_idx').on(t.createdAt),
+    index('audit_log_import_idx').on(t.priceImportId),
+    oneOf('audit_log', 'action', AUDIT_ACTIONS),
+  ],
+);
+
+/** A dealer's payment of an invoice on account, as the office records it; the statement lists these. */
+export const dealerPayments = sqliteTable(
+  'dealer_payments',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    dealerAccountId: integer('dealer_account_id')
+      .notNull()
+      .references(() => dealerAccounts.id),
+    orderId: integer('order_id')
+      .notNull()
+      .references(() => orders.id),
+    amountCents: integer('amount_cents').notNull(),
+    reference: text('reference').notNull(),
+    createdAt: createdAt(),
+  },
+  (t) => [index('dealer_payments_dealer_idx').on(t.dealerAccountId, t.createdAt), index('dealer_payments_order_idx').on(t.orderId), holds('dealer_payments', 'amount', 'amount_cents >= 0')],
 );

@@ -1,12 +1,22 @@
 import { parse } from 'csv-parse/sync';
-import { eq, getTableColumns, or, sql } from 'drizzle-orm';
+import { count, desc, eq, getTableColumns, or, sql } from 'drizzle-orm';
+import { alias } from 'drizzle-orm/sqlite-core';
 import type { Db } from '../db/client';
-import { frames, partAliases, partLinks, parts, partSpecs, priceImports, type PriceImportStoredRow as StoredRow } from '../db/schema';
+import { frames, partAliases, partLinks, parts, partSpecs, priceImports, user, type PriceImportStoredRow as StoredRow } from '../db/schema';
+import { diffFields, recordAudit, type AuditEntryInput } from './audit-log';
 import { ConflictError, InvalidError, NotFoundError, TooLargeError } from './errors';
 import { CATEGORY_SLUGS } from '../../shared/catalog';
 import { parseMoneyToCents } from '../../shared/format';
 import { normalizePartNumber, PART_NUMBER_EXAMPLE, PART_NUMBER_PATTERN } from '../../shared/part-number';
-import { PRICE_IMPORT_MAX_ROWS, type PartForm, type PriceImport } from '../../shared/schemas/admin-catalog';
+import { DEFAULT_MAX_CHANGE_PCT, describeFlag, isAcknowledged, priceFlags } from '../../shared/price-import-flags';
+import {
+  PRICE_IMPORT_HISTORY_PAGE,
+  PRICE_IMPORT_MAX_ROWS,
+  type PartForm,
+  type PriceImport,
+  type PriceImportAcknowledge,
+  type PriceImportHistory,
+} from '../../shared/schemas/admin-catalog';
 
 const NOW = sql`strftime('%Y-%m-%dT%H:%M:%fZ','now')`;
 
@@ -99,7 +109,13 @@ export function createCatalogAdmin(deps: { db: Db; refreshSearch: (ids: number[]
       .run();
   };
 
-  function create(form: PartForm) {
+  /** The part as the audit log compares it: the form's fields, specs flattened beside them. */
+  const auditView = (form: Omit<ReturnType<typeof getForm>, 'images' | 'supersededBy' | 'goesWith'>) => {
+    const { specs, ...rest } = form;
+    return { ...rest, ...Object.fromEntries(Object.entries(specs).map(([k, v]) => [`specs.${k}`, v])) };
+  };
+
+  function create(userId: string | null, form: PartForm) {
     if (findPart(form.partNumber) !== undefined) throw new ConflictError(`${form.partNumber} already exists`, { partNumber: ['this part number is taken'] });
     if (form.frameCode && !frameExists(form.frameCode)) throw new InvalidError(`No frame ${form.frameCode}`, { frameCode: ['no such frame'] });
     const id = db.transaction((tx) => {
@@ -122,17 +138,20 @@ export function createCatalogAdmin(deps: { db: Db; refreshSearch: (ids: number[]
         .returning({ id: parts.id })
         .get();
       writeSpecs(row.id, form.specs);
+      const { images: _i, supersededBy: _s, goesWith: _g, ...created } = getForm(form.partNumber);
+      recordAudit(tx, [{ userId, action: 'part-created', partId: row.id, partNumber: form.partNumber, changes: diffFields({}, auditView(created)) }]);
       return row.id;
     });
     deps.refreshSearch([id]);
     return { partNumber: form.partNumber };
   }
 
-  function update(partNumber: string, form: PartForm) {
-    const { id } = partOr404(partNumber);
+  function update(userId: string, partNumber: string, form: PartForm) {
+    const { id, partNumber: stored } = partOr404(partNumber);
     if (normalizePartNumber(form.partNumber) !== normalizePartNumber(partNumber)) throw new InvalidError('A part number cannot change; supersede the part instead', { partNumber: ['supersede instead of renaming'] });
     if (form.frameCode && !frameExists(form.frameCode)) throw new InvalidError(`No frame ${form.frameCode}`, { frameCode: ['no such frame'] });
     db.transaction((tx) => {
+      const { images: _i, supersededBy: _s, goesWith: _g, ...before } = getForm(stored);
       tx.update(parts)
         .set({
           title: form.title,
@@ -151,13 +170,16 @@ export function createCatalogAdmin(deps: { db: Db; refreshSearch: (ids: number[]
         .where(eq(parts.id, id))
         .run();
       writeSpecs(id, form.specs);
+      const { images: _i2, supersededBy: _s2, goesWith: _g2, ...after } = getForm(stored);
+      const changes = diffFields(auditView(before), auditView(after));
+      if (Object.keys(changes).length > 0) recordAudit(tx, [{ userId, action: 'part-edited', partId: id, partNumber: stored, changes }]);
     });
     deps.refreshSearch([id]);
     return { partNumber };
   }
 
   /** The old number stays findable: it becomes an alias of the new part and answers with its replacement. */
-  function supersede(partNumber: string, replacedBy: string) {
+  function supersede(userId: string, partNumber: string, replacedBy: string) {
     const old = partOr404(partNumber);
     const replacement = findPart(replacedBy);
     if (replacement === undefined) throw new InvalidError(`No part ${replacedBy}`, { replacedBy: ['no such part'] });
@@ -178,13 +200,15 @@ export function createCatalogAdmin(deps: { db: Db; refreshSearch: (ids: number[]
       tx.insert(partAliases)
         .values({ partId: replacement.id, alias: old.partNumber, normalizedAlias: normalizePartNumber(old.partNumber), kind: 'superseded', source: 'earlier number' })
         .run();
+      recordAudit(tx, [{ userId, action: 'part-superseded', partId: old.id, partNumber: old.partNumber, changes: { supersededBy: { from: null, to: replacement.partNumber } } }]);
     });
     deps.refreshSearch([old.id, replacement.id]);
     return { partNumber: old.partNumber, supersededBy: replacement.partNumber };
   }
 
-  function setLinks(partNumber: string, numbers: string[]) {
-    const { id } = partOr404(partNumber);
+  function setLinks(userId: string, partNumber: string, numbers: string[]) {
+    const { id, partNumber: stored } = partOr404(partNumber);
+    const before = getForm(stored).goesWith;
     const ids = numbers.map((n) => {
       const other = findPart(n);
       if (other === undefined) throw new InvalidError(`No part ${n}`, { partNumbers: [`no part ${n}`] });
@@ -204,19 +228,32 @@ export function createCatalogAdmin(deps: { db: Db; refreshSearch: (ids: number[]
           .onConflictDoNothing()
           .run();
       }
+      const after = getForm(stored).goesWith;
+      if (JSON.stringify(before) !== JSON.stringify(after)) recordAudit(tx, [{ userId, action: 'part-links-set', partId: id, partNumber: stored, changes: { goesWith: { from: before, to: after } } }]);
     });
     return getForm(partNumber);
   }
 
-  function addPhotos(partNumber: string, names: string[]) {
-    const { id } = partOr404(partNumber);
+  function addPhotos(userId: string, partNumber: string, names: string[]) {
+    const { id, partNumber: stored } = partOr404(partNumber);
     const current = db.select({ images: parts.images }).from(parts).where(eq(parts.id, id)).get()?.images ?? [];
     const images = [...current, ...names].slice(-12);
-    db.update(parts).set({ images }).where(eq(parts.id, id)).run();
+    db.transaction((tx) => {
+      tx.update(parts).set({ images }).where(eq(parts.id, id)).run();
+      recordAudit(tx, [{ userId, action: 'part-photos-added', partId: id, partNumber: stored, changes: { images: { from: current, to: images } } }]);
+    });
     return { images };
   }
 
-  function checkRow(row: number, input: Record<string, string>): StoredRow {
+  /** The flags a checked row earns at the import's threshold, with what each saw. */
+  const withFlags = (r: StoredRow, maxChangePct: number, coreNow: number): StoredRow => {
+    if ((r.status !== 'changed' && r.status !== 'new') || r.newPriceCents === null) return { ...r, flags: [], flagNotes: [] };
+    const input = { oldPriceCents: r.oldPriceCents, newPriceCents: r.newPriceCents, coreDepositCents: coreNow, maxChangePct };
+    const flags = priceFlags(input);
+    return { ...r, flags, flagNotes: flags.map((f) => describeFlag(f, input)) };
+  };
+
+  function checkRow(row: number, input: Record<string, string>, maxChangePct: number): StoredRow {
     const partNumber = (input.part_number ?? '').trim();
     const base: StoredRow = { row, partNumber, status: 'error', oldPriceCents: null, newPriceCents: null, title: null, message: null, input };
     if (!partNumber) return { ...base, message: 'part_number is empty' };
@@ -228,7 +265,18 @@ export function createCatalogAdmin(deps: { db: Db; refreshSearch: (ids: number[]
     if (existing) {
       if (core !== null && core > 0 && existing.condition !== 'exchange') return { ...base, title: existing.title, message: 'only exchange units carry a core deposit' };
       const changed = existing.price !== price || (core !== null && core !== existing.core);
-      return { ...base, partNumber: existing.partNumber, status: changed ? 'changed' : 'unchanged', oldPriceCents: existing.price, newPriceCents: price, title: existing.title, coreDepositCents: core };
+      const checked: StoredRow = {
+        ...base,
+        partNumber: existing.partNumber,
+        status: changed ? 'changed' : 'unchanged',
+        oldPriceCents: existing.price,
+        newPriceCents: price,
+        title: existing.title,
+        coreDepositCents: core,
+        oldCoreCents: existing.core,
+        newCoreCents: core !== null && core !== existing.core ? core : null,
+      };
+      return withFlags(checked, maxChangePct, core ?? existing.core);
     }
     const title = (input.title ?? '').trim();
     const category = (input.category ?? '').trim();
@@ -240,38 +288,91 @@ export function createCatalogAdmin(deps: { db: Db; refreshSearch: (ids: number[]
     if (!title || !category || !(weightKg > 0)) return { ...base, message: 'unknown part: to add it, give title, category and weight_kg' };
     if (!(CATEGORY_SLUGS as readonly string[]).includes(category)) return { ...base, message: `category must be one of ${CATEGORY_SLUGS.join(', ')}` };
     if (frameCode && !frameExists(frameCode)) return { ...base, message: `no frame ${frameCode}` };
-    return {
+    const created: StoredRow = {
       ...base,
       partNumber: partNumber.toUpperCase(),
       status: 'new',
       newPriceCents: price,
       title,
+      newCoreCents: core ?? 0,
       create: { title, category, weightGrams: Math.round(weightKg * 1000), frameCode, coreDepositCents: core ?? 0 },
     };
+    return withFlags(created, maxChangePct, core ?? 0);
   }
+
+  const isFlagged = (r: StoredRow) => (r.flags?.length ?? 0) > 0;
+  const isWaiting = (r: StoredRow) => isFlagged(r) && !isAcknowledged(r.flags ?? [], r.acknowledged);
+
+  const uploader = alias(user, 'uploader');
+  const applier = alias(user, 'applier');
 
   function view(id: number): PriceImport {
     const row = db
-      .select({ id: priceImports.id, fileName: priceImports.fileName, status: priceImports.status, rows: priceImports.rows, createdAt: priceImports.createdAt, appliedAt: priceImports.appliedAt })
+      .select({
+        id: priceImports.id,
+        fileName: priceImports.fileName,
+        status: priceImports.status,
+        rows: priceImports.rows,
+        createdAt: priceImports.createdAt,
+        appliedAt: priceImports.appliedAt,
+        maxChangePct: priceImports.maxChangePct,
+        createdBy: uploader.name,
+        appliedBy: applier.name,
+      })
       .from(priceImports)
+      .innerJoin(uploader, eq(uploader.id, priceImports.userId))
+      .leftJoin(applier, eq(applier.id, priceImports.appliedBy))
       .where(eq(priceImports.id, id))
       .get();
     if (!row) throw new NotFoundError('No such price import');
     const rows = row.rows;
     const counts = { new: 0, changed: 0, unchanged: 0, error: 0 };
     for (const r of rows) counts[r.status]++;
-    // Errors first, so they are never hidden past the first page; unchanged rows are only counted.
-    const shown = [...rows.filter((r) => r.status === 'error'), ...rows.filter((r) => r.status === 'new' || r.status === 'changed')].slice(0, 1000);
+    const changes = rows.filter((r) => r.status === 'new' || r.status === 'changed');
+    // Errors first, then flagged rows, so neither is hidden past the first page; unchanged rows are only counted.
+    const shown = [...rows.filter((r) => r.status === 'error'), ...changes.filter(isFlagged), ...changes.filter((r) => !isFlagged(r))].slice(0, 1000);
     return {
       id: row.id,
       fileName: row.fileName,
       status: row.status,
       counts,
-      rows: shown.map(({ create: _c, coreDepositCents: _d, ...r }) => r),
+      flagged: rows.filter(isFlagged).length,
+      unacknowledged: rows.filter(isWaiting).length,
+      maxChangePct: row.maxChangePct,
+      rows: shown.map(({ create: _c, coreDepositCents: _d, acknowledged: _a, ...r }) => ({ ...r, acknowledged: isFlagged(r) && !isWaiting({ ...r, acknowledged: _a }) })),
       totalRows: rows.length,
       createdAt: row.createdAt,
+      createdBy: row.createdBy,
       appliedAt: row.appliedAt,
+      appliedBy: row.appliedBy,
     };
+  }
+
+  /** Every import, newest first: who uploaded it, who applied it and when, and what it changed. */
+  function history(page: number): PriceImportHistory {
+    const total = db.select({ n: count() }).from(priceImports).get()?.n ?? 0;
+    const items = db
+      .select({
+        id: priceImports.id,
+        fileName: priceImports.fileName,
+        status: priceImports.status,
+        createdAt: priceImports.createdAt,
+        createdBy: uploader.name,
+        appliedAt: priceImports.appliedAt,
+        appliedBy: applier.name,
+        totalRows: sql<number>`json_array_length(${priceImports.rows})`,
+        changedCount: priceImports.changedCount,
+        newCount: priceImports.newCount,
+        flaggedCount: priceImports.flaggedCount,
+      })
+      .from(priceImports)
+      .innerJoin(uploader, eq(uploader.id, priceImports.userId))
+      .leftJoin(applier, eq(applier.id, priceImports.appliedBy))
+      .orderBy(desc(priceImports.id))
+      .limit(PRICE_IMPORT_HISTORY_PAGE)
+      .offset((page - 1) * PRICE_IMPORT_HISTORY_PAGE)
+      .all();
+    return { items, total, page, pageSize: PRICE_IMPORT_HISTORY_PAGE };
   }
 
   function startImport(userId: string, fileName: string, csv: string) {
@@ -291,7 +392,7 @@ export function createCatalogAdmin(deps: { db: Db; refreshSearch: (ids: number[]
     if (records.length > PRICE_IMPORT_MAX_ROWS) throw new TooLargeError(`At most ${PRICE_IMPORT_MAX_ROWS} rows per file`);
     const seen = new Map<string, number>();
     const rows = records.map((input, i) => {
-      const checked = checkRow(i + 2, input);
+      const checked = checkRow(i + 2, input, DEFAULT_MAX_CHANGE_PCT);
       const key = normalizePartNumber(checked.partNumber);
       if (key && seen.has(key)) return { ...checked, status: 'error' as const, message: `the same part is on row ${seen.get(key)}` };
       if (key) seen.set(key, i + 2);
@@ -301,21 +402,43 @@ export function createCatalogAdmin(deps: { db: Db; refreshSearch: (ids: number[]
     return view(id);
   }
 
-  function editRows(id: number, change: (rows: StoredRow[]) => StoredRow[]) {
-    const current = db.select({ status: priceImports.status, rows: priceImports.rows }).from(priceImports).where(eq(priceImports.id, id)).get();
-    if (!current) throw new NotFoundError('No such price import');
-    if (current.status !== 'preview') throw new ConflictError('This import was already applied');
-    db.update(priceImports)
-      .set({ rows: change(current.rows) })
-      .where(eq(priceImports.id, id))
-      .run();
+  function editRows(id: number, change: (rows: StoredRow[], maxChangePct: number) => StoredRow[], settings: { maxChangePct?: number } = {}) {
+    db.transaction((tx) => {
+      const current = tx.select({ status: priceImports.status, rows: priceImports.rows, maxChangePct: priceImports.maxChangePct }).from(priceImports).where(eq(priceImports.id, id)).get();
+      if (!current) throw new NotFoundError('No such price import');
+      if (current.status !== 'preview') throw new ConflictError('This import was already applied');
+      const maxChangePct = settings.maxChangePct ?? current.maxChangePct;
+      tx.update(priceImports)
+        .set({ rows: change(current.rows, maxChangePct), maxChangePct })
+        .where(eq(priceImports.id, id))
+        .run();
+    });
     return view(id);
   }
 
+  /** A corrected row is checked afresh: any acknowledgement was for what it said before. */
   const fixRow = (id: number, row: number, input: Record<string, string>) =>
-    editRows(id, (rows) => {
+    editRows(id, (rows, pct) => {
       if (!rows.some((r) => r.row === row)) throw new NotFoundError(`No row ${row}`);
-      return rows.map((r) => (r.row === row ? checkRow(row, { ...r.input, ...input }) : r));
+      return rows.map((r) => (r.row === row ? checkRow(row, { ...r.input, ...input }, pct) : r));
+    });
+
+  /** A new threshold flags the rows again; acknowledgements stand for the flags they covered. */
+  const setThreshold = (id: number, maxChangePct: number) =>
+    editRows(id, (rows, pct) => rows.map((r) => (r.status === 'changed' || r.status === 'new' ? { ...checkRow(r.row, r.input, pct), acknowledged: r.acknowledged } : r)), { maxChangePct });
+
+  /** Staff say they have looked at flagged rows (or take that back); only flagged rows can be acknowledged. */
+  const acknowledge = (id: number, input: PriceImportAcknowledge) =>
+    editRows(id, (rows) => {
+      const wanted = 'rows' in input ? new Set(input.rows) : null;
+      if (wanted) {
+        for (const n of wanted) {
+          const r = rows.find((x) => x.row === n);
+          if (!r) throw new NotFoundError(`No row ${n}`);
+          if (!isFlagged(r)) throw new InvalidError(`Row ${n} is not flagged`);
+        }
+      }
+      return rows.map((r) => (isFlagged(r) && (wanted === null || wanted.has(r.row)) ? { ...r, acknowledged: input.acknowledged ? [...(r.flags ?? [])] : null } : r));
     });
   const dropRow = (id: number, row: number) =>
     editRows(id, (rows) => {
@@ -323,20 +446,36 @@ export function createCatalogAdmin(deps: { db: Db; refreshSearch: (ids: number[]
       return rows.filter((r) => r.row !== row);
     });
 
-  /** Applies every row in one transaction; a file with an error row applies nothing. */
-  function apply(id: number) {
+  /**
+   * Applies every row in one transaction. A file with an error row, or with a flagged row nobody acknowledged, applies
+   * nothing; nor does one whose count of changes is not the count the person confirmed.
+   */
+  function apply(id: number, userId: string, expectChanges?: number) {
     const touched: number[] = [];
     db.transaction((tx) => {
-      const current = tx.select({ status: priceImports.status, rows: priceImports.rows }).from(priceImports).where(eq(priceImports.id, id)).get();
+      const current = tx.select({ status: priceImports.status, rows: priceImports.rows, maxChangePct: priceImports.maxChangePct }).from(priceImports).where(eq(priceImports.id, id)).get();
       if (!current) throw new NotFoundError('No such price import');
       if (current.status !== 'preview') throw new ConflictError('This import was already applied');
       // Check again at apply time: the catalogue may have changed since the preview.
-      const rows = current.rows.map((r) => checkRow(r.row, r.input));
+      const rows = current.rows.map((r) => ({ ...checkRow(r.row, r.input, current.maxChangePct), acknowledged: r.acknowledged }));
       const errors = rows.filter((r) => r.status === 'error');
       if (errors.length > 0) {
         tx.update(priceImports).set({ rows }).where(eq(priceImports.id, id)).run();
         throw new ConflictError(`${errors.length} ${errors.length === 1 ? 'row is' : 'rows are'} in error: fix or drop ${errors.length === 1 ? 'it' : 'them'} first; nothing was applied`);
       }
+      const waiting = rows.filter(isWaiting);
+      if (waiting.length > 0) {
+        tx.update(priceImports).set({ rows }).where(eq(priceImports.id, id)).run();
+        throw new ConflictError(
+          `${waiting.length} flagged ${waiting.length === 1 ? 'row is' : 'rows are'} not acknowledged (first: row ${waiting[0]!.row}, ${waiting[0]!.partNumber}): look at ${waiting.length === 1 ? 'it' : 'them'} and acknowledge, fix or drop; nothing was applied`,
+        );
+      }
+      const changing = rows.filter((r) => r.status === 'changed' || r.status === 'new').length;
+      if (expectChanges !== undefined && expectChanges !== changing) {
+        tx.update(priceImports).set({ rows }).where(eq(priceImports.id, id)).run();
+        throw new ConflictError(`The list now makes ${changing} changes, not the ${expectChanges} you confirmed: look at it again; nothing was applied`);
+      }
+      const audit: AuditEntryInput[] = [];
       for (const r of rows) {
         if (r.status === 'changed') {
           const row = tx
@@ -349,7 +488,12 @@ export function createCatalogAdmin(deps: { db: Db; refreshSearch: (ids: number[]
             .where(eq(parts.normalizedNumber, normalizePartNumber(r.partNumber)))
             .returning({ id: parts.id })
             .get();
-          if (row) touched.push(row.id);
+          if (row) {
+            touched.push(row.id);
+            const changes = diffFields({ priceCents: r.oldPriceCents }, { priceCents: r.newPriceCents });
+            if (r.newCoreCents !== null && r.newCoreCents !== undefined) changes.coreDepositCents = { from: r.oldCoreCents ?? null, to: r.newCoreCents };
+            audit.push({ userId, action: 'price-imported', partId: row.id, partNumber: r.partNumber, priceImportId: id, changes });
+          }
         } else if (r.status === 'new' && r.create) {
           const c = r.create;
           const row = tx
@@ -369,16 +513,36 @@ export function createCatalogAdmin(deps: { db: Db; refreshSearch: (ids: number[]
             .get();
           tx.insert(partSpecs).values({ partId: row.id }).run();
           touched.push(row.id);
+          audit.push({
+            userId,
+            action: 'part-imported',
+            partId: row.id,
+            partNumber: r.partNumber,
+            priceImportId: id,
+            changes: diffFields({}, { title: c.title, category: c.category, frameCode: c.frameCode, priceCents: r.newPriceCents, coreDepositCents: c.coreDepositCents, weightGrams: c.weightGrams }),
+          });
         }
       }
-      tx.update(priceImports).set({ status: 'applied', rows, appliedAt: NOW }).where(eq(priceImports.id, id)).run();
+      recordAudit(tx, audit);
+      tx.update(priceImports)
+        .set({
+          status: 'applied',
+          rows,
+          appliedAt: NOW,
+          appliedBy: userId,
+          changedCount: rows.filter((r) => r.status === 'changed').length,
+          newCount: rows.filter((r) => r.status === 'new').length,
+          flaggedCount: rows.filter(isFlagged).length,
+        })
+        .where(eq(priceImports.id, id))
+        .run();
     });
     if (touched.length > 2000) deps.rebuildSearch();
     else deps.refreshSearch(touched);
     return view(id);
   }
 
-  return { getForm, create, update, supersede, setLinks, addPhotos, startImport, viewImport: view, fixRow, dropRow, apply };
+  return { getForm, create, update, supersede, setLinks, addPhotos, startImport, viewImport: view, history, fixRow, dropRow, setThreshold, acknowledge, apply };
 }
 
 export type CatalogAdmin = ReturnType<typeof createCatalogAdmin>;

@@ -279,6 +279,8 @@ describe('price imports', () => {
 
     const fixed = await admin.send('PUT', `/api/admin/price-imports/${imp.id}/rows/${bad.row}`, { input: { part_number: 'AWL-50-0201', price: '12.50' } });
     expect((fixed.body as { counts: Record<string, number> }).counts.error).toBe(0);
+    // These moves are over the default ±30 %: looked at and acknowledged (flags are covered in price-import-safety).
+    expect((await admin.send('POST', `/api/admin/price-imports/${imp.id}/acknowledge`, { allFlagged: true, acknowledged: true })).status).toBe(200);
     const applied = await admin.send('POST', `/api/admin/price-imports/${imp.id}/apply`);
     expect(applied.status).toBe(200);
     expect(price('FLG-50-0201')).toBe(1995);

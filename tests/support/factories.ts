@@ -164,7 +164,7 @@ export function createPart(t: TestApp, overrides: PartOverrides = {}): TestPart 
     specs: {},
     ...fields,
   });
-  t.app.catalogAdmin.create(form);
+  t.app.catalogAdmin.create(null, form);
   const id = t.db.select({ id: parts.id }).from(parts).where(eq(parts.partNumber, partNumber)).get()!.id;
   const binCode = bin ?? t.db.select({ code: bins.code }).from(bins).orderBy(asc(bins.walkOrder)).limit(1).get()!.code;
   if (stock > 0) t.app.stock.goodsIn(id, binCode, stock, 'test setup');
