@@ -47,6 +47,8 @@ import { createFitmentService } from './services/fitment';
 import { createShaftLogService } from './services/shaft-logs';
 import { createSearchService } from './services/search';
 import { createStockService } from './services/stock';
+import { createPartsListsService } from './services/parts-lists';
+import { partsListsRouter } from './routes/parts-lists';
 
 export interface AppConfig {
   publicUrl: string;
@@ -228,6 +230,7 @@ export function createApp(deps: AppDeps) {
   app.use('/api/cart', cartRouter(cart));
   app.use('/api/checkout', checkoutRouter(orders, cart));
   app.use('/api/orders', ordersRouter(orders));
+  app.use('/api/lists', partsListsRouter(createPartsListsService({ db, cart })));
   app.use('/api/warehouse', warehouseRouter({ db, warehouse, returns }));
   app.use('/api/returns', returnsRouter({ returns, photosDir: returnPhotosDir }));
   app.use('/api/admin', adminCatalogRouter({ admin: catalogAdmin, photosDir: partPhotosDir }));
