@@ -5,12 +5,17 @@ import type { Auth } from '../server/services/auth';
 
 export const DEMO_PASSWORD = 'spoolyard-demo-1';
 
-/** One account per role, a second dealer, and a pending trade application; all invented, at the reserved .test domain. */
+/**
+ * One account per role, a second dealer, a second buyer of the first dealer, and a pending trade application; all
+ * invented, at the reserved .test domain.
+ */
 export const DEMO_ACCOUNTS = [
   { role: 'customer', email: 'retail@spoolyard.test', name: 'Robin Ashdown' },
   { role: 'dealer', email: 'dealer@spoolyard.test', name: 'Morgan Tillbrook', dealer: { companyName: 'Tillbrook Boost Works', tier: 'preferred', creditLimitCents: 2_500_000, paymentTermsDays: 30, zone: 'national', line1: '14 Kiln Lane', city: 'Emberleigh', postcode: 'EM4 2QT' } },
   { role: 'dealer', email: 'dealer2@spoolyard.test', name: 'Sam Okonedo-Hale', dealer: { companyName: 'Quayside Marine Engines', tier: 'standard', creditLimitCents: 500_000, paymentTermsDays: 14, zone: 'remote', line1: '3 Slipway Road', city: 'Port Fennick', postcode: 'PF1 8LD' } },
   { role: 'warehouse', email: 'warehouse@spoolyard.test', name: 'Jo Ferrand' },
+  // A second buyer at the first dealer: the account's parts lists are shared between its users.
+  { role: 'dealer', email: 'dealer-bench@spoolyard.test', name: 'Rowan Kestleby', memberOf: 'Tillbrook Boost Works' },
   { role: 'admin', email: 'admin@spoolyard.test', name: 'Alex Varga-Moor' },
   { role: 'customer', email: 'applicant@spoolyard.test', name: 'Casey Penhallow', application: { companyName: 'Penhallow Performance', line1: '88 Mill Street', city: 'Wickerholt', postcode: 'WH9 3AB' } },
 ] as const;
@@ -46,6 +51,10 @@ export async function seedDemoAccounts(auth: Auth, db: Db): Promise<number> {
         .returning({ id: dealerAccounts.id })
         .get();
       db.insert(dealerMembers).values({ userId: created.id, dealerAccountId: row.id }).run();
+    }
+    if ('memberOf' in a) {
+      const dealer = db.select({ id: dealerAccounts.id }).from(dealerAccounts).where(eq(dealerAccounts.companyName, a.memberOf)).get();
+      if (dealer) db.insert(dealerMembers).values({ userId: created.id, dealerAccountId: dealer.id }).run();
     }
     if ('application' in a) {
       const p = a.application;

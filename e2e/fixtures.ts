@@ -2,7 +2,7 @@ import { test as base, expect } from '@playwright/test';
 import { expectNoSeriousA11yViolations, type AxeOptions } from './support/axe';
 
 /** The people who use the storefront (see PRODUCT.md). */
-export type Role = 'retail' | 'dealer' | 'dealer2' | 'warehouse' | 'admin';
+export type Role = 'retail' | 'dealer' | 'dealer2' | 'warehouse' | 'admin' | 'dealerColleague';
 
 /** The seeded demo accounts (catalog-seed/accounts.ts). */
 export const DEMO_PASSWORD = 'spoolyard-demo-1';
@@ -12,6 +12,8 @@ export const DEMO_EMAILS: Record<Role, string> = {
   dealer2: 'dealer2@spoolyard.test',
   warehouse: 'warehouse@spoolyard.test',
   admin: 'admin@spoolyard.test',
+  /** A second buyer of the first dealer's trade account. */
+  dealerColleague: 'dealer-bench@spoolyard.test',
 };
 
 interface Fixtures {

@@ -51,6 +51,8 @@ import { createShaftLogService } from './services/shaft-logs';
 import { createSearchService } from './services/search';
 import { createStockService } from './services/stock';
 import { DEFAULT_TRACKING_URLS, type TrackingUrlPatterns } from '../shared/carriers';
+import { createPartsListsService } from './services/parts-lists';
+import { partsListsRouter } from './routes/parts-lists';
 
 export interface AppConfig {
   publicUrl: string;
@@ -236,6 +238,7 @@ export function createApp(deps: AppDeps) {
   app.use('/api/cart', cartRouter(cart));
   app.use('/api/checkout', checkoutRouter(orders, cart));
   app.use('/api/orders', ordersRouter(orders));
+  app.use('/api/lists', partsListsRouter(createPartsListsService({ db, cart })));
   app.use('/api/warehouse', warehouseRouter({ db, warehouse, returns }));
   app.use('/api/returns', returnsRouter({ returns, photosDir: returnPhotosDir }));
   app.use('/api/notices', noticesRouter(notices));

@@ -40,6 +40,19 @@ export type StockMovementKind = (typeof STOCK_MOVEMENT_KINDS)[number];
 export const RETURN_STATUSES = ['requested', 'refunded', 'credited', 'rejected'] as const;
 export type ReturnStatus = (typeof RETURN_STATUSES)[number];
 
+/** What a buyer may do to an order before picking starts: take units off (a change) or cancel all of it. */
+export const ORDER_CHANGE_KINDS = ['change', 'cancel'] as const;
+export type OrderChangeKind = (typeof ORDER_CHANGE_KINDS)[number];
+/**
+ * How the money follows an order change: a refund to the card that paid, an amended invoice on account, or a card
+ * payment that had not been taken and was cancelled with the provider.
+ */
+export const ORDER_CHANGE_SETTLEMENTS = ['card-refund', 'amended-invoice', 'payment-cancelled'] as const;
+export type OrderChangeSettlement = (typeof ORDER_CHANGE_SETTLEMENTS)[number];
+/** Where the card refund of an order change stands with the provider. */
+export const ORDER_CHANGE_REFUND_STATES = ['pending', 'refunded', 'failed'] as const;
+export type OrderChangeRefundState = (typeof ORDER_CHANGE_REFUND_STATES)[number];
+
 export const PRICE_IMPORT_STATUSES = ['preview', 'applied'] as const;
 
 /** The e-mails the shop sends; each outbox row is one of these. */
@@ -56,6 +69,7 @@ export const MAIL_KINDS = [
   'password-reset',
   'account-confirm',
   'existing-account-notice',
+  'order-changed',
 ] as const;
 export type MailKind = (typeof MAIL_KINDS)[number];
 

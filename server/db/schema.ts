@@ -7,6 +7,9 @@ import {
   MAIL_KINDS,
   MAIL_STATES,
   NOTICE_KINDS,
+  ORDER_CHANGE_KINDS,
+  ORDER_CHANGE_REFUND_STATES,
+  ORDER_CHANGE_SETTLEMENTS,
   ORDER_STATUSES,
   PART_CONDITIONS,
   PART_STATUSES,
@@ -751,4 +754,91 @@ export const dealerPayments = sqliteTable(
     createdAt: createdAt(),
   },
   (t) => [index('dealer_payments_dealer_idx').on(t.dealerAccountId, t.createdAt), index('dealer_payments_order_idx').on(t.orderId), holds('dealer_payments', 'amount', 'amount_cents >= 0')],
+);
+
+/**
+ * A buyer's change to an order before picking started: units taken off lines, or the whole order cancelled. The
+ * order's lines and totals are amended in the same transaction (so they always describe the order as it stands);
+ * this row keeps what it was, what it became and how the money followed (docs/decisions/0008-order-changes.md).
+ */
+export const orderChanges = sqliteTable(
+  'order_changes',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    orderId: integer('order_id')
+      .notNull()
+      .references(() => orders.id, { onDelete: 'cascade' }),
+    userId: text('user_id')
+      .notNull()
+      .references(() => user.id),
+    kind: text('kind', { enum: ORDER_CHANGE_KINDS }).notNull(),
+    /** Per line: part number, title, quantity before and after (0 = the line went). Parsed with OrderChangeLineSchema. */
+    lines: text('lines', { mode: 'json' }).$type<unknown>().notNull(),
+    beforeTotalCents: integer('before_total_cents').notNull(),
+    afterTotalCents: integer('after_total_cents').notNull(),
+    /** What the buyer gets back or no longer owes. */
+    adjustmentCents: integer('adjustment_cents').notNull(),
+    settlement: text('settlement', { enum: ORDER_CHANGE_SETTLEMENTS }).notNull(),
+    refundState: text('refund_state', { enum: ORDER_CHANGE_REFUND_STATES }),
+    refundId: text('refund_id'),
+    refundAttempts: integer('refund_attempts').notNull().default(0),
+    createdAt: createdAt(),
+    updatedAt: stamp('updated_at'),
+  },
+  (t) => [
+    index('order_changes_order_idx').on(t.orderId),
+    index('order_changes_user_idx').on(t.userId),
+    index('order_changes_refund_idx').on(t.refundState),
+    oneOf('order_changes', 'kind', ORDER_CHANGE_KINDS),
+    oneOf('order_changes', 'settlement', ORDER_CHANGE_SETTLEMENTS),
+    oneOf('order_changes', 'refund_state', ORDER_CHANGE_REFUND_STATES),
+    holds('order_changes', 'money', 'before_total_cents >= 0 AND after_total_cents >= 0 AND adjustment_cents >= 0 AND refund_attempts >= 0'),
+    holds('order_changes', 'refund', "(settlement = 'card-refund') = (refund_state IS NOT NULL)"),
+  ],
+);
+
+/**
+ * Named parts lists of a trade account ("van stock", "season rebuild kit"): every user of the account sees and edits
+ * them. A part is on a list once, with the quantity to order.
+ */
+export const partsLists = sqliteTable(
+  'parts_lists',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    dealerAccountId: integer('dealer_account_id')
+      .notNull()
+      .references(() => dealerAccounts.id, { onDelete: 'cascade' }),
+    name: text('name').notNull(),
+    createdBy: text('created_by').references(() => user.id, { onDelete: 'set null' }),
+    updatedBy: text('updated_by').references(() => user.id, { onDelete: 'set null' }),
+    createdAt: createdAt(),
+    updatedAt: stamp('updated_at'),
+  },
+  (t) => [
+    uniqueIndex('parts_lists_dealer_name_uq').on(t.dealerAccountId, sql`lower(${t.name})`),
+    index('parts_lists_created_by_idx').on(t.createdBy),
+    index('parts_lists_updated_by_idx').on(t.updatedBy),
+  ],
+);
+
+export const partsListLines = sqliteTable(
+  'parts_list_lines',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    listId: integer('list_id')
+      .notNull()
+      .references(() => partsLists.id, { onDelete: 'cascade' }),
+    partId: integer('part_id')
+      .notNull()
+      .references(() => parts.id),
+    quantity: integer('quantity').notNull(),
+    addedBy: text('added_by').references(() => user.id, { onDelete: 'set null' }),
+    createdAt: createdAt(),
+  },
+  (t) => [
+    uniqueIndex('parts_list_lines_list_part_uq').on(t.listId, t.partId),
+    index('parts_list_lines_part_idx').on(t.partId),
+    index('parts_list_lines_added_by_idx').on(t.addedBy),
+    holds('parts_list_lines', 'quantity', 'quantity > 0'),
+  ],
 );

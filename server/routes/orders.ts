@@ -1,5 +1,6 @@
 import { Router } from 'express';
 import { CheckoutSchema } from '../../shared/schemas/orders';
+import { ChangeOrderSchema } from '../../shared/schemas/order-changes';
 import { HttpError, parseOr400 } from '../middleware/errors';
 import { requireUser } from '../middleware/session';
 import type { CartService } from '../services/cart';
@@ -32,6 +33,17 @@ export function ordersRouter(orders: OrderService): Router {
     const user = requireUser(res);
     if (user.role !== 'customer' && user.role !== 'dealer') throw new HttpError(403, 'Only buyers reorder');
     res.status(201).json(orders.reorder(user, String(req.params.number).slice(0, 20)));
+  });
+  // Changes before picking starts: what may be done now, lowering quantities, cancelling. 409 once picking has begun.
+  router.get('/:number/changes', (req, res) => {
+    res.json(orders.changesOf(requireUser(res), String(req.params.number).slice(0, 20)));
+  });
+  router.post('/:number/changes', async (req, res) => {
+    const input = parseOr400(ChangeOrderSchema, req.body, 'The change is not valid');
+    res.status(201).json(await orders.changeOrder(requireUser(res), String(req.params.number).slice(0, 20), input));
+  });
+  router.post('/:number/cancel', async (req, res) => {
+    res.status(201).json(await orders.cancelOrder(requireUser(res), String(req.params.number).slice(0, 20)));
   });
   return router;
 }

@@ -1,7 +1,7 @@
 import { eq } from 'drizzle-orm';
 import { z } from 'zod';
 import type { Db } from '../db/client';
-import { creditNotes, dealerAccounts, dealerMembers, orderLines, orders, parts, returns, shipments, user } from '../db/schema';
+import { creditNotes, dealerAccounts, dealerMembers, orderChanges, orderLines, orders, parts, returns, shipments, user } from '../db/schema';
 import { CATEGORY_SLUGS } from '../../shared/catalog';
 import { DEALER_TIERS } from '../../shared/pricing';
 import { enqueueMail } from './mail-outbox';
@@ -23,6 +23,9 @@ import type { WarehouseNotifier } from './warehouse';
 import type { ReturnsNotifier } from './returns';
 import type { MailAddress } from './mail-templates/types';
 import type { OrderNotifier } from './orders';
+import type { OrderChangeNotifier } from './orders/order-changes';
+import { renderOrderChanged } from './mail-templates/order-changed';
+import { OrderChangeLineSchema } from '../../shared/schemas/order-changes';
 
 /** parts.category is plain text in the schema; the templates take the shop's category slugs. */
 const categorySlug = z.enum(CATEGORY_SLUGS);
@@ -106,7 +109,7 @@ export function createNotifications(deps: { db: Db; publicUrl: string }) {
     return order ? { order, lines } : null;
   };
 
-  const orderMail: OrderNotifier = {
+  const orderMail: OrderNotifier & OrderChangeNotifier = {
     orderConfirmed(q, orderId) {
       const found = load(q, orderId);
       if (!found) return;
@@ -151,6 +154,26 @@ export function createNotifications(deps: { db: Db; publicUrl: string }) {
       send(q, 'payment-failed', () => ({
         to: order.email,
         ...renderPaymentFailed({ orderNumber: order.number, customerName: order.userName, amountCents: order.totalCents, declineMessage: reason, retryUrl: url('/cart') }),
+      }));
+    },
+    orderChanged(q, changeId) {
+      const c = q.select().from(orderChanges).where(eq(orderChanges.id, changeId)).get();
+      const order = c ? orderRow(q, c.orderId) : undefined;
+      if (!c || !order) return;
+      send(q, 'order-changed', () => ({
+        to: order.email,
+        ...renderOrderChanged({
+          orderNumber: order.number,
+          customerName: order.userName,
+          kind: c.kind,
+          lines: OrderChangeLineSchema.array().parse(c.lines),
+          beforeTotalCents: c.beforeTotalCents,
+          afterTotalCents: c.afterTotalCents,
+          adjustmentCents: c.adjustmentCents,
+          settlement: c.settlement,
+          purchaseOrder: order.purchaseOrder ?? undefined,
+          orderUrl: url(`/orders/${order.number}`),
+        }),
       }));
     },
     backordered(q, orderId) {

@@ -15,6 +15,7 @@ export const MAIL_KIND_LABELS = {
   'password-reset': 'Password reset link',
   'account-confirm': 'Account confirmation link',
   'existing-account-notice': 'Sign-up for an existing account',
+  'order-changed': 'Order changed or cancelled',
 } as const satisfies Record<(typeof MAIL_KINDS)[number], string>;
 
 export const MAIL_STATE_LABELS = {

@@ -2,7 +2,7 @@ import { and, desc, eq, gt, inArray, isNotNull, isNull, lt, sql } from 'drizzle-
 import Stripe from 'stripe';
 import { z } from 'zod';
 import type { Db } from '../../db/client';
-import { orderLines, orders, paymentAlerts, paymentEvents } from '../../db/schema';
+import { orderChanges, orderLines, orders, paymentAlerts, paymentEvents } from '../../db/schema';
 import { PaymentDeclinedError } from '../errors';
 import type { CurrentUser } from '../current-user';
 import type { Checkout, CheckoutResponse } from '../../../shared/schemas/orders';
@@ -192,7 +192,7 @@ export function createOrderPayments(deps: OrderPaymentsDeps) {
   async function settle(order: OrderHeader, intent: Stripe.PaymentIntent, reason: string): Promise<'paid' | 'cancelled' | 'refunded' | 'open'> {
     if (intent.status === 'succeeded') {
       if (order.status === 'pending_payment') return markPaid(order.id, 'Card payment received') ? 'paid' : 'open';
-      if (order.status === 'cancelled') {
+      if (order.status === 'cancelled' && order.paymentState === 'failed') {
         await refundStray(order, intent.id, intent.amount_received || intent.amount, 'A card payment succeeded after the order was cancelled:');
         return 'refunded';
       }
@@ -329,14 +329,22 @@ export function createOrderPayments(deps: OrderPaymentsDeps) {
           return { ...none, effect: 'paid', orderId: order.id };
         }
         // Money taken for an order that no longer awaits it: refunded after this transaction.
-        return { ...none, effect: order.status === 'cancelled' ? 'stray' : null, orderId: order.id };
+        // (A buyer's cancel of a paid order refunds through its order change, so only an unpaid cancel makes a stray.)
+        return { ...none, effect: order.status === 'cancelled' && order.paymentState === 'failed' ? 'stray' : null, orderId: order.id };
       }
       if (event.type === 'payment_intent.payment_failed') {
         // The cancelling itself runs after this transaction, through cancelForNonPayment.
         return { ...none, effect: order.status === 'pending_payment' ? 'failed' : null, orderId: order.id };
       }
       if (event.type === 'charge.refunded' && typeof object.amount_refunded === 'number') {
-        const refunded = Math.min(object.amount_refunded, order.totalCents);
+        // The charge counts every refund; those of order changes lowered the order's total instead of refunding part of it.
+        const amended = tx
+          .select({ n: sql<number>`coalesce(sum(${orderChanges.adjustmentCents}), 0)` })
+          .from(orderChanges)
+          .where(and(eq(orderChanges.orderId, order.id), eq(orderChanges.kind, 'change'), eq(orderChanges.settlement, 'card-refund')))
+          .get();
+        const refunded = Math.min(Math.max(0, object.amount_refunded - (amended?.n ?? 0)), order.totalCents);
+        if (refunded === 0) return { ...none, orderId: order.id };
         tx.update(orders)
           .set({ refundedCents: sql`max(${orders.refundedCents}, ${refunded})`, paymentState: refunded >= order.totalCents ? 'refunded' : 'partially_refunded' })
           .where(eq(orders.id, order.id))
@@ -411,7 +419,7 @@ export function createOrderPayments(deps: OrderPaymentsDeps) {
       .select({ id: orders.id, createdAt: orders.createdAt })
       .from(orders)
       .leftJoin(paymentAlerts, eq(paymentAlerts.orderId, orders.id))
-      .where(and(eq(orders.status, 'cancelled'), eq(orders.paymentMethod, 'card'), isNotNull(orders.paymentIntentId), gt(orders.updatedAt, recentCutoff), isNull(paymentAlerts.id)))
+      .where(and(eq(orders.status, 'cancelled'), eq(orders.paymentState, 'failed'), eq(orders.paymentMethod, 'card'), isNotNull(orders.paymentIntentId), gt(orders.updatedAt, recentCutoff), isNull(paymentAlerts.id)))
       .orderBy(desc(orders.id))
       .limit(50)
       .all();

@@ -66,6 +66,9 @@ export function AccountRoute() {
             <Link to="/trade/stock-list" className={buttonClass('secondary')}>
               Stock-list upload
             </Link>
+            <Link to="/trade/lists" className={buttonClass('secondary')}>
+              Parts lists
+            </Link>
           </>
         )}
         {user.role === 'warehouse' && (

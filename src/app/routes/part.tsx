@@ -7,6 +7,7 @@ import { ApiError } from '../../lib/api-client';
 import { ErrorState, LoadingState } from '../../components/ui/states';
 import { useMe } from '../../features/auth/api/get-me';
 import { AddToCart } from '../../features/cart/components/add-to-cart';
+import { AddToList } from '../../features/lists/components/add-to-list';
 import { usePart } from '../../features/catalog/api/get-part';
 import { PartCautions } from '../../features/catalog/components/part-cautions';
 import { PartListItem } from '../../features/catalog/components/part-list-item';
@@ -152,6 +153,7 @@ export function PartRoute() {
               {...(Number.isInteger(fitmentParam) && fitmentParam > 0 && me.data?.user ? { fitmentId: fitmentParam } : {})}
             />
           )}
+          {dealer && <AddToList source={{ kind: 'part', partNumber: p.partNumber }} />}
           <p className="tabular text-sm text-cast">Shipping weight {(p.weightGrams / 1000).toFixed(p.weightGrams < 1000 ? 2 : 1)} kg</p>
           {p.frame && (
             <Link to={`/fitment?frame=${p.frame.code}`} className={buttonClass('secondary')}>

@@ -54,6 +54,11 @@ export function AccountMenu({ user, onSignOut, signingOut }: { user: User; onSig
                   Stock list
                 </MenuItem>
               )}
+              {trade && (
+                <MenuItem href="/trade/lists" className={itemClass}>
+                  Parts lists
+                </MenuItem>
+              )}
               <MenuItem href="/fitment/saved" className={itemClass}>
                 Saved checks
               </MenuItem>

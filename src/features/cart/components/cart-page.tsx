@@ -1,3 +1,4 @@
+import type { ReactNode } from 'react';
 import { ArrowRight, Gauge, Info, Trash2 } from 'lucide-react';
 import { Link } from 'react-router-dom';
 import { formatPrice } from '../../../../shared/catalog';
@@ -160,7 +161,8 @@ function ZoneSelect({ cart }: { cart: CartView }) {
   );
 }
 
-export function CartPage({ tradeTools }: { tradeTools: boolean }) {
+/** `saveToList` is the page's "save the cart to a list" tool for trade accounts (another feature owns lists). */
+export function CartPage({ tradeTools, saveToList }: { tradeTools: boolean; saveToList?: ReactNode }) {
   const cart = useCart();
   if (cart.isPending) return <LoadingState label="Loading your cart…" />;
   if (cart.isError) return <ErrorState title="Your cart did not load" message={cart.error.message} onRetry={() => cart.refetch()} />;
@@ -255,6 +257,7 @@ export function CartPage({ tradeTools }: { tradeTools: boolean }) {
                 <ArrowRight aria-hidden className="size-5" />
               </Link>
             )}
+            {saveToList}
           </aside>
         </div>
       )}

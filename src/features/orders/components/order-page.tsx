@@ -1,3 +1,4 @@
+import type { ReactNode } from 'react';
 import { CircleCheck, CircleX, Hourglass, Printer, Truck } from 'lucide-react';
 import { Link } from 'react-router-dom';
 import type { OrderDetail } from '../../../../shared/schemas/orders';
@@ -10,6 +11,7 @@ import { formatDateTime } from '../../../../shared/format';
 import { StatusBadge } from '../../../components/ui/status-badge';
 import { OrderTimeline } from './order-timeline';
 import { ReorderButton } from './reorder-button';
+import { OrderChanges, useBuyerCancelled } from './order-changes';
 
 const PAYMENT_STATE_WORDS: Record<string, string> = {
   awaiting: 'Waiting for the card payment to be confirmed',
@@ -22,6 +24,7 @@ const PAYMENT_STATE_WORDS: Record<string, string> = {
 };
 
 function PaymentBanner({ order, placed }: { order: OrderDetail; placed: boolean }) {
+  const buyerCancelled = useBuyerCancelled(order.number);
   if (order.status === 'pending_payment') {
     // Polling stops after about PAYMENT_POLL_LIMIT answers; by then the order is old enough to say so.
     const slow = Date.now() - Date.parse(order.createdAt) > (PAYMENT_POLL_LIMIT * PAYMENT_POLL_MS) / 2;
@@ -37,7 +40,7 @@ function PaymentBanner({ order, placed }: { order: OrderDetail; placed: boolean 
       </div>
     );
   }
-  if (order.status === 'cancelled' && order.paymentState === 'failed') {
+  if (order.status === 'cancelled' && order.paymentState === 'failed' && !buyerCancelled) {
     return (
       <div role="alert" className="flex items-start gap-3 rounded-md border-2 border-oxide bg-oxide-tint p-4">
         <CircleX aria-hidden className="mt-0.5 size-5 shrink-0 text-oxide" />
@@ -68,7 +71,8 @@ function PaymentBanner({ order, placed }: { order: OrderDetail; placed: boolean 
   return null;
 }
 
-export function OrderPage({ number, placed, onReorderAdded }: { number: string; placed: boolean; onReorderAdded: () => void }) {
+/** `saveToList` is the page's "save this order to a list" tool for trade accounts (another feature owns lists). */
+export function OrderPage({ number, placed, onReorderAdded, saveToList }: { number: string; placed: boolean; onReorderAdded: () => void; saveToList?: ReactNode }) {
   const order = useOrder(number);
   if (order.isPending) return <LoadingState label={`Loading order ${number}…`} />;
   if (order.isError) {
@@ -135,6 +139,7 @@ export function OrderPage({ number, placed, onReorderAdded }: { number: string; 
             </h2>
             <OrderTotals order={o} />
           </section>
+          <OrderChanges order={o} />
         </div>
         <aside className="grid min-w-0 content-start gap-6" aria-label="Order details">
           <section aria-labelledby="timeline-heading">
@@ -207,6 +212,7 @@ export function OrderPage({ number, placed, onReorderAdded }: { number: string; 
           </section>
           <div className="grid gap-3">
             {canReorder && <ReorderButton number={o.number} onAdded={onReorderAdded} />}
+            {saveToList}
             <Link to={`/orders/${encodeURIComponent(o.number)}/invoice`} className={buttonClass('secondary')}>
               <Printer aria-hidden className="size-4" />
               {o.paymentMethod === 'account' ? 'Printable invoice' : 'Printable receipt'}
