@@ -1,7 +1,7 @@
 import Stripe from 'stripe';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { CartViewSchema, CheckoutResponseSchema, ImportPreviewSchema, OrderDetailSchema, type CartView } from '../../shared/schemas/orders';
-import { TEST_WEBHOOK_SECRET } from '../support/app-deps';
+import { paymentsClient, TEST_WEBHOOK_SECRET } from '../support/app-deps';
 import { createCustomer, createDealer, createUser, type DealerOverrides, type TestUser } from '../support/factories';
 import { setAvailable as setStock } from '../support/stock';
 import { startTestApp, type TestApp } from '../support/test-app';
@@ -290,6 +290,30 @@ describe('checkout by card', () => {
     expect(sql('SELECT 1 FROM payment_events WHERE event_id = ?', succeeded.event.id)).toHaveLength(1);
     const confirmations = t.mail!.messages().filter((m) => m.to.includes(email) && m.subject.includes(`Order ${order.number} confirmed`));
     expect(confirmations).toHaveLength(1);
+  });
+
+  it('takes a card payment in one call to the provider (created and confirmed together), still paid by the webhook', async () => {
+    const { c } = await freshCustomer();
+    await c.add(GASKET, 1);
+    const { order } = CheckoutResponseSchema.parse((await c.call('POST', '/api/checkout', { method: 'card', paymentMethod: 'pm_card_visa', delivery: DELIVERY })).body);
+    await waitForStatus(c, order.number, 'paid');
+    const intent = orderRow(order.number).payment_intent_id!;
+    const events = t.payments!.events().filter((e) => (e.event.data.object as { id: string }).id === intent);
+    expect(events.map((e) => e.event.type)).toEqual(expect.arrayContaining(['payment_intent.created', 'payment_intent.succeeded']));
+    // Every event of the payment came from one API request, made with the order's key.
+    expect(new Set(events.map((e) => e.event.request.id)).size).toBe(1);
+    expect(events[0]!.event.request.idempotency_key).toBe(`order-${order.number}-intent`);
+  });
+
+  it('a card declined in the one payment call is cancelled at the provider before the order', async () => {
+    const { c, email } = await freshCustomer();
+    await c.add(GASKET, 1);
+    const res = await c.call('POST', '/api/checkout', { method: 'card', paymentMethod: 'pm_card_chargeDeclined', delivery: DELIVERY });
+    expect(res.status).toBe(402);
+    const [row] = sql<{ status: string; intent: string | null }>('SELECT o.status, o.payment_intent_id AS intent FROM orders o JOIN user u ON u.id = o.user_id WHERE u.email = ?', email);
+    expect(row).toMatchObject({ status: 'cancelled', intent: expect.stringMatching(/^pi_/) });
+    const held = await paymentsClient(t.payments!.port).paymentIntents.retrieve(row!.intent!);
+    expect(held).toMatchObject({ status: 'canceled', amount_received: 0 });
   });
 
   it('a late payment_failed after succeeded never downgrades a paid order', async () => {
