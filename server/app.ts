@@ -47,6 +47,7 @@ import { createFitmentService } from './services/fitment';
 import { createShaftLogService } from './services/shaft-logs';
 import { createSearchService } from './services/search';
 import { createStockService } from './services/stock';
+import { adminOfficeRouter } from './routes/admin-office';
 
 export interface AppConfig {
   publicUrl: string;
@@ -234,6 +235,7 @@ export function createApp(deps: AppDeps) {
   app.use('/api/admin/dealers', adminDealersRouter(dealers));
   app.use('/api/admin/mail', adminMailRouter(mailOutbox));
   app.use('/api/admin/payment-alerts', adminPaymentsRouter(orders));
+  app.use('/api/admin/office', adminOfficeRouter(db));
   if (config.devTools) app.use('/api/dev', devRouter({ mailInboxUrl: config.mailInboxUrl, paymentsApiUrl: config.paymentsApiUrl, orders }));
   app.use('/api', apiNotFound);
 
