@@ -53,6 +53,7 @@ import { createStockService } from './services/stock';
 import { DEFAULT_TRACKING_URLS, type TrackingUrlPatterns } from '../shared/carriers';
 import { createPartsListsService } from './services/parts-lists';
 import { partsListsRouter } from './routes/parts-lists';
+import { adminOfficeRouter } from './routes/admin-office';
 
 export interface AppConfig {
   publicUrl: string;
@@ -246,6 +247,7 @@ export function createApp(deps: AppDeps) {
   app.use('/api/admin/dealers', adminDealersRouter(dealers));
   app.use('/api/admin/mail', adminMailRouter(mailOutbox));
   app.use('/api/admin/payment-alerts', adminPaymentsRouter(orders));
+  app.use('/api/admin/office', adminOfficeRouter(db));
   if (config.devTools) app.use('/api/dev', devRouter({ mailInboxUrl: config.mailInboxUrl, paymentsApiUrl: config.paymentsApiUrl, orders }));
   app.use('/api', apiNotFound);
 

@@ -66,7 +66,7 @@ const WORKSPACE_LINKS: Record<Role, Array<{ name: Workspace; to: string }>> = {
   customer: [],
   dealer: [],
   warehouse: [{ name: 'Floor', to: '/floor' }],
-  admin: [{ name: 'Office', to: '/office/dealers' }],
+  admin: [{ name: 'Office', to: '/office' }],
 };
 
 function WorkspaceNav({ role, current }: { role: Role; current: Workspace }) {

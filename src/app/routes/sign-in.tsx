@@ -3,15 +3,15 @@ import { Link, useNavigate, useSearchParams } from 'react-router-dom';
 import { buttonClass } from '../../components/ui/button';
 import { ErrorState, LoadingState } from '../../components/ui/states';
 import { authKeys } from '../../features/auth/api/keys';
-import { useMe } from '../../features/auth/api/get-me';
 import { SignInForm } from '../../features/auth/components/sign-in-form';
-import { safeNextPath } from '../../features/auth/next-path';
-import { ROLE_LABELS } from '../../features/auth/roles';
+import { meQueryOptions, useMe } from '../../features/auth/api/get-me';
+import { landingPath } from '../../features/auth/next-path';
+import { ROLE_HOME, ROLE_LABELS } from '../../features/auth/roles';
 import { cartKeys } from '../../features/cart/api/keys';
 
 export function SignInRoute() {
   const [params] = useSearchParams();
-  const next = safeNextPath(params.get('next'));
+  const nextParam = params.get('next');
   const navigate = useNavigate();
   const client = useQueryClient();
   const me = useMe();
@@ -19,7 +19,8 @@ export function SignInRoute() {
   const onSignedIn = async () => {
     // The server joins a guest cart to the user's on the next cart request, so both are read again.
     await Promise.all([client.invalidateQueries({ queryKey: authKeys.all }), client.invalidateQueries({ queryKey: cartKeys.all })]);
-    navigate(next, { replace: true });
+    const role = (await client.fetchQuery(meQueryOptions())).user?.role;
+    navigate(landingPath(nextParam, role ? ROLE_HOME[role] : '/'), { replace: true });
   };
 
   return (
@@ -37,7 +38,7 @@ export function SignInRoute() {
           <p>
             You are signed in as <span className="font-semibold">{me.data.user.name}</span> ({ROLE_LABELS[me.data.user.role]}).
           </p>
-          <Link to={next} className={`${buttonClass('primary')} mt-3`}>
+          <Link to={landingPath(nextParam, ROLE_HOME[me.data.user.role])} className={`${buttonClass('primary')} mt-3`}>
             Continue
           </Link>
         </div>

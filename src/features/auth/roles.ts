@@ -8,3 +8,11 @@ export const ROLE_LABELS: Record<Role, string> = {
   warehouse: 'Warehouse staff',
   admin: 'Administrator',
 };
+
+/** Where each role starts its day: staff in their workspace, buyers at the Counter. */
+export const ROLE_HOME: Record<Role, string> = {
+  customer: '/',
+  dealer: '/',
+  warehouse: '/floor',
+  admin: '/office',
+};

@@ -7,4 +7,5 @@ export const officeKeys = {
   mail: () => [...officeKeys.all, 'mail'] as const,
   mailList: (state: string, page: number) => [...officeKeys.mail(), { state, page }] as const,
   paymentAlerts: () => [...officeKeys.all, 'payment-alerts'] as const,
+  summary: () => [...officeKeys.all, 'summary'] as const,
 };

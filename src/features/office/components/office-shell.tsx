@@ -10,6 +10,9 @@ const tab = ({ isActive }: { isActive: boolean }) =>
 export function OfficeNav() {
   return (
     <nav aria-label="Office" className="flex flex-wrap gap-2 border-b border-cast-line">
+      <NavLink to="/office" end className={tab}>
+        Overview
+      </NavLink>
       <NavLink to="/office/parts" className={tab}>
         Catalogue
       </NavLink>
