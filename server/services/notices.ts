@@ -7,6 +7,7 @@ import type { NoticeKind } from '../../shared/allowed-values';
 import type { CurrentUser } from './current-user';
 import type { Query } from './orders/order-reads';
 import type { OrderNotifier } from './orders';
+import type { OrderChangeNotifier } from './orders/order-changes';
 import type { WarehouseNotifier } from './warehouse';
 import type { ReturnsNotifier } from './returns';
 import { NotFoundError } from './errors';
@@ -151,14 +152,16 @@ export type NoticesService = ReturnType<typeof createNotices>;
 
 /** The notifiers the services call: each change is e-mailed (the outbox) and kept as an on-site notice, in one transaction. */
 export function withNotices(
-  mail: { orders: OrderNotifier; warehouse: WarehouseNotifier; returns: ReturnsNotifier },
+  mail: { orders: OrderNotifier & OrderChangeNotifier; warehouse: WarehouseNotifier; returns: ReturnsNotifier },
   notices: Pick<NoticesService, 'orders' | 'warehouse' | 'returns'>,
-): { orders: OrderNotifier; warehouse: WarehouseNotifier; returns: ReturnsNotifier } {
+): { orders: OrderNotifier & OrderChangeNotifier; warehouse: WarehouseNotifier; returns: ReturnsNotifier } {
   return {
     orders: {
       orderConfirmed: (tx, id) => (mail.orders.orderConfirmed(tx, id), notices.orders.orderConfirmed(tx, id)),
       paymentFailed: (tx, id, reason) => (mail.orders.paymentFailed(tx, id, reason), notices.orders.paymentFailed(tx, id, reason)),
       backordered: (tx, id) => (mail.orders.backordered(tx, id), notices.orders.backordered(tx, id)),
+      // A buyer's own change is confirmed by e-mail only: they made it on the page that shows it.
+      orderChanged: (tx, id) => mail.orders.orderChanged(tx, id),
     },
     warehouse: {
       pickingStarted: (tx, id) => (mail.warehouse.pickingStarted?.(tx, id), notices.warehouse.pickingStarted?.(tx, id)),
