@@ -81,6 +81,11 @@ export const parts = sqliteTable(
     minStock: integer('min_stock').notNull().default(0),
     /** On hand less reserved over all bins, kept by the stock service with every movement (a test checks it). */
     available: integer('available').notNull().default(0),
+    /**
+     * The bearing in the part's specs, copied by triggers (drizzle/0011) whenever the specs are written, so the
+     * catalogue filters and sorts by it through an index on parts. Never written by code: part_specs holds it.
+     */
+    bearing: text('bearing', { enum: BEARINGS }),
     createdAt: createdAt(),
     updatedAt: stamp('updated_at'),
   },
@@ -88,10 +93,25 @@ export const parts = sqliteTable(
     uniqueIndex('parts_part_number_uq').on(t.partNumber),
     index('parts_normalized_number_idx').on(t.normalizedNumber),
     index('parts_frame_idx').on(t.frameCode, t.status, t.available),
-    // Covers the catalogue's counts and facets, so they scan an index instead of the table.
-    index('parts_listing_idx').on(t.category, t.frameCode, t.status, t.available),
     // The catalogue's default order (category as the shop lists them, frame, number), so a page is read in order.
     index('parts_browse_order_idx').on(sql`${CATEGORY_ORDER_SQL}`, t.frameCode, t.partNumber),
+    // One index per sort, alone and behind each filter that narrows by equality (category, frame), so a page of any
+    // list is read in order and stops after the page instead of sorting every matching part. Counts and facets come
+    // from catalogCounts, not from these. Stock moves leave them alone: none holds `available`.
+    index('parts_category_browse_idx').on(t.category, t.frameCode, t.partNumber),
+    index('parts_frame_browse_idx').on(t.frameCode, sql`${CATEGORY_ORDER_SQL}`, t.partNumber),
+    index('parts_price_idx').on(t.priceCents, t.partNumber),
+    index('parts_category_price_idx').on(t.category, t.priceCents, t.partNumber),
+    index('parts_frame_price_idx').on(t.frameCode, t.priceCents, t.partNumber),
+    index('parts_category_number_idx').on(t.category, t.partNumber),
+    index('parts_frame_number_idx').on(t.frameCode, t.partNumber),
+    index('parts_title_idx').on(t.title, t.partNumber),
+    index('parts_category_title_idx').on(t.category, t.title, t.partNumber),
+    index('parts_frame_title_idx').on(t.frameCode, t.title, t.partNumber),
+    index('parts_bearing_browse_idx').on(t.bearing, sql`${CATEGORY_ORDER_SQL}`, t.frameCode, t.partNumber),
+    index('parts_bearing_price_idx').on(t.bearing, t.priceCents, t.partNumber),
+    index('parts_bearing_number_idx').on(t.bearing, t.partNumber),
+    index('parts_bearing_title_idx').on(t.bearing, t.title, t.partNumber),
     oneOf('parts', 'status', PART_STATUSES),
     oneOf('parts', 'condition', PART_CONDITIONS),
     oneOf('parts', 'category', CATEGORY_SLUGS),
@@ -841,4 +861,23 @@ export const partsListLines = sqliteTable(
     index('parts_list_lines_added_by_idx').on(t.addedBy),
     holds('parts_list_lines', 'quantity', 'quantity > 0'),
   ],
+);
+
+/**
+ * How many parts share each combination of the catalogue's filters (category, frame, bearing, status, in stock),
+ * kept by triggers on parts and part_specs in the same statement as the change (drizzle/0011), so the list's total
+ * and its facet counts add up a few hundred rows instead of counting the parts. '' stands for no frame or no bearing.
+ * A combination whose parts all went keeps its row at zero.
+ */
+export const catalogCounts = sqliteTable(
+  'catalog_counts',
+  {
+    category: text('category').notNull(),
+    frameCode: text('frame_code').notNull(),
+    bearing: text('bearing').notNull(),
+    status: text('status', { enum: PART_STATUSES }).notNull(),
+    inStock: integer('in_stock', { mode: 'boolean' }).notNull(),
+    partCount: integer('part_count').notNull(),
+  },
+  (t) => [primaryKey({ columns: [t.category, t.frameCode, t.bearing, t.status, t.inStock] })],
 );

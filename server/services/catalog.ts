@@ -1,10 +1,10 @@
 import { createHash } from 'node:crypto';
 import zlib from 'node:zlib';
 import { and, asc, count, desc, eq, getTableColumns, gt, gte, lte, ne, sql, type SQL } from 'drizzle-orm';
-import type { SelectedFields } from 'drizzle-orm/sqlite-core';
+import type { SelectedFields, SQLiteColumn } from 'drizzle-orm/sqlite-core';
 import type { Db } from '../db/client';
 import { changeFeedFor, type ChangeVersions } from '../db/change-feed';
-import { bins, CATEGORY_ORDER_EXPR, frames, partAliases, partLinks, parts, partSpecs, stock } from '../db/schema';
+import { bins, catalogCounts, CATEGORY_ORDER_EXPR, frames, partAliases, partLinks, parts, partSpecs, stock } from '../db/schema';
 import { CATEGORIES, categoryLabel, stockState, trimPct, type CategorySlug } from '../../shared/catalog';
 import { normalizePartNumber } from '../../shared/part-number';
 import type { FrameSummary, PartDetail, PartsListResponse, PartsQuery, PartSummary } from '../../shared/schemas/parts';
@@ -52,16 +52,38 @@ const CATEGORY_ORDER = sql.raw(CATEGORY_ORDER_EXPR);
 
 type Filter = 'category' | 'frame' | 'bearing' | 'stock' | 'power';
 
-function whereFor(query: PartsQuery, skip: Filter | null, includeSuperseded: boolean): SQL | undefined {
+type EqualityFilter = 'category' | 'frame' | 'bearing';
+
+/**
+ * The list's conditions. `indexed` names the equality filters SQLite may read an index by (all when not given); the
+ * others are written with a unary +, which SQLite does not use to choose an index (SQLite's query optimizer overview,
+ * "Disqualifying WHERE clause terms"), so the list is read through the index of the filter that matches fewest parts.
+ */
+function whereFor(query: PartsQuery, skip: Filter | null, includeSuperseded: boolean, indexed?: ReadonlySet<EqualityFilter>): SQL | undefined {
+  const equals = (filter: EqualityFilter, column: SQLiteColumn, value: string) =>
+    !indexed || indexed.has(filter) ? eq(column, value) : sql`+${column} = ${value}`;
   return and(
     includeSuperseded ? undefined : ne(parts.status, 'superseded'),
-    query.category && skip !== 'category' ? eq(parts.category, query.category) : undefined,
-    query.frame && skip !== 'frame' ? eq(parts.frameCode, query.frame) : undefined,
-    query.bearing && skip !== 'bearing' ? eq(partSpecs.bearing, query.bearing) : undefined,
+    query.category && skip !== 'category' ? equals('category', parts.category, query.category) : undefined,
+    query.frame && skip !== 'frame' ? equals('frame', parts.frameCode, query.frame) : undefined,
+    query.bearing && skip !== 'bearing' ? equals('bearing', parts.bearing, query.bearing) : undefined,
     query.inStock && skip !== 'stock' ? gt(parts.available, 0) : undefined,
+    powerFilter(query, parts.frameCode),
+  );
+}
+
+/**
+ * Parts of the frames whose power band meets the range asked for. The frames are listed once (a small subquery) and
+ * each part's frame looked up in that list; the unary + keeps SQLite reading parts in the order's index rather than
+ * by frame and then sorting them all.
+ */
+function powerFilter(query: PartsQuery, frameCode: SQLiteColumn): SQL | undefined {
+  if (query.minHp === undefined && query.maxHp === undefined) return undefined;
+  const fitting = and(
     query.minHp !== undefined ? gte(frames.powerMaxHp, query.minHp) : undefined,
     query.maxHp !== undefined ? lte(frames.powerMinHp, query.maxHp) : undefined,
   );
+  return sql`+${frameCode} IN (SELECT ${frames.code} FROM ${frames} WHERE ${fitting})`;
 }
 
 export function createCatalogService(db: Db, search: SearchService) {
@@ -139,6 +161,21 @@ export function createCatalogService(db: Db, search: SearchService) {
 
   const frameNames = () => new Map(db.select({ code: frames.code, name: frames.name }).from(frames).all().map((f) => [f.code, f.name]));
 
+  type RawFacets = Record<keyof PartsListResponse['facets'], Array<{ value: string; count: number }>>;
+  /** Facet values with the words a buyer reads, categories in the shop's order. */
+  function labelFacets(raw: RawFacets): PartsListResponse['facets'] {
+    const names = frameNames();
+    const order0 = new Map<string, number>(CATEGORIES.map((c, i) => [c.slug, i]));
+    return {
+      category: raw.category
+        .map((r) => ({ value: r.value, label: categoryLabel(r.value), count: r.count }))
+        .sort((a, b) => (order0.get(a.value) ?? 0) - (order0.get(b.value) ?? 0)),
+      frame: raw.frame.map((r) => ({ value: r.value, label: `${r.value} ${names.get(r.value) ?? ''}`.trim(), count: r.count })),
+      bearing: raw.bearing.map((r) => ({ value: r.value, label: r.value === 'ball' ? 'Ball bearing' : 'Journal bearing', count: r.count })),
+      stock: raw.stock.map((r) => ({ value: r.value, label: r.value === 'true' ? 'In stock' : 'Not in stock', count: r.count })),
+    };
+  }
+
   function listParts(query: PartsQuery): PartsListResponse {
     const page = query.page ?? 1;
     const pageSize = query.pageSize ?? PAGE_SIZE_DEFAULT;
@@ -156,16 +193,10 @@ export function createCatalogService(db: Db, search: SearchService) {
     const select = <T extends SelectedFields>(columns: T) => (ranked ? db.with(ranked).select(columns) : db.select(columns));
     // A search may find superseded numbers: show them, so a buyer sees what replaced the number typed.
     const searching = hits !== null;
-    // Join only what the filter needs: counting 50,000 parts through two joins costs ten times a bare scan.
-    const needsSpecs = (skip: Filter | null) => query.bearing !== undefined && skip !== 'bearing';
-    const needsFrames = query.minHp !== undefined || query.maxHp !== undefined;
 
-    let counted = select({ n: count() }).from(parts).$dynamic();
-    if (needsSpecs(null)) counted = counted.leftJoin(partSpecs, specsJoin);
-    if (needsFrames) counted = counted.leftJoin(frames, framesJoin);
-    if (ranked) counted = counted.innerJoin(ranked, eq(ranked.id, parts.id));
-    const total = counted.where(whereFor(query, null, searching)).get()?.n ?? 0;
-
+    const { total, facets, indexed } = ranked ? countRanked() : countFromTable();
+    // The default order is the category's place in the shop, then frame and number; within one category the first
+    // term is the same for every row, so it is left out and the category's own index gives the order.
     const order =
       query.sort === 'price-asc'
         ? [asc(parts.priceCents), parts.partNumber]
@@ -177,48 +208,102 @@ export function createCatalogService(db: Db, search: SearchService) {
               ? [parts.title, parts.partNumber]
               : ranked
                 ? [sql`${ranked.r}`]
-                : [CATEGORY_ORDER, parts.frameCode, parts.partNumber];
-    let listed = select(summaryColumns).from(parts).leftJoin(partSpecs, specsJoin).leftJoin(frames, framesJoin).$dynamic();
-    if (ranked) listed = listed.innerJoin(ranked, eq(ranked.id, parts.id));
-    const rows = listed
-      .where(whereFor(query, null, searching))
-      .orderBy(...order)
-      .limit(pageSize)
-      .offset((page - 1) * pageSize)
-      .all();
+                : query.category
+                  ? [parts.frameCode, parts.partNumber]
+                  : [CATEGORY_ORDER, parts.frameCode, parts.partNumber];
+    let rows: SummaryRow[] = [];
+    if ((page - 1) * pageSize < total) {
+      let listed = select(summaryColumns).from(parts).leftJoin(partSpecs, specsJoin).$dynamic();
+      if (ranked) listed = listed.innerJoin(ranked, eq(ranked.id, parts.id));
+      rows = listed
+        .where(whereFor(query, null, searching, indexed))
+        .orderBy(...order)
+        .limit(pageSize)
+        .offset((page - 1) * pageSize)
+        .all();
+    }
     const reasons = new Map(hits?.map((h) => [h.partId, h.reasons]) ?? []);
     const items = rows.map((r) => ({ ...toSummary(r), ...(hits ? { matched: reasons.get(r.id) ?? [] } : {}) }));
 
-    const facet = (skip: Filter, value: SQL<string | null>, joinSpecs = false) => {
-      let q = select({ value, count: count() }).from(parts).$dynamic();
-      if (joinSpecs || needsSpecs(skip)) q = q.leftJoin(partSpecs, specsJoin);
-      if (needsFrames) q = q.leftJoin(frames, framesJoin);
-      if (ranked) q = q.innerJoin(ranked, eq(ranked.id, parts.id));
-      return q
-        .where(whereFor(query, skip, searching))
-        .groupBy(value)
-        .orderBy(value)
-        .all()
-        .flatMap((r) => (r.value === null ? [] : [{ value: r.value, count: r.count }]));
-    };
-    const names = frameNames();
-    const order0 = new Map<string, number>(CATEGORIES.map((c, i) => [c.slug, i]));
-    const facets = {
-      category: facet('category', sql<string>`${parts.category}`)
-        .map((r) => ({ value: r.value, label: categoryLabel(r.value), count: r.count }))
-        .sort((a, b) => (order0.get(a.value) ?? 0) - (order0.get(b.value) ?? 0)),
-      frame: facet('frame', sql<string | null>`${parts.frameCode}`).map((r) => ({ value: r.value, label: `${r.value} ${names.get(r.value) ?? ''}`.trim(), count: r.count })),
-      bearing: facet('bearing', sql<string | null>`${partSpecs.bearing}`, true).map((r) => ({
-        value: r.value,
-        label: r.value === 'ball' ? 'Ball bearing' : 'Journal bearing',
-        count: r.count,
-      })),
-      stock: facet('stock', sql<string>`CASE WHEN ${parts.available} > 0 THEN 'true' ELSE 'false' END`).map((r) => ({
-        value: r.value,
-        label: r.value === 'true' ? 'In stock' : 'Not in stock',
-        count: r.count,
-      })),
-    };
+    /** A search's total and facets, counted over the parts it found. */
+    function countRanked(): Pick<PartsListResponse, 'total' | 'facets'> & { indexed?: ReadonlySet<EqualityFilter> } {
+      let counted = select({ n: count() }).from(parts).$dynamic();
+      if (ranked) counted = counted.innerJoin(ranked, eq(ranked.id, parts.id));
+      const total = counted.where(whereFor(query, null, searching)).get()?.n ?? 0;
+      const facet = (skip: Filter, value: SQL<string | null>) => {
+        let q = select({ value, count: count() }).from(parts).$dynamic();
+        if (ranked) q = q.innerJoin(ranked, eq(ranked.id, parts.id));
+        return q
+          .where(whereFor(query, skip, searching))
+          .groupBy(value)
+          .orderBy(value)
+          .all()
+          .flatMap((r) => (r.value === null ? [] : [{ value: r.value, count: r.count }]));
+      };
+      return {
+        total,
+        facets: labelFacets({
+          category: facet('category', sql<string>`${parts.category}`),
+          frame: facet('frame', sql<string | null>`${parts.frameCode}`),
+          bearing: facet('bearing', sql<string | null>`${parts.bearing}`),
+          stock: facet('stock', sql<string>`CASE WHEN ${parts.available} > 0 THEN 'true' ELSE 'false' END`),
+        }),
+      };
+    }
+
+    /**
+     * The catalogue's total and facets from the kept counts (catalogCounts): a few hundred rows however many parts,
+     * each facet counted with every filter but its own, as the search's are.
+     */
+    function countFromTable(): Pick<PartsListResponse, 'total' | 'facets'> & { indexed?: ReadonlySet<EqualityFilter> } {
+      const groups = db
+        .select({ category: catalogCounts.category, frame: catalogCounts.frameCode, bearing: catalogCounts.bearing, inStock: catalogCounts.inStock, n: catalogCounts.partCount })
+        .from(catalogCounts)
+        .where(
+          and(
+            ne(catalogCounts.status, 'superseded'),
+            gt(catalogCounts.partCount, 0),
+            powerFilter(query, catalogCounts.frameCode),
+          ),
+        )
+        .all();
+      const passes = (g: (typeof groups)[number], skip: Filter | null) =>
+        (!query.category || skip === 'category' || g.category === query.category) &&
+        (!query.frame || skip === 'frame' || g.frame === query.frame) &&
+        (!query.bearing || skip === 'bearing' || g.bearing === query.bearing) &&
+        (!query.inStock || skip === 'stock' || g.inStock);
+      const facet = (skip: Filter, valueOf: (g: (typeof groups)[number]) => string) => {
+        const counts = new Map<string, number>();
+        for (const g of groups) {
+          const value = valueOf(g);
+          // '' is no frame or no bearing: not offered as a choice, as a null value is not.
+          if (value !== '' && passes(g, skip)) counts.set(value, (counts.get(value) ?? 0) + g.n);
+        }
+        // Sorted as SQLite's ORDER BY on the text does (byte order), the order the search's facets come in.
+        return [...counts].sort(([a], [b]) => (a < b ? -1 : a > b ? 1 : 0)).map(([value, count]) => ({ value, count }));
+      };
+      // With two or three equality filters, the list is read by the one that matches fewest parts: an index read in
+      // the list's order then passes over at most that many parts, however the others are spread along the order.
+      // A category and a frame in the default order are read together: one index holds both, in that order.
+      const asked = (['category', 'frame', 'bearing'] as const).filter((f) => query[f] !== undefined);
+      let indexed: Set<EqualityFilter> | undefined;
+      if (query.category && query.frame && (query.sort ?? 'relevance') === 'relevance') {
+        indexed = new Set(['category', 'frame']);
+      } else if (asked.length > 1) {
+        const size = (f: EqualityFilter) => groups.reduce((sum, g) => (g[f] === query[f] ? sum + g.n : sum), 0);
+        indexed = new Set([asked.reduce((a, b) => (size(b) < size(a) ? b : a))]);
+      }
+      return {
+        indexed,
+        total: groups.reduce((sum, g) => (passes(g, null) ? sum + g.n : sum), 0),
+        facets: labelFacets({
+          category: facet('category', (g) => g.category),
+          frame: facet('frame', (g) => g.frame),
+          bearing: facet('bearing', (g) => g.bearing),
+          stock: facet('stock', (g) => String(g.inStock)),
+        }),
+      };
+    }
     return { items, total, page, pageSize, facets };
   }
 

@@ -6,7 +6,7 @@ import { drizzle } from 'drizzle-orm/better-sqlite3';
 import { migrate } from 'drizzle-orm/better-sqlite3/migrator';
 import { generateCatalogue } from '../../catalog-seed/generate';
 import { loadCatalogue } from '../../catalog-seed/load';
-import { openDatabase, type Db } from '../../server/db/client';
+import { openDatabase } from '../../server/db/client';
 import * as schema from '../../server/db/schema';
 import { afterAll, describe, expect, it } from 'vitest';
 import { ORDER_STATUSES, PART_STATUSES, STOCK_MOVEMENT_KINDS } from '../../shared/allowed-values';
@@ -63,6 +63,9 @@ describe('database constraints', () => {
       for (const event of ['insert', 'update', 'delete']) expect(triggers).toContain(`${table}_changed_${event}`);
     }
     expect(triggers).toContain('parts_available_changed');
+    // The catalogue's kept counts and the bearing copied onto each part (drizzle/0011).
+    for (const name of ['catalog_counts_part_insert', 'catalog_counts_part_update', 'catalog_counts_part_delete', 'parts_bearing_on_insert']) expect(triggers).toContain(name);
+    for (const event of ['insert', 'update', 'delete']) expect(triggers).toContain(`part_specs_bearing_${event}`);
   });
 
   it('indexes every foreign-key column (as the first column of some index or key)', () => {
@@ -104,7 +107,19 @@ describe('migrating a database that has data', () => {
       const sqlite = new Database(file);
       sqlite.pragma('foreign_keys = ON');
       migrate(drizzle(sqlite, { schema }), { migrationsFolder: folder });
-      loadCatalogue(drizzle(sqlite, { schema }) as Db, generateCatalogue());
+      // Today's loader writes today's columns, so the catalogue is loaded into a current database and its rows copied
+      // into the old one, column by column as far as the old tables have them.
+      const current = openDatabase(path.join(dir, 'current.db'));
+      loadCatalogue(current, generateCatalogue());
+      current.$client.close();
+      sqlite.prepare('ATTACH ? AS current').run(path.join(dir, 'current.db'));
+      sqlite.pragma('foreign_keys = OFF');
+      for (const table of ['frames', 'bins', 'parts', 'part_specs', 'part_aliases', 'part_links', 'stock', 'stock_movements']) {
+        const columns = (sqlite.pragma(`main.table_info(${table})`) as Array<{ name: string }>).map((c) => `"${c.name}"`).join(', ');
+        sqlite.exec(`INSERT INTO main.${table} (${columns}) SELECT ${columns} FROM current.${table}`);
+      }
+      sqlite.pragma('foreign_keys = ON');
+      sqlite.exec('DETACH current');
       const count = (table: string) => sqlite.prepare(`SELECT count(*) FROM ${table}`).pluck().get() as number;
       const tables = ['parts', 'part_specs', 'part_aliases', 'part_links', 'stock'];
       const counts = Object.fromEntries(tables.map((t) => [t, count(t)]));
