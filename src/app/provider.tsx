@@ -1,8 +1,7 @@
 import { QueryClientProvider } from '@tanstack/react-query';
-import { useState, type ReactNode } from 'react';
-import { createQueryClient } from '../lib/query-client';
+import type { ReactNode } from 'react';
+import { queryClient } from '../lib/query-client';
 
 export function AppProvider({ children }: { children: ReactNode }) {
-  const [client] = useState(createQueryClient);
-  return <QueryClientProvider client={client}>{children}</QueryClientProvider>;
+  return <QueryClientProvider client={queryClient}>{children}</QueryClientProvider>;
 }

@@ -1,32 +1,60 @@
-import { createBrowserRouter, RouterProvider, type RouteObject } from 'react-router-dom';
+import { createBrowserRouter, RouterProvider, type LoaderFunctionArgs, type RouteObject } from 'react-router-dom';
 import { Layout } from './layout';
 import { RouteError } from './route-error';
 import { LoadingState } from '../components/ui/states';
+import { framesQueryOptions } from '../features/catalog/api/get-frames';
+import { partQueryOptions } from '../features/catalog/api/get-part';
+import { partsQueryOptions } from '../features/catalog/api/get-parts';
+import { frameMapsQueryOptions } from '../features/fitment/api/get-frame-maps';
+import { queryClient } from '../lib/query-client';
 
 type Loader = () => Promise<Record<string, unknown>>;
+/** Starts a page's first requests; the page reads them through the same query keys. */
+type Prefetch = (args: LoaderFunctionArgs) => unknown;
 
-/** Each page is its own chunk so the first page stays small. */
-const page = (path: string, load: Loader, exportName: string): RouteObject => ({
-  path,
-  errorElement: <RouteError />,
-  lazy: async () => ({ Component: (await load())[exportName] as React.ComponentType }),
-});
+/** Holds the page's place (the footer stays below the fold) while its code arrives on a first visit. */
+const pageFallback = (
+  <div className="min-h-screen">
+    <LoadingState label="Loading the page…" />
+  </div>
+);
+
+/**
+ * Each page is its own chunk so the first page stays small. A page with a prefetch gets a loader that starts its data
+ * at the same moment as its chunk, and returns at once: the page shows its own loading state if the data is still on
+ * its way, and later visits and filter changes are left to the query cache (no loader re-runs).
+ */
+function page(path: string | null, load: Loader, exportName: string, prefetch?: Prefetch): RouteObject {
+  const route = {
+    errorElement: <RouteError />,
+    hydrateFallbackElement: pageFallback,
+    ...(prefetch && {
+      loader: (args: LoaderFunctionArgs) => {
+        void prefetch(args);
+        return null;
+      },
+      shouldRevalidate: () => false,
+    }),
+    lazy: async () => ({ Component: (await load())[exportName] as React.ComponentType }),
+  };
+  return path === null ? { index: true, ...route } : { path, ...route };
+}
+
+const prefetchCatalogue: Prefetch = async ({ request }) => {
+  // Reading the filters needs the validation library, which the page's own chunk needs too.
+  const { catalogueQueryFrom } = await import('../features/catalog/catalogue-query');
+  return queryClient.prefetchQuery(partsQueryOptions(catalogueQueryFrom(new URL(request.url).searchParams)));
+};
 
 const router = createBrowserRouter([
   {
     element: <Layout />,
     errorElement: <RouteError />,
-    // Shown while the first page's code arrives.
-    hydrateFallbackElement: (
-      <div className="mx-auto max-w-6xl px-4 py-10">
-        <LoadingState label="Loading Spoolyard…" />
-      </div>
-    ),
     children: [
-      { index: true, lazy: async () => ({ Component: (await import('./routes/home')).HomeRoute }) },
-      page('catalogue', () => import('./routes/catalogue'), 'CatalogueRoute'),
-      page('parts/:partNumber', () => import('./routes/part'), 'PartRoute'),
-      page('fitment', () => import('./routes/fitment'), 'FitmentRoute'),
+      page(null, () => import('./routes/home'), 'HomeRoute', () => queryClient.prefetchQuery(framesQueryOptions())),
+      page('catalogue', () => import('./routes/catalogue'), 'CatalogueRoute', prefetchCatalogue),
+      page('parts/:partNumber', () => import('./routes/part'), 'PartRoute', ({ params }) => queryClient.prefetchQuery(partQueryOptions(params.partNumber ?? ''))),
+      page('fitment', () => import('./routes/fitment'), 'FitmentRoute', () => queryClient.prefetchQuery(frameMapsQueryOptions())),
       page('fitment/saved', () => import('./routes/saved-fitments'), 'SavedFitmentsRoute'),
       page('fitment/saved/:id/logs', () => import('./routes/shaft-logs'), 'ShaftLogsRoute'),
       page('sign-in', () => import('./routes/sign-in'), 'SignInRoute'),
@@ -62,7 +90,7 @@ const router = createBrowserRouter([
       page('office/mail', () => import('./routes/office-mail'), 'OfficeMailRoute'),
       page('office', () => import('./routes/office-index'), 'OfficeIndexRoute'),
       page('dev/inbox', () => import('./routes/dev-inbox'), 'DevInboxRoute'),
-      { path: '*', lazy: async () => ({ Component: (await import('./routes/not-found')).NotFoundRoute }) },
+      page('*', () => import('./routes/not-found'), 'NotFoundRoute'),
     ],
   },
 ]);

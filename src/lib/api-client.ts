@@ -1,5 +1,13 @@
 import type { z } from 'zod';
-import { ApiErrorSchema } from '../../shared/schemas/errors';
+
+/**
+ * A response schema, or a function that imports it. The schemas bring the validation library (a quarter of the
+ * first page's script) with them; the requests a page makes first name theirs lazily, so the library arrives beside
+ * the answers instead of delaying every page's first paint.
+ */
+export type SchemaSource<T extends z.ZodType> = T | (() => Promise<T>);
+
+const errorSchema = () => import('../../shared/schemas/errors').then((m) => m.ApiErrorSchema);
 
 /** Any failed API call; `status` 0 means the server could not be reached. */
 export class ApiError extends Error {
@@ -29,7 +37,10 @@ interface RequestOptions {
 }
 
 /** Fetches from /api and parses the answer with the shared zod schema, so no API type is written twice. */
-export async function api<T extends z.ZodType>(path: string, schema: T, options: RequestOptions = {}): Promise<z.infer<T>> {
+export async function api<T extends z.ZodType>(path: string, schema: SchemaSource<T>, options: RequestOptions = {}): Promise<z.infer<T>> {
+  const schemaReady = typeof schema === 'function' ? schema() : Promise.resolve(schema);
+  // Settled here as well, so a request that fails first leaves no unhandled rejection behind.
+  schemaReady.catch(() => undefined);
   let response: Response;
   try {
     response = await fetch(`/api${path}`, {
@@ -46,12 +57,20 @@ export async function api<T extends z.ZodType>(path: string, schema: T, options:
   const text = await response.text();
   const json: unknown = text ? safeJson(text) : null;
   if (!response.ok) {
-    const parsed = ApiErrorSchema.safeParse(json);
+    const parsed = (await loadSchema(errorSchema())).safeParse(json);
     throw new ApiError(response.status, parsed.success ? parsed.data.error.message : `Request failed (${response.status})`, parsed.success ? parsed.data.error.fieldErrors : {});
   }
-  const parsed = schema.safeParse(json);
+  const parsed = (await loadSchema(schemaReady)).safeParse(json);
   if (!parsed.success) throw new ApiError(response.status, 'The server sent an answer we could not read.');
   return parsed.data;
+}
+
+async function loadSchema<T>(ready: Promise<T>): Promise<T> {
+  try {
+    return await ready;
+  } catch {
+    throw new ApiError(0, 'Part of the page did not load. Check your connection and reload the page.');
+  }
 }
 
 function safeJson(text: string): unknown {

@@ -13,3 +13,6 @@ export function createQueryClient() {
     },
   });
 }
+
+/** The app's one client: the provider hands it to React, and route loaders start requests in it before a page renders. */
+export const queryClient = createQueryClient();

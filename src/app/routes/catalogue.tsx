@@ -2,10 +2,11 @@ import { X } from 'lucide-react';
 import { useMemo, useState } from 'react';
 import { Link, useSearchParams } from 'react-router-dom';
 import { categoryLabel } from '../../../shared/catalog';
-import { PartsQuerySchema, PART_SORTS, type PartsListResponse, type PartsQuery } from '../../../shared/schemas/parts';
+import { PART_SORTS, type PartsListResponse, type PartsQuery } from '../../../shared/schemas/parts';
 import { EmptyState, ErrorState, LoadingState } from '../../components/ui/states';
 import { useMe } from '../../features/auth/api/get-me';
 import { useParts } from '../../features/catalog/api/get-parts';
+import { catalogueQueryFrom } from '../../features/catalog/catalogue-query';
 import { PartListItem } from '../../features/catalog/components/part-list-item';
 
 const SORT_LABELS: Record<(typeof PART_SORTS)[number], string> = {
@@ -16,25 +17,10 @@ const SORT_LABELS: Record<(typeof PART_SORTS)[number], string> = {
   title: 'Name',
 };
 
-const FILTER_KEYS = ['q', 'category', 'frame', 'bearing', 'minHp', 'maxHp', 'inStock', 'sort', 'page'] as const;
-
-/** Reads the filters from the URL, dropping any value that is not valid rather than failing the page. */
+/** Reads the filters from the URL (the route's loader reads them the same way to fetch the list early). */
 function useCatalogueQuery(): [PartsQuery, URLSearchParams, (changes: Record<string, string | null>) => void] {
   const [params, setParams] = useSearchParams();
-  const query = useMemo(() => {
-    const raw: Record<string, string> = {};
-    for (const key of FILTER_KEYS) {
-      const v = params.get(key);
-      if (v !== null && v !== '') raw[key] = v;
-    }
-    for (;;) {
-      const parsed = PartsQuerySchema.safeParse(raw);
-      if (parsed.success) return parsed.data;
-      const bad = parsed.error.issues[0]?.path[0];
-      if (typeof bad !== 'string' || !(bad in raw)) return {};
-      delete raw[bad];
-    }
-  }, [params]);
+  const query = useMemo(() => catalogueQueryFrom(params), [params]);
   const update = (changes: Record<string, string | null>) => {
     const next = new URLSearchParams(params);
     for (const [k, v] of Object.entries(changes)) {

@@ -3,7 +3,7 @@ import { Link } from 'react-router-dom';
 import { CATEGORIES } from '../../../shared/catalog';
 import { LoadingState, ErrorState } from '../../components/ui/states';
 import { buttonClass } from '../../components/ui/button';
-import { TableFrame, Td, Th } from '../../components/ui/table';
+import { TableFrame, Td, Th } from '../../components/ui/table-frame';
 import { useFrames } from '../../features/catalog/api/get-frames';
 
 export function HomeRoute() {

@@ -1,8 +1,10 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { AuthStatusReplySchema } from '../../../../shared/schemas/account-replies';
 import { api } from '../../../lib/api-client';
 
-export const signOut = () => api('/auth/sign-out', AuthStatusReplySchema, { method: 'POST', body: {} });
+// The schema (and the validation library) loads beside the request, not before the page's first paint.
+const schema = () => import('../../../../shared/schemas/account-replies').then((m) => m.AuthStatusReplySchema);
+
+export const signOut = () => api('/auth/sign-out', schema, { method: 'POST', body: {} });
 
 export function useSignOut() {
   const client = useQueryClient();

@@ -1,9 +1,11 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import { CartViewSchema } from '../../../../shared/schemas/orders';
 import { api } from '../../../lib/api-client';
 import { cartKeys } from './keys';
 
-export const getCart = (signal?: AbortSignal) => api('/cart', CartViewSchema, { signal });
+// The schema (and the validation library) loads beside the request, not before the page's first paint.
+const schema = () => import('../../../../shared/schemas/orders').then((m) => m.CartViewSchema);
+
+export const getCart = (signal?: AbortSignal) => api('/cart', schema, { signal });
 
 export const cartQueryOptions = () => queryOptions({ queryKey: cartKeys.cart(), queryFn: ({ signal }) => getCart(signal) });
 

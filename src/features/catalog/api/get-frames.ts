@@ -1,9 +1,11 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import { FramesResponseSchema } from '../../../../shared/schemas/parts';
 import { api } from '../../../lib/api-client';
 import { catalogKeys } from './keys';
 
-export const getFrames = (signal?: AbortSignal) => api('/frames', FramesResponseSchema, { signal });
+// The schema (and the validation library) loads beside the request, not before the page's first paint.
+const schema = () => import('../../../../shared/schemas/parts').then((m) => m.FramesResponseSchema);
+
+export const getFrames = (signal?: AbortSignal) => api('/frames', schema, { signal });
 
 export const framesQueryOptions = () => queryOptions({ queryKey: catalogKeys.frames(), queryFn: ({ signal }) => getFrames(signal), staleTime: 10 * 60_000 });
 

@@ -1,9 +1,11 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import { FitmentFrameMapsResponseSchema } from '../../../../shared/schemas/saved-fitments';
 import { api } from '../../../lib/api-client';
 import { fitmentKeys } from './keys';
 
-export const getFrameMaps = (signal?: AbortSignal) => api('/fitment/frames', FitmentFrameMapsResponseSchema, { signal });
+// The schema (and the validation library) loads beside the request, not before the page's first paint.
+const schema = () => import('../../../../shared/schemas/saved-fitments').then((m) => m.FitmentFrameMapsResponseSchema);
+
+export const getFrameMaps = (signal?: AbortSignal) => api('/fitment/frames', schema, { signal });
 
 export const frameMapsQueryOptions = () =>
   queryOptions({ queryKey: fitmentKeys.frameMaps(), queryFn: ({ signal }) => getFrameMaps(signal), staleTime: 10 * 60_000 });
