@@ -38,7 +38,9 @@ export type ShaftLogParse =
       tooLarge: boolean;
     };
 
-const fmt = (value: number) => value.toLocaleString('en-US', { maximumFractionDigits: 3 });
+// One formatter, made once: toLocaleString builds a new one on every call.
+const NUMBER_FORMAT = new Intl.NumberFormat('en-US', { maximumFractionDigits: 3 });
+const fmt = (value: number) => NUMBER_FORMAT.format(value);
 
 interface Limits {
   min: number;

@@ -41,6 +41,8 @@ export interface MailFake {
   httpUrl: string;
   /** Newest first. */
   messages(): StoredMessage[];
+  /** SMTP connections opened so far, to see that a pooled sender reuses them. */
+  connections(): number;
   clear(): void;
   /** Resolves with the first stored or arriving message that matches. */
   waitForMessage(match: (message: StoredMessage) => boolean, timeoutMs?: number): Promise<StoredMessage>;
@@ -74,6 +76,7 @@ export async function startMailFake(options: MailFakeOptions = {}): Promise<Mail
   const host = options.host ?? '127.0.0.1';
   const maxMessages = options.maxMessages ?? 500;
   let stored: StoredMessage[] = [];
+  let connectionCount = 0;
   const waiters = new Set<(message: StoredMessage) => void>();
 
   const smtp = new SMTPServer({
@@ -87,6 +90,10 @@ export async function startMailFake(options: MailFakeOptions = {}): Promise<Mail
     },
     size: options.maxMessageBytes ?? 10 * 1024 * 1024,
     banner: 'Spoolyard mail fake',
+    onConnect(_session, callback) {
+      connectionCount += 1;
+      callback();
+    },
     closeTimeout: 1_000,
     logger: false,
     onData(stream, session, callback) {
@@ -186,6 +193,7 @@ export async function startMailFake(options: MailFakeOptions = {}): Promise<Mail
     httpPort,
     httpUrl: `http://${urlHost}:${httpPort}`,
     messages: () => structuredClone(stored),
+    connections: () => connectionCount,
     clear: () => {
       stored = [];
     },

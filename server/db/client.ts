@@ -28,7 +28,61 @@ export function openDatabase(file: string): Db {
   if (broken.length > 0) throw new Error(`the database has ${broken.length} broken references after migrating: ${JSON.stringify(broken.slice(0, 3))}`);
   sqlite.pragma('foreign_keys = ON');
   writeTransactionsTakeTheLockFirst(db);
+  reuseStatements(db, sqlite);
   return db;
+}
+
+/** Statements kept per connection; the least recently used goes first. Far more than the app's distinct queries. */
+const STATEMENTS_KEPT = 500;
+
+/** The part of Drizzle's better-sqlite3 session this module reaches into (drizzle-orm/better-sqlite3/session.js). */
+interface DrizzleSession {
+  client: Database.Database;
+  prepareQuery: (query: unknown, fields: unknown, executeMethod: unknown, arrayMode: unknown, mapper: unknown, ...rest: unknown[]) => unknown;
+}
+
+/**
+ * Drizzle prepares a statement for every query it runs (its session calls `client.prepare(sql)` each time); SQLite then
+ * parses and plans the same text again. Here each distinct query text is prepared once per connection and reused
+ * (better-sqlite3 statements are meant to be: "prepare once, run many"). Two details keep a shared statement safe:
+ * Drizzle switches a statement to array rows (`raw()`) for selects it maps itself, so statements are kept apart by
+ * that mode and handed out in object mode otherwise; and nothing here iterates a statement, which would hold it busy.
+ * Queries written on `$client` directly are not touched.
+ */
+function reuseStatements(db: Db, sqlite: Database.Database) {
+  // Drizzle's session is not part of its typed surface; its shape is pinned by the exact version in package.json.
+  const session = (db as unknown as { session: DrizzleSession }).session;
+  const kept = new Map<string, Database.Statement>();
+  let arrayRows = false;
+  const prepare = (text: string) => {
+    const key = `${arrayRows ? 'a' : 'o'}:${text}`;
+    let statement = kept.get(key);
+    if (statement) {
+      kept.delete(key);
+    } else {
+      statement = sqlite.prepare(text);
+      if (kept.size >= STATEMENTS_KEPT) kept.delete(kept.keys().next().value!);
+    }
+    kept.set(key, statement);
+    if (!arrayRows && statement.reader) statement.raw(false);
+    return statement;
+  };
+  session.client = new Proxy(sqlite, {
+    get(target, property) {
+      if (property === 'prepare') return prepare;
+      const value: unknown = Reflect.get(target, property, target);
+      return typeof value === 'function' ? value.bind(target) : value;
+    },
+  });
+  const prepareQuery = session.prepareQuery.bind(session);
+  session.prepareQuery = (query, fields, executeMethod, arrayMode, mapper, ...rest) => {
+    arrayRows = Boolean(fields) || Boolean(mapper);
+    try {
+      return prepareQuery(query, fields, executeMethod, arrayMode, mapper, ...rest);
+    } finally {
+      arrayRows = false;
+    }
+  };
 }
 
 /**

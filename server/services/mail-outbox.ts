@@ -5,7 +5,7 @@ import { mailOutbox } from '../db/schema';
 import type { MailKind, MailState } from '../../shared/allowed-values';
 import type { MailOutboxList, MailOutboxQuery } from '../../shared/schemas/mail-outbox';
 import { ConflictError, NotFoundError } from './errors';
-import type { MailerPort, OutgoingMail } from './mailer';
+import { MAIL_POOL_CONNECTIONS, type MailerPort, type OutgoingMail } from './mailer';
 import type { Query } from './orders/order-reads';
 
 /**
@@ -26,12 +26,14 @@ export interface OutboxPolicy {
   claimMs: number;
   /** Rows claimed per pass. */
   batchSize: number;
+  /** Messages handed to the mail server at once: as many as the pooled transport keeps connections (mailer.ts). */
+  concurrency: number;
 }
 
 /** Messages whose link signs someone in or sets a password; their bodies are cleared once sent. */
 const CARRIES_A_CREDENTIAL: ReadonlySet<MailKind> = new Set(['password-reset', 'account-confirm']);
 
-export const DEFAULT_OUTBOX_POLICY: OutboxPolicy = { baseDelayMs: 5_000, maxDelayMs: 15 * 60_000, maxAttempts: 12, claimMs: 2 * 60_000, batchSize: 20 };
+export const DEFAULT_OUTBOX_POLICY: OutboxPolicy = { baseDelayMs: 5_000, maxDelayMs: 15 * 60_000, maxAttempts: 12, claimMs: 2 * 60_000, batchSize: 20, concurrency: MAIL_POOL_CONNECTIONS };
 
 /**
  * The wait before attempt `attempts + 1`: base × 2^(attempts − 1), capped, with ±20 % jitter so messages that failed
@@ -123,6 +125,38 @@ export function createMailOutbox(deps: { db: Db; mailer: MailerPort; policy?: Pa
 
   let stopped = false;
 
+  /** Hands one claimed row to the mail server and records what happened, if the claim is still this worker's. */
+  async function sendOne(row: typeof mailOutbox.$inferSelect, result: OutboxRunResult) {
+    try {
+      await mailer.send({ to: row.recipient, subject: row.subject, text: row.text, html: row.html });
+    } catch (error) {
+      const giveUp = row.attempts >= policy.maxAttempts;
+      db.update(mailOutbox)
+        .set({
+          state: giveUp ? 'failed' : 'queued',
+          claimedBy: null,
+          claimExpiresAt: null,
+          lastError: reason(error),
+          nextAttemptAt: now() + retryDelayMs(row.attempts, policy),
+        })
+        .where(mine(row.id))
+        .run();
+      if (giveUp) {
+        result.failed += 1;
+        console.warn(`${row.kind} to ${row.recipient} given up after ${row.attempts} attempts: ${reason(error)}`);
+      } else result.retrying += 1;
+      return;
+    }
+    // A reset or confirmation link is a credential: once it has gone it is not kept in the database.
+    const clear = CARRIES_A_CREDENTIAL.has(row.kind) ? { text: '', html: '' } : {};
+    const marked = db
+      .update(mailOutbox)
+      .set({ state: 'sent', sentAt: new Date(now()).toISOString(), claimedBy: null, claimExpiresAt: null, lastError: null, ...clear })
+      .where(mine(row.id))
+      .run().changes;
+    if (marked === 1) result.sent += 1;
+  }
+
   /** Sends every message due now (one batch at a time) and returns what happened. */
   async function runOnce(): Promise<OutboxRunResult> {
     const result: OutboxRunResult = { claimed: 0, sent: 0, retrying: 0, failed: 0 };
@@ -132,40 +166,18 @@ export function createMailOutbox(deps: { db: Db; mailer: MailerPort; policy?: Pa
       const rows = claim(now(), began);
       if (rows.length === 0) break;
       result.claimed += rows.length;
-      for (const [i, row] of rows.entries()) {
-        if (stopped) {
-          unclaim(rows.slice(i).map((r) => r.id));
-          break;
+      // A few messages in hand at once, one per pooled connection; a stop leaves the rest untried and gives them back.
+      let next = 0;
+      const untried: number[] = [];
+      const worker = async () => {
+        while (next < rows.length) {
+          const row = rows[next++]!;
+          if (stopped) untried.push(row.id);
+          else await sendOne(row, result);
         }
-        try {
-          await mailer.send({ to: row.recipient, subject: row.subject, text: row.text, html: row.html });
-        } catch (error) {
-          const giveUp = row.attempts >= policy.maxAttempts;
-          db.update(mailOutbox)
-            .set({
-              state: giveUp ? 'failed' : 'queued',
-              claimedBy: null,
-              claimExpiresAt: null,
-              lastError: reason(error),
-              nextAttemptAt: now() + retryDelayMs(row.attempts, policy),
-            })
-            .where(mine(row.id))
-            .run();
-          if (giveUp) {
-            result.failed += 1;
-            console.warn(`${row.kind} to ${row.recipient} given up after ${row.attempts} attempts: ${reason(error)}`);
-          } else result.retrying += 1;
-          continue;
-        }
-        // A reset or confirmation link is a credential: once it has gone it is not kept in the database.
-        const clear = CARRIES_A_CREDENTIAL.has(row.kind) ? { text: '', html: '' } : {};
-        const marked = db
-          .update(mailOutbox)
-          .set({ state: 'sent', sentAt: new Date(now()).toISOString(), claimedBy: null, claimExpiresAt: null, lastError: null, ...clear })
-          .where(mine(row.id))
-          .run().changes;
-        if (marked === 1) result.sent += 1;
-      }
+      };
+      await Promise.all(Array.from({ length: Math.min(policy.concurrency, rows.length) }, worker));
+      unclaim(untried);
     }
     return result;
   }

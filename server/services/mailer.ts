@@ -31,12 +31,15 @@ export interface MailerOptions {
   timeoutMs?: number;
 }
 
+/** Connections the pooled transport keeps open; the outbox worker keeps as many messages in hand. */
+export const MAIL_POOL_CONNECTIONS = 2;
+
 export function createMailer(options: MailerOptions): Mailer {
   const timeout = options.timeoutMs ?? 10_000;
   // Pooled: the outbox worker sends batches over a few kept-open connections rather than one handshake per message.
   const transport = nodemailer.createTransport({
     pool: true,
-    maxConnections: 2,
+    maxConnections: MAIL_POOL_CONNECTIONS,
     host: options.host,
     port: options.port,
     secure: options.secure ?? false,

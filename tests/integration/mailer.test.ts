@@ -1,8 +1,11 @@
+import fs from 'node:fs';
 import { createServer } from 'node:net';
 import type { AddressInfo } from 'node:net';
 import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest';
 import { startMailFake, type MailFake } from '../../fakes/mail/mail-fake';
 import { createMailer, type Mailer } from '../../server/services/mailer';
+import { createMailOutbox, enqueueMail } from '../../server/services/mail-outbox';
+import { createTestDb } from '../support/test-app';
 import { renderDispatchNotice } from '../../server/services/mail-templates/dispatch-notice';
 import { renderOrderConfirmation } from '../../server/services/mail-templates/order-confirmation';
 
@@ -98,6 +101,26 @@ describe('mailer over SMTP', () => {
 });
 
 describe('a mail server that is down', () => {
+  it('sends a whole outbox over the pool: every message arrives, over at most two connections', async () => {
+    const { db, dir } = createTestDb();
+    const pooled = createMailer({ host: '127.0.0.1', port: fake.smtpPort, from: FROM });
+    try {
+      const rendered = orderMail();
+      for (let i = 0; i < 40; i++) enqueueMail(db, 'order-confirmation', () => ({ ...rendered, to: `buyer-${i}@spoolyard.test`, subject: `Order ${i} confirmed` }));
+      const opened = fake.connections();
+      const outbox = createMailOutbox({ db, mailer: pooled });
+      const result = await outbox.drain();
+      expect(result).toMatchObject({ claimed: 40, sent: 40, retrying: 0, failed: 0 });
+      expect(fake.messages()).toHaveLength(40);
+      expect(new Set(fake.messages().map((m) => m.to[0])).size).toBe(40);
+      expect(fake.connections() - opened).toBeLessThanOrEqual(2);
+    } finally {
+      await pooled.close();
+      db.$client.close();
+      fs.rmSync(dir, { recursive: true, force: true });
+    }
+  });
+
   it('makes a send fail fast with the connection error (the outbox keeps the message and tries again)', async () => {
     const down = createMailer({ host: '127.0.0.1', port: await closedPort(), from: FROM, timeoutMs: 2_000 });
     try {

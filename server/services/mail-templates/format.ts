@@ -12,8 +12,11 @@ export function minusMoney(cents: number): string {
   return cents === 0 ? money(0) : `-${money(Math.abs(cents))}`;
 }
 
+// Built once: a formatter costs far more to make than to use.
+const PERCENT = new Intl.NumberFormat('en-US', { maximumFractionDigits: 2 });
+
 export function percent(value: number): string {
-  return `${new Intl.NumberFormat('en-US', { maximumFractionDigits: 2 }).format(value)}%`;
+  return `${PERCENT.format(value)}%`;
 }
 
 /** Calendar dates as on every screen (shared/format.ts: UTC, so the same order date reads the same everywhere). */
