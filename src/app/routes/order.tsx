@@ -1,5 +1,6 @@
 import { useQueryClient } from '@tanstack/react-query';
 import { useParams, useSearchParams } from 'react-router-dom';
+import { useMe } from '../../features/auth/api/get-me';
 import { cartKeys } from '../../features/cart/api/keys';
 import { OrderPage } from '../../features/orders/components/order-page';
 
@@ -7,5 +8,13 @@ export function OrderRoute() {
   const { number = '' } = useParams();
   const [params] = useSearchParams();
   const qc = useQueryClient();
-  return <OrderPage number={number} placed={params.get('placed') === '1'} onReorderAdded={() => void qc.invalidateQueries({ queryKey: cartKeys.all })} />;
+  const role = useMe().data?.user?.role;
+  return (
+    <OrderPage
+      number={number}
+      placed={params.get('placed') === '1'}
+      canReturn={role === 'customer' || role === 'dealer'}
+      onReorderAdded={() => void qc.invalidateQueries({ queryKey: cartKeys.all })}
+    />
+  );
 }
