@@ -33,7 +33,7 @@ export function OrderLinesTable({ order, print = false, lineAction }: { order: O
               Line total
             </th>
             {lineAction && !print && (
-              <th scope="col" className={th}>
+              <th scope="col" className={`${th} hidden sm:table-cell`}>
                 <span className="sr-only">Actions</span>
               </th>
             )}
@@ -67,12 +67,14 @@ export function OrderLinesTable({ order, print = false, lineAction }: { order: O
                     </span>
                   </span>
                 )}
+                {/* On a phone the table scrolls sideways: the action sits under the part, where it is seen. */}
+                {lineAction && !print && <span className="mt-2 block sm:hidden">{lineAction(l)}</span>}
               </td>
               <td className="tabular px-2 py-2 text-right">{l.quantity}</td>
               <td className="tabular px-2 py-2 text-right">{formatPrice(l.unitPriceCents)}</td>
               <td className="tabular px-2 py-2 text-right">{l.coreDepositCents > 0 ? `${formatPrice(l.coreDepositCents * l.quantity)}` : '—'}</td>
               <td className="tabular px-2 py-2 text-right font-semibold">{formatPrice(l.lineCents)}</td>
-              {lineAction && !print && <td className="px-2 py-2 text-right">{lineAction(l)}</td>}
+              {lineAction && !print && <td className="hidden px-2 py-2 text-right sm:table-cell">{lineAction(l)}</td>}
             </tr>
           ))}
         </tbody>

@@ -204,7 +204,7 @@ export function OrderPage({ number, placed, canReturn = false, onReorderAdded }:
             />
             {canReturn && o.lines.some((l) => l.quantityReturnable > 0) && (
               <p className="mt-2 flex items-center gap-2 text-sm text-cast">
-                <PackageOpen aria-hidden className="size-4" /> Wrong, faulty, or an exchange core to send back? Use Return on the line; you print a label for the parcel.
+                <PackageOpen aria-hidden className="size-4 shrink-0" /> Wrong, faulty, or an exchange core to send back? Use Return on the line; you print a label for the parcel.
               </p>
             )}
           </section>
