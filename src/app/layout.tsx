@@ -8,6 +8,7 @@ const AccountMenu = lazy(() => import('../features/auth/components/account-menu'
 import { signInHref } from '../features/auth/next-path';
 import type { Role } from '../features/auth/roles';
 import { useCart } from '../features/cart/api/get-cart';
+import { NoticesBell } from '../features/notices/components/notices-bell';
 
 declare module 'react-aria-components' {
   interface RouterConfig {
@@ -177,6 +178,7 @@ export function Layout() {
             </div>
             <div className="ml-auto flex flex-wrap items-center justify-end gap-2">
               <CartLink />
+              {(role === 'customer' || role === 'dealer') && <NoticesBell />}
               <AccountArea />
             </div>
           </div>

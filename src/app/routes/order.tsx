@@ -11,12 +11,14 @@ export function OrderRoute() {
   const qc = useQueryClient();
   const me = useMe();
   const dealer = me.data?.user?.role === 'dealer' && me.data.user.dealer?.status === 'approved';
+  const role = me.data?.user?.role;
   return (
     <OrderPage
       number={number}
       placed={params.get('placed') === '1'}
       onReorderAdded={() => void qc.invalidateQueries({ queryKey: cartKeys.all })}
       saveToList={dealer ? <AddToList source={{ kind: 'order', orderNumber: number }} label="Save the order to a list" /> : undefined}
+      canReturn={role === 'customer' || role === 'dealer'}
     />
   );
 }

@@ -4,17 +4,14 @@ import { ErrorState, LoadingState } from '../../components/ui/states';
 import { ApiError } from '../../lib/api-client';
 import { useMe } from '../../features/auth/api/get-me';
 import { useOrder } from '../../lib/orders';
-import { useReturns } from '../../features/returns/api/get-returns';
 import { LinePicker } from '../../features/returns/components/line-picker';
 import { ReturnForm } from '../../features/returns/components/return-form';
-import { returnableQuantity } from '../../features/returns/lib/returnable';
 import { ORDER_NUMBER_PATTERN } from '../../../shared/part-number';
 
 function ReturnLine({ orderNumber, lineId }: { orderNumber: string; lineId: number }) {
   const navigate = useNavigate();
   const order = useOrder(orderNumber);
-  const returns = useReturns();
-  if (order.isPending || returns.isPending) return <LoadingState label={`Loading ${orderNumber}…`} />;
+  if (order.isPending) return <LoadingState label={`Loading ${orderNumber}…`} />;
   if (order.isError) {
     return order.error instanceof ApiError && order.error.isNotFound ? (
       <ErrorState title={`No order ${orderNumber}`} message="Check the link, or choose the order from your returns page." />
@@ -24,7 +21,7 @@ function ReturnLine({ orderNumber, lineId }: { orderNumber: string; lineId: numb
   }
   const line = order.data.lines.find((l) => l.id === lineId);
   if (!line) return <ErrorState title="That line is not on this order" message={`Order ${orderNumber} has no line ${lineId}. Choose the part from your returns page.`} />;
-  const left = returnableQuantity(order.data, line, returns.data?.items ?? []);
+  const left = line.quantityReturnable;
 
   return (
     <div className="grid gap-6 lg:grid-cols-[2fr_3fr]">
@@ -42,7 +39,10 @@ function ReturnLine({ orderNumber, lineId }: { orderNumber: string; lineId: numb
             </Link>
           </dd>
           <dt className="font-semibold">Dispatched</dt>
-          <dd className="tabular">{line.quantityPicked}</dd>
+          <dd className="tabular">
+            {line.quantityDispatched} of {line.quantity}
+            {line.quantityDispatched < line.quantity && <span className="text-cast"> (the rest is still to come)</span>}
+          </dd>
           <dt className="font-semibold">Price paid</dt>
           <dd className="tabular">{formatPrice(line.unitPriceCents)} each</dd>
           {line.coreDepositCents > 0 && (
@@ -60,11 +60,11 @@ function ReturnLine({ orderNumber, lineId }: { orderNumber: string; lineId: numb
         </dl>
       </section>
       {left > 0 ? (
-        <ReturnForm order={order.data} line={line} returnable={left} onCreated={(r) => navigate('/returns', { state: { created: r.reference } })} />
+        <ReturnForm order={order.data} line={line} returnable={left} onCreated={(r) => navigate(`/returns?ref=${encodeURIComponent(r.reference)}`, { state: { created: r.reference } })} />
       ) : (
         <ErrorState
           title="Nothing left to return on this line"
-          message={line.quantityPicked === 0 ? 'This line has not been dispatched yet.' : 'Everything dispatched on this line is already on a return.'}
+          message={line.quantityDispatched === 0 ? 'This line has not been dispatched yet.' : 'Everything dispatched on this line is already on a return.'}
         />
       )}
     </div>

@@ -1,6 +1,9 @@
 import { ChevronDown, PackageOpen } from 'lucide-react';
 import { useState } from 'react';
-import { Link, useLocation } from 'react-router-dom';
+import { Printer } from 'lucide-react';
+import { Link, useLocation, useSearchParams } from 'react-router-dom';
+import { buttonClass } from '../../components/ui/button';
+import { Notice } from '../../components/ui/notice';
 import { LoadingState } from '../../components/ui/states';
 import { useMe } from '../../features/auth/api/get-me';
 import { LinePicker } from '../../features/returns/components/line-picker';
@@ -10,6 +13,9 @@ export function ReturnsRoute() {
   const me = useMe();
   const location = useLocation();
   const created = (location.state as { created?: string } | null)?.created ?? null;
+  const [params, setParams] = useSearchParams();
+  const page = Math.max(1, Math.trunc(Number(params.get('page'))) || 1);
+  const highlight = created ?? params.get('ref');
   const [picking, setPicking] = useState(false);
 
   if (me.isPending) return <LoadingState label="Checking your account…" />;
@@ -46,9 +52,14 @@ export function ReturnsRoute() {
         </button>
       </div>
       {created && (
-        <p role="status" className="rounded-md border-2 border-machined bg-machined-tint p-4 font-semibold text-machined">
-          ✓ Return {created} requested. Pack the part with the reference on the box; we mail you when it has been inspected.
-        </p>
+        <Notice tone="done" title={`Return ${created} is authorised`}>
+          <p>Print the return label and stick it on the parcel: the warehouse scans its code when the parcel arrives. We tell you when it has been inspected.</p>
+          <p className="mt-3">
+            <Link to={`/returns/${encodeURIComponent(created)}/label`} className={buttonClass('primary')}>
+              <Printer aria-hidden className="size-4" /> Print the return label
+            </Link>
+          </p>
+        </Notice>
       )}
       {picking && (
         <section id="return-picker" aria-labelledby="return-picker-heading" className="grid gap-3 rounded-lg bg-panel p-4">
@@ -58,7 +69,7 @@ export function ReturnsRoute() {
           <LinePicker />
         </section>
       )}
-      <ReturnsList highlight={created} />
+      <ReturnsList highlight={highlight} page={page} onPage={(p) => setParams(p > 1 ? { page: String(p) } : {})} />
     </div>
   );
 }

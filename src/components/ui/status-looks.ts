@@ -61,7 +61,7 @@ export const ORDER_STATUS_LOOKS: Record<OrderStatus, StatusLook> = {
 };
 
 export const RETURN_STATUS_LOOKS: Record<ReturnStatus, StatusLook> = {
-  requested: { label: 'Requested', Icon: Clock, tone: 'amber' },
+  requested: { label: 'Authorised', Icon: Clock, tone: 'amber' },
   refunded: { label: 'Refunded', Icon: CircleCheck, tone: 'machined' },
   credited: { label: 'Credited', Icon: ReceiptText, tone: 'machined' },
   rejected: { label: 'Rejected', Icon: Ban, tone: 'oxide' },

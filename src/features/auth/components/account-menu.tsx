@@ -44,6 +44,16 @@ export function AccountMenu({ user, onSignOut, signingOut }: { user: User; onSig
               <MenuItem href="/orders" className={itemClass}>
                 Orders
               </MenuItem>
+              {(user.role === 'customer' || trade) && (
+                <MenuItem href="/returns" className={itemClass}>
+                  Returns
+                </MenuItem>
+              )}
+              {(user.role === 'customer' || trade) && (
+                <MenuItem href="/notices" className={itemClass}>
+                  Notices
+                </MenuItem>
+              )}
               {trade && (
                 <MenuItem href="/trade/quick-order" className={itemClass}>
                   Quick order

@@ -1,4 +1,5 @@
-import { Clock, Gauge } from 'lucide-react';
+import { Clock, Gauge, Truck } from 'lucide-react';
+import type { ReactNode } from 'react';
 import { formatPrice } from '../../../../shared/catalog';
 import { DELIVERY_ZONES, type DeliveryZone } from '../../../../shared/pricing';
 import type { OrderDetail } from '../../../../shared/schemas/orders';
@@ -8,7 +9,7 @@ export function zoneLabel(zone: string) {
 }
 
 /** The order's lines as sold: prices are the ones stored on the order, not today's. */
-export function OrderLinesTable({ order, print = false }: { order: OrderDetail; print?: boolean }) {
+export function OrderLinesTable({ order, print = false, lineAction }: { order: OrderDetail; print?: boolean; /** A last column of per-line actions (not on paper). */ lineAction?: (line: OrderDetail['lines'][number]) => ReactNode }) {
   const th = 'px-2 py-2 font-semibold';
   return (
     <div className={print ? '' : 'overflow-x-auto'}>
@@ -31,6 +32,11 @@ export function OrderLinesTable({ order, print = false }: { order: OrderDetail; 
             <th scope="col" className={`${th} text-right`}>
               Line total
             </th>
+            {lineAction && !print && (
+              <th scope="col" className={`${th} hidden sm:table-cell`}>
+                <span className="sr-only">Actions</span>
+              </th>
+            )}
           </tr>
         </thead>
         <tbody>
@@ -53,11 +59,22 @@ export function OrderLinesTable({ order, print = false }: { order: OrderDetail; 
                     </span>
                   </span>
                 )}
+                {!print && l.quantityDispatched > 0 && l.quantityDispatched < l.quantity && (
+                  <span className="mt-0.5 flex items-center gap-1 text-sm text-cast">
+                    <Truck aria-hidden className="size-4" />
+                    <span className="tabular">
+                      {l.quantityDispatched} of {l.quantity} dispatched
+                    </span>
+                  </span>
+                )}
+                {/* On a phone the table scrolls sideways: the action sits under the part, where it is seen. */}
+                {lineAction && !print && <span className="mt-2 block sm:hidden">{lineAction(l)}</span>}
               </td>
               <td className="tabular px-2 py-2 text-right">{l.quantity}</td>
               <td className="tabular px-2 py-2 text-right">{formatPrice(l.unitPriceCents)}</td>
               <td className="tabular px-2 py-2 text-right">{l.coreDepositCents > 0 ? `${formatPrice(l.coreDepositCents * l.quantity)}` : '—'}</td>
               <td className="tabular px-2 py-2 text-right font-semibold">{formatPrice(l.lineCents)}</td>
+              {lineAction && !print && <td className="hidden px-2 py-2 text-right sm:table-cell">{lineAction(l)}</td>}
             </tr>
           ))}
         </tbody>

@@ -1,5 +1,5 @@
 import type { ReactNode } from 'react';
-import { CircleCheck, CircleX, Hourglass, Printer, Truck } from 'lucide-react';
+import { CircleCheck, CircleX, ExternalLink, Hourglass, PackageOpen, Printer, Truck, Undo2 } from 'lucide-react';
 import { Link } from 'react-router-dom';
 import type { OrderDetail } from '../../../../shared/schemas/orders';
 import { buttonClass } from '../../../components/ui/button';
@@ -71,8 +71,81 @@ function PaymentBanner({ order, placed }: { order: OrderDetail; placed: boolean 
   return null;
 }
 
+/** Each dispatch with its carrier and a link to the carrier's tracking page (the address pattern is configured per carrier). */
+function Shipments({ order }: { order: OrderDetail }) {
+  if (order.shipments.length === 0) return null;
+  return (
+    <ul aria-label="Shipments" className="mt-2 grid gap-2">
+      {order.shipments.map((s, i) => (
+        <li key={`${s.trackingNumber}-${i}`} className="flex items-start gap-2">
+          <Truck aria-hidden className="mt-0.5 size-4 shrink-0 text-machined" />
+          <span>
+            {formatDateTime(s.at)}: <span className="tabular">{s.units}</span> {s.units === 1 ? 'unit' : 'units'} with {s.carrier}
+            <span className="block">
+              Tracking{' '}
+              {s.trackingUrl ? (
+                <a href={s.trackingUrl} target="_blank" rel="noreferrer noopener" className="part-no inline-flex items-center gap-1 text-temper underline underline-offset-2">
+                  {s.trackingNumber}
+                  <ExternalLink aria-hidden className="size-3.5" />
+                  <span className="sr-only"> (opens the carrier’s tracking page in a new tab)</span>
+                </a>
+              ) : (
+                <span className="part-no">{s.trackingNumber}</span>
+              )}
+            </span>
+          </span>
+        </li>
+      ))}
+    </ul>
+  );
+}
+
+const RETURN_STATUS_WORDS: Record<string, string> = { requested: 'authorised, on its way back', refunded: 'refunded', credited: 'credited', rejected: 'not accepted' };
+
+/** Returns asked for on this order, each with its label while the part is on its way back. */
+function OrderReturns({ order }: { order: OrderDetail }) {
+  if (order.returns.length === 0) return null;
+  const partOf = (lineId: number) => order.lines.find((l) => l.id === lineId)?.partNumber ?? '';
+  return (
+    <section aria-labelledby="order-returns-heading" className="grid gap-2">
+      <h2 id="order-returns-heading" className="text-xl font-bold">
+        Returns
+      </h2>
+      <ul className="grid gap-2">
+        {order.returns.map((r) => (
+          <li key={r.reference} className="flex flex-wrap items-center justify-between gap-2 rounded-md border border-cast-line bg-white p-3">
+            <span>
+              <Link to={`/returns?ref=${encodeURIComponent(r.reference)}`} className="part-no text-temper underline underline-offset-2">
+                {r.reference}
+              </Link>{' '}
+              · <span className="tabular">{r.quantity}</span> × <span className="part-no">{partOf(r.lineId)}</span> · {RETURN_STATUS_WORDS[r.status] ?? r.status}
+            </span>
+            {r.status === 'requested' && (
+              <Link to={`/returns/${encodeURIComponent(r.reference)}/label`} className={buttonClass('secondary')}>
+                <Printer aria-hidden className="size-4" /> Label<span className="sr-only"> for {r.reference}</span>
+              </Link>
+            )}
+          </li>
+        ))}
+      </ul>
+    </section>
+  );
+}
+
 /** `saveToList` is the page's "save this order to a list" tool for trade accounts (another feature owns lists). */
-export function OrderPage({ number, placed, onReorderAdded, saveToList }: { number: string; placed: boolean; onReorderAdded: () => void; saveToList?: ReactNode }) {
+export function OrderPage({
+  number,
+  placed,
+  canReturn = false,
+  onReorderAdded,
+  saveToList,
+}: {
+  number: string;
+  placed: boolean;
+  canReturn?: boolean;
+  onReorderAdded: () => void;
+  saveToList?: ReactNode;
+}) {
   const order = useOrder(number);
   if (order.isPending) return <LoadingState label={`Loading order ${number}…`} />;
   if (order.isError) {
@@ -131,7 +204,25 @@ export function OrderPage({ number, placed, onReorderAdded, saveToList }: { numb
             <h2 id="lines-heading" className="mb-2 text-xl font-bold">
               Lines
             </h2>
-            <OrderLinesTable order={o} />
+            <OrderLinesTable
+              order={o}
+              lineAction={
+                canReturn && o.lines.some((l) => l.quantityReturnable > 0)
+                  ? (l) =>
+                      l.quantityReturnable > 0 ? (
+                        <Link to={`/returns/new?order=${encodeURIComponent(o.number)}&line=${l.id}`} className={`${buttonClass('secondary')} whitespace-nowrap`}>
+                          <Undo2 aria-hidden className="size-4" />
+                          Return<span className="sr-only"> {l.partNumber}</span>
+                        </Link>
+                      ) : null
+                  : undefined
+              }
+            />
+            {canReturn && o.lines.some((l) => l.quantityReturnable > 0) && (
+              <p className="mt-2 flex items-center gap-2 text-sm text-cast">
+                <PackageOpen aria-hidden className="size-4 shrink-0" /> Wrong, faulty, or an exchange core to send back? Use Return on the line; you print a label for the parcel.
+              </p>
+            )}
           </section>
           <section aria-labelledby="totals-heading" className="max-w-md justify-self-end rounded-lg bg-white p-5 shadow-sm ring-1 ring-cast-line sm:min-w-80">
             <h2 id="totals-heading" className="text-xl font-bold">
@@ -140,6 +231,7 @@ export function OrderPage({ number, placed, onReorderAdded, saveToList }: { numb
             <OrderTotals order={o} />
           </section>
           <OrderChanges order={o} />
+          <OrderReturns order={o} />
         </div>
         <aside className="grid min-w-0 content-start gap-6" aria-label="Order details">
           <section aria-labelledby="timeline-heading">
@@ -190,7 +282,8 @@ export function OrderPage({ number, placed, onReorderAdded, saveToList }: { numb
               <br />
               <span className="text-cast">{zoneLabel(o.delivery.zone)}</span>
             </address>
-            {hasDispatch && (
+            {o.shipments.length > 0 && <Shipments order={o} />}
+            {hasDispatch && o.shipments.length === 0 && (
               <p className="mt-2 inline-flex items-start gap-2">
                 <Truck aria-hidden className="mt-0.5 size-4 shrink-0 text-machined" />
                 <span>

@@ -1,4 +1,6 @@
 export const returnsKeys = {
   all: ['returns'] as const,
-  list: () => [...returnsKeys.all, 'list'] as const,
+  lists: () => [...returnsKeys.all, 'list'] as const,
+  list: (page = 1) => [...returnsKeys.lists(), page] as const,
+  label: (reference: string) => [...returnsKeys.all, 'label', reference] as const,
 };

@@ -7,19 +7,15 @@ import { buttonClass } from '../../../components/ui/button';
 import { EmptyState, ErrorState, LoadingState } from '../../../components/ui/states';
 import { StatusBadge } from '../../../components/ui/status-badge';
 import { useOrder, useOrders } from '../../../lib/orders';
-import { useReturns } from '../api/get-returns';
-import { hasLeftTheBuilding, returnableQuantity } from '../lib/returnable';
 
 function OrderLines({ number }: { number: string }) {
   const order = useOrder(number);
-  const returns = useReturns();
-  if (order.isPending || returns.isPending) return <LoadingState label={`Loading ${number}…`} />;
+  if (order.isPending) return <LoadingState label={`Loading ${number}…`} />;
   if (order.isError) return <ErrorState title={`${number} did not load`} message={order.error.message} onRetry={() => order.refetch()} />;
-  const items = returns.data?.items ?? [];
   return (
     <ul aria-label={`Lines of ${number}`} className="grid gap-2">
       {order.data.lines.map((line) => {
-        const left = returnableQuantity(order.data, line, items);
+        const left = line.quantityReturnable;
         return (
           <li key={line.id} className="flex flex-wrap items-center justify-between gap-3 rounded-md border border-cast-line bg-white p-3">
             <div className="min-w-0">
@@ -27,7 +23,7 @@ function OrderLines({ number }: { number: string }) {
                 <span className="part-no">{line.partNumber}</span> {line.title}
               </p>
               <p className="text-sm text-cast">
-                <span className="tabular">{line.quantityPicked}</span> dispatched · <span className="tabular">{formatPrice(line.unitPriceCents)}</span> each
+                <span className="tabular">{line.quantityDispatched}</span> of <span className="tabular">{line.quantity}</span> dispatched · <span className="tabular">{formatPrice(line.unitPriceCents)}</span> each
                 {line.condition === 'exchange' ? ' · exchange unit' : ''}
               </p>
             </div>
@@ -37,7 +33,7 @@ function OrderLines({ number }: { number: string }) {
                 <ChevronRight aria-hidden className="size-4" />
               </Link>
             ) : (
-              <span className="text-sm text-cast">{line.quantityPicked === 0 ? 'Not dispatched' : 'Already returned'}</span>
+              <span className="text-sm text-cast">{line.quantityDispatched === 0 ? 'Not dispatched yet' : 'Already on a return'}</span>
             )}
           </li>
         );
@@ -52,11 +48,17 @@ export function LinePicker() {
   const [chosen, setChosen] = useState<string | null>(null);
   if (orders.isPending) return <LoadingState label="Loading your orders…" />;
   if (orders.isError) return <ErrorState title="Your orders did not load" message={orders.error.message} onRetry={() => orders.refetch()} />;
-  const dispatched = orders.data.items.filter((o) => hasLeftTheBuilding(o.status));
+  // Anything that has left the warehouse can come back, a partly shipped order's dispatched lines included.
+  const dispatched = orders.data.items.filter((o) => o.unitsDispatched > 0);
   if (dispatched.length === 0) {
     return (
       <EmptyState title="Nothing to return yet">
         <p>Only parts that have been dispatched to you can come back. Orders still being picked or packed can be changed by calling the trade counter.</p>
+        <p className="mt-2">
+          <Link to="/orders" className="font-semibold text-temper underline underline-offset-2">
+            See your orders
+          </Link>
+        </p>
       </EmptyState>
     );
   }

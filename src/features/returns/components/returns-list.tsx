@@ -1,4 +1,7 @@
+import { Printer } from 'lucide-react';
 import { Link } from 'react-router-dom';
+import { buttonClass } from '../../../components/ui/button';
+import { PageNav } from '../../../components/ui/page-nav';
 import { formatPrice } from '../../../../shared/catalog';
 import { CONDITION_GRADES, RETURN_KINDS, type ReturnView } from '../../../../shared/schemas/warehouse';
 import { EmptyState, ErrorState, LoadingState } from '../../../components/ui/states';
@@ -17,15 +20,20 @@ const day = (iso: string) => new Date(iso).toLocaleDateString('en-US', { dateSty
 function Outcome({ r }: { r: ReturnView }) {
   if (r.status === 'requested') {
     return (
+      <div className="grid gap-2 md:justify-items-end">
       <p className="text-cast">
-        Waiting for the part to reach us and be inspected.
+        Authorised: print the label and send it back. We inspect it when it arrives.
         {r.kind === 'core' && r.coreDepositCents > 0 && (
           <>
             {' '}
-            The core deposit of <span className="tabular font-semibold text-ink">{formatPrice(r.coreDepositCents * r.quantity)}</span> is refunded once the core is graded.
+            The core deposit of <span className="tabular font-semibold text-ink">{formatPrice(r.coreDepositCents)}</span> is refunded once the core is graded.
           </>
         )}
       </p>
+        <Link to={`/returns/${encodeURIComponent(r.reference)}/label`} className={buttonClass('secondary')}>
+          <Printer aria-hidden className="size-4" /> Print return label<span className="sr-only"> for {r.reference}</span>
+        </Link>
+      </div>
     );
   }
   if (r.status === 'rejected') {
@@ -44,6 +52,7 @@ function Outcome({ r }: { r: ReturnView }) {
         {r.status === 'credited' ? 'credited to your trade account' : 'refunded to your card'}
         {r.decidedAt ? ` on ${day(r.decidedAt)}` : ''}.
       </p>
+      {r.decisionReason && <p className="text-sm">Why less: {r.decisionReason}</p>}
       {r.creditNoteNumber && (
         <p>
           Credit note <span className="part-no">{r.creditNoteNumber}</span>
@@ -54,18 +63,24 @@ function Outcome({ r }: { r: ReturnView }) {
   );
 }
 
-export function ReturnsList({ highlight }: { highlight?: string | null }) {
-  const returns = useReturns();
+export function ReturnsList({ highlight, page, onPage }: { highlight?: string | null; page: number; onPage: (page: number) => void }) {
+  const returns = useReturns(page);
   if (returns.isPending) return <LoadingState label="Loading your returns…" />;
   if (returns.isError) return <ErrorState title="Your returns did not load" message={returns.error.message} onRetry={() => returns.refetch()} />;
   if (returns.data.items.length === 0) {
     return (
       <EmptyState title="No returns yet">
-        <p>When a part is wrong, faulty, or you are sending back an exchange core, start a return from the dispatched order.</p>
+        <p>When a part is wrong, faulty, or you are sending back an exchange core, open the order: each dispatched line has a Return button.</p>
+        <p className="mt-2">
+          <Link to="/orders" className="font-semibold text-temper underline underline-offset-2">
+            Your orders
+          </Link>
+        </p>
       </EmptyState>
     );
   }
   return (
+    <div className="grid gap-4">
     <ul aria-label="Your returns" className="grid gap-3">
       {returns.data.items.map((r) => (
         <li
@@ -96,5 +111,7 @@ export function ReturnsList({ highlight }: { highlight?: string | null }) {
         </li>
       ))}
     </ul>
+      <PageNav label="Pages of returns" page={returns.data.page} pageSize={returns.data.pageSize} total={returns.data.total} onPage={onPage} />
+    </div>
   );
 }

@@ -8,5 +8,6 @@ export const warehouseKeys = {
   stockPart: (partNumber: string) => [...warehouseKeys.stock(), partNumber] as const,
   lowStock: () => [...warehouseKeys.all, 'low-stock'] as const,
   returns: () => [...warehouseKeys.all, 'returns'] as const,
-  returnList: (status: 'requested' | 'all') => [...warehouseKeys.returns(), status] as const,
+  returnList: (status: 'requested' | 'all', page = 1) => [...warehouseKeys.returns(), status, page] as const,
+  returnByCode: (code: string) => [...warehouseKeys.returns(), 'code', code] as const,
 };
