@@ -58,6 +58,7 @@ const router = createBrowserRouter([
       page('office/parts/:partNumber', () => import('./routes/office-part-edit'), 'OfficePartEditRoute'),
       page('office/price-imports', () => import('./routes/office-price-imports'), 'OfficePriceImportsRoute'),
       page('office/mail', () => import('./routes/office-mail'), 'OfficeMailRoute'),
+      page('office/audit', () => import('./routes/office-audit'), 'OfficeAuditRoute'),
       page('dev/inbox', () => import('./routes/dev-inbox'), 'DevInboxRoute'),
       { path: '*', lazy: async () => ({ Component: (await import('./routes/not-found')).NotFoundRoute }) },
     ],
