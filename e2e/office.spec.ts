@@ -37,6 +37,7 @@ test('an admin imports a price list with a bad row, fixes it inline, applies it,
   await expect(page.getByRole('row', { name: /FLG-50-0201/ })).toContainText('$15.75');
   await expect(apply).toBeEnabled();
   await apply.click();
+  await page.getByRole('dialog', { name: 'Apply this price list?' }).getByRole('button', { name: 'Apply 3 changes' }).click();
 
   await expect(page.getByRole('status').filter({ hasText: 'Price list applied' })).toContainText('3 prices changed');
   await axe();

@@ -63,6 +63,7 @@ export function createAuditLogReader(deps: { db: Db }) {
     // A whole part number or its start ("FLG-50" finds those parts); the user by a piece of their name or e-mail.
     if (query.part) where.push(contains(auditLog.partNumber, query.part.toUpperCase(), 'start'));
     if (query.user) where.push(or(contains(user.name, query.user), contains(user.email, query.user))!);
+    if (query.import) where.push(eq(auditLog.priceImportId, query.import));
     if (query.from) where.push(gte(auditLog.createdAt, query.from));
     if (query.to) where.push(lt(auditLog.createdAt, nextDay(query.to)));
     const condition = where.length > 0 ? and(...where) : undefined;

@@ -147,6 +147,8 @@ export const AuditQuerySchema = z.object({
   user: z.string().trim().max(120).optional(),
   from: isoDay,
   to: isoDay,
+  /** One price import's entries. */
+  import: z.coerce.number().int().min(1).optional(),
   page: z.coerce.number().int().min(1).max(100_000).default(1),
 });
 export type AuditQuery = z.infer<typeof AuditQuerySchema>;

@@ -91,6 +91,7 @@ const router = createBrowserRouter([
       page('office/mail', () => import('./routes/office-mail'), 'OfficeMailRoute'),
       page('office', () => import('./routes/office-index'), 'OfficeIndexRoute'),
       page('notices', () => import('./routes/notices'), 'NoticesRoute'),
+      page('office/audit', () => import('./routes/office-audit'), 'OfficeAuditRoute'),
       page('dev/inbox', () => import('./routes/dev-inbox'), 'DevInboxRoute'),
       page('*', () => import('./routes/not-found'), 'NotFoundRoute'),
     ],

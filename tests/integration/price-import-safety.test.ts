@@ -113,8 +113,9 @@ describe('safe price imports', () => {
     expect(audit.items).toHaveLength(1);
     expect(audit.items[0]).toMatchObject({ action: 'price-imported', user: adminName, partNumber: hundredfold.n, priceImportId: imp.id, priceImportFile: 'autumn-prices.csv' });
     expect(audit.items[0]!.changes).toEqual({ priceCents: { from: hundredfold.p, to: hundredfold.p * 100 } });
-    const byImport = one<{ n: number }>('SELECT count(*) AS n FROM audit_log WHERE price_import_id = ?', imp.id).n;
-    expect(byImport).toBe(5);
+    const byImport = (await admin.get(`/api/admin/audit?import=${imp.id}`)).body as AuditPage;
+    expect(byImport.total).toBe(5);
+    expect(new Set(byImport.items.map((i) => i.partNumber))).toEqual(new Set([hundredfold.n, penny.n, exchange.n, gentle.n, tenPct.n]));
     expect((await admin.send('POST', `/api/admin/price-imports/${imp.id}/apply`, {})).status).toBe(409);
   });
 

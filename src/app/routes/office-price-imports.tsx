@@ -3,6 +3,7 @@ import { ErrorState, LoadingState } from '../../components/ui/states';
 import { useMe } from '../../features/auth/api/get-me';
 import { usePriceImport } from '../../features/office/api/get-price-import';
 import { OfficeGate, OfficeNav } from '../../features/office/components/office-shell';
+import { PriceImportHistoryList } from '../../features/office/components/price-import-history';
 import { PriceImportPreview } from '../../features/office/components/price-import-preview';
 import { PriceImportUpload } from '../../features/office/components/price-import-upload';
 import { officeAccess } from '../../features/office/lib/office-access';
@@ -14,8 +15,16 @@ function PriceImports() {
   const id = Number.isInteger(raw) && raw > 0 ? raw : null;
   const current = usePriceImport(id);
   const startOver = () => setParams({});
+  const historyPage = Math.max(1, Number(params.get('page')) || 1);
 
-  if (id === null) return <PriceImportUpload onUploaded={(r) => setParams({ import: String(r.id) })} />;
+  if (id === null) {
+    return (
+      <div className="grid gap-8">
+        <PriceImportUpload onUploaded={(r) => setParams({ import: String(r.id) })} />
+        <PriceImportHistoryList page={historyPage} onPage={(page) => setParams({ page: String(page) })} />
+      </div>
+    );
+  }
   if (current.isPending) return <LoadingState label="Loading the preview…" />;
   if (current.isError) return <ErrorState title="This import did not load" message={current.error.message} onRetry={() => current.refetch()} />;
   return <PriceImportPreview key={current.data.id} result={current.data} onStartOver={startOver} />;
@@ -29,7 +38,9 @@ export function OfficePriceImportsRoute() {
         <OfficeNav />
         <div>
           <h1 className="text-2xl font-bold">Price list import</h1>
-          <p className="text-cast">Upload a CSV, check what it would change, fix or drop rows in error, then apply it all at once.</p>
+          <p className="text-cast">
+            Upload a CSV, check what it would change, fix or drop rows in error, look at every flagged price, then apply it all at once.
+          </p>
         </div>
         <PriceImports />
       </div>
