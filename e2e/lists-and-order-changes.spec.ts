@@ -2,6 +2,9 @@ import type { APIRequestContext, Page } from '@playwright/test';
 import { DEMO_EMAILS, DEMO_PASSWORD, expect, test } from './fixtures';
 import { keepScreenshot } from './support/screens';
 
+// The machine is shared: screens wait for their data a little longer than the default.
+const see = expect.configure({ timeout: 15_000 });
+
 const VIEWS = [
   { name: 'desktop', width: 1280, height: 800 },
   { name: 'phone', width: 390, height: 844 },
@@ -62,7 +65,7 @@ for (const view of VIEWS) {
       await panel.getByLabel('New list name').fill(listName);
       await panel.getByLabel('Quantity').fill('4');
       await panel.getByRole('button', { name: 'Add to list' }).click();
-      await expect(panel.getByText(`Saved to “${listName}”`)).toBeVisible();
+      await see(panel.getByText(`Saved to “${listName}”`)).toBeVisible();
       await axe();
       await keepScreenshot(page, `lists-part-page-${view.name}`);
 
@@ -71,7 +74,7 @@ for (const view of VIEWS) {
       const orderPanel = page.getByRole('form', { name: 'Save the order to a list' });
       await orderPanel.getByLabel('List', { exact: true }).selectOption({ label: `${listName} (1 line)` });
       await orderPanel.getByRole('button', { name: 'Add to list' }).click();
-      await expect(orderPanel.getByText('2 lines added; the list now has 3.')).toBeVisible();
+      await see(orderPanel.getByText('2 lines added; the list now has 3.')).toBeVisible();
       await keepScreenshot(page, `lists-from-order-${view.name}`);
 
       // A colleague at the same trade account signs in and finds the list.
@@ -79,24 +82,24 @@ for (const view of VIEWS) {
       await login('dealerColleague');
       await page.goto('/trade/lists');
       await page.getByRole('link', { name: listName }).click();
-      await expect(page.getByRole('heading', { name: listName })).toBeVisible();
-      await expect(page.getByText('started by Morgan Tillbrook')).toBeVisible();
+      await see(page.getByRole('heading', { name: listName })).toBeVisible();
+      await see(page.getByText('started by Morgan Tillbrook')).toBeVisible();
       const lines = page.getByRole('list', { name: `Lines of ${listName}` });
-      await expect(lines.getByRole('listitem')).toHaveCount(3);
-      await expect(page.getByLabel('Quantity on the list for FLG-50-0201')).toHaveValue('4');
+      await see(lines.getByRole('listitem')).toHaveCount(3);
+      await see(page.getByLabel('Quantity on the list for FLG-50-0201')).toHaveValue('4');
       await axe();
       await keepScreenshot(page, `lists-colleague-${view.name}`);
 
       // Part of it: not the gaskets, and one of the two of AWL-10-0202.
       await page.getByLabel('Order FLG-50-0201').uncheck();
       await page.getByLabel('Quantity to order of AWL-10-0202').fill('1');
-      await expect(page.getByText('2 of 3 lines')).toBeVisible();
+      await see(page.getByText('2 of 3 lines')).toBeVisible();
       await keepScreenshot(page, `lists-choose-lines-${view.name}`);
       await page.getByRole('button', { name: 'Add chosen lines to the cart' }).click();
-      await expect(page).toHaveURL(/\/cart$/);
-      await expect(page.getByRole('link', { name: 'AWL-10-0202' })).toBeVisible();
-      await expect(page.getByRole('link', { name: 'AWL-10-0203' })).toBeVisible();
-      await expect(page.getByRole('link', { name: 'FLG-50-0201' })).toHaveCount(0);
+      await see(page).toHaveURL(/\/cart$/);
+      await see(page.getByRole('link', { name: 'AWL-10-0202' })).toBeVisible();
+      await see(page.getByRole('link', { name: 'AWL-10-0203' })).toBeVisible();
+      await see(page.getByRole('link', { name: 'FLG-50-0201' })).toHaveCount(0);
       await keepScreenshot(page, `lists-cart-${view.name}`);
       await emptyCart(page);
     });
@@ -114,7 +117,7 @@ for (const view of VIEWS) {
         'card',
       );
       await page.goto(`/orders/${number}`);
-      await expect(page.getByRole('heading', { name: 'Change or cancel' })).toBeVisible();
+      await see(page.getByRole('heading', { name: 'Change or cancel' })).toBeVisible();
       await keepScreenshot(page, `order-change-offer-${view.name}`);
       await page.getByRole('button', { name: 'Change quantities' }).click();
       await page.getByLabel('New quantity of AWL-10-0202').fill('1');
@@ -122,12 +125,12 @@ for (const view of VIEWS) {
       await axe();
       await keepScreenshot(page, `order-change-form-${view.name}`);
       await page.getByRole('button', { name: 'Save changes' }).click();
-      await expect(page.getByRole('status').filter({ hasText: 'Order changed' })).toContainText(/\$[\d,.]+ is refunded to your card/);
+      await see(page.getByRole('status').filter({ hasText: 'Order changed' })).toContainText(/\$[\d,.]+ is refunded to your card/);
       const history = page.getByRole('region', { name: 'Your changes' });
-      await expect(history).toContainText('AWL-10-0202: 3 → 1');
-      await expect(history).toContainText('FLG-50-0201: taken off (was 2)');
-      await expect(history).toContainText('refunded to your card');
-      await expect(page.getByRole('region', { name: 'Lines', exact: true }).getByText('FLG-50-0201')).toHaveCount(0);
+      await see(history).toContainText('AWL-10-0202: 3 → 1');
+      await see(history).toContainText('FLG-50-0201: taken off (was 2)');
+      await see(history).toContainText('refunded to your card');
+      await see(page.getByRole('region', { name: 'Lines', exact: true }).getByText('FLG-50-0201')).toHaveCount(0);
       await axe();
       await keepScreenshot(page, `order-changed-${view.name}`);
       await expect
@@ -135,12 +138,12 @@ for (const view of VIEWS) {
         .toBe(true);
 
       await page.getByRole('button', { name: 'Cancel order' }).click();
-      await expect(page.getByText(`Cancel order ${number}?`)).toBeVisible();
+      await see(page.getByText(`Cancel order ${number}?`)).toBeVisible();
       await keepScreenshot(page, `order-cancel-confirm-${view.name}`);
       await page.getByRole('button', { name: 'Yes, cancel the order' }).click();
-      await expect(page.getByRole('status').filter({ hasText: 'Order cancelled' })).toContainText('refunded to your card');
-      await expect(page.getByRole('button', { name: 'Change quantities' })).toHaveCount(0);
-      await expect(page.getByText('Payment not completed')).toHaveCount(0);
+      await see(page.getByRole('status').filter({ hasText: 'Order cancelled' })).toContainText('refunded to your card');
+      await see(page.getByRole('button', { name: 'Change quantities' })).toHaveCount(0);
+      await see(page.getByText('Payment not completed')).toHaveCount(0);
       await keepScreenshot(page, `order-cancelled-${view.name}`);
     });
 
@@ -152,9 +155,9 @@ for (const view of VIEWS) {
       await startPicking(floor, baseURL!, number);
       await floor.dispose();
       await page.goto(`/orders/${number}`);
-      await expect(page.getByText('Why this order cannot be changed')).toBeVisible();
-      await expect(page.getByText(/has started picking order .* can no longer be changed or cancelled/)).toBeVisible();
-      await expect(page.getByRole('button', { name: 'Cancel order' })).toHaveCount(0);
+      await see(page.getByText('Why this order cannot be changed')).toBeVisible();
+      await see(page.getByText(/has started picking order .* can no longer be changed or cancelled/)).toBeVisible();
+      await see(page.getByRole('button', { name: 'Cancel order' })).toHaveCount(0);
       await keepScreenshot(page, `order-picking-refused-${view.name}`);
     });
   });
