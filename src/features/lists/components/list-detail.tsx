@@ -14,7 +14,7 @@ import { useList } from '../api/get-list';
 import { useOrderFromList } from '../api/order-from-list';
 
 const wholeNumber = (text: string) => (/^\d+$/.test(text.trim()) ? Number(text) : null);
-const qtyClass = 'min-h-10 w-20 rounded-md border border-cast-line bg-white px-2 text-right tabular focus:border-temper';
+const qtyClass = 'min-h-10 w-20 rounded-md border border-cast-line bg-white px-2 text-right tabular focus:border-temper disabled:bg-panel disabled:text-cast';
 
 function availability(l: ListLine) {
   if (l.status === 'discontinued') return l.available > 0 ? `Discontinued · ${l.available} left` : 'Discontinued · none left';
@@ -85,7 +85,7 @@ function Lines({ list, onAdded }: { list: ListDetailData; onAdded: () => void })
                 <Link to={`/parts/${encodeURIComponent(l.partNumber)}`} className="part-no font-semibold text-temper hover:underline">
                   {l.partNumber}
                 </Link>
-                <p className="truncate">{l.title}</p>
+                <p className="sm:truncate">{l.title}</p>
                 <p className="text-sm text-cast">
                   <span className={l.available > 0 && l.status === 'active' ? '' : 'font-semibold text-amber'}>{availability(l)}</span> · <span className="tabular">{formatPrice(l.unitCents)}</span> each
                   {l.addedByName && <> · added by {l.addedByName}</>}

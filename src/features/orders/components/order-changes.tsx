@@ -2,7 +2,7 @@ import { PencilLine, XCircle } from 'lucide-react';
 import { useState } from 'react';
 import { formatPrice } from '../../../../shared/catalog';
 import { formatDateTime } from '../../../../shared/format';
-import type { OrderChangeView } from '../../../../shared/schemas/order-changes';
+import type { OrderChangeResult, OrderChangeView } from '../../../../shared/schemas/order-changes';
 import type { OrderDetail } from '../../../../shared/schemas/orders';
 import { Button } from '../../../components/ui/button';
 import { Notice } from '../../../components/ui/notice';
@@ -59,9 +59,9 @@ export function OrderChanges({ order }: { order: OrderDetail }) {
   const { change, cancel } = useChangeOrder();
   const [mode, setMode] = useState<'idle' | 'edit' | 'cancel'>('idle');
   const [quantities, setQuantities] = useState<Record<number, string>>({});
+  const [result, setResult] = useState<OrderChangeResult | null>(null);
   if (!changes.data) return null;
   const { changeability, changes: history } = changes.data;
-  const result = change.data ?? cancel.data;
   const failure = change.error ?? cancel.error;
   const money =
     order.paymentMethod === 'account'
@@ -99,13 +99,20 @@ export function OrderChanges({ order }: { order: OrderDetail }) {
           </p>
           <div className="flex flex-wrap gap-2">
             {changeability.canChange && (
-              <Button variant="secondary" onClick={() => (change.reset(), setQuantities({}), setMode('edit'))}>
+              <Button variant="secondary" onClick={() => {
+                  change.reset();
+                  setQuantities({});
+                  setMode('edit');
+                }}>
                 <PencilLine aria-hidden className="size-4" />
                 Change quantities
               </Button>
             )}
             {changeability.canCancel && (
-              <Button variant="secondary" onClick={() => (cancel.reset(), setMode('cancel'))}>
+              <Button variant="secondary" onClick={() => {
+                  cancel.reset();
+                  setMode('cancel');
+                }}>
                 <XCircle aria-hidden className="size-4" />
                 Cancel order
               </Button>
@@ -120,7 +127,12 @@ export function OrderChanges({ order }: { order: OrderDetail }) {
           onSubmit={(e) => {
             e.preventDefault();
             if (invalid || lowered.length === 0) return;
-            change.mutate({ number: order.number, lines: lowered.map(({ line, n }) => ({ lineId: line.id, quantity: n! })) }, { onSuccess: () => setMode('idle') });
+            change.mutate({ number: order.number, lines: lowered.map(({ line, n }) => ({ lineId: line.id, quantity: n! })) }, {
+              onSuccess: (r) => {
+                setResult(r);
+                setMode('idle');
+              },
+            });
           }}
         >
           <h2 id="edit-heading" className="text-xl font-bold">
@@ -137,6 +149,7 @@ export function OrderChanges({ order }: { order: OrderDetail }) {
                     <p className="text-sm text-cast">
                       {l.title} · ordered {l.quantity}
                     </p>
+                    {text.trim() === '0' && <p className="text-sm font-semibold text-oxide">Will be taken off the order</p>}
                   </div>
                   <div className="flex items-end gap-2">
                     <label className="grid gap-0.5 text-sm">
@@ -183,7 +196,12 @@ export function OrderChanges({ order }: { order: OrderDetail }) {
                 : `${formatPrice(order.totalCents - order.totals.refundedCents)} goes back to your card.`}
           </p>
           <div className="mt-2 flex flex-wrap gap-2">
-            <Button onClick={() => cancel.mutate(order.number, { onSuccess: () => setMode('idle') })} disabled={cancel.isPending}>
+            <Button onClick={() => cancel.mutate(order.number, {
+                  onSuccess: (r) => {
+                    setResult(r);
+                    setMode('idle');
+                  },
+                })} disabled={cancel.isPending}>
               {cancel.isPending ? 'Cancelling…' : 'Yes, cancel the order'}
             </Button>
             <Button variant="secondary" onClick={() => setMode('idle')}>

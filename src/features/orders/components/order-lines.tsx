@@ -12,7 +12,8 @@ export function zoneLabel(zone: string) {
 export function OrderLinesTable({ order, print = false, lineAction }: { order: OrderDetail; print?: boolean; /** A last column of per-line actions (not on paper). */ lineAction?: (line: OrderDetail['lines'][number]) => ReactNode }) {
   const th = 'px-2 py-2 font-semibold';
   return (
-    <div className={print ? '' : 'overflow-x-auto'}>
+    // Focusable when it scrolls sideways (phones), so a keyboard can scroll it too.
+    <div className={print ? '' : 'overflow-x-auto'} tabIndex={print ? undefined : 0} role={print ? undefined : 'region'} aria-label={print ? undefined : `Lines of order ${order.number}`}>
       <table className={`w-full border-collapse text-left ${print ? '' : 'min-w-[34rem]'}`}>
         <caption className="sr-only">Lines of order {order.number}</caption>
         <thead className="border-b-2 border-ink text-sm">

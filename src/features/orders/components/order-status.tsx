@@ -1,4 +1,4 @@
-import { Banknote, Circle, CircleX, PackageCheck, Undo2 } from 'lucide-react';
+import { Banknote, Circle, CircleX, PackageCheck, PencilLine, Undo2 } from 'lucide-react';
 import { ORDER_STATUS_LOOKS, type StatusLook } from '../../../components/ui/status-looks';
 
 /** The order's states plus the timeline's own events; 'placed' is a timeline event, not a status. */
@@ -9,6 +9,8 @@ const TIMELINE_LOOKS: Record<string, StatusLook> = {
   return_requested: { label: 'Return requested', Icon: Undo2, tone: 'temper' },
   return_rejected: { label: 'Return not accepted', Icon: CircleX, tone: 'oxide' },
   invoice_paid: { label: 'Invoice paid', Icon: Banknote, tone: 'machined' },
+  changed: { label: 'Changed by you', Icon: PencilLine, tone: 'temper' },
+  payment_refunded: { label: 'Refunded to card', Icon: Banknote, tone: 'machined' },
 };
 
 export function statusMeta(status: string): StatusLook {
