@@ -1,5 +1,6 @@
 import { useQueryClient } from '@tanstack/react-query';
 import { useParams, useSearchParams } from 'react-router-dom';
+import { useCart } from '../../features/cart/api/get-cart';
 import { cartKeys } from '../../features/cart/api/keys';
 import { OrderPage } from '../../features/orders/components/order-page';
 
@@ -7,5 +8,6 @@ export function OrderRoute() {
   const { number = '' } = useParams();
   const [params] = useSearchParams();
   const qc = useQueryClient();
-  return <OrderPage number={number} placed={params.get('placed') === '1'} onReorderAdded={() => void qc.invalidateQueries({ queryKey: cartKeys.all })} />;
+  const cart = useCart();
+  return <OrderPage number={number} placed={params.get('placed') === '1'} onReorderAdded={() => void qc.invalidateQueries({ queryKey: cartKeys.all })} cartLines={cart.data?.lines} />;
 }

@@ -1,5 +1,6 @@
 import { flexRender, type Row, type Table } from '@tanstack/react-table';
 import type { ReactNode, TdHTMLAttributes, ThHTMLAttributes } from 'react';
+import { useFocusableWhenScrolling } from './scroll-focus';
 import { SortableColumnHeader } from './sort-header';
 
 /**
@@ -7,7 +8,12 @@ import { SortableColumnHeader } from './sort-header';
  * makes the page wider than a phone's screen. `min-w-0` lets it shrink inside grid and flex parents.
  */
 export function TableFrame({ children, maxHeight, className = '' }: { children: ReactNode; /** e.g. "max-h-[70vh]": the header then sticks while rows scroll. */ maxHeight?: string; className?: string }) {
-  return <div className={`relative min-w-0 max-w-full overflow-auto rounded-md border border-cast-line bg-white ${maxHeight ?? ''} ${className}`}>{children}</div>;
+  const ref = useFocusableWhenScrolling<HTMLDivElement>();
+  return (
+    <div ref={ref} className={`relative min-w-0 max-w-full overflow-auto rounded-md border border-cast-line bg-white focus-visible:outline-3 focus-visible:outline-temper ${maxHeight ?? ''} ${className}`}>
+      {children}
+    </div>
+  );
 }
 
 type Density = 'desk' | 'floor';
