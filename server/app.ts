@@ -190,7 +190,7 @@ export function createApp(deps: AppDeps) {
   // and answers to sign-up and reset that do not tell whether an account exists.
   const limiters = signInLimiters(db, { perAddressPerMinute: config.signinLimitPerMinute, ...DEFAULT_SIGNIN_LIMITS, ...config.signinLimits });
   app.use('/api/auth', ...authBodyLimit());
-  app.use(['/api/auth/sign-in', '/api/auth/request-password-reset'], limiters.perAddress);
+  app.use(['/api/auth/sign-in', '/api/auth/request-password-reset', '/api/auth/send-verification-email'], limiters.perAddress);
   app.use('/api/auth', authInputGuard());
   app.use('/api/auth/sign-in/email', limiters.signInPerAccount);
   app.use('/api/auth/request-password-reset', limiters.resetPerAccount);

@@ -23,6 +23,22 @@ export interface AuthOptions {
   secureCookies: boolean;
 }
 
+/** Where a confirmation link lands, in the client: it says what happened, and explains a link that no longer works. */
+export const CONFIRM_PAGE = '/email-confirmed';
+
+/**
+ * The confirmation link goes back through our own page: the auth library appends `?error=TOKEN_EXPIRED` (or another
+ * code) to its way back when the link fails, which no other page would explain. The page the buyer was headed for
+ * rides along as `next`.
+ */
+export function throughConfirmPage(url: string): string {
+  const link = new URL(url);
+  const back = link.searchParams.get('callbackURL');
+  const next = back && back.startsWith('/') && !back.startsWith('//') && !back.startsWith(CONFIRM_PAGE) ? back : '/';
+  link.searchParams.set('callbackURL', `${CONFIRM_PAGE}?next=${encodeURIComponent(next)}`);
+  return link.toString();
+}
+
 /** Sign-in with e-mail and password through better-auth, its users and sessions in our SQLite file. */
 export function createAuth(options: AuthOptions) {
   return betterAuth({
@@ -56,7 +72,7 @@ export function createAuth(options: AuthOptions) {
       autoSignInAfterVerification: true,
       expiresIn: 60 * 60 * 24,
       sendVerificationEmail: async ({ user, url }) => {
-        await options.sendConfirmEmail({ email: user.email, name: user.name }, url);
+        await options.sendConfirmEmail({ email: user.email, name: user.name }, throughConfirmPage(url));
       },
     },
     session: { expiresIn: 60 * 60 * 24 * 14, updateAge: 60 * 60 * 24 },

@@ -150,6 +150,32 @@ function AccountArea() {
   );
 }
 
+/**
+ * The Floor's own header: the workspace, the way back to the Counter and the account, in one short row, so a
+ * handheld shows the scan field without scrolling. Shop search and cart belong to the Counter.
+ */
+function FloorHeader({ role, loading }: { role: Role; loading: boolean }) {
+  return (
+    <header className="no-print border-b-4 border-temper bg-white">
+      <div className="mx-auto flex max-w-6xl flex-wrap items-center gap-x-3 gap-y-2 px-4 py-1.5">
+        <Link to="/" className="flex items-baseline gap-2">
+          <span className="text-lg font-bold tracking-tight text-ink sm:text-2xl">Spoolyard</span>
+          <span className="rounded bg-panel px-2 py-0.5 text-sm font-semibold uppercase tracking-wider text-cast" aria-label="Workspace: Floor">
+            Floor
+          </span>
+        </Link>
+        <div className="ml-auto flex items-center gap-3">
+          <div className="hidden sm:block">
+            <WorkspaceNav role={role} current="Floor" />
+          </div>
+          <AccountArea />
+        </div>
+      </div>
+      {loading && <div className="h-0.5 animate-pulse bg-temper" role="progressbar" aria-label="Loading page" />}
+    </header>
+  );
+}
+
 export function Layout() {
   const navigation = useNavigation();
   const location = useLocation();
@@ -165,6 +191,9 @@ export function Layout() {
         <a href="#main" className="sr-only focus:not-sr-only focus:absolute focus:left-2 focus:top-2 focus:z-50 focus:rounded focus:bg-white focus:p-2">
           Skip to content
         </a>
+        {workspace === 'Floor' && role ? (
+          <FloorHeader role={role} loading={navigation.state === 'loading'} />
+        ) : (
         <header className="no-print border-b-4 border-temper bg-white">
           <div className="mx-auto flex max-w-6xl flex-wrap items-center gap-x-4 gap-y-3 px-4 py-3">
             <Link to="/" className="flex items-baseline gap-2">
@@ -205,8 +234,9 @@ export function Layout() {
           </div>
           {navigation.state === 'loading' && <div className="h-0.5 animate-pulse bg-temper" role="progressbar" aria-label="Loading page" />}
         </header>
+        )}
         {/* At least a screen tall, so the footer never sits in the first view only to be pushed down as the page arrives. */}
-        <main id="main" className="mx-auto min-h-screen w-full max-w-6xl flex-1 px-4 py-6">
+        <main id="main" className={`mx-auto min-h-screen w-full max-w-6xl flex-1 px-4 ${workspace === 'Floor' ? 'py-2 sm:py-6' : 'py-6'}`}>
           <Outlet />
         </main>
         <footer className="no-print border-t border-cast-line bg-panel">

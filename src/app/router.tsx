@@ -92,6 +92,7 @@ const router = createBrowserRouter([
       page('office', () => import('./routes/office-index'), 'OfficeIndexRoute'),
       page('notices', () => import('./routes/notices'), 'NoticesRoute'),
       page('office/audit', () => import('./routes/office-audit'), 'OfficeAuditRoute'),
+      page('email-confirmed', () => import('./routes/email-confirmed'), 'EmailConfirmedRoute'),
       page('dev/inbox', () => import('./routes/dev-inbox'), 'DevInboxRoute'),
       page('*', () => import('./routes/not-found'), 'NotFoundRoute'),
     ],

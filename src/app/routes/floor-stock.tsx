@@ -9,7 +9,7 @@ export function FloorStockRoute() {
   const part = params.get('part')?.trim().toUpperCase() || null;
   return (
     <FloorGate me={me}>
-      <h1 className="mb-4 text-3xl font-bold">Stock</h1>
+      <h1 className="mb-2 text-2xl font-bold sm:mb-4 sm:text-3xl">Stock</h1>
       <StockPage part={part} onLookUp={(p) => setParams(p ? { part: p } : {})} />
     </FloorGate>
   );

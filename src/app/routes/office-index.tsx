@@ -87,7 +87,7 @@ export function OfficeIndexRoute() {
   return (
     <OfficeGate access={access}>
       <div className="grid gap-6">
-        <OfficePageHeader title="Office">Catalogue, prices and dealer accounts: pick up where something waits.</OfficePageHeader>
+        <OfficePageHeader title="Overview">Catalogue, prices and dealer accounts: pick up where something waits.</OfficePageHeader>
         <OfficeNav />
         {summary.isError && <p className="text-cast">The counts did not load ({summary.error.message}); every screen below still opens.</p>}
         <ul aria-label="Office screens" className="grid gap-4 sm:grid-cols-2 lg:grid-cols-3">

@@ -1,4 +1,5 @@
 import type { ReactNode, TdHTMLAttributes, ThHTMLAttributes } from 'react';
+import { useFocusableWhenScrolling } from './scroll-focus';
 
 // Plain table parts, apart from the sortable data table so a page with a simple table loads no table library.
 
@@ -7,7 +8,12 @@ import type { ReactNode, TdHTMLAttributes, ThHTMLAttributes } from 'react';
  * makes the page wider than a phone's screen. `min-w-0` lets it shrink inside grid and flex parents.
  */
 export function TableFrame({ children, maxHeight, className = '' }: { children: ReactNode; /** e.g. "max-h-[70vh]": the header then sticks while rows scroll. */ maxHeight?: string; className?: string }) {
-  return <div className={`relative min-w-0 max-w-full overflow-auto rounded-md border border-cast-line bg-white ${maxHeight ?? ''} ${className}`}>{children}</div>;
+  const ref = useFocusableWhenScrolling<HTMLDivElement>();
+  return (
+    <div ref={ref} className={`relative min-w-0 max-w-full overflow-auto rounded-md border border-cast-line bg-white focus-visible:outline-3 focus-visible:outline-temper ${maxHeight ?? ''} ${className}`}>
+      {children}
+    </div>
+  );
 }
 
 export type Density = 'desk' | 'floor';

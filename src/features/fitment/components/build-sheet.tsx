@@ -1,10 +1,11 @@
-import { CircleCheck, ShoppingCart, TriangleAlert } from 'lucide-react';
-import { useState, type ReactNode } from 'react';
+import { ShoppingCart, TriangleAlert } from 'lucide-react';
+import { useEffect, useRef, useState, type ReactNode } from 'react';
 import { Link } from 'react-router-dom';
 import { formatPrice } from '../../../../shared/catalog';
 import type { FitmentAssumptions, FitmentCandidate, FitmentRequest } from '../../../../shared/schemas/fitment';
 import type { FitmentFrameMap, SavedFitment } from '../../../../shared/schemas/saved-fitments';
 import { Button } from '../../../components/ui/button';
+import { Notice } from '../../../components/ui/notice';
 import { ErrorState, LoadingState } from '../../../components/ui/states';
 import { useAddBuildToCart } from '../api/add-build-to-cart';
 import { useBuildParts } from '../api/get-build-parts';
@@ -156,6 +157,11 @@ function BuildParts({ candidate, turbineAr, plan, onPrefer, request, signedIn, c
   const signature = lines.map((l) => `${l.part?.partNumber ?? '-'}×${l.quantity}`).join(',');
   const [added, setAdded] = useState<{ signature: string; withCheck: string | null } | null>(null);
   const add = useAddBuildToCart(onAddedToCart);
+  const confirmRef = useRef<HTMLDivElement>(null);
+  const answered = (added !== null && added.signature === signature) || add.isError;
+  useEffect(() => {
+    if (answered) confirmRef.current?.scrollIntoView({ block: 'nearest', behavior: 'smooth' });
+  }, [answered, added]);
 
   if (main !== null && detail.isPending) return <LoadingState label="Choosing the gaskets and lines for this build…" />;
   if (detail.isError) return <ErrorState title="The fittings for this build did not load" message={detail.error.message} onRetry={() => void detail.refetch()} />;
@@ -235,6 +241,23 @@ function BuildParts({ candidate, turbineAr, plan, onPrefer, request, signedIn, c
           <p className="text-sm text-cast">
             {pieces} {pieces === 1 ? 'part' : 'parts'} on {lines.length} cart lines{saved ? `, each carrying the check “${saved.name}”` : ''}.
           </p>
+          {/* Right under the button, and scrolled to if it lands below the screen's edge: the answer is where the buyer looks. */}
+          <div aria-live="polite" ref={confirmRef} className="scroll-mb-4">
+            {added && added.signature === signature && (
+              <Notice tone="done">
+                The build is in your cart: {pieces} {pieces === 1 ? 'part' : 'parts'}
+                {added.withCheck ? <>, with the check “{added.withCheck}” attached to every line</> : null}.{' '}
+                <Link to="/cart" className="font-semibold text-temper underline underline-offset-2">
+                  Go to the cart
+                </Link>
+              </Notice>
+            )}
+            {add.isError && (
+              <Notice tone="problem" live="alert">
+                {add.error.message}
+              </Notice>
+            )}
+          </div>
         </div>
       ) : (
         <p role="note" className="rounded-md bg-oxide-tint p-3 font-semibold text-oxide">
@@ -243,25 +266,6 @@ function BuildParts({ candidate, turbineAr, plan, onPrefer, request, signedIn, c
         </p>
       )}
 
-      <div aria-live="polite">
-        {added && added.signature === signature && (
-          <p role="status" className="flex items-start gap-2 rounded-md bg-machined-tint p-3 text-ink">
-            <CircleCheck aria-hidden className="mt-0.5 size-5 shrink-0 text-machined" />
-            <span>
-              The build is in your cart: {pieces} {pieces === 1 ? 'part' : 'parts'}
-              {added.withCheck ? <>, with the check “{added.withCheck}” attached to every line</> : null}.{' '}
-              <Link to="/cart" className="font-semibold text-temper underline underline-offset-2">
-                Go to the cart
-              </Link>
-            </span>
-          </p>
-        )}
-        {add.isError && (
-          <p role="alert" className="rounded-md bg-oxide-tint p-3 font-semibold text-oxide">
-            {add.error.message}
-          </p>
-        )}
-      </div>
     </div>
   );
 }

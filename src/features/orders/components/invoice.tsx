@@ -1,6 +1,7 @@
 import { Printer } from 'lucide-react';
 import { Link } from 'react-router-dom';
 import { Button } from '../../../components/ui/button';
+import { useFocusableWhenScrolling } from '../../../components/ui/scroll-focus';
 import { ErrorState, LoadingState } from '../../../components/ui/states';
 import { ApiError } from '../../../lib/api-client';
 import { useOrder } from '../../../lib/orders';
@@ -20,6 +21,7 @@ function dueDate(createdAt: string, days: number) {
 /** A printable invoice (on account) or receipt (card): plain black on white, no site chrome on paper. */
 export function Invoice({ number }: { number: string }) {
   const order = useOrder(number);
+  const scrollRef = useFocusableWhenScrolling<HTMLElement>();
   if (order.isPending) return <LoadingState label={`Loading invoice for ${number}…`} />;
   if (order.isError) {
     return order.error instanceof ApiError && order.error.isNotFound ? (
@@ -42,7 +44,7 @@ export function Invoice({ number }: { number: string }) {
           Back to the order
         </Link>
       </div>
-      <article aria-label={`${account ? 'Invoice' : 'Receipt'} ${o.number}`} className="mx-auto grid w-full max-w-3xl gap-6 overflow-x-auto bg-white p-4 sm:p-8 text-ink shadow-sm ring-1 ring-cast-line print:max-w-none print:p-0 print:shadow-none print:ring-0">
+      <article ref={scrollRef} aria-label={`${account ? 'Invoice' : 'Receipt'} ${o.number}`} className="mx-auto grid w-full max-w-3xl gap-6 overflow-x-auto bg-white focus-visible:outline-3 focus-visible:outline-temper p-4 sm:p-8 text-ink shadow-sm ring-1 ring-cast-line print:max-w-none print:p-0 print:shadow-none print:ring-0">
         <header className="flex flex-wrap justify-between gap-6 border-b-2 border-ink pb-4">
           <div>
             <p className="text-2xl font-bold">{DISTRIBUTOR.name}</p>

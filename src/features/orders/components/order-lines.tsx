@@ -3,6 +3,7 @@ import type { ReactNode } from 'react';
 import { formatPrice } from '../../../../shared/catalog';
 import { DELIVERY_ZONES, type DeliveryZone } from '../../../../shared/pricing';
 import type { OrderDetail } from '../../../../shared/schemas/orders';
+import { useFocusableWhenScrolling } from '../../../components/ui/scroll-focus';
 
 export function zoneLabel(zone: string) {
   return DELIVERY_ZONES[zone as DeliveryZone] ?? zone;
@@ -11,9 +12,9 @@ export function zoneLabel(zone: string) {
 /** The order's lines as sold: prices are the ones stored on the order, not today's. */
 export function OrderLinesTable({ order, print = false, lineAction }: { order: OrderDetail; print?: boolean; /** A last column of per-line actions (not on paper). */ lineAction?: (line: OrderDetail['lines'][number]) => ReactNode }) {
   const th = 'px-2 py-2 font-semibold';
+  const scrollRef = useFocusableWhenScrolling<HTMLDivElement>();
   return (
-    // Focusable when it scrolls sideways (phones), so a keyboard can scroll it too.
-    <div className={print ? '' : 'overflow-x-auto'} tabIndex={print ? undefined : 0} role={print ? undefined : 'region'} aria-label={print ? undefined : `Lines of order ${order.number}`}>
+    <div ref={print ? undefined : scrollRef} className={print ? '' : 'overflow-x-auto focus-visible:outline-3 focus-visible:outline-temper'}>
       <table className={`w-full border-collapse text-left ${print ? '' : 'min-w-[34rem]'}`}>
         <caption className="sr-only">Lines of order {order.number}</caption>
         <thead className="border-b-2 border-ink text-sm">

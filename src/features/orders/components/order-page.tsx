@@ -1,8 +1,9 @@
 import type { ReactNode } from 'react';
-import { CircleCheck, CircleX, ExternalLink, Hourglass, PackageOpen, Printer, Truck, Undo2 } from 'lucide-react';
+import { ExternalLink, PackageOpen, Printer, Truck, Undo2 } from 'lucide-react';
 import { Link } from 'react-router-dom';
 import type { OrderDetail } from '../../../../shared/schemas/orders';
 import { buttonClass } from '../../../components/ui/button';
+import { Notice } from '../../../components/ui/notice';
 import { ErrorState, LoadingState } from '../../../components/ui/states';
 import { ApiError } from '../../../lib/api-client';
 import { PAYMENT_POLL_LIMIT, PAYMENT_POLL_MS, useOrder } from '../../../lib/orders';
@@ -12,6 +13,7 @@ import { StatusBadge } from '../../../components/ui/status-badge';
 import { OrderTimeline } from './order-timeline';
 import { ReorderButton } from './reorder-button';
 import { OrderChanges, useBuyerCancelled } from './order-changes';
+import { cancelledBanner, type CartHolding } from '../lib/cancelled-banner';
 
 const PAYMENT_STATE_WORDS: Record<string, string> = {
   awaiting: 'Waiting for the card payment to be confirmed',
@@ -23,49 +25,53 @@ const PAYMENT_STATE_WORDS: Record<string, string> = {
   partially_refunded: 'Partly refunded',
 };
 
-function PaymentBanner({ order, placed }: { order: OrderDetail; placed: boolean }) {
+function PaymentBanner({ order, placed, cart }: { order: OrderDetail; placed: boolean; cart: CartHolding | undefined }) {
   const buyerCancelled = useBuyerCancelled(order.number);
   if (order.status === 'pending_payment') {
     // Polling stops after about PAYMENT_POLL_LIMIT answers; by then the order is old enough to say so.
     const slow = Date.now() - Date.parse(order.createdAt) > (PAYMENT_POLL_LIMIT * PAYMENT_POLL_MS) / 2;
     return (
-      <div role="status" className="flex items-start gap-3 rounded-md border border-amber-line bg-amber-tint p-4">
-        <Hourglass aria-hidden className="mt-0.5 size-5 shrink-0 text-amber" />
-        <div>
-          <p className="font-semibold">Waiting for the payment service to confirm your payment…</p>
-          <p className="text-sm">
-            {slow ? 'This is taking longer than usual. Reload the page in a minute; you will also get an e-mail.' : 'This usually takes a second or two.'}
-          </p>
-        </div>
-      </div>
+      <Notice tone={slow ? 'warning' : 'info'} title="Waiting for the payment service to confirm your payment…">
+        <p className="text-sm">
+          {slow ? 'This is taking longer than usual. Reload the page in a minute; you will also get an e-mail.' : 'This usually takes a second or two.'}
+        </p>
+      </Notice>
     );
   }
-  if (order.status === 'cancelled' && order.paymentState === 'failed' && !buyerCancelled) {
+  // A buyer who cancelled the order themselves sees that in the order's changes, not as a failed payment.
+  const cancelled = buyerCancelled ? null : cancelledBanner(order, cart);
+  if (cancelled) {
+    const when = cancelled.at ? (
+      <>
+        {' '}
+        on <time dateTime={cancelled.at}>{formatDateTime(cancelled.at)}</time>
+      </>
+    ) : null;
     return (
-      <div role="alert" className="flex items-start gap-3 rounded-md border-2 border-oxide bg-oxide-tint p-4">
-        <CircleX aria-hidden className="mt-0.5 size-5 shrink-0 text-oxide" />
-        <div>
-          <p className="font-bold text-oxide">Payment not completed: this order is cancelled</p>
-          <p>
-            No money was taken and the parts are back in your cart.{' '}
+      <Notice tone={cancelled.cart === 'still-there' ? 'warning' : 'info'} title={<>Payment not completed: this order was cancelled{when}</>}>
+        <p className="text-ink">
+          {cancelled.reason && <>{cancelled.reason.replace(/\.?$/, '.')} </>}
+          No money was taken.
+        </p>
+        {cancelled.cart === 'still-there' ? (
+          <p className="text-ink">
+            Its parts went back into your cart and are still there.{' '}
             <Link to="/cart" className="font-semibold text-temper underline">
               Go to your cart
             </Link>{' '}
-            to try another card.
+            to pay with another card.
           </p>
-        </div>
-      </div>
+        ) : cancelled.cart === 'changed' ? (
+          <p className="text-ink">Its parts went back into your cart then; your cart has changed since. Reorder puts them in again.</p>
+        ) : null}
+      </Notice>
     );
   }
   if (placed && (order.status === 'paid' || order.status === 'on_account')) {
     return (
-      <div role="status" className="flex items-start gap-3 rounded-md border border-machined bg-machined-tint p-4">
-        <CircleCheck aria-hidden className="mt-0.5 size-5 shrink-0 text-machined" />
-        <div>
-          <p className="font-bold text-machined">{order.status === 'paid' ? 'Thank you: payment received' : 'Thank you: order placed on account'}</p>
-          <p>A confirmation is on its way to {order.email}.</p>
-        </div>
-      </div>
+      <Notice tone="done" title={order.status === 'paid' ? 'Thank you: payment received' : 'Thank you: order placed on account'}>
+        <p className="text-ink">A confirmation is on its way to {order.email}.</p>
+      </Notice>
     );
   }
   return null;
@@ -139,12 +145,15 @@ export function OrderPage({
   canReturn = false,
   onReorderAdded,
   saveToList,
+  cartLines,
 }: {
   number: string;
   placed: boolean;
   canReturn?: boolean;
   onReorderAdded: () => void;
   saveToList?: ReactNode;
+  /** What the buyer's cart holds now, so a cancelled order's banner says whether its parts are still there. */
+  cartLines?: CartHolding;
 }) {
   const order = useOrder(number);
   if (order.isPending) return <LoadingState label={`Loading order ${number}…`} />;
@@ -197,7 +206,7 @@ export function OrderPage({
         </div>
         <StatusBadge kind="order" status={o.status} />
       </header>
-      <PaymentBanner order={o} placed={placed} />
+      <PaymentBanner order={o} placed={placed} cart={cartLines} />
       <div className="grid gap-8 lg:grid-cols-[minmax(0,1fr)_20rem]">
         <div className="grid min-w-0 content-start gap-6">
           <section aria-labelledby="lines-heading" className="min-w-0">

@@ -114,6 +114,32 @@ export function StockListUpload({ onAdded }: { onAdded: () => void }) {
   const bad = live.filter((r) => r.result.status === 'error');
   const dropped = (rows ?? []).filter((r) => r.dropped);
   const setRow = (line: number, change: Partial<PreviewRow>) => setRows((rs) => rs?.map((r) => (r.line === line ? { ...r, ...change } : r)) ?? null);
+  /** A row's Keep, or Fix and Drop buttons. */
+  const actions = (r: PreviewRow) =>
+    r.dropped ? (
+      <Button variant="quiet" onClick={() => setRow(r.line, { dropped: false })} aria-label={`Keep row ${r.line}`}>
+        <Undo2 aria-hidden className="size-4" /> Keep
+      </Button>
+    ) : (
+      <div className="flex gap-1">
+        {editing !== r.line && (
+          <Button variant="quiet" onClick={() => setEditing(r.line)} aria-label={`Fix row ${r.line}`}>
+            <Pencil aria-hidden className="size-4" /> Fix
+          </Button>
+        )}
+        <Button
+          variant="quiet"
+          className="text-oxide hover:bg-oxide-tint"
+          onClick={() => {
+            setRow(r.line, { dropped: true });
+            if (editing === r.line) setEditing(null);
+          }}
+          aria-label={`Drop row ${r.line}`}
+        >
+          <Trash2 aria-hidden className="size-4" /> Drop
+        </Button>
+      </div>
+    );
 
   const addValid = () => {
     const lines = valid.map((r) => ({ partNumber: r.result.partNumber!, quantity: r.result.quantity! }));
@@ -213,7 +239,7 @@ export function StockListUpload({ onAdded }: { onAdded: () => void }) {
                   <th scope="col" className="sticky top-0 z-10 border-b-2 border-ink bg-white px-3 py-2 font-semibold">
                     Result
                   </th>
-                  <th scope="col" className="sticky top-0 z-10 border-b-2 border-ink bg-white px-3 py-2 font-semibold">
+                  <th scope="col" className="sticky top-0 z-10 hidden border-b-2 border-ink bg-white px-3 py-2 font-semibold sm:table-cell">
                     <span className="sr-only">Actions</span>
                   </th>
                 </tr>
@@ -247,32 +273,11 @@ export function StockListUpload({ onAdded }: { onAdded: () => void }) {
                           }}
                         />
                       )}
+                      {/* On a phone the actions sit under the result, where the thumb is, not in a column off the screen. */}
+                      <div className="mt-2 sm:hidden">{actions(r)}</div>
                     </td>
-                    <td className="whitespace-nowrap px-3 py-2">
-                      {r.dropped ? (
-                        <Button variant="quiet" onClick={() => setRow(r.line, { dropped: false })} aria-label={`Keep row ${r.line}`}>
-                          <Undo2 aria-hidden className="size-4" /> Keep
-                        </Button>
-                      ) : (
-                        <div className="flex gap-1">
-                          {editing !== r.line && (
-                            <Button variant="quiet" onClick={() => setEditing(r.line)} aria-label={`Fix row ${r.line}`}>
-                              <Pencil aria-hidden className="size-4" /> Fix
-                            </Button>
-                          )}
-                          <Button
-                            variant="quiet"
-                            className="text-oxide hover:bg-oxide-tint"
-                            onClick={() => {
-                              setRow(r.line, { dropped: true });
-                              if (editing === r.line) setEditing(null);
-                            }}
-                            aria-label={`Drop row ${r.line}`}
-                          >
-                            <Trash2 aria-hidden className="size-4" /> Drop
-                          </Button>
-                        </div>
-                      )}
+                    <td className="hidden whitespace-nowrap px-3 py-2 sm:table-cell">
+                      {actions(r)}
                     </td>
                   </tr>
                 ))}

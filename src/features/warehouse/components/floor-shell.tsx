@@ -16,13 +16,13 @@ const tabs = [
 ];
 
 const tabClass = ({ isActive }: { isActive: boolean }) =>
-  `inline-flex min-h-12 items-center rounded-t-md border-b-4 px-4 text-lg font-semibold ${
+  `inline-flex min-h-12 items-center whitespace-nowrap rounded-t-md border-b-4 px-3 text-lg font-semibold sm:px-4 ${
     isActive ? 'border-temper bg-white text-temper-deep' : 'border-transparent text-ink hover:border-cast-line hover:text-temper'
   }`;
 
 export function FloorNav() {
   return (
-    <nav aria-label="Floor" className="no-print -mx-4 mb-6 overflow-x-auto border-b border-cast-line px-4">
+    <nav aria-label="Floor" className="no-print -mx-4 mb-3 overflow-x-auto border-b border-cast-line px-4 sm:mb-6">
       <ul className="flex gap-1">
         {tabs.map((t) => (
           <li key={t.to}>

@@ -1,10 +1,11 @@
 import { zodResolver } from '@hookform/resolvers/zod';
-import { CircleCheckBig, PackagePlus, RotateCcw } from 'lucide-react';
+import { PackagePlus, RotateCcw } from 'lucide-react';
 import { useEffect, useRef, useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { Link } from 'react-router-dom';
 import { GoodsInSchema } from '../../../../shared/schemas/warehouse';
 import { Button } from '../../../components/ui/button';
+import { Notice } from '../../../components/ui/notice';
 import { ApiError } from '../../../lib/api-client';
 import { useBins } from '../api/get-bins';
 import { useStock } from '../api/get-stock';
@@ -57,7 +58,8 @@ export function GoodsInPage() {
         {
           onSuccess: (reply) => {
             setResult(reply);
-            form.reset({ partNumber: '', binCode: '', note: '' });
+            // No values given: the form's own reset empties every field, the number ones included.
+            form.reset();
             setLookup(null);
             requestAnimationFrame(() => partRef.current?.focus());
           },
@@ -74,7 +76,7 @@ export function GoodsInPage() {
   return (
     <div className="grid gap-6 lg:grid-cols-[minmax(0,1.2fr)_minmax(0,1fr)] lg:items-start">
       <form noValidate onSubmit={onSubmit} aria-labelledby="gi-heading" className="grid gap-5 rounded-lg border-2 border-cast-line bg-white p-5">
-        <h2 id="gi-heading" className="flex items-center gap-2 text-2xl font-bold">
+        <h2 id="gi-heading" className="sr-only sm:not-sr-only sm:flex sm:items-center sm:gap-2 sm:text-2xl sm:font-bold">
           <PackagePlus aria-hidden className="size-7 text-temper" />
           Receive stock
         </h2>
@@ -103,9 +105,9 @@ export function GoodsInPage() {
         <div aria-live="polite">
           {lookup && stock.isPending && <p className="text-cast">Looking up {lookup}…</p>}
           {notFound && (
-            <p className="font-semibold text-oxide">
+            <Notice tone="problem" live="off">
               There is no part {lookup}. Check the label; new parts are added in the Office first.
-            </p>
+            </Notice>
           )}
           {stock.data && (
             <p className="text-lg">
@@ -150,34 +152,32 @@ export function GoodsInPage() {
 
 function Receipt({ reply }: { reply: GoodsInReply }) {
   return (
-    <div className="grid gap-3 rounded-lg border-4 border-machined bg-machined-tint p-4">
-      <p className="flex items-center gap-3 text-xl font-bold text-machined">
-        <CircleCheckBig aria-hidden className="size-8 shrink-0" />
-        Received into {reply.binCode}
-      </p>
-      <p className="text-lg">
-        <span className="part-no text-2xl">{reply.partNumber}</span> — on hand in {reply.binCode}: <span className="tabular text-2xl font-bold">{reply.onHand}</span>
-      </p>
-      {reply.released.length > 0 ? (
-        <div>
-          <p className="flex items-center gap-2 text-lg font-semibold">
-            <RotateCcw aria-hidden className="size-5 text-amber" />
-            Back-orders released into the pick queue
-          </p>
-          <ul className="mt-1 grid gap-1">
-            {reply.released.map((r) => (
-              <li key={r.orderNumber} className="text-lg">
-                <Link to={`/floor/pick?orders=${encodeURIComponent(r.orderNumber)}`} className="part-no text-temper underline underline-offset-2">
-                  {r.orderNumber}
-                </Link>{' '}
-                · <span className="tabular">{r.quantity}</span> {r.quantity === 1 ? 'unit' : 'units'}
-              </li>
-            ))}
-          </ul>
-        </div>
-      ) : (
-        <p>No back-orders were waiting for this part.</p>
-      )}
-    </div>
+    <Notice tone="done" size="floor" live="off" title={`Received into ${reply.binCode}`}>
+      <div className="grid gap-3 text-ink">
+        <p className="text-lg">
+          <span className="part-no text-2xl">{reply.partNumber}</span> — on hand in {reply.binCode}: <span className="tabular text-2xl font-bold">{reply.onHand}</span>
+        </p>
+        {reply.released.length > 0 ? (
+          <div>
+            <p className="flex items-center gap-2 text-lg font-semibold">
+              <RotateCcw aria-hidden className="size-5 text-amber" />
+              Back-orders released into the pick queue
+            </p>
+            <ul className="mt-1 grid gap-1">
+              {reply.released.map((r) => (
+                <li key={r.orderNumber} className="text-lg">
+                  <Link to={`/floor/pick?orders=${encodeURIComponent(r.orderNumber)}`} className="part-no text-temper underline underline-offset-2">
+                    {r.orderNumber}
+                  </Link>{' '}
+                  · <span className="tabular">{r.quantity}</span> {r.quantity === 1 ? 'unit' : 'units'}
+                </li>
+              ))}
+            </ul>
+          </div>
+        ) : (
+          <p>No back-orders were waiting for this part.</p>
+        )}
+      </div>
+    </Notice>
   );
 }

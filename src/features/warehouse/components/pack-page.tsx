@@ -1,11 +1,12 @@
 import { zodResolver } from '@hookform/resolvers/zod';
-import { CircleCheckBig, FileText, ListChecks, PackageCheck, Truck, Undo2 } from 'lucide-react';
+import { FileText, ListChecks, PackageCheck, Truck, Undo2 } from 'lucide-react';
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { Link, useLocation } from 'react-router-dom';
 import type { OrderDetail } from '../../../../shared/schemas/orders';
 import { CARRIERS, DispatchSchema, PackSchema } from '../../../../shared/schemas/warehouse';
 import { Button, buttonClass } from '../../../components/ui/button';
+import { Notice } from '../../../components/ui/notice';
 import { ErrorState, LoadingState } from '../../../components/ui/states';
 import { TableFrame, Td, Th } from '../../../components/ui/table';
 import { ApiError } from '../../../lib/api-client';
@@ -76,10 +77,7 @@ export function PackPage({ number }: { number: string }) {
       </div>
 
       {flash && (
-        <p role="status" className="flex items-center gap-3 rounded-lg border-4 border-machined bg-machined-tint p-4 text-xl font-bold text-machined">
-          <CircleCheckBig aria-hidden className="size-8 shrink-0" />
-          {flash}
-        </p>
+        <Notice tone="done" size="floor" title={flash} />
       )}
 
       <PackedLines order={o} />
@@ -87,15 +85,13 @@ export function PackPage({ number }: { number: string }) {
       {o.status === 'dispatched' ? (
         <AlreadyDispatched order={o} />
       ) : waiting.length > 0 ? (
-        <div className="flex flex-wrap items-center gap-4 rounded-lg border-2 border-amber-line bg-amber-tint p-4">
-          <ListChecks aria-hidden className="size-8 shrink-0 text-amber" />
-          <p className="flex-1 text-lg">
-            <span className="font-semibold text-amber">Still to pick:</span> {waiting.map((l) => l.partNumber).join(', ')}. Pick every line before packing.
-          </p>
-          <Link to={`/floor/pick?orders=${encodeURIComponent(o.number)}`} className={buttonClass('primary', 'lg')}>
+        <Notice tone="warning" size="floor" live="off" title="Still to pick">
+          <p className="text-ink">{waiting.map((l) => l.partNumber).join(', ')}. Pick every line before packing.</p>
+          <Link to={`/floor/pick?orders=${encodeURIComponent(o.number)}`} className={`${buttonClass('primary', 'lg')} mt-3`}>
+            <ListChecks aria-hidden className="size-5" />
             Open the pick list
           </Link>
-        </div>
+        </Notice>
       ) : (
         <PackForm order={o} onDispatched={setDispatched} />
       )}
@@ -220,21 +216,25 @@ function PackForm({ order, onDispatched }: { order: OrderDetail; onDispatched: (
 function Dispatched({ order, reply }: { order: OrderDetail; reply: DispatchReply }) {
   return (
     <section aria-labelledby="dispatched-heading" className="grid gap-5">
-      <div role="status" className="flex items-start gap-4 rounded-lg border-4 border-machined bg-machined-tint p-6">
-        <CircleCheckBig aria-hidden className="size-14 shrink-0 text-machined" strokeWidth={2.5} />
-        <div>
-          <h1 id="dispatched-heading" className="text-3xl font-bold text-machined">
-            Dispatched <span className="tabular whitespace-nowrap">{order.number}</span>
-          </h1>
-          <p className="mt-2 text-xl">
+      <h1 id="dispatched-heading" className="text-3xl font-bold">
+        Dispatched <span className="tabular whitespace-nowrap">{order.number}</span>
+      </h1>
+      <Notice
+        tone="done"
+        size="floor"
+        title={
+          <>
             {reply.shipment.carrier} · tracking <span className="part-no text-2xl">{reply.shipment.trackingNumber}</span>
-          </p>
+          </>
+        }
+      >
+        <div className="text-ink">
           <p className="tabular text-lg">
             {reply.shipment.cartons ?? '—'} {reply.shipment.cartons === 1 ? 'carton' : 'cartons'} · {reply.shipment.units} {reply.shipment.units === 1 ? 'unit' : 'units'}
           </p>
           <p className="mt-2 text-lg">The customer has been e-mailed the tracking number.</p>
         </div>
-      </div>
+      </Notice>
       <div className="flex flex-wrap gap-3">
         <Link to="/floor" className={buttonClass('primary', 'lg')}>
           Next order
@@ -250,18 +250,18 @@ function Dispatched({ order, reply }: { order: OrderDetail; reply: DispatchReply
 
 function AlreadyDispatched({ order }: { order: OrderDetail }) {
   return (
-    <div className="flex items-start gap-4 rounded-lg border-2 border-machined bg-machined-tint p-4">
-      <Truck aria-hidden className="size-8 shrink-0 text-machined" />
-      <p className="text-lg">
-        <span className="font-semibold text-machined">Already dispatched</span>
-        {order.dispatch.carrier && <> with {order.dispatch.carrier}</>}
-        {order.dispatch.trackingNumber && (
-          <>
-            , tracking <span className="part-no">{order.dispatch.trackingNumber}</span>
-          </>
-        )}
-        . An order leaves the building once.
-      </p>
-    </div>
+    <Notice tone="done" live="off" className="text-lg">
+      <span className="inline-flex items-center gap-2 font-semibold">
+        <Truck aria-hidden className="size-5" />
+        Already dispatched
+      </span>
+      {order.dispatch.carrier && <> with {order.dispatch.carrier}</>}
+      {order.dispatch.trackingNumber && (
+        <>
+          , tracking <span className="part-no">{order.dispatch.trackingNumber}</span>
+        </>
+      )}
+      . An order leaves the building once.
+    </Notice>
   );
 }

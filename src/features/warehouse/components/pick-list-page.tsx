@@ -160,8 +160,8 @@ function PickWorkspace({ orders, list }: { orders: string[]; list: PickList }) {
     <div className="grid grid-cols-[minmax(0,1fr)] gap-6">
       <div className="flex flex-wrap items-end justify-between gap-4">
         <div>
-          <h1 className="text-3xl font-bold">{title}</h1>
-          <ul aria-label="Orders on this pick" className="mt-2 flex flex-wrap gap-2">
+          <h1 className="text-2xl font-bold sm:text-3xl">{title}</h1>
+          <ul aria-label="Orders on this pick" className={`mt-2 flex-wrap gap-2 ${batch ? 'flex' : 'hidden sm:flex'}`}>
             {list.orders.map((o) => (
               <li key={o.number} className="rounded-md border border-cast-line bg-white px-3 py-1">
                 <span className="part-no">{o.number}</span> · {o.customer} · <span className="text-cast">{o.deliveryZone}</span>
@@ -169,7 +169,8 @@ function PickWorkspace({ orders, list }: { orders: string[]; list: PickList }) {
             ))}
           </ul>
         </div>
-        <Link to="/floor" className={buttonClass('secondary', 'lg')}>
+        {/* On a handheld the Floor tabs above lead back to the queue; the room goes to the scan field. */}
+        <Link to="/floor" className={`${buttonClass('secondary', 'lg')} max-sm:hidden`}>
           <Undo2 aria-hidden className="size-5" />
           Back to the queue
         </Link>
@@ -184,7 +185,8 @@ function PickWorkspace({ orders, list }: { orders: string[]; list: PickList }) {
               Current line
             </h2>
             {line ? <CurrentLineCard line={line} batch={batch} /> : <AllPicked list={list} />}
-            <form onSubmit={onScan} className="grid gap-3 rounded-lg border-2 border-cast-line bg-white p-4" aria-label="Scan a part">
+            {/* First on a handheld, the line to pick right under it; beside each other on a wide screen. */}
+            <form onSubmit={onScan} className="order-first grid gap-3 rounded-lg border-2 border-cast-line bg-white p-4 lg:order-none" aria-label="Scan a part">
               <ScanField
                 ref={scanRef}
                 id="pick-scan"

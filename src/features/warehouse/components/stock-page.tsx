@@ -1,10 +1,11 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { CircleCheckBig, OctagonAlert, Search, SlidersHorizontal, TriangleAlert } from 'lucide-react';
-import { useState, type FormEvent } from 'react';
+import { useRef, useState, type FormEvent } from 'react';
 import { useForm } from 'react-hook-form';
 import type { z } from 'zod';
 import { AdjustmentSchema, type StockDetailSchema } from '../../../../shared/schemas/warehouse';
 import { Button } from '../../../components/ui/button';
+import { Notice } from '../../../components/ui/notice';
 import { EmptyState, ErrorState, LoadingState } from '../../../components/ui/states';
 import { StatusBadge } from '../../../components/ui/status-badge';
 import { TableFrame, Td, Th } from '../../../components/ui/table';
@@ -76,18 +77,13 @@ function PartStock({ partNumber }: { partNumber: string }) {
         </p>
       </div>
       {mismatched.length === 0 ? (
-        <p role="status" className="inline-flex w-fit items-center gap-2 rounded-md border-2 border-machined bg-machined-tint px-3 py-2 text-lg font-semibold text-machined">
-          <CircleCheckBig aria-hidden className="size-6" />
+        <Notice tone="done" className="w-fit text-lg font-semibold">
           Ledger agrees: every bin’s counts equal the sum of its movements.
-        </p>
+        </Notice>
       ) : (
-        <div role="alert" className="flex gap-3 rounded-lg border-4 border-oxide bg-oxide-tint p-4">
-          <OctagonAlert aria-hidden className="size-10 shrink-0 text-oxide" />
-          <div>
-            <p className="text-2xl font-bold text-oxide">Ledger mismatch in {mismatched.map((b) => b.binCode).join(', ')}</p>
-            <p className="text-lg">The stock count and the movements ledger disagree. Do not adjust; tell the office so the cause is found first.</p>
-          </div>
-        </div>
+        <Notice tone="problem" size="floor" live="alert" title={`Ledger mismatch in ${mismatched.map((b) => b.binCode).join(', ')}`}>
+          <p className="text-ink">The stock count and the movements ledger disagree. Do not adjust; tell the office so the cause is found first.</p>
+        </Notice>
       )}
       {s.bins.length === 0 ? (
         <EmptyState title="Not stocked in any bin">Receive it on Goods in to give it a bin.</EmptyState>
@@ -160,6 +156,7 @@ function AdjustForm({ detail }: { detail: StockDetail }) {
     defaultValues: { partNumber: detail.partNumber, binCode: detail.bins[0]?.binCode ?? '', reason: '' },
   });
   const [done, setDone] = useState<string | null>(null);
+  const formRef = useRef<HTMLFormElement>(null);
   const summary = useErrorSummary(form, ADJ_FIELDS);
   const errors = form.formState.errors;
   const held = new Set(detail.bins.map((b) => b.binCode));
@@ -170,6 +167,8 @@ function AdjustForm({ detail }: { detail: StockDetail }) {
       adjust.mutate(values, {
         onSuccess: (r) => {
           setDone(`${signed(values.delta)} in ${values.binCode}: now ${r.onHand} on hand, ${r.reserved} reserved.`);
+          // The form's own reset empties the number field too; then the bin just counted stays chosen.
+          formRef.current?.reset();
           form.reset({ partNumber: detail.partNumber, binCode: values.binCode, reason: '' });
         },
         onError: (err) => {
@@ -180,7 +179,7 @@ function AdjustForm({ detail }: { detail: StockDetail }) {
   );
 
   return (
-    <form noValidate onSubmit={onSubmit} aria-labelledby="adj-heading" className="grid gap-4 rounded-lg border-2 border-cast-line bg-white p-4">
+    <form ref={formRef} noValidate onSubmit={onSubmit} aria-labelledby="adj-heading" className="grid gap-4 rounded-lg border-2 border-cast-line bg-white p-4">
       <h3 id="adj-heading" className="flex items-center gap-2 text-xl font-bold">
         <SlidersHorizontal aria-hidden className="size-6 text-temper" />
         Adjust stock
@@ -191,10 +190,9 @@ function AdjustForm({ detail }: { detail: StockDetail }) {
       </p>
       {summary.shown && <ErrorSummary variant="floor" {...summary.props} />}
       {done && (
-        <p role="status" className="flex items-center gap-2 rounded-md border-2 border-machined bg-machined-tint p-3 text-lg font-semibold text-machined">
-          <CircleCheckBig aria-hidden className="size-6 shrink-0" />
+        <Notice tone="done" size="floor">
           Adjusted {detail.partNumber}: {done}
-        </p>
+        </Notice>
       )}
       <input type="hidden" {...form.register('partNumber')} />
       <div className="grid gap-4 sm:grid-cols-3">
