@@ -181,7 +181,8 @@ describe('catalogue counts kept by the database', () => {
     t.db.update(partSpecs).set({ bearing: 'journal' }).where(eq(partSpecs.partId, 900_001)).run();
     t.app.stock.adjust(made[0]!.id, made[0]!.binCode, -3, 'test');
     t.app.stock.goodsIn(made[1]!.id, made[1]!.binCode, 5, 'test');
-    t.app.catalogAdmin.supersede(made[1]!.partNumber, 'EDG-19-0001');
+    const admin = t.db.$client.prepare("SELECT id FROM user WHERE role = 'admin' LIMIT 1").pluck().get() as string;
+    t.app.catalogAdmin.supersede(admin, made[1]!.partNumber, 'EDG-19-0001');
     expectCountsTrue();
 
     // Deleted: a part with its specs (the delete cascades to them), and specs without their part.
