@@ -642,6 +642,7 @@ export const priceImports = sqliteTable(
   (t) => [
     index('price_imports_user_idx').on(t.userId),
     index('price_imports_created_idx').on(t.createdAt),
+    index('price_imports_applied_by_idx').on(t.appliedBy),
     oneOf('price_imports', 'status', PRICE_IMPORT_STATUSES),
   ],
 );
@@ -731,7 +732,7 @@ export const notices = sqliteTable(
     readAt: text('read_at'),
     createdAt: createdAt(),
   },
-  (t) => [index('notices_user_idx').on(t.userId, t.id), index('notices_unread_idx').on(t.userId, t.readAt), oneOf('notices', 'kind', NOTICE_KINDS)],
+  (t) => [index('notices_user_idx').on(t.userId, t.id), index('notices_unread_idx').on(t.userId, t.readAt), index('notices_order_idx').on(t.orderId), oneOf('notices', 'kind', NOTICE_KINDS)],
 );
 
 /** Who changed what in the catalogue and when: one row per part changed, by hand or by a price import. Never updated. */
@@ -751,6 +752,7 @@ export const auditLog = sqliteTable(
   },
   (t) => [
     index('audit_log_part_idx').on(t.partNumber, t.id),
+    index('audit_log_part_id_idx').on(t.partId),
     index('audit_log_user_idx').on(t.userId, t.id),
     index('audit_log_created_idx').on(t.createdAt),
     index('audit_log_import_idx').on(t.priceImportId),

@@ -40,7 +40,8 @@ describe('mail server down for a while', () => {
     deadPort = await freePort();
     // The app's mailer points at a port where nothing listens yet: the mail server is down from the start.
     mailer = createMailer({ host: '127.0.0.1', port: deadPort, from: FROM, timeoutMs: 2_000 });
-    t = await startTestApp({ fakes: true, accounts: true, deps: { mailer } });
+    // No giving up during the outage: on a busy machine writing all the messages can outlast twelve fast retries.
+    t = await startTestApp({ fakes: true, accounts: true, deps: { mailer, mailPolicy: { baseDelayMs: 50, maxDelayMs: 1_000, maxAttempts: 10_000 } } });
   }, 60_000);
   afterAll(async () => {
     await t.close();
