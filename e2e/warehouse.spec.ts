@@ -40,6 +40,8 @@ test('warehouse staff pick an order by typing part numbers (a wrong one first), 
   // The pick queue lists the order with its state as a word.
   await page.goto('/floor');
   await expect(page.getByRole('heading', { level: 1, name: 'Pick queue' })).toBeVisible();
+  // The queue comes a page at a time, oldest first: the search finds the order on whichever page it is.
+  await page.getByLabel('Order or customer').fill(orderNumber);
   const row = page.getByRole('row', { name: new RegExp(orderNumber) });
   await expect(row).toContainText('On account');
   await expect(row).toContainText('To pick');

@@ -1,5 +1,5 @@
 import { Router } from 'express';
-import { DealerDecisionSchema, InvoicePaymentSchema } from '../../shared/schemas/accounts';
+import { DealerDecisionSchema, DealersQuerySchema, InvoicePaymentSchema } from '../../shared/schemas/accounts';
 import { parseOr400 } from '../middleware/errors';
 import { requireRole } from '../middleware/session';
 import type { DealerAccountsService } from '../services/dealer-accounts';
@@ -8,8 +8,8 @@ export function adminDealersRouter(dealers: DealerAccountsService): Router {
   const router = Router();
   router.use(requireRole('admin'));
 
-  router.get('/', (_req, res) => {
-    res.json({ items: dealers.list() });
+  router.get('/', (req, res) => {
+    res.json(dealers.list(parseOr400(DealersQuerySchema, req.query, 'Some paging options are not valid')));
   });
 
   router.get('/:id/invoices', (req, res) => {

@@ -1,7 +1,7 @@
 import { Router } from 'express';
 import type { Db } from '../db/client';
 import { bins } from '../db/schema';
-import { AdjustmentSchema, DispatchSchema, GoodsInSchema, PackSchema, PickSchema, ReturnDecisionSchema } from '../../shared/schemas/warehouse';
+import { AdjustmentSchema, DispatchSchema, GoodsInSchema, PackSchema, PickQueueQuerySchema, PickSchema, ReturnDecisionSchema } from '../../shared/schemas/warehouse';
 import { HttpError, parseOr400 } from '../middleware/errors';
 import { requireRole } from '../middleware/session';
 import type { ReturnsService } from '../services/returns';
@@ -19,8 +19,8 @@ export function warehouseRouter(deps: { db: Db; warehouse: WarehouseService; ret
   const router = Router();
   router.use(requireRole('warehouse', 'admin'));
 
-  router.get('/pick-queue', (_req, res) => {
-    res.json({ items: warehouse.pickQueue() });
+  router.get('/pick-queue', (req, res) => {
+    res.json(warehouse.pickQueue(parseOr400(PickQueueQuerySchema, req.query, 'Some pick queue options are not valid')));
   });
   router.get('/pick-list', (req, res) => {
     const raw = typeof req.query.orders === 'string' ? req.query.orders : '';

@@ -1,9 +1,9 @@
-import { and, desc, eq, inArray, isNotNull, sql } from 'drizzle-orm';
-import type { z } from 'zod';
+import { and, count, desc, eq, exists, inArray, sql } from 'drizzle-orm';
 import type { Db } from '../db/client';
 import { creditNotes, dealerAccounts, dealerMembers, orderEvents, orders, user } from '../db/schema';
 import { invoiceDueDate, invoiceOpenCents, isOpenInvoice, openBalanceCents, type CreditOrder } from '../../shared/credit';
-import type { DealerAccountRowSchema, DealerApplication, DealerDecision, OpenInvoice } from '../../shared/schemas/accounts';
+import { DEALERS_PAGE_SIZE, type DealerAccounts, type DealerApplication, type DealerDecision, type OpenInvoice } from '../../shared/schemas/accounts';
+import type { PageQuery } from '../../shared/schemas/paging';
 import { ConflictError, NotFoundError } from './errors';
 
 /** The transaction a notice is written in (the mail outbox in the app). */
@@ -16,7 +16,6 @@ export interface DealerNotifier {
 }
 
 type DealerStatus = (typeof dealerAccounts.$inferSelect)['status'];
-type DealerAccountRow = z.infer<typeof DealerAccountRowSchema>;
 
 /** The database or the transaction a query runs in: better-sqlite3 has one connection, so both see the same data. */
 type Query = Pick<Db, 'select'>;
@@ -41,8 +40,17 @@ export function dealerOpenBalance(q: Query, dealerAccountId: number): number {
 export function createDealerAccountsService(deps: { db: Db; notify: DealerNotifier }) {
   const { db, notify } = deps;
 
-  /** Every trade account with its open balance, pending applications first. */
-  function list(): DealerAccountRow[] {
+  /**
+   * One page of trade accounts with their open balances, pending applications first, then newest first: one query for
+   * the page's accounts (each with one member's e-mail), one for the orders of those accounts only, whose open
+   * balance the shared credit rule adds up, and the counts.
+   */
+  function list(query: PageQuery = { page: 1, pageSize: DEALERS_PAGE_SIZE }): DealerAccounts {
+    const firstMember = db
+      .select({ dealerAccountId: dealerMembers.dealerAccountId, userId: sql<string>`min(${dealerMembers.userId})`.as('user_id') })
+      .from(dealerMembers)
+      .groupBy(dealerMembers.dealerAccountId)
+      .as('first_member');
     const accounts = db
       .select({
         id: dealerAccounts.id,
@@ -58,24 +66,46 @@ export function createDealerAccountsService(deps: { db: Db; notify: DealerNotifi
         createdAt: dealerAccounts.createdAt,
       })
       .from(dealerAccounts)
-      .innerJoin(dealerMembers, eq(dealerMembers.dealerAccountId, dealerAccounts.id))
-      .innerJoin(user, eq(user.id, dealerMembers.userId))
-      .groupBy(dealerAccounts.id)
+      .innerJoin(firstMember, eq(firstMember.dealerAccountId, dealerAccounts.id))
+      .innerJoin(user, eq(user.id, firstMember.userId))
       .orderBy(sql`case ${dealerAccounts.status} when 'pending' then 0 else 1 end`, desc(dealerAccounts.id))
+      .limit(query.pageSize)
+      .offset((query.page - 1) * query.pageSize)
       .all();
     const byDealer = new Map<number, CreditOrder[]>();
-    const dealerOrders = db
-      .select({ dealerAccountId: orders.dealerAccountId, ...creditColumns })
-      .from(orders)
-      .where(isNotNull(orders.dealerAccountId))
-      .all();
-    for (const { dealerAccountId, ...order } of dealerOrders) {
-      if (dealerAccountId === null) continue;
-      const held = byDealer.get(dealerAccountId);
-      if (held) held.push(order);
-      else byDealer.set(dealerAccountId, [order]);
+    if (accounts.length > 0) {
+      const dealerOrders = db
+        .select({ dealerAccountId: orders.dealerAccountId, ...creditColumns })
+        .from(orders)
+        .where(
+          and(
+            inArray(
+              orders.dealerAccountId,
+              accounts.map((a) => a.id),
+            ),
+            eq(orders.paymentMethod, 'account'),
+          ),
+        )
+        .all();
+      for (const { dealerAccountId, ...order } of dealerOrders) {
+        if (dealerAccountId === null) continue;
+        const held = byDealer.get(dealerAccountId);
+        if (held) held.push(order);
+        else byDealer.set(dealerAccountId, [order]);
+      }
     }
-    return accounts.map((a) => ({ ...a, openBalanceCents: openBalanceCents(byDealer.get(a.id) ?? []) }));
+    const counts = db
+      .select({ total: count(), pending: sql<number>`coalesce(sum(${dealerAccounts.status} = 'pending'), 0)` })
+      .from(dealerAccounts)
+      .where(exists(db.select({ one: sql`1` }).from(dealerMembers).where(eq(dealerMembers.dealerAccountId, dealerAccounts.id))))
+      .get();
+    return {
+      items: accounts.map((a) => ({ ...a, openBalanceCents: openBalanceCents(byDealer.get(a.id) ?? []) })),
+      total: counts?.total ?? 0,
+      pending: counts?.pending ?? 0,
+      page: query.page,
+      pageSize: query.pageSize,
+    };
   }
 
   function openBalance(dealerAccountId: number): number {

@@ -1,9 +1,9 @@
-import { and, count, desc, eq, gt, inArray, lte, notInArray, or, sql, type SQL } from 'drizzle-orm';
+import { and, count, desc, eq, gt, inArray, lte, ne, notInArray, or, sql, type SQL } from 'drizzle-orm';
 import type { Db } from '../db/client';
 import { bins, stock as binStock, orderEvents, orderLines, orders, parts, partSpecs, shipments, stockMovements } from '../db/schema';
 import { ConflictError, InvalidError, NotFoundError } from './errors';
 import { normalizePartNumber } from '../../shared/part-number';
-import { PickLineSchema, type Dispatch, type Pick as PickInput, type PickLine, type PickList } from '../../shared/schemas/warehouse';
+import { PICK_QUEUE_PAGE_SIZE, PickLineSchema, type Dispatch, type Pick as PickInput, type PickLine, type PickList, type PickQueueQuery } from '../../shared/schemas/warehouse';
 import type { OrderStatus } from '../../shared/schemas/orders';
 import type { StockService } from './stock';
 
@@ -109,29 +109,57 @@ export function createWarehouseService(deps: { db: Db; stock: StockService; noti
     return o;
   }
 
-  function pickQueue() {
+  /**
+   * One page of the orders with something to pick, pack or dispatch, oldest first, filtered by order number or
+   * customer, state and payment in the query, so the floor pages through a queue of any length.
+   */
+  function pickQueue(query: PickQueueQuery = { page: 1, pageSize: PICK_QUEUE_PAGE_SIZE }) {
     const unitsToPick = sql<number>`sum(max(0, ${orderLines.quantity} - ${orderLines.quantityBackordered} - ${orderLines.quantityPicked}))`;
     const unitsPicked = sql<number>`sum(${orderLines.quantityPicked} - ${orderLines.quantityDispatched})`;
-    const rows = db
+    const text = query.q?.toLowerCase();
+    const state =
+      query.state === 'pick'
+        ? and(gt(unitsToPick, 0), ne(orders.status, 'back_ordered'))
+        : query.state === 'released'
+          ? and(gt(unitsToPick, 0), eq(orders.status, 'back_ordered'))
+          : query.state === 'pack'
+            ? and(eq(unitsToPick, 0), ne(orders.status, 'packed'))
+            : query.state === 'dispatch'
+              ? and(eq(unitsToPick, 0), eq(orders.status, 'packed'))
+              : undefined;
+    const queue = db
       .select({
+        id: orders.id,
         number: orders.number,
         status: orders.status,
         paymentMethod: orders.paymentMethod,
         customer: orders.shipName,
         createdAt: orders.createdAt,
         weightGrams: orders.weightGrams,
-        lines: count(orderLines.id),
-        unitsToPick,
-        unitsPicked,
+        lines: sql<number>`count(${orderLines.id})`.as('lines'),
+        unitsToPick: unitsToPick.as('units_to_pick'),
       })
       .from(orders)
       .innerJoin(orderLines, eq(orderLines.orderId, orders.id))
-      .where(inArray(orders.status, PICKABLE))
+      .where(
+        and(
+          inArray(orders.status, PICKABLE),
+          query.payment ? eq(orders.paymentMethod, query.payment) : undefined,
+          text ? or(sql`instr(lower(${orders.number}), ${text}) > 0`, sql`instr(lower(${orders.shipName}), ${text}) > 0`) : undefined,
+        ),
+      )
       .groupBy(orders.id)
-      .having(or(gt(unitsToPick, 0), gt(unitsPicked, 0)))
-      .orderBy(orders.createdAt, orders.id)
+      .having(and(or(gt(unitsToPick, 0), gt(unitsPicked, 0)), state))
+      .as('queue');
+    const total = db.select({ n: count() }).from(queue).get()?.n ?? 0;
+    const rows = db
+      .select()
+      .from(queue)
+      .orderBy(queue.createdAt, queue.id)
+      .limit(query.pageSize)
+      .offset((query.page - 1) * query.pageSize)
       .all();
-    return rows.map((r) => ({
+    const items = rows.map((r) => ({
       number: r.number,
       status: r.status,
       paymentMethod: r.paymentMethod,
@@ -143,6 +171,7 @@ export function createWarehouseService(deps: { db: Db; stock: StockService; noti
       releasedBackorder: r.status === 'back_ordered',
       weightGrams: r.weightGrams,
     }));
+    return { items, total, page: query.page, pageSize: query.pageSize };
   }
 
   function pickList(numbers: string[]): PickList {

@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { DEALER_STATUSES, ROLES } from '../allowed-values';
 import { DEALER_TIER_KEYS, DELIVERY_ZONE_KEYS } from '../pricing';
+import { pageFields, pageQuerySchema } from './paging';
 
 export const PASSWORD_MIN = 10;
 export const PASSWORD_MAX = 128;
@@ -81,7 +82,11 @@ export const DealerAccountRowSchema = z.object({
   openBalanceCents: z.number(),
   createdAt: z.string(),
 });
-export const DealerAccountsSchema = z.object({ items: z.array(DealerAccountRowSchema) });
+export const DEALERS_PAGE_SIZE = 25;
+export const DealersQuerySchema = pageQuerySchema(DEALERS_PAGE_SIZE);
+/** One page of trade accounts, pending first; `pending` counts every pending application, on any page. */
+export const DealerAccountsSchema = z.object({ items: z.array(DealerAccountRowSchema), ...pageFields, pending: z.number().int() });
+export type DealerAccounts = z.infer<typeof DealerAccountsSchema>;
 
 /** Recording that a dealer paid an on-account invoice (bank transfer reference, cheque number...). */
 export const InvoicePaymentSchema = z.object({

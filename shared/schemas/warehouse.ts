@@ -2,6 +2,7 @@ import { z } from 'zod';
 import { CATEGORY_SLUGS } from '../catalog';
 import { ORDER_STATUS_KEYS } from './orders';
 import { IllustrationSpecsSchema, PhotoNameSchema } from './parts';
+import { pageFields, pageQuerySchema } from './paging';
 
 export const CARRIERS = ['Cobbleline Freight', 'Tern Parcel', 'Nightjar Overnight', 'Customer collect'] as const;
 
@@ -77,7 +78,16 @@ export const PickQueueItemSchema = z.object({
   releasedBackorder: z.boolean(),
   weightGrams: z.number().int(),
 });
-export const PickQueueSchema = z.object({ items: z.array(PickQueueItemSchema) });
+export const PICK_QUEUE_PAGE_SIZE = 50;
+/** The pick queue's filters: order number or customer, state (released = a back-order whose stock came), payment. */
+export const PickQueueQuerySchema = pageQuerySchema(PICK_QUEUE_PAGE_SIZE).extend({
+  q: z.string().trim().max(60, 'search must be at most 60 characters').optional(),
+  state: z.enum(['pick', 'released', 'pack', 'dispatch'], { error: 'state must be pick, released, pack or dispatch' }).optional(),
+  payment: z.enum(['card', 'account'], { error: 'payment must be card or account' }).optional(),
+});
+export type PickQueueQuery = z.infer<typeof PickQueueQuerySchema>;
+/** One page of the queue, oldest first; `total` counts every order that matches the filters. */
+export const PickQueueSchema = z.object({ items: z.array(PickQueueItemSchema), ...pageFields });
 
 export const PickListSchema = z.object({
   orders: z.array(z.object({ number: z.string(), status: z.enum(ORDER_STATUS_KEYS), customer: z.string(), deliveryZone: z.string() })),

@@ -122,7 +122,7 @@ describe('picking', () => {
 
     // Ship what was found; the order then waits as a back-order.
     expect((await dispatch(number)).body).toMatchObject({ status: 'back_ordered' });
-    const queue = async () => ((await floor.get('/api/warehouse/pick-queue')).body as { items: Array<{ number: string; unitsToPick: number; releasedBackorder: boolean }> }).items;
+    const queue = async () => ((await floor.get(`/api/warehouse/pick-queue?q=${number}`)).body as { items: Array<{ number: string; unitsToPick: number; releasedBackorder: boolean }> }).items;
     expect((await queue()).find((o) => o.number === number)).toBeUndefined();
 
     const arrived = await floor.send('POST', '/api/warehouse/goods-in', { partNumber: a, binCode: line!.binCode, quantity: 5 });

@@ -49,7 +49,8 @@ function describe(done: DecisionDone): string {
 export function OfficeDealersRoute() {
   const me = useMe();
   const isAdmin = me.data?.user?.role === 'admin';
-  const dealers = useDealers(isAdmin);
+  const [page, setPage] = useState(1);
+  const dealers = useDealers(isAdmin, page);
   const [done, setDone] = useState<DecisionDone | null>(null);
 
   if (me.isPending) return <LoadingState />;
@@ -80,11 +81,18 @@ export function OfficeDealersRoute() {
         <LoadingState label="Loading dealer accounts…" />
       ) : dealers.isError ? (
         <ErrorState title="The dealer accounts did not load" message={dealers.error.message} onRetry={() => dealers.refetch()} />
-      ) : dealers.data.items.length === 0 ? (
+      ) : dealers.data.total === 0 ? (
         <EmptyState title="No dealer accounts yet">Applications made from the account page show up here.</EmptyState>
+      ) : dealers.data.items.length === 0 ? (
+        <EmptyState title="No accounts on this page">
+          The list has fewer pages now.{' '}
+          <button type="button" onClick={() => setPage(1)} className="font-semibold text-temper underline">
+            Back to the first page
+          </button>
+        </EmptyState>
       ) : (
         <>
-          <DealersTable items={dealers.data.items} onDecided={setDone} />
+          <DealersTable data={dealers.data} onPage={setPage} updating={dealers.isPlaceholderData} onDecided={setDone} />
           <InvoicesForDealer dealers={dealers.data.items.filter((d) => d.status === 'approved')} />
         </>
       )}
@@ -92,16 +100,18 @@ export function OfficeDealersRoute() {
   );
 }
 
-/** Pick an approved dealer to see and settle its open on-account invoices. */
+/** Pick an approved dealer of the page shown to see and settle its open on-account invoices. */
 function InvoicesForDealer({ dealers }: { dealers: Array<{ id: number; companyName: string; openBalanceCents: number }> }) {
   const [chosen, setChosen] = useState<number | null>(null);
   if (dealers.length === 0) return null;
-  const id = chosen ?? (dealers.find((d) => d.openBalanceCents > 0) ?? dealers[0]!).id;
+  // The approved accounts on the page shown: a choice from another page falls back to this page's first with a balance.
+  const id = chosen !== null && dealers.some((d) => d.id === chosen) ? chosen : (dealers.find((d) => d.openBalanceCents > 0) ?? dealers[0]!).id;
   const dealer = dealers.find((d) => d.id === id)!;
   return (
     <div className="grid gap-3">
       <label className="grid max-w-md gap-1">
         <span className="font-semibold">Dealer for open invoices</span>
+        <span className="text-sm text-cast">Approved accounts on this page of the list</span>
         <select value={id} onChange={(e) => setChosen(Number(e.target.value))} className="min-h-10 rounded border border-cast-line bg-white px-2">
           {dealers.map((d) => (
             <option key={d.id} value={d.id}>

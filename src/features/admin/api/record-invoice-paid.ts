@@ -15,7 +15,7 @@ export function useRecordInvoicePaid() {
     mutationFn: recordInvoicePaid,
     onSuccess: (_reply, vars) => {
       void client.invalidateQueries({ queryKey: adminKeys.invoices(vars.dealerId) });
-      void client.invalidateQueries({ queryKey: adminKeys.dealers(), exact: true });
+      void client.invalidateQueries({ queryKey: adminKeys.dealerPages() });
     },
   });
 }

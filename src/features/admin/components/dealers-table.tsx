@@ -1,29 +1,17 @@
-import {
-  createColumnHelper,
-  getCoreRowModel,
-  getPaginationRowModel,
-  getSortedRowModel,
-  useReactTable,
-  type SortingFn,
-  type SortingState,
-} from '@tanstack/react-table';
+import { createColumnHelper, getCoreRowModel, useReactTable } from '@tanstack/react-table';
 import { ChevronDown, ChevronRight } from 'lucide-react';
 import { useEffect, useRef, useState } from 'react';
 import { z } from 'zod';
 import { formatPrice } from '../../../../shared/catalog';
 import { formatDate } from '../../../../shared/format';
-import type { DealerAccountRowSchema } from '../../../../shared/schemas/accounts';
+import type { DealerAccountRowSchema, DealerAccounts } from '../../../../shared/schemas/accounts';
 import { DEALER_TIERS } from '../../../../shared/pricing';
 import { StatusBadge } from '../../../components/ui/status-badge';
 import { ApproveDealerForm, DeclineDealerForm, type DecisionDone } from './decision-forms';
 import { DataTable } from '../../../components/ui/table';
+import { Pager, pageSpan } from '../../../components/ui/pager';
 
 type DealerRow = z.infer<typeof DealerAccountRowSchema>;
-
-const STATUS_ORDER: Record<DealerRow['status'], number> = { pending: 0, approved: 1, declined: 2 };
-
-/** Pending first, then approved, then declined; newest first inside each. */
-const byStatus: SortingFn<DealerRow> = (a, b) => STATUS_ORDER[a.original.status] - STATUS_ORDER[b.original.status] || b.original.id - a.original.id;
 
 /** Breaks a long address after the @ rather than anywhere. */
 function EmailCell({ email }: { email: string }) {
@@ -41,7 +29,7 @@ function EmailCell({ email }: { email: string }) {
 const col = createColumnHelper<DealerRow>();
 const columns = [
   col.accessor('companyName', { header: 'Company', cell: (c) => <span className="block min-w-32 font-semibold">{c.getValue()}</span> }),
-  col.accessor('status', { header: 'Status', sortingFn: byStatus, cell: (c) => <StatusBadge kind="dealer" status={c.getValue()} /> }),
+  col.accessor('status', { header: 'Status', cell: (c) => <StatusBadge kind="dealer" status={c.getValue()} /> }),
   col.accessor('contactName', {
     header: 'Contact',
     cell: (c) => (
@@ -84,7 +72,6 @@ const columns = [
   col.accessor('openBalanceCents', { header: 'Open balance', meta: { numeric: true }, cell: (c) => formatPrice(c.getValue()) }),
 ];
 
-const PAGE_SIZE = 25;
 const REVIEW_PANEL_ID = 'dealer-review';
 
 /** The open application under the table, outside its horizontal scroll so the forms fit a phone. */
@@ -118,32 +105,32 @@ function ReviewPanel({ dealer, onDone, onClose }: { dealer: DealerRow; onDone: (
   );
 }
 
-export function DealersTable({ items, onDecided }: { items: DealerRow[]; onDecided: (d: DecisionDone) => void }) {
-  const [sorting, setSorting] = useState<SortingState>([{ id: 'status', desc: false }]);
+/**
+ * One page of dealer accounts as the server sends it: pending first, then newest first. The order is the server's
+ * across every page, so the headings do not re-sort a single page.
+ */
+export function DealersTable({ data, onPage, updating, onDecided }: { data: DealerAccounts; onPage: (page: number) => void; updating: boolean; onDecided: (d: DecisionDone) => void }) {
+  const { items } = data;
   const [open, setOpen] = useState<number | null>(null);
   const table = useReactTable({
     data: items,
     columns,
-    state: { sorting },
-    onSortingChange: setSorting,
+    enableSorting: false,
     getCoreRowModel: getCoreRowModel(),
-    getSortedRowModel: getSortedRowModel(),
-    getPaginationRowModel: getPaginationRowModel(),
-    initialState: { pagination: { pageSize: PAGE_SIZE } },
     getRowId: (r) => String(r.id),
   });
-  const pending = items.filter((i) => i.status === 'pending').length;
   const reviewing = items.find((i) => i.id === open && i.status === 'pending') ?? null;
 
   return (
     <div className="grid grid-cols-[minmax(0,1fr)] gap-3">
-      <p className="text-cast">
-        <span className="tabular font-semibold text-ink">{items.length}</span> dealer accounts ·{' '}
-        <span className="tabular font-semibold text-ink">{pending}</span> pending
+      <p className="text-cast" aria-live="polite">
+        <span className="tabular font-semibold text-ink">{pageSpan(data.page, data.pageSize, data.total)}</span> dealer accounts ·{' '}
+        <span className="tabular font-semibold text-ink">{data.pending}</span> pending
+        {updating ? ' · updating…' : ''}
       </p>
       <DataTable
         table={table}
-        caption="Dealer accounts and applications. Column headers sort the table."
+        caption="Dealer accounts and applications, pending first, then newest first."
         maxHeight="max-h-[75vh]"
         rowClassName={(row) => (row.original.status === 'pending' ? 'bg-amber-tint/40' : '')}
         actions={{
@@ -179,19 +166,7 @@ export function DealersTable({ items, onDecided }: { items: DealerRow[]; onDecid
           }}
         />
       )}
-      {table.getPageCount() > 1 && (
-        <nav aria-label="Pages" className="flex items-center gap-3">
-          <button type="button" onClick={() => table.previousPage()} disabled={!table.getCanPreviousPage()} className="rounded-md border border-cast-line bg-white px-3 py-1 font-semibold disabled:text-cast">
-            Previous
-          </button>
-          <span className="tabular">
-            Page {table.getState().pagination.pageIndex + 1} of {table.getPageCount()}
-          </span>
-          <button type="button" onClick={() => table.nextPage()} disabled={!table.getCanNextPage()} className="rounded-md border border-cast-line bg-white px-3 py-1 font-semibold disabled:text-cast">
-            Next
-          </button>
-        </nav>
-      )}
+      <Pager page={data.page} pageSize={data.pageSize} total={data.total} onPage={onPage} label="Dealer account pages" />
     </div>
   );
 }

@@ -1,6 +1,9 @@
+import type { PickQueueQuery } from '../../../../shared/schemas/warehouse';
+
 export const warehouseKeys = {
   all: ['warehouse'] as const,
   queue: () => [...warehouseKeys.all, 'pick-queue'] as const,
+  queuePage: (query: PickQueueQuery) => [...warehouseKeys.queue(), query] as const,
   pickLists: () => [...warehouseKeys.all, 'pick-list'] as const,
   pickList: (orders: readonly string[]) => [...warehouseKeys.pickLists(), [...orders].sort().join(',')] as const,
   bins: () => [...warehouseKeys.all, 'bins'] as const,

@@ -1,19 +1,9 @@
-import {
-  createColumnHelper,
-  getCoreRowModel,
-  getFilteredRowModel,
-  getSortedRowModel,
-  useReactTable,
-  type ColumnFiltersState,
-  type FilterFn,
-  type RowSelectionState,
-  type SortingState,
-} from '@tanstack/react-table';
+import { createColumnHelper, getCoreRowModel, useReactTable, type RowSelectionState } from '@tanstack/react-table';
 import { CreditCard, Layers, Landmark, RefreshCw } from 'lucide-react';
-import { useMemo, useRef, useState } from 'react';
+import { useEffect, useMemo, useRef, useState } from 'react';
 import { Link, useNavigate } from 'react-router-dom';
 import type { z } from 'zod';
-import type { PickQueueItemSchema } from '../../../../shared/schemas/warehouse';
+import { PICK_QUEUE_PAGE_SIZE, type PickQueueItemSchema, type PickQueueQuery } from '../../../../shared/schemas/warehouse';
 import { Button, buttonClass } from '../../../components/ui/button';
 import { EmptyState, ErrorState, LoadingState } from '../../../components/ui/states';
 import { usePickQueue } from '../api/get-pick-queue';
@@ -21,6 +11,7 @@ import { orderAge } from '../lib/age';
 import { StatusBadge } from '../../../components/ui/status-badge';
 import { QUEUE_STATE_LABELS, queueState, type QueueState } from './queue-state';
 import { DataTable } from '../../../components/ui/table';
+import { Pager, pageSpan } from '../../../components/ui/pager';
 
 type QueueItem = z.infer<typeof PickQueueItemSchema>;
 
@@ -30,25 +21,44 @@ export const openHref = (item: QueueItem) =>
 
 const column = createColumnHelper<QueueItem>();
 
-const equalsFilter: FilterFn<QueueItem> = (row, id, value) => !value || row.getValue(id) === value;
-
 const paymentLabel = (m: QueueItem['paymentMethod']) => (m === 'card' ? 'Card paid' : 'On account');
 
-export function PickQueue() {
-  const queue = usePickQueue();
-  if (queue.isPending) return <LoadingState label="Loading the pick queue…" />;
-  if (queue.error) return <ErrorState title="The pick queue did not load" message={queue.error.message} onRetry={() => void queue.refetch()} />;
-  return <QueueTable items={queue.data.items} refreshing={queue.isFetching} onRefresh={() => void queue.refetch()} />;
+/** What is typed, once typing pauses: the queue is filtered on the server, not on every key. */
+function useSettled(value: string, ms: number) {
+  const [settled, setSettled] = useState(value);
+  useEffect(() => {
+    const timer = setTimeout(() => setSettled(value), ms);
+    return () => clearTimeout(timer);
+  }, [value, ms]);
+  return settled;
 }
 
-function QueueTable({ items, refreshing, onRefresh }: { items: QueueItem[]; refreshing: boolean; onRefresh: () => void }) {
+/**
+ * The pick queue a page at a time, oldest first. The filters go to the server, so they cover the whole queue and the
+ * count is the whole queue's; a batch is ticked on one page (changing page or filter clears the ticks).
+ */
+export function PickQueue() {
   const navigate = useNavigate();
   const filterRef = useRef<HTMLInputElement>(null);
-  const [sorting, setSorting] = useState<SortingState>([{ id: 'age', desc: true }]);
-  const [globalFilter, setGlobalFilter] = useState('');
-  const [columnFilters, setColumnFilters] = useState<ColumnFiltersState>([]);
+  const [typed, setTyped] = useState('');
+  const text = useSettled(typed.trim(), 250);
+  const [stateFilter, setStateFilter] = useState<QueueState | ''>('');
+  const [paymentFilter, setPaymentFilter] = useState<QueueItem['paymentMethod'] | ''>('');
+  const [page, setPage] = useState(1);
   const [rowSelection, setRowSelection] = useState<RowSelectionState>({});
+  const query: PickQueueQuery = { page, pageSize: PICK_QUEUE_PAGE_SIZE, q: text || undefined, state: stateFilter || undefined, payment: paymentFilter || undefined };
+  const queue = usePickQueue(query);
+  const items = useMemo(() => queue.data?.items ?? [], [queue.data]);
+  const filtered = Boolean(text || stateFilter || paymentFilter);
   const now = Date.now();
+
+  // A new search, filter or page starts from its first page (for filters) and with nothing ticked.
+  useEffect(() => {
+    setPage(1);
+  }, [text, stateFilter, paymentFilter]);
+  useEffect(() => {
+    setRowSelection({});
+  }, [text, stateFilter, paymentFilter, page]);
 
   const columns = useMemo(
     () => [
@@ -90,7 +100,6 @@ function QueueTable({ items, refreshing, onRefresh }: { items: QueueItem[]; refr
       column.accessor('unitsToPick', { header: 'Units', cell: (c) => <span className="tabular text-lg font-bold">{c.getValue()}</span>, meta: { numeric: true } }),
       column.accessor('paymentMethod', {
         header: 'Payment',
-        filterFn: equalsFilter,
         cell: (c) => (
           <span className="inline-flex items-center gap-1.5 whitespace-nowrap">
             {c.getValue() === 'card' ? <CreditCard aria-hidden className="size-4 text-cast" /> : <Landmark aria-hidden className="size-4 text-cast" />}
@@ -101,8 +110,6 @@ function QueueTable({ items, refreshing, onRefresh }: { items: QueueItem[]; refr
       column.accessor((i) => queueState(i), {
         id: 'state',
         header: 'State',
-        filterFn: equalsFilter,
-        sortingFn: (a, b) => stateOrder.indexOf(a.getValue('state')) - stateOrder.indexOf(b.getValue('state')),
         cell: (c) => <StatusBadge kind="queue" status={c.getValue()} size="md" />,
       }),
       column.display({
@@ -118,30 +125,19 @@ function QueueTable({ items, refreshing, onRefresh }: { items: QueueItem[]; refr
     [now],
   );
 
+  // The server's order (oldest first) holds across pages, so the headings do not re-sort one page.
   const table = useReactTable({
     data: items,
     columns,
-    state: { sorting, globalFilter, columnFilters, rowSelection },
+    state: { rowSelection },
+    enableSorting: false,
     getRowId: (r) => r.number,
     enableRowSelection: (row) => row.original.ready === 'pick',
-    onSortingChange: setSorting,
-    onGlobalFilterChange: setGlobalFilter,
-    onColumnFiltersChange: setColumnFilters,
     onRowSelectionChange: setRowSelection,
-    globalFilterFn: (row, _id, value: string) => {
-      const q = value.trim().toLowerCase();
-      return !q || row.original.number.toLowerCase().includes(q) || row.original.customer.toLowerCase().includes(q);
-    },
     getCoreRowModel: getCoreRowModel(),
-    getSortedRowModel: getSortedRowModel(),
-    getFilteredRowModel: getFilteredRowModel(),
   });
 
-  const rows = table.getRowModel().rows;
   const selected = table.getSelectedRowModel().rows.map((r) => r.original.number);
-  const stateFilter = (columnFilters.find((f) => f.id === 'state')?.value as string | undefined) ?? '';
-  const paymentFilter = (columnFilters.find((f) => f.id === 'paymentMethod')?.value as string | undefined) ?? '';
-  const setFilter = (id: string, value: string) => setColumnFilters((fs) => [...fs.filter((f) => f.id !== id), ...(value ? [{ id, value }] : [])]);
 
   const startBatch = () => {
     // Batch picks walk the bins once for all; keep the queue's oldest-first order in the address.
@@ -160,8 +156,8 @@ function QueueTable({ items, refreshing, onRefresh }: { items: QueueItem[]; refr
             ref={filterRef}
             id="queue-filter"
             type="search"
-            value={globalFilter}
-            onChange={(e) => setGlobalFilter(e.target.value)}
+            value={typed}
+            onChange={(e) => setTyped(e.target.value)}
             placeholder="SY-… or name"
             autoComplete="off"
             className="min-h-12 w-64 rounded-md border border-cast-line bg-white px-3 text-lg"
@@ -171,7 +167,7 @@ function QueueTable({ items, refreshing, onRefresh }: { items: QueueItem[]; refr
           <label htmlFor="queue-state" className="font-semibold">
             State
           </label>
-          <select id="queue-state" value={stateFilter} onChange={(e) => setFilter('state', e.target.value)} className="min-h-12 rounded-md border border-cast-line bg-white px-3 text-lg">
+          <select id="queue-state" value={stateFilter} onChange={(e) => setStateFilter(e.target.value as QueueState | '')} className="min-h-12 rounded-md border border-cast-line bg-white px-3 text-lg">
             <option value="">All states</option>
             {stateOrder.map((s) => (
               <option key={s} value={s}>
@@ -187,7 +183,7 @@ function QueueTable({ items, refreshing, onRefresh }: { items: QueueItem[]; refr
           <select
             id="queue-payment"
             value={paymentFilter}
-            onChange={(e) => setFilter('paymentMethod', e.target.value)}
+            onChange={(e) => setPaymentFilter(e.target.value as QueueItem['paymentMethod'] | '')}
             className="min-h-12 rounded-md border border-cast-line bg-white px-3 text-lg"
           >
             <option value="">Card and account</option>
@@ -195,15 +191,15 @@ function QueueTable({ items, refreshing, onRefresh }: { items: QueueItem[]; refr
             <option value="account">On account</option>
           </select>
         </div>
-        <Button variant="quiet" size="lg" onClick={onRefresh} disabled={refreshing}>
-          <RefreshCw aria-hidden className={`size-5 ${refreshing ? 'animate-spin' : ''}`} />
-          {refreshing ? 'Refreshing…' : 'Refresh'}
+        <Button variant="quiet" size="lg" onClick={() => void queue.refetch()} disabled={queue.isFetching}>
+          <RefreshCw aria-hidden className={`size-5 ${queue.isFetching ? 'animate-spin' : ''}`} />
+          {queue.isFetching ? 'Refreshing…' : 'Refresh'}
         </Button>
       </div>
 
       <div className="flex flex-wrap items-center justify-between gap-3 rounded-md bg-panel px-3 py-2" aria-live="polite">
         <p className="text-lg">
-          <span className="tabular font-semibold">{rows.length}</span> of <span className="tabular">{items.length}</span> orders
+          <span className="tabular font-semibold">{pageSpan(page, PICK_QUEUE_PAGE_SIZE, queue.data?.total ?? 0)}</span> orders{filtered ? ' matching' : ''}
           {selected.length > 0 && (
             <>
               {' '}
@@ -217,18 +213,32 @@ function QueueTable({ items, refreshing, onRefresh }: { items: QueueItem[]; refr
         </Button>
       </div>
 
-      {items.length === 0 ? (
+      {queue.isPending ? (
+        <LoadingState label="Loading the pick queue…" />
+      ) : queue.isError ? (
+        <ErrorState title="The pick queue did not load" message={queue.error.message} onRetry={() => void queue.refetch()} />
+      ) : queue.data.total === 0 && !filtered ? (
         <EmptyState title="Nothing to pick">New card-paid and on-account orders appear here, oldest first, along with back-orders whose stock has arrived.</EmptyState>
-      ) : rows.length === 0 ? (
-        <EmptyState title="No order matches these filters">Clear the filter or choose “All states”.</EmptyState>
+      ) : queue.data.total === 0 ? (
+        <EmptyState title="No order matches these filters">Clear the search or choose “All states” and “Card and account”.</EmptyState>
+      ) : items.length === 0 ? (
+        <EmptyState title="No orders on this page">
+          The queue is shorter now.{' '}
+          <button type="button" onClick={() => setPage(1)} className="font-semibold text-temper underline">
+            Back to the first page
+          </button>
+        </EmptyState>
       ) : (
-        <DataTable
-          table={table}
-          caption="Pick queue, oldest first. Column headers sort. Units are still to pick."
-          density="floor"
-          maxHeight="max-h-[70vh]"
-          rowClassName={(row) => (row.getIsSelected() ? 'bg-temper-tint/60' : '')}
-        />
+        <>
+          <DataTable
+            table={table}
+            caption="Pick queue, oldest first. Units are still to pick."
+            density="floor"
+            maxHeight="max-h-[70vh]"
+            rowClassName={(row) => (row.getIsSelected() ? 'bg-temper-tint/60' : '')}
+          />
+          <Pager page={page} pageSize={PICK_QUEUE_PAGE_SIZE} total={queue.data.total} onPage={setPage} size="lg" label="Pick queue pages" />
+        </>
       )}
     </div>
   );
