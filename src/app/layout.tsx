@@ -204,7 +204,7 @@ export function Layout() {
           {navigation.state === 'loading' && <div className="h-0.5 animate-pulse bg-temper" role="progressbar" aria-label="Loading page" />}
         </header>
         {/* At least a screen tall, so the footer never sits in the first view only to be pushed down as the page arrives. */}
-        <main id="main" className="mx-auto min-h-screen w-full max-w-6xl flex-1 px-4 py-6">
+        <main id="main" className="mx-auto min-h-screen w-full max-w-6xl flex-1 px-4 py-6 print:min-h-0">
           <Outlet />
         </main>
         <footer className="no-print border-t border-cast-line bg-panel">
