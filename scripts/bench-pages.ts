@@ -25,7 +25,9 @@ import { section, type SectionContext } from './bench-harness';
  * busy machine slows both alike; medians are reported with the ratio to the reference.
  *
  * Alone: `npx tsx scripts/bench-pages.ts [--runs 5] [--desktop] [--port 0]` (needs `npm run build`; builds the client
- * if dist/client is missing; `--client DIR` serves another build). In the full benchmark: `npm run bench -- --pages` or `--only pages`.
+ * if dist/client is missing; `--client DIR` serves another build; `--compare DIR` measures a second build in the same
+ * interleaved runs, which is the fair way to compare two builds on a busy machine).
+ * In the full benchmark: `npm run bench -- --pages` or `--only pages`.
  */
 
 const PROFILE = { latencyMs: 150, downBitsPerS: 1_600_000, upBitsPerS: 750_000, cpuSlowdown: 4 };
@@ -221,6 +223,8 @@ export interface PagesOptions {
   desktop: boolean;
   /** The built client to serve; dist/client by default. */
   clientDir?: string;
+  /** Another build (say, before a change) measured in the same runs, interleaved, from a second server. */
+  compareDir?: string;
 }
 
 export async function runPageBench(ctx: SectionContext, options: PagesOptions) {
@@ -242,6 +246,8 @@ export async function runPageBench(ctx: SectionContext, options: PagesOptions) {
   const device = options.desktop ? DESKTOP : PHONE;
   const { port, child } = await startServer(root, dbFile, clientDir, referenceDir, options.port);
   const base = `http://127.0.0.1:${port}`;
+  const other = options.compareDir ? await startServer(root, dbFile, options.compareDir, referenceDir, 0) : null;
+  const otherBase = other ? `http://127.0.0.1:${other.port}` : null;
   const browser = await chromium.launch({ executablePath: '/usr/bin/chromium', args: CHROMIUM_ARGS, headless: true });
   try {
     const list = (await (await fetch(`${base}/api/parts?category=turbochargers`)).json()) as { items: Array<{ partNumber: string }> };
@@ -255,7 +261,7 @@ export async function runPageBench(ctx: SectionContext, options: PagesOptions) {
     ];
     for (const p of pages) await saveReference(browser, base, p, referenceDir, device);
 
-    const results = new Map<string, { app: PageLoad[]; ref: PageLoad[] }>(pages.map((p) => [p.name, { app: [], ref: [] }]));
+    const results = new Map<string, { app: PageLoad[]; ref: PageLoad[]; other: PageLoad[] }>(pages.map((p) => [p.name, { app: [], ref: [], other: [] }]));
     for (let run = 1; run <= runs; run++) {
       for (const p of pages) {
         const r = results.get(p.name)!;
@@ -263,6 +269,7 @@ export async function runPageBench(ctx: SectionContext, options: PagesOptions) {
         if (load.jsFiles === 0) throw new Error(`${p.name} loaded no scripts: is ${clientDir} a built client the server can send?`);
         r.app.push(load);
         r.ref.push(await measure(browser, `${base}${REFERENCE_PREFIX}${p.name}`, device));
+        if (otherBase) r.other.push(await measure(browser, `${otherBase}${p.path}`, device));
       }
       ctx.log(`run ${run} of ${runs} done`);
     }
@@ -287,10 +294,21 @@ export async function runPageBench(ctx: SectionContext, options: PagesOptions) {
       ctx.record(`${p.name}: CLS`, cls, '', { target: { op: '<=', value: TARGETS.cls } });
       ctx.table(`${p.name}: runs`, ['run', 'LCP ms', 'FCP ms', 'CLS', 'ref LCP', 'ref FCP', 'LCP element', 'largest shift'], app.map((a, i) => [String(i + 1), a.lcp, a.fcp, a.cls.toFixed(3), ref[i]!.lcp, ref[i]!.fcp, a.lcpElement, a.worstShift.slice(0, 90)]));
     }
+    if (other) {
+      lines.push('', `Compared in the same runs: ${options.compareDir}`, '', '| page | LCP ms | ratio to no-script | FCP ms | ratio | CLS | JS kB sent | JS files | first API request at ms |', '|---|---:|---:|---:|---:|---:|---:|---:|---:|');
+      for (const p of pages) {
+        const { other: o, ref } = results.get(p.name)!;
+        const m = (xs: PageLoad[], k: keyof PageLoad) => median(xs.map((x) => x[k] as number));
+        lines.push(
+          `| ${p.name} | ${ms(m(o, 'lcp'))} | ${ratio(m(o, 'lcp'), m(ref, 'lcp'))} | ${ms(m(o, 'fcp'))} | ${ratio(m(o, 'fcp'), m(ref, 'fcp'))} | ${m(o, 'cls').toFixed(3)} | ${(m(o, 'jsBytes') / 1024).toFixed(1)} | ${m(o, 'jsFiles')} | ${ms(m(o, 'firstApiStart'))} |`,
+        );
+      }
+    }
     console.log(`\n${lines.join('\n')}\n`);
   } finally {
     await browser.close();
     stopProcess(child);
+    if (other) stopProcess(other.child);
   }
 }
 
@@ -305,13 +323,13 @@ if (invokedDirectly && process.argv[2] === '--serve') {
 } else if (invokedDirectly) {
   const { printReport, runSections } = await import('./bench-harness');
   const { values } = parseArgs({
-    options: { runs: { type: 'string', default: '5' }, port: { type: 'string', default: '0' }, desktop: { type: 'boolean', default: false }, keep: { type: 'boolean', default: false }, client: { type: 'string' } },
+    options: { runs: { type: 'string', default: '5' }, port: { type: 'string', default: '0' }, desktop: { type: 'boolean', default: false }, keep: { type: 'boolean', default: false }, client: { type: 'string' }, compare: { type: 'string' } },
   });
   const runs = Number(values.runs);
   if (!Number.isInteger(runs) || runs < 1 || runs > 50) throw new Error('--runs must be 1 to 50');
   const root = path.resolve(import.meta.dirname, '..');
   const workDir = path.join(root, '.tmp', 'bench-pages');
-  const report = await runSections([section('Pages', (ctx) => runPageBench(ctx, { root, workDir, runs, port: Number(values.port), desktop: values.desktop, clientDir: values.client && path.resolve(values.client) }))], null);
+  const report = await runSections([section('Pages', (ctx) => runPageBench(ctx, { root, workDir, runs, port: Number(values.port), desktop: values.desktop, clientDir: values.client && path.resolve(values.client), compareDir: values.compare && path.resolve(values.compare) }))], null);
   printReport(report);
   if (!values.keep) fs.rmSync(workDir, { recursive: true, force: true });
   process.exit(report.sections.some((s) => s.error) ? 1 : 0);

@@ -6,16 +6,19 @@ import { checkoutSection } from './bench-checkout';
 import { fitmentSection } from './bench-fitment';
 import { printReport, runSections, writeReport, type BenchSection } from './bench-harness';
 import { httpSection } from './bench-http';
+import { pagesSection } from './bench-pages';
 import { processesSection } from './bench-processes';
 import { searchSection } from './bench-search';
 
-// Usage: npm run bench -- [--parts 50000] [--duration 5] [--only search|throughput|fitment|checkout|process] [--keep]
+// Usage: npm run bench -- [--parts 50000] [--duration 5] [--only search|throughput|fitment|checkout|process|pages] [--pages] [--keep]
+// --pages adds the throttled page loads in Chromium (a few minutes; also alone: npx tsx scripts/bench-pages.ts).
 const { values } = parseArgs({
   options: {
     parts: { type: 'string', default: '50000' },
     duration: { type: 'string', default: '5' },
     only: { type: 'string' },
     keep: { type: 'boolean', default: false },
+    pages: { type: 'boolean', default: false },
   },
 });
 const largeParts = Number(values.parts);
@@ -26,7 +29,7 @@ if (!Number.isInteger(httpDurationS) || httpDurationS < 1 || httpDurationS > 30)
 const root = path.resolve(import.meta.dirname, '..');
 const env: BenchEnv = { root, workDir: path.join(root, '.tmp', 'bench'), largeParts, httpDurationS, catalogues: [] };
 
-const sections: Array<BenchSection<BenchEnv>> = [searchSection, httpSection, fitmentSection, checkoutSection, processesSection].filter((s) => !values.only || s.name.toLowerCase().includes(values.only.toLowerCase()));
+const sections: Array<BenchSection<BenchEnv>> = [searchSection, httpSection, fitmentSection, checkoutSection, processesSection, ...(values.pages || values.only ? [pagesSection] : [])].filter((s) => !values.only || s.name.toLowerCase().includes(values.only.toLowerCase()));
 
 const report = await runSections([catalogueSection, ...sections], env);
 printReport(report);

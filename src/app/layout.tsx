@@ -236,7 +236,7 @@ export function Layout() {
         </header>
         )}
         {/* At least a screen tall, so the footer never sits in the first view only to be pushed down as the page arrives. */}
-        <main id="main" className={`mx-auto min-h-screen w-full max-w-6xl flex-1 px-4 ${workspace === 'Floor' ? 'py-2 sm:py-6' : 'py-6'}`}>
+        <main id="main" className={`mx-auto min-h-screen w-full max-w-6xl flex-1 px-4 print:min-h-0 ${workspace === 'Floor' ? 'py-2 sm:py-6' : 'py-6'}`}>
           <Outlet />
         </main>
         <footer className="no-print border-t border-cast-line bg-panel">

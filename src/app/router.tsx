@@ -30,7 +30,8 @@ function page(path: string | null, load: Loader, exportName: string, prefetch?: 
     hydrateFallbackElement: pageFallback,
     ...(prefetch && {
       loader: (args: LoaderFunctionArgs) => {
-        void prefetch(args);
+        // A failed early start is no error: the page asks again when it renders, and shows what went wrong.
+        Promise.resolve(prefetch(args)).catch(() => undefined);
         return null;
       },
       shouldRevalidate: () => false,
