@@ -15,9 +15,14 @@ export interface BenchCatalogue {
 export interface BenchEnv {
   root: string;
   workDir: string;
-  largeParts: number;
+  /** Generated catalogue sizes for the search figures, besides the demo catalogue. */
+  sizes: number[];
   httpDurationS: number;
-  /** Filled by the catalogue section: the demo catalogue first, then the large one. */
+  /** Interleaved rounds per figure (figure and reference once each per round). */
+  rounds: number;
+  /** A smoke run: fewer buyers and rounds, rough figures. */
+  quick: boolean;
+  /** Filled by the catalogue section: the demo catalogue first, then one per size. */
   catalogues: BenchCatalogue[];
 }
 
@@ -28,10 +33,8 @@ export function removeDatabase(file: string) {
 /** Generates and loads the demo and the large catalogue into fresh SQLite files under the work directory. */
 export const catalogueSection = section<BenchEnv>('Catalogues', (ctx, env) => {
   fs.mkdirSync(env.workDir, { recursive: true });
-  for (const [label, parts] of [
-    ['demo', undefined],
-    [`${Math.round(env.largeParts / 1000)}k`, env.largeParts],
-  ] as const) {
+  const wanted: Array<[string, number | undefined]> = [['demo', undefined], ...env.sizes.map((n): [string, number] => [`${Math.round(n / 1000)}k`, n])];
+  for (const [label, parts] of wanted) {
     const file = path.join(env.workDir, `catalogue-${label}.db`);
     removeDatabase(file);
     const t0 = performance.now();

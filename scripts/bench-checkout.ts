@@ -1,75 +1,77 @@
-import { section, summarize } from './bench-harness';
+import fs from 'node:fs';
+import path from 'node:path';
 import type { BenchEnv } from './bench-catalogues';
-import { signIn, type Client } from '../tests/support/session';
-import { setAvailable } from '../tests/support/stock';
-import { startTestApp } from '../tests/support/test-app';
+import { buildForBench, runCheckout, type CheckoutRun } from './bench-checkout-load';
+import { interleave, median, treeCpuMs } from './bench-figures';
+import { section } from './bench-harness';
+import { load, startServers } from './bench-http';
 
-const BUYERS = 16;
-const DELIVERY = { name: 'Bench Buyer', line1: '1 Load Street', city: 'Quenchfold', postcode: 'QF1 1AA', zone: 'local' };
+/** Buyers checking out at once (fewer in a smoke run: each is signed up and in, which costs a password hash). */
+const buyersFor = (quick: boolean) => (quick ? 8 : 24);
+const ORDERS_PER_S_GOAL = 300;
 
 /**
- * Checkout throughput through the real app and the payments fake on 127.0.0.1, bounded in time, and a stampede
- * of buyers on a part with little stock to show the last unit is sold once.
+ * Card checkout through the compiled server with 1 and with 2 app processes (APP_PROCESSES), the payments and mail
+ * fakes in processes of their own and the buyers here, interleaved (1 2, 2 1 …); beside it, in the same run, a bare
+ * Express route writing one SQLite row, of which an order costs two (the cart line and the order). After every run the
+ * stock is checked: nothing oversold in a stampede on the last units, every row equal to its ledger's sum.
  */
-export const checkoutSection = section<BenchEnv>('checkout', async (ctx, env) => {
-  const t = await startTestApp({ fakes: true, accounts: false });
-  try {
-    const buyers: Client[] = [];
-    for (let i = 0; i < BUYERS; i++) {
-      const email = `bench-buyer-${i}@spoolyard.test`;
-      const res = await t.send('POST', '/api/auth/sign-up/email', { name: `Bench Buyer ${i}`, email, password: 'bench-password-1' }, { origin: t.url });
-      if (res.status !== 200) throw new Error(`sign-up failed: ${res.status}`);
-      buyers.push(await signIn(t, email, 'bench-password-1'));
-    }
-    const sqlite = t.db.$client;
-    const plenty = sqlite
-      .prepare("SELECT p.part_number FROM parts p JOIN stock s ON s.part_id = p.id WHERE p.category = 'gaskets-fittings' AND p.status = 'active' GROUP BY p.id ORDER BY SUM(s.on_hand) DESC LIMIT 1")
-      .pluck()
-      .get() as string;
-    setAvailable(t, plenty, 100_000);
+export const checkoutSection = section<BenchEnv>('Card checkout, 1 and 2 app processes', async (ctx, env) => {
+  const demo = env.catalogues[0];
+  if (!demo) throw new Error('the catalogue section did not build the demo catalogue');
+  const dir = path.join(env.workDir, 'checkout');
+  fs.mkdirSync(dir, { recursive: true });
+  const build = await buildForBench(path.join(dir, 'build'));
+  const seconds = Math.max(2, env.httpDurationS);
+  const buyers = buyersFor(env.quick);
 
-    const checkout = async (c: Client, partNumber: string) => {
-      const started = performance.now();
-      const add = await c.send('POST', '/api/cart/lines', { partNumber, quantity: 1 });
-      if (add.status !== 201) return { ok: false, ms: performance.now() - started, status: add.status };
-      const res = await c.send('POST', '/api/checkout', { method: 'card', paymentMethod: 'pm_card_visa', delivery: DELIVERY });
-      return { ok: res.status === 201, ms: performance.now() - started, status: res.status };
-    };
-
-    // Throughput: every buyer checks out in a loop until the time is up.
-    const seconds = Math.min(env.httpDurationS, 10);
-    const until = performance.now() + seconds * 1000;
-    const latencies: number[] = [];
-    let failed = 0;
-    await Promise.all(
-      buyers.map(async (c) => {
-        while (performance.now() < until) {
-          const r = await checkout(c, plenty);
-          if (r.ok) latencies.push(r.ms);
-          else failed++;
-        }
-      }),
+  const refFile = path.join(dir, 'reference.db');
+  fs.copyFileSync(demo.file, refFile);
+  const servers = await startServers(env, refFile);
+  const bareWrite = async () => {
+    let cpu0 = 0;
+    const r = await load(
+      'bare write',
+      `http://127.0.0.1:${servers.ports.bareWrite}/write`,
+      seconds,
+      { requests: [{ method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ partNumber: 'QQQ-00-0000', quantity: 1 }) }] },
+      () => (cpu0 = treeCpuMs(servers.pid)),
     );
-    await t.payments!.waitForWebhooks(10_000);
-    const paid = sqlite.prepare("SELECT count(*) FROM orders WHERE status = 'paid'").pluck().get() as number;
-    const lat = summarize(latencies.sort((a, b) => a - b));
-    ctx.record('checkouts/s (card, through the payments fake)', latencies.length / seconds, 'orders/s', { detail: `${BUYERS} buyers, ${seconds} s, ${failed} failed` });
-    ctx.record('checkout p95 (add line + pay)', lat.p95, 'ms');
-    ctx.record('orders paid by webhook', paid, 'orders', { target: { op: '>=', value: latencies.length } });
+    return { perS: r.requests.average, cpuMsPerRequest: (treeCpuMs(servers.pid) - cpu0) / Math.max(1, r.requests.total) };
+  };
 
-    // Oversell: the same part, 5 in stock, every buyer at once.
-    const scarce = sqlite
-      .prepare("SELECT p.id, p.part_number AS partNumber FROM parts p WHERE p.category = 'cartridges' AND p.status = 'active' ORDER BY p.id LIMIT 1")
-      .get() as { id: number; partNumber: string };
-    const target = 5;
-    setAvailable(t, scarce.partNumber, target);
-    for (const c of buyers) await c.send('POST', '/api/cart/lines', { partNumber: scarce.partNumber, quantity: 1 });
-    const results = await Promise.all(buyers.map((c) => c.send('POST', '/api/checkout', { method: 'card', paymentMethod: 'pm_card_visa', delivery: DELIVERY })));
-    const sold = results.filter((r) => r.status === 201).length;
-    const stock = sqlite.prepare('SELECT SUM(on_hand) AS onHand, SUM(reserved) AS reserved FROM stock WHERE part_id = ?').get(scarce.id) as { onHand: number; reserved: number };
-    ctx.record(`concurrent checkouts for ${target} units sold`, sold, 'orders', { target: { op: '<=', value: target }, detail: `${BUYERS} buyers at once; the others got 409` });
-    ctx.record('units oversold', Math.max(0, stock.reserved - stock.onHand), 'units', { target: { op: '<=', value: 0 } });
+  const runs: Record<number, CheckoutRun[]> = { 1: [], 2: [] };
+  const refs: Array<{ perS: number; cpuMsPerRequest: number }> = [];
+  try {
+    for (const processes of interleave([1, 2], env.rounds)) {
+      refs.push(await bareWrite());
+      const r = await runCheckout({ root: env.root, build, catalogueFile: demo.file, workDir: dir, processes, seconds, buyers, log: (m) => ctx.log(m) });
+      runs[processes]!.push(r);
+      ctx.log(
+        `${processes} process(es): ${r.ordersPerS.toFixed(1)} orders/s, app ${r.appCpuMsPerOrder.toFixed(2)} ms CPU/order, fakes ${r.fakesCpuMsPerOrder.toFixed(2)} ms; ` +
+          `${r.failed} failed, ${r.unpaid} unpaid, ${r.mailUnsent} mails unsent; ${r.scarceSold} of ${r.scarceUnits} last units sold; ${r.badStockRows + r.ledgerMismatches} stock rows wrong`,
+      );
+    }
   } finally {
-    await t.close();
+    servers.stop();
+  }
+
+  const twoWrites = { name: 'two bare Express + SQLite writes', value: median(refs.map((r) => r.perS)) / 2 };
+  const twoWritesCpu = { name: 'CPU of two bare writes', value: 2 * median(refs.map((r) => r.cpuMsPerRequest)) };
+  for (const processes of [1, 2]) {
+    const rs = runs[processes]!;
+    ctx.figure({
+      figure: `card checkout, ${processes} app process${processes === 1 ? '' : 'es'}, fakes apart`,
+      value: median(rs.map((r) => r.ordersPerS)),
+      unit: 'orders/s',
+      reference: twoWrites,
+      ...(processes === 2 ? { goal: { op: '>=' as const, value: ORDERS_PER_S_GOAL, on: 'value' as const } } : {}),
+    });
+    ctx.figure({ figure: `app CPU per card order, ${processes} process${processes === 1 ? '' : 'es'}`, value: median(rs.map((r) => r.appCpuMsPerOrder)), unit: 'ms', reference: twoWritesCpu });
+    ctx.figure({ figure: `fakes' CPU per card order, ${processes} process${processes === 1 ? '' : 'es'}`, value: median(rs.map((r) => r.fakesCpuMsPerOrder)), unit: 'ms' });
+    const worst = (pick: (r: CheckoutRun) => number) => Math.max(...rs.map(pick));
+    ctx.figure({ figure: `units oversold, ${processes} process${processes === 1 ? '' : 'es'} (last ${rs[0]!.scarceUnits} units, ${buyers} buyers at once)`, value: worst((r) => Math.max(0, r.scarceSold - r.scarceUnits)), unit: 'units', goal: { op: '<=', value: 0, on: 'value' } });
+    ctx.figure({ figure: `stock rows off their ledger or out of bounds, ${processes} process${processes === 1 ? '' : 'es'}`, value: worst((r) => r.badStockRows + r.ledgerMismatches), unit: 'rows', goal: { op: '<=', value: 0, on: 'value' } });
+    ctx.figure({ figure: `orders left unpaid or mail left unsent after the run, ${processes} process${processes === 1 ? '' : 'es'}`, value: worst((r) => r.unpaid + r.mailUnsent + r.failed), unit: 'orders/mails', goal: { op: '<=', value: 0, on: 'value' } });
   }
 });

@@ -34,7 +34,7 @@ function requests(): FitmentRequest[] {
 }
 
 /** runFitmentCheck against every frame of the demo catalogue, read from its database as the server reads them. */
-export const fitmentSection = section<BenchEnv>(`Fitment check (all frames, ${ROUNDS} rounds)`, (ctx, env) => {
+export const fitmentSection = section<BenchEnv>('Fitment check (all frames)', (ctx, env) => {
   const demo = env.catalogues[0];
   if (!demo) throw new Error('the catalogue section did not build the demo catalogue');
   const db = openDatabase(demo.file);
@@ -48,7 +48,8 @@ export const fitmentSection = section<BenchEnv>(`Fitment check (all frames, ${RO
     // nothing serves, which also search for the next steps.
     const served: number[] = [];
     const unserved: number[] = [];
-    for (let round = 0; round < ROUNDS; round++) {
+    const rounds = env.quick ? 4 : ROUNDS;
+    for (let round = 0; round < rounds; round++) {
       for (const input of inputs) {
         const t = performance.now();
         const result = fitment.check(input);
@@ -57,7 +58,7 @@ export const fitmentSection = section<BenchEnv>(`Fitment check (all frames, ${RO
     }
     const s = summarize(served);
     const all = summarize([...served, ...unserved]);
-    ctx.log(`${inputs.length} engines × ${ROUNDS} rounds against ${frames} frames (${served.length} served, ${unserved.length} not)`);
+    ctx.log(`${inputs.length} engines × ${rounds} rounds against ${frames} frames (${served.length} served, ${unserved.length} not)`);
     ctx.record(`runFitmentCheck() p50, ${frames} frames`, all.p50, 'ms');
     // The target is the check itself: every frame, layout and housing. A request nothing serves also runs the
     // next-step searches (each a run of the compressor side at a changed goal), reported beside it.

@@ -1,6 +1,7 @@
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
+import { markdownTable, meetsGoal, type FigureRow } from './bench-figures';
 
 /** A bound a measured value must meet; `<=` for latencies, `>=` for throughput and ratios. */
 export interface Target {
@@ -30,6 +31,8 @@ export interface SectionContext {
   record(measure: string, value: number, unit: string, options?: { target?: Target; detail?: string }): BenchRow;
   /** An extra breakdown table printed after the summary. */
   table(title: string, headers: string[], rows: Array<Array<string | number>>): void;
+  /** A row of the closing markdown table: a figure beside the reference measured with it in the same run. */
+  figure(row: FigureRow): void;
   log(message: string): void;
 }
 
@@ -50,6 +53,7 @@ export interface BenchReport {
   sections: Array<{ name: string; durationMs: number; error?: string }>;
   rows: BenchRow[];
   tables: BenchTable[];
+  figures: FigureRow[];
 }
 
 export function machineInfo(): BenchReport['machine'] {
@@ -127,13 +131,17 @@ export function printReport(report: BenchReport) {
   const targeted = report.rows.filter((r) => r.target);
   const missed = targeted.filter((r) => !r.pass);
   console.log(`\nTargets: ${targeted.length - missed.length} of ${targeted.length} met${missed.length ? `; missed: ${missed.map((r) => r.measure).join('; ')}` : ''}`);
+  if (report.figures.length > 0) {
+    const goals = report.figures.filter((f) => f.goal);
+    console.log(`\n${markdownTable(report.figures)}\n\nGoals: ${goals.filter((f) => meetsGoal(f)).length} of ${goals.length} met`);
+  }
   console.log(`Total time ${(report.durationMs / 1000).toFixed(1)} s`);
 }
 
 /** Runs the sections in order; a failing section is reported and the rest still run. */
 export async function runSections<E>(sections: Array<BenchSection<E>>, env: E): Promise<BenchReport> {
   const started = Date.now();
-  const report: BenchReport = { machine: machineInfo(), startedAt: new Date(started).toISOString(), durationMs: 0, sections: [], rows: [], tables: [] };
+  const report: BenchReport = { machine: machineInfo(), startedAt: new Date(started).toISOString(), durationMs: 0, sections: [], rows: [], tables: [], figures: [] };
   for (const s of sections) {
     console.log(`\n== ${s.name} ==`);
     const t0 = Date.now();
@@ -146,6 +154,9 @@ export async function runSections<E>(sections: Array<BenchSection<E>>, env: E): 
       },
       table(title, headers, rows) {
         report.tables.push({ section: s.name, title, headers, rows });
+      },
+      figure(row) {
+        report.figures.push(row);
       },
       log(message) {
         console.log(`  ${message}`);

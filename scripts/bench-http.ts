@@ -1,7 +1,12 @@
 import { fork } from 'node:child_process';
+import fs from 'node:fs';
 import { createRequire } from 'node:module';
 import path from 'node:path';
+import { openDatabase } from '../server/db/client';
+import { createStockService } from '../server/services/stock';
+import { testConfig } from '../tests/support/app-deps';
 import type { BenchEnv } from './bench-catalogues';
+import { median } from './bench-figures';
 import { section } from './bench-harness';
 
 interface AutocannonResult {
@@ -11,27 +16,38 @@ interface AutocannonResult {
   timeouts: number;
   non2xx: number;
 }
-type Autocannon = (options: { url: string; connections: number; duration: number; timeout?: number }) => Promise<AutocannonResult>;
+interface AutocannonRequest {
+  method?: string;
+  path?: string;
+  headers?: Record<string, string>;
+  body?: string;
+  setupRequest?: (req: AutocannonRequest) => AutocannonRequest;
+}
+type Autocannon = (options: {
+  url: string;
+  connections: number;
+  duration: number;
+  timeout?: number;
+  headers?: Record<string, string>;
+  requests?: AutocannonRequest[];
+}) => Promise<AutocannonResult>;
 
 // autocannon ships no type declarations; this is the slice of its API the benchmark uses.
 const autocannon = createRequire(import.meta.url)('autocannon') as Autocannon;
 
 const CONNECTIONS = 50;
-const LIST_RATIO_TARGET = 0.5;
-
-async function waitIdle(url: string) {
-  const res = await fetch(url, { signal: AbortSignal.timeout(120_000) });
-  await res.arrayBuffer();
-}
+const LIST_RATIO_GOAL = 0.5;
+const WRITES_PER_S = 10;
 
 interface Ports {
   bareJson: number;
   bareSqlite: number;
-  [app: string]: number;
+  bareWrite: number;
+  app0: number;
 }
 
-function startServers(env: BenchEnv): Promise<{ ports: Ports; stop: () => void }> {
-  const child = fork(path.join(env.root, 'scripts', 'bench-servers.ts'), env.catalogues.map((c) => c.file), {
+export function startServers(env: BenchEnv, file: string): Promise<{ ports: Ports; pid: number; stop: () => void }> {
+  const child = fork(path.join(env.root, 'scripts', 'bench-servers.ts'), [file], {
     cwd: env.root,
     execArgv: ['--import', 'tsx'],
     stdio: ['ignore', 'inherit', 'inherit', 'ipc'],
@@ -46,7 +62,7 @@ function startServers(env: BenchEnv): Promise<{ ports: Ports; stop: () => void }
     }, 120_000);
     child.once('message', (m: { ports: Ports }) => {
       clearTimeout(timer);
-      resolve({ ports: m.ports, stop });
+      resolve({ ports: m.ports, pid: child.pid!, stop });
     });
     child.once('exit', (code) => {
       clearTimeout(timer);
@@ -55,48 +71,119 @@ function startServers(env: BenchEnv): Promise<{ ports: Ports; stop: () => void }
   });
 }
 
-/** Requests/s of the list endpoint beside bare Express routes, servers in a child process, autocannon here. */
-export const httpSection = section<BenchEnv>(`GET /api/parts throughput (autocannon, ${CONNECTIONS} connections)`, async (ctx, env) => {
-  const { ports, stop } = await startServers(env);
+/** Load with autocannon after a short untimed warm-up; any error or non-2xx answer fails the run. */
+export async function load(
+  name: string,
+  url: string,
+  seconds: number,
+  extra: { headers?: Record<string, string>; requests?: AutocannonRequest[] } = {},
+  afterWarmUp?: () => void,
+) {
+  await autocannon({ url, connections: 10, duration: 1, ...extra });
+  afterWarmUp?.();
+  const r = await autocannon({ url, connections: CONNECTIONS, duration: seconds, timeout: 10, ...extra });
+  const bad = r.errors + r.timeouts + r.non2xx;
+  if (bad > 0) throw new Error(`${name}: ${r.errors} errors, ${r.timeouts} timeouts, ${r.non2xx} non-2xx responses`);
+  return r;
+}
+
+/** A signed-in customer on the benchmark app: signed up, its address marked confirmed in the file, signed in. */
+async function signedInCookie(appUrl: string, file: string): Promise<string> {
+  const origin = new URL(testConfig().publicUrl).origin;
+  const email = 'bench-lists@spoolyard.test';
+  const password = 'bench-password-1';
+  const post = (p: string, body: unknown) =>
+    fetch(`${appUrl}${p}`, { method: 'POST', headers: { 'content-type': 'application/json', origin }, body: JSON.stringify(body) });
+  const signUp = await post('/api/auth/sign-up/email', { name: 'Bench Lists', email, password });
+  if (signUp.status !== 200) throw new Error(`sign-up failed: ${signUp.status}`);
+  const db = openDatabase(file);
+  db.$client.prepare('UPDATE user SET email_verified = 1 WHERE email = ?').run(email);
+  db.$client.close();
+  const signIn = await post('/api/auth/sign-in/email', { email, password });
+  if (signIn.status !== 200) throw new Error(`sign-in failed: ${signIn.status}`);
+  return signIn.headers
+    .getSetCookie()
+    .map((c) => c.split(';')[0]!)
+    .join('; ');
+}
+
+/** Ten stock moves a second on one part, through the stock service (ledger kept true); each one invalidates list caches. */
+function startWriter(file: string) {
+  const db = openDatabase(file);
+  const stock = createStockService(db);
+  const row = db.$client.prepare("SELECT part_id AS partId, bin_code AS bin FROM stock WHERE on_hand > 10 ORDER BY part_id LIMIT 1").get() as { partId: number; bin: string };
+  let writes = 0;
+  const timer = setInterval(() => {
+    stock.adjust(row.partId, row.bin, writes % 2 === 0 ? -1 : 1, 'benchmark: a write while lists are read');
+    writes++;
+  }, 1000 / WRITES_PER_S);
+  return {
+    stop: () => {
+      clearInterval(timer);
+      db.$client.close();
+      return writes;
+    },
+  };
+}
+
+/**
+ * The catalogue list through the whole app, four ways, each beside a bare Express route with one SQLite select measured
+ * in the same round, in alternating order (reference first, then the figure; next round the other way round).
+ */
+export const httpSection = section<BenchEnv>(`Catalogue list beside bare Express + SQLite (autocannon, ${CONNECTIONS} connections)`, async (ctx, env) => {
+  const demo = env.catalogues[0];
+  if (!demo) throw new Error('the catalogue section did not build the demo catalogue');
+  const file = path.join(env.workDir, 'lists.db');
+  for (const suffix of ['', '-wal', '-shm']) fs.rmSync(`${file}${suffix}`, { force: true });
+  fs.copyFileSync(demo.file, file);
+  const { ports, stop } = await startServers(env, file);
   try {
-    const run = async (name: string, url: string, idleUrl: string) => {
-      // A short untimed run first so every server is measured warm; before each run the server finishes
-      // what an earlier run left queued, so a slow route's backlog is not charged to the next one.
-      await waitIdle(idleUrl);
-      await autocannon({ url, connections: 10, duration: 1 });
-      await waitIdle(idleUrl);
-      const r = await autocannon({ url, connections: CONNECTIONS, duration: env.httpDurationS, timeout: 10 });
-      const bad = r.errors + r.timeouts + r.non2xx;
-      if (bad > 0) throw new Error(`${name}: ${r.errors} errors, ${r.timeouts} timeouts, ${r.non2xx} non-2xx responses`);
-      ctx.log(`${name}: ${Math.round(r.requests.average)} req/s, latency p50 ${r.latency.p50} ms, p99 ${r.latency.p99} ms`);
-      return r;
-    };
+    const app = `http://127.0.0.1:${ports.app0}`;
+    const bare = `http://127.0.0.1:${ports.bareSqlite}/part`;
+    const cookie = await signedInCookie(app, file);
+    let random = 1;
+    const nextRandom = () => (random = (random * 48_271) % 2_147_483_647);
+    const figures: Array<{ name: string; run: () => Promise<AutocannonResult> }> = [
+      {
+        name: 'GET /api/parts, uncached (a different minimum power each request)',
+        run: () => load('uncached', app, env.httpDurationS, { requests: [{ setupRequest: (req) => ({ ...req, path: `/api/parts?minHp=${nextRandom() % 3000}` }) }] }),
+      },
+      { name: 'GET /api/parts, cached', run: () => load('cached', `${app}/api/parts`, env.httpDurationS) },
+      {
+        name: `GET /api/parts, cached, ${WRITES_PER_S} stock writes/s going on`,
+        run: async () => {
+          const writer = startWriter(file);
+          try {
+            return await load('cached with writes', `${app}/api/parts`, env.httpDurationS);
+          } finally {
+            const writes = writer.stop();
+            ctx.log(`${writes} stock writes during the run`);
+          }
+        },
+      },
+      { name: 'GET /api/parts, cached, signed in (session cookie)', run: () => load('signed in', `${app}/api/parts`, env.httpDurationS, { headers: { cookie } }) },
+    ];
     const rows: Array<Array<string | number>> = [];
-    const measureRow = async (name: string, url: string, idleUrl = url) => {
-      const r = await run(name, url, idleUrl);
-      rows.push([name, r.requests.average, r.latency.p50, r.latency.p99, r.requests.total]);
-      return r.requests.average;
-    };
-    const bareJson = await measureRow('bare Express, JSON', `http://127.0.0.1:${ports.bareJson}/bare`);
-    const bareSqlite = await measureRow('bare Express + better-sqlite3 lookup', `http://127.0.0.1:${ports.bareSqlite}/part`);
-    ctx.record('bare Express, JSON', bareJson, 'req/s');
-    ctx.record('bare Express + better-sqlite3 lookup', bareSqlite, 'req/s');
-    for (const [i, cat] of env.catalogues.entries()) {
-      const base = `http://127.0.0.1:${ports[`app${i}`]}/api/parts`;
-      const label = `${cat.parts.toLocaleString('en-US')} parts`;
-      for (const [what, url] of [
-        ['GET /api/parts', base],
-        ['GET /api/parts?category=cartridges', `${base}?category=cartridges`],
-      ] as const) {
-        const rps = await measureRow(`${what}, ${label}`, url, `http://127.0.0.1:${ports[`app${i}`]}/api/health`);
-        ctx.record(`${what}, ${label}`, rps, 'req/s');
-        ctx.record(`${what}, ${label} ÷ bare + sqlite`, rps / bareSqlite, '×', {
-          target: { op: '>=', value: LIST_RATIO_TARGET },
-          detail: `÷ bare JSON ${(rps / bareJson).toFixed(2)}`,
-        });
+    for (const f of figures) {
+      const values: number[] = [];
+      const refs: number[] = [];
+      for (let round = 0; round < env.rounds; round++) {
+        const pair = round % 2 === 0 ? (['ref', 'app'] as const) : (['app', 'ref'] as const);
+        for (const which of pair) {
+          const r = which === 'ref' ? await load('bare + sqlite', bare, env.httpDurationS) : await f.run();
+          (which === 'ref' ? refs : values).push(r.requests.average);
+          rows.push([which === 'ref' ? 'bare Express + SQLite select' : f.name, r.requests.average, r.latency.p50, r.latency.p99]);
+        }
       }
+      ctx.figure({
+        figure: f.name,
+        value: median(values),
+        unit: 'req/s',
+        reference: { name: 'bare Express + 1 SQLite select', value: median(refs) },
+        goal: { op: '>=', value: LIST_RATIO_GOAL, on: 'ratio' },
+      });
     }
-    ctx.table(`each run ${env.httpDurationS} s after a 1 s warm-up; servers in a child process, load generator in this one`, ['route', 'req/s', 'p50 ms', 'p99 ms', 'requests'], rows);
+    ctx.table(`each run ${env.httpDurationS} s after a 1 s warm-up, ${env.rounds} round(s); servers in a child process, load generator in this one`, ['route', 'req/s', 'p50 ms', 'p99 ms'], rows);
   } finally {
     stop();
   }

@@ -1,5 +1,7 @@
 import type { AddressInfo } from 'node:net';
 import type { Server } from 'node:http';
+import fs from 'node:fs';
+import Database from 'better-sqlite3';
 import express from 'express';
 import { createApp } from '../server/app';
 import { offlineDeps } from '../tests/support/app-deps';
@@ -41,6 +43,25 @@ bareSqlite.get('/part', (_req, res) => {
 servers.push(await listen(bareSqlite));
 ports.bareSqlite = portOf(servers.at(-1)!);
 
+// A bare write: JSON body in, one insert in its own transaction on a scratch file kept as the app keeps its own (WAL,
+// synchronous NORMAL), a small JSON answer out. A card order is measured against two of these.
+const scratchFile = `${demoFile}.scratch.db`;
+for (const suffix of ['', '-wal', '-shm']) fs.rmSync(`${scratchFile}${suffix}`, { force: true });
+const scratch = new Database(scratchFile);
+scratch.pragma('journal_mode = WAL');
+scratch.pragma('synchronous = NORMAL');
+scratch.exec('CREATE TABLE writes (id INTEGER PRIMARY KEY, part_number TEXT NOT NULL, quantity INTEGER NOT NULL)');
+const insert = scratch.prepare('INSERT INTO writes (part_number, quantity) VALUES (?, ?)');
+const bareWrite = express();
+bareWrite.disable('x-powered-by');
+bareWrite.post('/write', express.json(), (req, res) => {
+  const body = req.body as { partNumber?: unknown; quantity?: unknown };
+  const id = insert.run(String(body.partNumber ?? ''), Number(body.quantity ?? 1)).lastInsertRowid;
+  res.status(201).json({ id: Number(id) });
+});
+servers.push(await listen(bareWrite));
+ports.bareWrite = portOf(servers.at(-1)!);
+
 const dbs = [demoDb];
 for (const [i, file] of [demoFile, ...otherFiles].entries()) {
   const db = i === 0 ? demoDb : openDatabase(file);
@@ -54,6 +75,7 @@ process.send({ ports });
 process.on('SIGTERM', () => {
   for (const s of servers) s.closeAllConnections();
   for (const db of dbs) db.$client.close();
+  scratch.close();
   process.exit(0);
 });
 process.on('disconnect', () => process.exit(0));
