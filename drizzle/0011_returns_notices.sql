@@ -15,4 +15,5 @@ CREATE TABLE `notices` (
 --> statement-breakpoint
 CREATE INDEX `notices_user_idx` ON `notices` (`user_id`,`id`);--> statement-breakpoint
 CREATE INDEX `notices_unread_idx` ON `notices` (`user_id`,`read_at`);--> statement-breakpoint
+CREATE INDEX `notices_order_idx` ON `notices` (`order_id`);--> statement-breakpoint
 ALTER TABLE `returns` ADD `decision_reason` text;

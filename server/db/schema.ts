@@ -693,5 +693,10 @@ export const notices = sqliteTable(
     readAt: text('read_at'),
     createdAt: createdAt(),
   },
-  (t) => [index('notices_user_idx').on(t.userId, t.id), index('notices_unread_idx').on(t.userId, t.readAt), oneOf('notices', 'kind', NOTICE_KINDS)],
+  (t) => [
+    index('notices_user_idx').on(t.userId, t.id),
+    index('notices_unread_idx').on(t.userId, t.readAt),
+    index('notices_order_idx').on(t.orderId),
+    oneOf('notices', 'kind', NOTICE_KINDS),
+  ],
 );
