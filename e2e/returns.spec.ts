@@ -77,7 +77,7 @@ for (const screen of [
     test.use({ viewport: screen.viewport });
 
     test('a dealer returns the dispatched core of a partly shipped order, prints its label, and the Floor scans it and settles only the deposit', async ({ page, login, axe, baseURL }) => {
-      test.setTimeout(120_000);
+      test.setTimeout(180_000);
       const tracking = `TP-${screen.name.toUpperCase()}-${Date.now() % 100000}`;
       await login('dealer');
       const { orderNumber, unit } = await partlyShippedCoreOrder(page, baseURL ?? '', tracking);

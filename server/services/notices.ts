@@ -95,19 +95,31 @@ export function createNotices(deps: { db: Db }) {
   const returns_: ReturnsNotifier = {
     returnDecided(q, returnId) {
       const r = q
-        .select({ reference: returns.reference, userId: returns.userId, orderId: returns.orderId, status: returns.status, decision: returns.decision, refundCents: returns.refundCents, rejectReason: returns.rejectReason, creditNote: creditNotes.number })
+        .select({
+          reference: returns.reference,
+          userId: returns.userId,
+          orderId: returns.orderId,
+          kind: returns.kind,
+          status: returns.status,
+          decision: returns.decision,
+          refundCents: returns.refundCents,
+          rejectReason: returns.rejectReason,
+          decisionReason: returns.decisionReason,
+          creditNote: creditNotes.number,
+        })
         .from(returns)
         .leftJoin(creditNotes, eq(creditNotes.returnId, returns.id))
         .where(eq(returns.id, returnId))
         .get();
       if (!r) return;
       const how = r.creditNote ? `as credit note ${r.creditNote}` : 'to your card';
+      const why = r.decisionReason ? ` Why less: ${r.decisionReason}.` : '';
       const body =
         r.status === 'rejected'
           ? `Not accepted: ${r.rejectReason ?? 'no reason given'}.`
-          : r.decision === 'core-refund'
-            ? `Core deposit of ${formatPrice(r.refundCents)} refunded ${how}.`
-            : `${r.decision === 'partial-refund' ? 'Partial refund' : 'Refund'} of ${formatPrice(r.refundCents)} ${how}.`;
+          : r.kind === 'core'
+            ? `${r.decision === 'partial-refund' ? 'Part of the core deposit' : 'Core deposit'}: ${formatPrice(r.refundCents)} refunded ${how}.${why}`
+            : `${r.decision === 'partial-refund' ? 'Partial refund' : 'Refund'} of ${formatPrice(r.refundCents)} ${how}.${why}`;
       add(q, { userId: r.userId, orderId: r.orderId, kind: 'return-decided', title: `Return ${r.reference} decided`, body, link: `/returns?ref=${r.reference}` });
     },
   };

@@ -249,6 +249,8 @@ export function createNotifications(deps: { db: Db; publicUrl: string }) {
           decision: returns.decision,
           refundCents: returns.refundCents,
           rejectReason: returns.rejectReason,
+          decisionReason: returns.decisionReason,
+          kind: returns.kind,
           grade: returns.conditionGrade,
           orderNumber: orders.number,
           email: orders.email,
@@ -269,9 +271,9 @@ export function createNotifications(deps: { db: Db; publicUrl: string }) {
       const outcome =
         r.decision === 'reject'
           ? ({ kind: 'rejected', reason: r.rejectReason ?? '' } as const)
-          : r.decision === 'core-refund'
-            ? ({ kind: 'core-deposit-refund', amountCents: r.refundCents, route } as const)
-            : ({ kind: 'refund', amountCents: r.refundCents, partial: r.decision === 'partial-refund', route } as const);
+          : r.kind === 'core'
+            ? ({ kind: 'core-deposit-refund', amountCents: r.refundCents, route, partial: r.decision === 'partial-refund', reason: r.decisionReason ?? undefined } as const)
+            : ({ kind: 'refund', amountCents: r.refundCents, partial: r.decision === 'partial-refund', route, reason: r.decisionReason ?? undefined } as const);
       send(q, 'return-decision', () => ({
         to: r.email,
         ...renderReturnDecision({

@@ -87,6 +87,14 @@ describe('returns that fit the buyer and the kind', () => {
     const partial = await receive(core.id, { decision: 'partial-refund', conditionGrade: 'damaged', amountCents: 9_000, reason: 'Cracked turbine housing' });
     expect(partial.status, JSON.stringify(partial.body)).toBe(200);
     expect(partial.body).toMatchObject({ status: 'credited', refundCents: 9_000, decisionReason: 'Cracked turbine housing' });
+    // The customer is told, by e-mail and on the site, that it was part of the deposit, and why.
+    await t.mailSettled();
+    const mail = await t.mail!.waitForMessage((m) => m.to.includes(dealer.email) && m.subject.includes(core.reference));
+    expect(mail.subject).toMatch(/partial core deposit refund of \$90\.00/);
+    expect(mail.text).toContain('Why: Cracked turbine housing');
+    const notice = ((await dealer.client.get('/api/notices')).body as { items: Array<{ kind: string; body: string }> }).items[0]!;
+    expect(notice).toMatchObject({ kind: 'return-decided', body: expect.stringContaining('Part of the core deposit: $90.00') });
+    expect(notice.body).toContain('Why less: Cracked turbine housing');
 
     // The other unit comes back as a wrong part: it is refunded as a part, never as a deposit alone.
     const wrong = (await requestReturn(dealer.client, { orderNumber: number, lineId, kind: 'wrong-part', quantity: 1, reason: 'Wrong flange' })).body as View;

@@ -7,8 +7,8 @@ import type { RenderedMail } from './types';
 export type RefundRoute = { via: 'card' } | { via: 'credit-note'; creditNoteNumber: string };
 
 export type ReturnOutcome =
-  | { kind: 'refund'; amountCents: number; partial: boolean; route: RefundRoute }
-  | { kind: 'core-deposit-refund'; amountCents: number; route: RefundRoute }
+  | { kind: 'refund'; amountCents: number; partial: boolean; route: RefundRoute; /** Why a partial refund is less. */ reason?: string | undefined }
+  | { kind: 'core-deposit-refund'; amountCents: number; route: RefundRoute; partial?: boolean | undefined; reason?: string | undefined }
   | { kind: 'rejected'; reason: string };
 
 export interface ReturnDecisionData {
@@ -38,16 +38,20 @@ function decision(outcome: ReturnOutcome): { headline: string; subjectTail: stri
         subjectTail: `${outcome.partial ? 'partial refund' : 'refund'} of ${money(outcome.amountCents)}`,
         lines: [
           `We have approved a ${outcome.partial ? 'partial ' : ''}refund of ${money(outcome.amountCents)}.`,
+          ...(outcome.reason ? [`Why it is less than the full value: ${outcome.reason}`] : []),
           routeWords(outcome.route),
         ],
         rows: refundRows('Refund', outcome.amountCents, outcome.route),
       };
     case 'core-deposit-refund':
       return {
-        headline: 'Core deposit refunded',
-        subjectTail: `core deposit refund of ${money(outcome.amountCents)}`,
+        headline: outcome.partial ? 'Part of the core deposit refunded' : 'Core deposit refunded',
+        subjectTail: `${outcome.partial ? 'partial ' : ''}core deposit refund of ${money(outcome.amountCents)}`,
         lines: [
-          `Your core passed inspection, so we are refunding the core deposit of ${money(outcome.amountCents)}.`,
+          outcome.partial
+            ? `Your core came back with faults, so we are refunding ${money(outcome.amountCents)} of the core deposit.`
+            : `Your core passed inspection, so we are refunding the core deposit of ${money(outcome.amountCents)}.`,
+          ...(outcome.reason ? [`Why: ${outcome.reason}`] : []),
           routeWords(outcome.route),
         ],
         rows: refundRows('Core deposit refund', outcome.amountCents, outcome.route),

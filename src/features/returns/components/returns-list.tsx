@@ -47,7 +47,7 @@ function Outcome({ r }: { r: ReturnView }) {
   return (
     <div>
       <p>
-        <span className="font-semibold">{(r.decision && DECISIONS[r.decision]) ?? 'Settled'}:</span>{' '}
+        <span className="font-semibold">{r.kind === 'core' && r.decision === 'partial-refund' ? 'Part of the core deposit refunded' : ((r.decision && DECISIONS[r.decision]) ?? 'Settled')}:</span>{' '}
         <span className="tabular font-semibold">{formatPrice(r.refundCents)}</span>{' '}
         {r.status === 'credited' ? 'credited to your trade account' : 'refunded to your card'}
         {r.decidedAt ? ` on ${day(r.decidedAt)}` : ''}.
