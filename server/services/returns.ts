@@ -8,6 +8,7 @@ import { ConflictError, InvalidError, NotFoundError, PaymentServiceError } from 
 import { REFUND_REFUSED_MESSAGE } from './orders/order-payments';
 import type { CurrentUser } from './current-user';
 import type { ReturnDecision, ReturnRequest, ReturnView } from '../../shared/schemas/warehouse';
+import { formatMoney } from '../../shared/format';
 import type { StockService } from './stock';
 import type { StoredImage } from './uploads';
 
@@ -203,7 +204,7 @@ export function createReturnsService(deps: { db: Db; stock: StockService; paymen
         })
         .where(eq(returns.id, id))
         .run();
-      const note = d.decision === 'reject' ? `${r.reference} rejected` : `${r.reference}: ${status === 'credited' ? 'credit note' : 'refund'} of $${(amount / 100).toFixed(2)}`;
+      const note = d.decision === 'reject' ? `${r.reference} rejected` : `${r.reference}: ${status === 'credited' ? 'credit note' : 'refund'} of ${formatMoney(amount)}`;
       tx.insert(orderEvents)
         .values({ orderId: r.orderId, status: d.decision === 'reject' ? 'return_rejected' : 'returned', note })
         .run();
@@ -231,7 +232,7 @@ export function createReturnsService(deps: { db: Db; stock: StockService; paymen
     } else if (d.decision === 'full-refund') {
       amount = l.full;
     } else if (d.decision === 'partial-refund') {
-      if (d.amountCents > l.max) throw new InvalidError(`At most $${(l.max / 100).toFixed(2)} can be refunded on this return`, { amountCents: [`at most ${l.max} cents`] });
+      if (d.amountCents > l.max) throw new InvalidError(`At most ${formatMoney(l.max)} can be refunded on this return`, { amountCents: [`at most ${l.max} cents`] });
       amount = d.amountCents;
     }
     if (d.decision !== 'reject' && amount <= 0) throw new ConflictError('Nothing is left to refund on this order');
