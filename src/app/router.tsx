@@ -59,6 +59,7 @@ const router = createBrowserRouter([
       page('office/price-imports', () => import('./routes/office-price-imports'), 'OfficePriceImportsRoute'),
       page('office/mail', () => import('./routes/office-mail'), 'OfficeMailRoute'),
       page('office/audit', () => import('./routes/office-audit'), 'OfficeAuditRoute'),
+      page('account/statement', () => import('./routes/account-statement'), 'AccountStatementRoute'),
       page('dev/inbox', () => import('./routes/dev-inbox'), 'DevInboxRoute'),
       { path: '*', lazy: async () => ({ Component: (await import('./routes/not-found')).NotFoundRoute }) },
     ],
