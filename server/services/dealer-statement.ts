@@ -132,7 +132,7 @@ export function createDealerStatements(deps: { db: Db; now: () => Date }) {
     const broughtForward = before.reduce((s, e) => s + e.debitCents - e.creditCents, 0);
     let running = broughtForward;
     const lines: StatementLine[] = [
-      { date: from, kind: 'brought-forward', reference: '', orderNumber: null, detail: `Balance on ${from}`, debitCents: 0, creditCents: 0, balanceCents: broughtForward },
+      { date: from, kind: 'brought-forward', reference: '', orderNumber: null, detail: 'Balance at the start of the period', debitCents: 0, creditCents: 0, balanceCents: broughtForward },
       ...during.map(({ at, ...e }) => {
         running += e.debitCents - e.creditCents;
         return { ...e, date: at.slice(0, 10), balanceCents: running };

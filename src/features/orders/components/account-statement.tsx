@@ -21,11 +21,11 @@ function dueWords(daysPastDue: number): string {
 }
 
 /** A table in the statement: scrolls sideways on a phone, prints in full on paper. */
-function Table({ caption, children }: { caption: string; children: ReactNode }) {
+function Table({ caption, children, wide = false }: { caption: string; children: ReactNode; /** Many columns: scroll sideways on a phone rather than wrap every cell. */ wide?: boolean }) {
   return (
     // Focusable, so the keyboard can scroll it sideways on a narrow screen.
     <div role="region" aria-label={caption} tabIndex={0} className="min-w-0 overflow-x-auto print:overflow-visible">
-      <table className="w-full min-w-[32rem] border-collapse text-left text-sm print:min-w-0">
+      <table className={`w-full border-collapse text-left text-sm print:min-w-0 ${wide ? 'min-w-[46rem]' : 'min-w-[32rem]'}`}>
         <caption className="sr-only">{caption}</caption>
         {children}
       </table>
@@ -102,7 +102,7 @@ function OpenInvoices({ s }: { s: AccountStatement }) {
       {s.openInvoices.length === 0 ? (
         <p>Nothing is open: every invoice is paid.</p>
       ) : (
-        <Table caption="Open invoices, oldest first">
+        <Table caption="Open invoices, oldest first" wide>
           <thead>
             <tr>
               <th scope="col" className={th}>
@@ -160,7 +160,7 @@ function Activity({ s }: { s: AccountStatement }) {
       <h2 id="activity-heading" className="text-lg font-bold">
         Account activity from {day(s.from)}
       </h2>
-      <Table caption="Invoices, payments and credit notes with the running balance">
+      <Table caption="Invoices, payments and credit notes with the running balance" wide>
         <thead>
           <tr>
             <th scope="col" className={th}>
@@ -192,7 +192,7 @@ function Activity({ s }: { s: AccountStatement }) {
               <td className={`${td} tabular whitespace-nowrap`}>{day(l.date)}</td>
               <td className={td}>{KIND_LABELS[l.kind]}</td>
               <td className={`${td} part-no`}>{l.reference}</td>
-              <td className={td}>{l.detail}</td>
+              <td className={`${td} min-w-[16rem]`}>{l.detail}</td>
               <td className={`${td} ${num}`}>{l.debitCents ? money(l.debitCents) : ''}</td>
               <td className={`${td} ${num}`}>{l.creditCents ? money(l.creditCents) : ''}</td>
               <td className={`${td} ${num} font-semibold`}>{money(l.balanceCents)}</td>
