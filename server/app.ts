@@ -46,6 +46,7 @@ import { createMailOutbox, type OutboxPolicy } from './services/mail-outbox';
 import { adminMailRouter } from './routes/admin-mail';
 import { createOrderService } from './services/orders';
 import { createDealerAccountsService } from './services/dealer-accounts';
+import { createDealerStatements } from './services/dealer-statement';
 import { createFitmentService } from './services/fitment';
 import { createShaftLogService } from './services/shaft-logs';
 import { createSearchService } from './services/search';
@@ -224,6 +225,7 @@ export function createApp(deps: AppDeps) {
     '/api/account',
     accountRouter({
       dealers,
+      statements: createDealerStatements({ db, now }),
       payments: {
         mode: config.paymentsMode,
         publishableKey: config.publishableKey,

@@ -52,7 +52,7 @@ export function checkCredit(input: { openBalanceCents: number; orderCents: numbe
     balanceAfterCents: after,
     message:
       `This order of ${formatPrice(input.orderCents)} would take your open balance from ${formatPrice(input.openBalanceCents)} ` +
-      `to ${formatPrice(after)}, over your credit limit of ${formatPrice(input.creditLimitCents)}. Pay an open invoice, or pay this order by card.`,
+      `to ${formatPrice(after)}, over your credit limit of ${formatPrice(input.creditLimitCents)} by ${formatPrice(after - input.creditLimitCents)}. Pay an open invoice, or pay this order by card.`,
   };
 }
 

@@ -1,6 +1,6 @@
 import { and, count, desc, eq, exists, inArray, sql } from 'drizzle-orm';
 import type { Db } from '../db/client';
-import { creditNotes, dealerAccounts, dealerMembers, orderEvents, orders, user } from '../db/schema';
+import { creditNotes, dealerAccounts, dealerMembers, dealerPayments, orderEvents, orders, user } from '../db/schema';
 import { invoiceDueDate, invoiceOpenCents, isOpenInvoice, openBalanceCents, type CreditOrder } from '../../shared/credit';
 import { DEALERS_PAGE_SIZE, type DealerAccounts, type DealerApplication, type DealerDecision, type OpenInvoice } from '../../shared/schemas/accounts';
 import type { PageQuery } from '../../shared/schemas/paging';
@@ -157,13 +157,15 @@ export function createDealerAccountsService(deps: { db: Db; notify: DealerNotifi
   function recordInvoicePaid(dealerAccountId: number, number: string, reference: string): { number: string; paymentState: 'paid' } {
     return db.transaction((tx): { number: string; paymentState: 'paid' } => {
       const order = tx
-        .select({ id: orders.id, paymentState: orders.paymentState })
+        .select({ id: orders.id, paymentState: orders.paymentState, totalCents: orders.totalCents, refundedCents: orders.refundedCents })
         .from(orders)
         .where(and(eq(orders.number, number), eq(orders.dealerAccountId, dealerAccountId), eq(orders.paymentMethod, 'account')))
         .get();
       if (!order) throw new NotFoundError('No such invoice on this account');
       if (order.paymentState !== 'on_account') throw new ConflictError('This invoice is already paid');
       tx.update(orders).set({ paymentState: 'paid', updatedAt: now }).where(eq(orders.id, order.id)).run();
+      // What was owed then; the dealer's statement lists it as a payment.
+      tx.insert(dealerPayments).values({ dealerAccountId, orderId: order.id, amountCents: invoiceOpenCents(order), reference }).run();
       tx.insert(orderEvents).values({ orderId: order.id, status: 'invoice_paid', note: `Payment received, reference ${reference}` }).run();
       return { number, paymentState: 'paid' };
     });

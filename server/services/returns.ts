@@ -20,6 +20,7 @@ import {
   type ReturnView,
 } from '../../shared/schemas/warehouse';
 import { code128Svg } from './barcodes';
+import { formatMoney } from '../../shared/format';
 import type { StockService } from './stock';
 import type { StoredImage } from './uploads';
 
@@ -235,7 +236,7 @@ export function createReturnsService(deps: { db: Db; stock: StockService; paymen
         })
         .where(eq(returns.id, id))
         .run();
-      const note = d.decision === 'reject' ? `${r.reference} rejected` : `${r.reference}: ${status === 'credited' ? 'credit note' : 'refund'} of $${(amount / 100).toFixed(2)}`;
+      const note = d.decision === 'reject' ? `${r.reference} rejected` : `${r.reference}: ${status === 'credited' ? 'credit note' : 'refund'} of ${formatMoney(amount)}`;
       tx.insert(orderEvents)
         .values({ orderId: r.orderId, status: d.decision === 'reject' ? 'return_rejected' : 'returned', note })
         .run();
@@ -280,9 +281,9 @@ export function createReturnsService(deps: { db: Db; stock: StockService; paymen
       amount = l.full;
     } else if (d.decision === 'partial-refund') {
       if (d.amountCents > l.max && r.kind === 'core') {
-        throw new InvalidError(`A core's refund is at most its deposit, $${(l.max / 100).toFixed(2)}`, { amountCents: [`at most ${l.max} cents`] });
+        throw new InvalidError(`A core's refund is at most its deposit, ${formatMoney(l.max)}`, { amountCents: [`at most ${l.max} cents`] });
       }
-      if (d.amountCents > l.max) throw new InvalidError(`At most $${(l.max / 100).toFixed(2)} can be refunded on this return`, { amountCents: [`at most ${l.max} cents`] });
+      if (d.amountCents > l.max) throw new InvalidError(`At most ${formatMoney(l.max)} can be refunded on this return`, { amountCents: [`at most ${l.max} cents`] });
       amount = d.amountCents;
     }
     if (d.decision !== 'reject' && amount <= 0) throw new ConflictError('Nothing is left to refund on this order');

@@ -94,6 +94,7 @@ const router = createBrowserRouter([
       page('notices', () => import('./routes/notices'), 'NoticesRoute'),
       page('office/audit', () => import('./routes/office-audit'), 'OfficeAuditRoute'),
       page('email-confirmed', () => import('./routes/email-confirmed'), 'EmailConfirmedRoute'),
+      page('account/statement', () => import('./routes/account-statement'), 'AccountStatementRoute'),
       page('dev/inbox', () => import('./routes/dev-inbox'), 'DevInboxRoute'),
       page('*', () => import('./routes/not-found'), 'NotFoundRoute'),
     ],

@@ -59,14 +59,14 @@ describe('credit check', () => {
     if (check.fits) return;
     expect(check.balanceAfterCents).toBe(500_001);
     expect(check.message).toBe(
-      'This order of $2,000.01 would take your open balance from $3,000.00 to $5,000.01, over your credit limit of $5,000.00. Pay an open invoice, or pay this order by card.',
+      'This order of $2,000.01 would take your open balance from $3,000.00 to $5,000.01, over your credit limit of $5,000.00 by $0.01. Pay an open invoice, or pay this order by card.',
     );
   });
 
   it('formats large balances with separators', () => {
     const check = checkCredit({ openBalanceCents: 21_000_000, orderCents: 859_017, creditLimitCents: 20_000_000 });
     expect(check.fits).toBe(false);
-    if (!check.fits) expect(check.message).toContain('to $218,590.17, over your credit limit of $200,000.00');
+    if (!check.fits) expect(check.message).toContain('to $218,590.17, over your credit limit of $200,000.00 by $18,590.17');
   });
 
   it('refuses any order on account when the limit is zero', () => {

@@ -6,6 +6,7 @@ import { orderChanges, orderLines, orders, paymentAlerts, paymentEvents } from '
 import { PaymentDeclinedError } from '../errors';
 import type { CurrentUser } from '../current-user';
 import type { Checkout, CheckoutResponse } from '../../../shared/schemas/orders';
+import { formatMoney } from '../../../shared/format';
 import type { CartOwner } from '../cart';
 import { addOrderEvent, setOrderState, type OrderPlacement } from './order-placement';
 import { findOrder, type OrderHeader, type Query } from './order-reads';
@@ -59,7 +60,7 @@ export const CONFIRMING_MESSAGE =
 /** Staff's words for a refund the provider refused; the provider's own message goes to the log. */
 export const REFUND_REFUSED_MESSAGE = 'The card provider did not accept the refund; nothing was refunded. Try again later or refund by other means.';
 
-const money = (cents: number) => `$${(cents / 100).toFixed(2)}`;
+const money = formatMoney;
 
 /** A card decline is an answer; anything else (no reply, a timeout, a 5xx, a refused request) leaves the truth unknown. */
 const isDecline = (err: unknown): err is Stripe.errors.StripeCardError => err instanceof Stripe.errors.StripeCardError;

@@ -1,3 +1,4 @@
+import { Link } from 'react-router-dom';
 import { BadgeCheck, CircleSlash, Clock } from 'lucide-react';
 import type { ReactNode } from 'react';
 import { formatPrice } from '../../../../shared/catalog';
@@ -60,6 +61,12 @@ export function DealerTerms({ dealer }: { dealer: Dealer }) {
         </Row>
         <Row label="Payment terms">Net {dealer.paymentTermsDays} days from invoice</Row>
       </dl>
+      <p className="mt-3">
+        <Link to="/account/statement" className="font-semibold text-temper underline underline-offset-2">
+          Account statement
+        </Link>{' '}
+        <span className="text-cast">— open invoices, payments and credit notes; print it or download a CSV</span>
+      </p>
     </section>
   );
 }

@@ -95,11 +95,17 @@ function CreditCheck({ dealer, orderCents }: { dealer: NonNullable<NonNullable<M
         <dt>Credit limit</dt>
         <dd className="tabular text-right">{formatPrice(dealer.creditLimitCents)}</dd>
       </dl>
+      <p className="text-sm">
+        <Link to="/account/statement" className="font-semibold text-temper underline underline-offset-2">
+          Your account statement
+        </Link>{' '}
+        lists the open invoices.
+      </p>
       <div aria-hidden className="h-2 overflow-hidden rounded bg-white ring-1 ring-cast-line">
         <div className={`h-full ${over ? 'bg-oxide' : 'bg-machined'}`} style={{ width: `${pct}%` }} />
       </div>
       {over ? (
-        <p className="inline-flex items-start gap-1 text-sm font-semibold text-oxide">
+        <p id="credit-over" className="inline-flex items-start gap-1 text-sm font-semibold text-oxide">
           <OctagonAlert aria-hidden className="mt-0.5 size-4 shrink-0" />
           Over your credit limit by {formatPrice(after - dealer.creditLimitCents)}. Pay an open invoice first, or pay this order by card.
         </p>
@@ -245,6 +251,9 @@ function CheckoutFields({ me, cart: c, place, onPlaced }: { me: Me; cart: CartVi
   const errors = formState.errors;
 
   const blocked = blockedLines(c);
+  // The server refuses an order on account over the limit; the button says so first instead of failing on a click.
+  const overLimit =
+    method === 'account' && dealer !== null && !checkCredit({ openBalanceCents: dealer.openBalanceCents ?? 0, orderCents: c.totals.totalCents, creditLimitCents: dealer.creditLimitCents }).fits;
   const showDelivery = method === 'card' || !useAccountAddress;
   const summary = useErrorSummary(form, SUMMARY_FIELDS);
 
@@ -445,13 +454,23 @@ function CheckoutFields({ me, cart: c, place, onPlaced }: { me: Me; cart: CartVi
           </p>
         )}
         <div className="flex flex-wrap items-center gap-4">
-          <Button type="submit" size="lg" disabled={place.isPending || blocked.length > 0 || (method === 'card' && testMethods.length === 0)}>
+          <Button
+            type="submit"
+            size="lg"
+            disabled={place.isPending || blocked.length > 0 || overLimit || (method === 'card' && testMethods.length === 0)}
+            aria-describedby={overLimit ? 'credit-over place-over' : undefined}
+          >
             {place.isPending && <LoaderCircle aria-hidden className="size-5 animate-spin" />}
             {method === 'account' ? `Place order on account (${formatPrice(c.totals.totalCents)})` : `Pay ${formatPrice(c.totals.totalCents)} by card`}
           </Button>
           <Link to="/cart" className="font-semibold text-temper underline">
             Back to cart
           </Link>
+          {overLimit && (
+            <p id="place-over" className="w-full text-sm font-semibold text-oxide">
+              Placing this order on account is off: it is over your credit limit (see the credit check above). Choose card to pay now.
+            </p>
+          )}
         </div>
       </form>
       <aside className="grid min-w-0 content-start gap-4" aria-label="Order summary">
