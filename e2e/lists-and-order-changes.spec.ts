@@ -81,6 +81,8 @@ for (const view of VIEWS) {
       await page.context().clearCookies();
       await login('dealerColleague');
       await page.goto('/trade/lists');
+      await see(page.getByRole('link', { name: listName })).toBeVisible();
+      await keepScreenshot(page, `lists-index-${view.name}`);
       await page.getByRole('link', { name: listName }).click();
       await see(page.getByRole('heading', { name: listName })).toBeVisible();
       await see(page.getByText('started by Morgan Tillbrook')).toBeVisible();
