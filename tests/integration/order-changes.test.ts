@@ -138,6 +138,8 @@ describe('changing a card order before picking', () => {
     const result = OrderChangeResultSchema.parse(res.body);
     expect(result.change.refundState).toBe('failed');
     expect(result.message).toMatch(/will be refunded/);
+    const orderId = orderRow(placed.order.number).id;
+    expect(sql("SELECT note FROM order_events WHERE order_id = ? AND status = 'payment_alert'", orderId)).toHaveLength(1);
     expect(available(a.id)).toBe(4);
     expect(await t.app.orders.retryChangeRefunds({ settleAfterMs: 0 })).toBe(1);
     expect((await changes(buyer, placed.order.number)).changes[0]).toMatchObject({ refundState: 'refunded' });
