@@ -81,6 +81,8 @@ for (const view of VIEWS) {
       await page.context().clearCookies();
       await login('dealerColleague');
       await page.goto('/trade/lists');
+      await see(page.getByRole('link', { name: listName })).toBeVisible();
+      await keepScreenshot(page, `lists-index-${view.name}`);
       await page.getByRole('link', { name: listName }).click();
       await see(page.getByRole('heading', { name: listName })).toBeVisible();
       await see(page.getByText('started by Morgan Tillbrook')).toBeVisible();
@@ -145,6 +147,23 @@ for (const view of VIEWS) {
       await see(page.getByRole('button', { name: 'Change quantities' })).toHaveCount(0);
       await see(page.getByText('Payment not completed')).toHaveCount(0);
       await keepScreenshot(page, `order-cancelled-${view.name}`);
+    });
+
+    test('a dealer lowers a quantity on an account order and the invoice is amended', async ({ page, login, axe }) => {
+      await login('dealer');
+      await page.goto('/');
+      const number = await placeOrder(page, [{ partNumber: 'FLG-50-0201', quantity: 6 }], 'account');
+      await page.goto(`/orders/${number}`);
+      await see(page.getByText('The invoice is amended to match.')).toBeVisible();
+      await page.getByRole('button', { name: 'Change quantities' }).click();
+      await page.getByLabel('New quantity of FLG-50-0201').fill('2');
+      await page.getByRole('button', { name: 'Save changes' }).click();
+      await see(page.getByRole('status').filter({ hasText: 'Order changed' })).toContainText(/The invoice is amended to \$[\d,.]+ \(\$[\d,.]+ less\)/);
+      await see(page.getByRole('region', { name: 'Your changes' })).toContainText('FLG-50-0201: 6 → 2');
+      await page.getByRole('link', { name: 'Printable invoice' }).click();
+      await see(page.getByText(/Amended at your request on .*: originally \$[\d,.]+, now \$[\d,.]+\./)).toBeVisible();
+      await axe();
+      await keepScreenshot(page, `order-amended-invoice-${view.name}`);
     });
 
     test('once the warehouse starts picking, the order page says why it can no longer be changed', async ({ page, login, playwright, baseURL }) => {

@@ -138,12 +138,48 @@ describe('changing a card order before picking', () => {
     const result = OrderChangeResultSchema.parse(res.body);
     expect(result.change.refundState).toBe('failed');
     expect(result.message).toMatch(/will be refunded/);
+    const orderId = orderRow(placed.order.number).id;
+    expect(sql("SELECT note FROM order_events WHERE order_id = ? AND status = 'payment_alert'", orderId)).toHaveLength(1);
     expect(available(a.id)).toBe(4);
     expect(await t.app.orders.retryChangeRefunds({ settleAfterMs: 0 })).toBe(1);
     expect((await changes(buyer, placed.order.number)).changes[0]).toMatchObject({ refundState: 'refunded' });
     expect(await t.app.orders.retryChangeRefunds({ settleAfterMs: 0 })).toBe(0);
     const refunds = await provider().refunds.list({ payment_intent: orderRow(placed.order.number).payment_intent_id! });
     expect(refunds.data).toHaveLength(1);
+  });
+});
+
+describe('cancelling a card order whose payment is not taken yet', () => {
+  it('cancels the payment with the provider first, then the order: stock back, no money taken, the buyer told so', async () => {
+    const buyer = await createCustomer(t);
+    const a = createPart(t, { stock: 3 });
+    const placed = await createOrder(buyer, [{ partNumber: a.partNumber, quantity: 2 }], {
+      method: 'card',
+      paymentMethod: 'pm_card_authenticationRequired',
+      delivery: { name: 'Factory Buyer', line1: '1 Test Street', city: 'Quenchfold', postcode: 'QF1 1AA' },
+    });
+    // The bank asks for authentication: the checkout answers with the step, and the order waits for payment.
+    expect(placed.outcome).toBe('authenticate');
+    const number = placed.order.number;
+    expect(orderRow(number)).toMatchObject({ status: 'pending_payment', payment_state: 'requires_action' });
+    expect(available(a.id)).toBe(1);
+    expect((await changes(buyer, number)).changeability).toMatchObject({ canChange: false, canCancel: true });
+    const refused = await buyer.client.send('POST', `/api/orders/${number}/changes`, { lines: [{ lineId: (await detail(buyer, number)).lines[0]!.id, quantity: 1 }] });
+    expect(refused.status).toBe(409);
+
+    const res = await buyer.client.send('POST', `/api/orders/${number}/cancel`);
+    expect(res.status, JSON.stringify(res.body)).toBe(201);
+    expect(OrderChangeResultSchema.parse(res.body).change).toMatchObject({ kind: 'cancel', settlement: 'payment-cancelled', adjustmentCents: 0, refundState: null });
+    const row = orderRow(number);
+    expect(row).toMatchObject({ status: 'cancelled', payment_state: 'failed' });
+    expect((await provider().paymentIntents.retrieve(row.payment_intent_id!)).status).toBe('canceled');
+    expect(available(a.id)).toBe(3);
+    expect(ledgerMismatches()).toEqual([]);
+    // Nothing goes back into the cart: the buyer chose to cancel.
+    expect(((await buyer.client.get('/api/cart')).body as { lines: unknown[] }).lines).toHaveLength(0);
+    expect(mailsTo(buyer.email, /is cancelled/)[0]!.text).toMatch(/cancelled before it was taken/);
+    await t.app.orders.reconcilePayments({ settleAfterMs: 0 });
+    expect(orderRow(number)).toMatchObject({ status: 'cancelled', payment_state: 'failed' });
   });
 });
 

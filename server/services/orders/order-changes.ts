@@ -291,6 +291,8 @@ export function createOrderChanges(deps: OrderChangesDeps) {
       });
     } catch (err) {
       console.warn(`payments: the refund of change ${row.id} on order ${order.number} failed; it is tried again later:`, (err as Error).message);
+      // Staff reading the order see it once; the housekeeping job keeps asking.
+      if (row.refundAttempts === 0) addOrderEvent(db, order.id, 'payment_alert', `The card provider did not accept the refund of ${formatPrice(row.adjustmentCents)}; it is tried again automatically`);
       db.update(orderChanges)
         .set({ refundState: 'failed', refundAttempts: sql`${orderChanges.refundAttempts} + 1`, updatedAt: now })
         .where(and(eq(orderChanges.id, row.id), inArray(orderChanges.refundState, ['pending', 'failed'])))

@@ -16,7 +16,7 @@ export function ListRoute() {
           Parts lists
         </Link>
       </nav>
-      <TradeOnly me={me} path={`/trade/lists/${id}`} what="Parts lists">
+      <TradeOnly me={me} path={`/trade/lists/${id}`} what="Keeping parts lists">
         <ListDetail id={Number(id)} onAdded={() => void qc.invalidateQueries({ queryKey: cartKeys.all })} />
       </TradeOnly>
     </div>

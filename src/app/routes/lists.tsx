@@ -14,7 +14,7 @@ export function ListsRoute() {
         / Parts lists
       </nav>
       <h1 className="text-3xl font-bold">Parts lists</h1>
-      <TradeOnly me={me} path="/trade/lists" what="Parts lists">
+      <TradeOnly me={me} path="/trade/lists" what="Keeping parts lists">
         <ListsIndex companyName={me.data?.user?.dealer?.companyName ?? 'your trade account'} />
       </TradeOnly>
     </div>

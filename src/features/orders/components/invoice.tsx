@@ -7,7 +7,9 @@ import { ApiError } from '../../../lib/api-client';
 import { useOrder } from '../../../lib/orders';
 import { OrderLinesTable, OrderTotals } from './order-lines';
 import { formatDate } from '../../../../shared/format';
+import { formatPrice } from '../../../../shared/catalog';
 import { statusMeta } from './order-status';
+import { useOrderChanges } from '../api/get-order-changes';
 
 /** The distributor's own details, printed at the head of every invoice. */
 export const DISTRIBUTOR = { name: 'Spoolyard Turbo Supply', address: 'Unit 7, Foundry Row, Quenchfold', email: 'orders@spoolyard.test' } as const;
@@ -22,6 +24,7 @@ function dueDate(createdAt: string, days: number) {
 export function Invoice({ number }: { number: string }) {
   const order = useOrder(number);
   const scrollRef = useFocusableWhenScrolling<HTMLElement>();
+  const changes = useOrderChanges(number).data?.changes ?? [];
   if (order.isPending) return <LoadingState label={`Loading invoice for ${number}…`} />;
   if (order.isError) {
     return order.error instanceof ApiError && order.error.isNotFound ? (
@@ -99,7 +102,16 @@ export function Invoice({ number }: { number: string }) {
           <OrderTotals order={o} />
         </div>
         <footer className="grid gap-1 border-t border-cast-line pt-3 text-sm">
-          {account ? (
+          {changes.length > 0 && (
+            <p className="font-semibold">
+              {o.status === 'cancelled'
+                ? `Cancelled at your request on ${formatDate(changes[0]!.createdAt)}.`
+                : `Amended at your request on ${formatDate(changes[0]!.createdAt)}: originally ${formatPrice(changes.at(-1)!.beforeTotalCents)}, now ${formatPrice(o.totalCents)}.`}
+            </p>
+          )}
+          {account && o.status === 'cancelled' ? (
+            <p>This invoice is cancelled; nothing is due.</p>
+          ) : account ? (
             <p>
               Payment due within {o.paymentTermsDays ?? 30} days of the invoice date. Please quote {o.purchaseOrder ? `your PO ${o.purchaseOrder} and ` : ''}invoice {o.number}.
             </p>

@@ -1,4 +1,4 @@
-import { Banknote, Circle, CircleX, PackageCheck, PencilLine, Undo2 } from 'lucide-react';
+import { Banknote, Circle, CircleAlert, CircleX, PackageCheck, PencilLine, Undo2 } from 'lucide-react';
 import { ORDER_STATUS_LOOKS, type StatusLook } from '../../../components/ui/status-looks';
 
 /** The order's states plus the timeline's own events; 'placed' is a timeline event, not a status. */
@@ -11,6 +11,7 @@ const TIMELINE_LOOKS: Record<string, StatusLook> = {
   invoice_paid: { label: 'Invoice paid', Icon: Banknote, tone: 'machined' },
   changed: { label: 'Changed by you', Icon: PencilLine, tone: 'temper' },
   payment_refunded: { label: 'Refunded to card', Icon: Banknote, tone: 'machined' },
+  payment_alert: { label: 'Payment notice', Icon: CircleAlert, tone: 'amber' },
 };
 
 export function statusMeta(status: string): StatusLook {
