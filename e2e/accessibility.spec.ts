@@ -115,7 +115,8 @@ for (const screen of SCREENS) {
       await page.setViewportSize({ width: size.width, height: size.height });
       if (screen.role !== 'guest') await login(screen.role);
       await page.goto(fill(screen.path));
-      await expect(page.getByRole('heading', { level: 1 }).first()).toBeVisible();
+      // A busy machine can take a while to show the first page's code.
+      await expect(page.getByRole('heading', { level: 1 }).first()).toBeVisible({ timeout: 20_000 });
       await page.waitForLoadState('networkidle');
       await axe({ exclude: screen.exclude, disableRules: screen.disableRules });
     });
