@@ -90,7 +90,7 @@ test.describe('the Floor on a handheld', () => {
   });
 });
 
-test('on a phone the stock list keeps Fix and Drop beside each row on screen', async ({ page, login }) => {
+test('on a phone the stock list keeps Fix and Drop beside each row on screen, and the form empties once the rows are in the cart', async ({ page, login }) => {
   await login('dealer');
   await page.setViewportSize(PHONE);
   await page.goto('/trade/stock-list');
@@ -105,6 +105,10 @@ test('on a phone the stock list keeps Fix and Drop beside each row on screen', a
   await keepScreenshot(page, 'stock-list-phone');
   await drop.click();
   await expect(page.getByRole('button', { name: 'Keep row 2' })).toBeInViewport();
+  // Once the good rows are in the cart, the form is empty again, ready for next week's list.
+  await page.getByRole('button', { name: 'Add 1 valid line to cart' }).click();
+  await expect(page.getByRole('status').filter({ hasText: /added to your cart/i })).toBeVisible();
+  await expect(page.getByLabel('Stock list (CSV)')).toHaveValue('');
 });
 
 test('a declined card order says when it was cancelled, and stops saying the parts are in the cart once the cart changed', async ({ page, baseURL }) => {

@@ -1,5 +1,5 @@
 import { CircleCheck, FileUp, Pencil, ShoppingCart, Trash2, Undo2 } from 'lucide-react';
-import { useState, type FormEvent } from 'react';
+import { useRef, useState, type FormEvent } from 'react';
 import { Link } from 'react-router-dom';
 import { CSV_MAX_BYTES, CSV_MAX_ROWS, type OrderRowResult } from '../../../../shared/schemas/orders';
 import { Button } from '../../../components/ui/button';
@@ -80,6 +80,7 @@ function RowEditor({ row, onChecked, onCancel }: { row: PreviewRow; onChecked: (
 
 export function StockListUpload({ onAdded }: { onAdded: () => void }) {
   const [file, setFile] = useState<File | null>(null);
+  const fileRef = useRef<HTMLInputElement>(null);
   const [fileError, setFileError] = useState<string | null>(null);
   const [rows, setRows] = useState<PreviewRow[] | null>(null);
   const [editing, setEditing] = useState<number | null>(null);
@@ -148,6 +149,8 @@ export function StockListUpload({ onAdded }: { onAdded: () => void }) {
         setAdded({ count: lines.length, notices: valid.filter((r) => r.result.status === 'replaced').map((r) => r.result.message ?? '') });
         setRows(null);
         setFile(null);
+        // The chooser still shows the old name until its own value is emptied.
+        if (fileRef.current) fileRef.current.value = '';
       },
     });
   };
@@ -160,6 +163,7 @@ export function StockListUpload({ onAdded }: { onAdded: () => void }) {
             Stock list (CSV)
           </label>
           <input
+            ref={fileRef}
             id="stock-file"
             type="file"
             accept=".csv,text/csv"
