@@ -4,7 +4,7 @@ import { test, expect, type Role } from './fixtures';
 const SCREENS: Array<{ role: Role; width: number; paths: string[] }> = [
   { role: 'dealer', width: 390, paths: ['/cart', '/checkout', '/orders', '/trade/quick-order', '/trade/stock-list', '/account', '/returns', '/returns/new', '/fitment/saved', '/notices'] },
   { role: 'warehouse', width: 800, paths: ['/floor', '/floor/goods-in', '/floor/stock', '/floor/returns'] },
-  { role: 'admin', width: 390, paths: ['/office/parts', '/office/parts/CHS-10-0201', '/office/price-imports', '/office/dealers', '/office/mail', '/dev/inbox'] },
+  { role: 'admin', width: 390, paths: ['/office', '/office/parts', '/office/parts/CHS-10-0201', '/office/price-imports', '/office/dealers', '/office/mail', '/dev/inbox'] },
   { role: 'dealerColleague', width: 390, paths: ['/trade/lists'] },
 ];
 

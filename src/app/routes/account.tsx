@@ -1,6 +1,7 @@
-import { ArrowRight, PartyPopper } from 'lucide-react';
+import { ArrowRight } from 'lucide-react';
 import { Link, Navigate, useLocation } from 'react-router-dom';
 import { buttonClass } from '../../components/ui/button';
+import { Notice } from '../../components/ui/notice';
 import { ErrorState, LoadingState } from '../../components/ui/states';
 import { useMe } from '../../features/auth/api/get-me';
 import { AccountDetails, ApplicationState, DealerTerms } from '../../features/auth/components/account-details';
@@ -21,12 +22,9 @@ export function AccountRoute() {
     <div className="grid grid-cols-[minmax(0,1fr)] gap-6">
       <h1 className="text-3xl font-bold">Your account</h1>
       {welcome && (
-        <div role="status" className="flex gap-3 rounded-md border border-machined bg-machined-tint p-4">
-          <PartyPopper aria-hidden className="mt-0.5 size-5 shrink-0 text-machined" />
-          <p>
-            <span className="font-semibold">Welcome, {user.name}.</span> Your account is ready and you are signed in.
-          </p>
-        </div>
+        <Notice tone="done">
+          <span className="font-semibold">Welcome, {user.name}.</span> Your account is ready and you are signed in.
+        </Notice>
       )}
       <div className="grid items-start gap-6 md:grid-cols-[repeat(2,minmax(0,1fr))]">
         <AccountDetails user={user} />

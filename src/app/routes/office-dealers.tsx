@@ -1,9 +1,9 @@
-import { BadgeCheck, ShieldX } from 'lucide-react';
 import { useState } from 'react';
 import { Link } from 'react-router-dom';
 import { formatPrice } from '../../../shared/catalog';
 import { DEALER_TIERS } from '../../../shared/pricing';
 import { buttonClass } from '../../components/ui/button';
+import { Notice } from '../../components/ui/notice';
 import { EmptyState, ErrorState, LoadingState } from '../../components/ui/states';
 import { ApiError } from '../../lib/api-client';
 import { useDealers } from '../../features/admin/api/get-dealers';
@@ -16,24 +16,21 @@ import { signInHref } from '../../features/auth/next-path';
 
 function NotAllowed({ signedIn }: { signedIn: boolean }) {
   return (
-    <div role="alert" className="mx-auto mt-6 flex max-w-2xl gap-4 rounded-md border-2 border-oxide bg-oxide-tint p-6">
-      <ShieldX aria-hidden className="size-8 shrink-0 text-oxide" />
-      <div>
-        <h1 className="text-2xl font-bold">Not allowed</h1>
-        <p className="mt-1">
-          Dealer accounts are managed in the Office, which only administrators can open.
-          {signedIn ? ' Your account is not an administrator account.' : ' Sign in with an administrator account.'}
-        </p>
-        <div className="mt-3 flex flex-wrap gap-3">
-          {!signedIn && (
-            <Link to={signInHref('/office/dealers')} className={buttonClass('primary')}>
-              Sign in
-            </Link>
-          )}
-          <Link to="/" className={buttonClass('secondary')}>
-            Back to the counter
+    <div className="mx-auto mt-6 grid max-w-2xl gap-3">
+      <h1 className="text-2xl font-bold">Not allowed</h1>
+      <Notice tone="problem" live="off">
+        Dealer accounts are managed in the Office, which only administrators can open.
+        {signedIn ? ' Your account is not an administrator account.' : ' Sign in with an administrator account.'}
+      </Notice>
+      <div className="flex flex-wrap gap-3">
+        {!signedIn && (
+          <Link to={signInHref('/office/dealers')} className={buttonClass('primary')}>
+            Sign in
           </Link>
-        </div>
+        )}
+        <Link to="/" className={buttonClass('secondary')}>
+          Back to the counter
+        </Link>
       </div>
     </div>
   );
@@ -68,13 +65,10 @@ export function OfficeDealersRoute() {
       </OfficePageHeader>
       <div role="status">
         {done && (
-          <div className="flex gap-3 rounded-md border border-machined bg-machined-tint p-4">
-            <BadgeCheck aria-hidden className="mt-0.5 size-5 shrink-0 text-machined" />
-            <p>
-              <span className="font-semibold">Done. </span>
-              {describe(done)}
-            </p>
-          </div>
+          <Notice tone="done" live="off">
+            <span className="font-semibold">Done. </span>
+            {describe(done)}
+          </Notice>
         )}
       </div>
       {dealers.isPending ? (

@@ -1,9 +1,9 @@
-import { BadgeCheck } from 'lucide-react';
 import { useState } from 'react';
 import { useSearchParams } from 'react-router-dom';
 import { MAIL_STATES, type MailState } from '../../../shared/allowed-values';
 import { MAIL_OUTBOX_PAGE_SIZE, MAIL_STATE_LABELS, type OutboxMessage } from '../../../shared/schemas/mail-outbox';
 import { Button } from '../../components/ui/button';
+import { Notice } from '../../components/ui/notice';
 import { EmptyState, ErrorState, LoadingState } from '../../components/ui/states';
 import { useMe } from '../../features/auth/api/get-me';
 import { useMailOutbox } from '../../features/office/api/get-mail-outbox';
@@ -62,13 +62,10 @@ function Outbox() {
       </div>
       <div role="status">
         {done && (
-          <div className="flex gap-3 rounded-md border border-machined bg-machined-tint p-4">
-            <BadgeCheck aria-hidden className="mt-0.5 size-5 shrink-0 text-machined" />
-            <p>
-              <span className="font-semibold">Queued again. </span>
-              {done}
-            </p>
-          </div>
+          <Notice tone="done" live="off">
+            <span className="font-semibold">Queued again. </span>
+            {done}
+          </Notice>
         )}
       </div>
       {resend.isError && <ErrorState title="Not queued" message={resend.error.message} />}

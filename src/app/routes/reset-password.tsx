@@ -1,7 +1,7 @@
-import { BadgeCheck } from 'lucide-react';
 import { useState } from 'react';
 import { Link, useSearchParams } from 'react-router-dom';
 import { buttonClass } from '../../components/ui/button';
+import { Notice } from '../../components/ui/notice';
 import { ErrorState } from '../../components/ui/states';
 import { ResetPasswordForm } from '../../features/auth/components/reset-password-form';
 
@@ -21,16 +21,12 @@ export function ResetPasswordRoute() {
     <div className="mx-auto grid max-w-2xl grid-cols-[minmax(0,1fr)] gap-6">
       <h1 className="text-3xl font-bold">Choose a new password</h1>
       {done ? (
-        <div role="status" className="flex gap-3 rounded-md border border-machined bg-machined-tint p-4">
-          <BadgeCheck aria-hidden className="mt-0.5 size-5 shrink-0 text-machined" />
-          <div>
-            <p className="font-semibold">Password changed</p>
-            <p>Sign in with the new password. Anywhere you were still signed in has been signed out.</p>
-            <Link to="/sign-in" className={`${buttonClass('primary')} mt-3`}>
-              Sign in
-            </Link>
-          </div>
-        </div>
+        <Notice tone="done" title="Password changed">
+          <p className="text-ink">Sign in with the new password. Anywhere you were still signed in has been signed out.</p>
+          <Link to="/sign-in" className={`${buttonClass('primary')} mt-3`}>
+            Sign in
+          </Link>
+        </Notice>
       ) : !token || linkError ? (
         <div>
           <ErrorState

@@ -1,6 +1,7 @@
 import { useQueryClient } from '@tanstack/react-query';
 import { Link, useNavigate, useSearchParams } from 'react-router-dom';
 import { buttonClass } from '../../components/ui/button';
+import { Notice } from '../../components/ui/notice';
 import { ErrorState, LoadingState } from '../../components/ui/states';
 import { authKeys } from '../../features/auth/api/keys';
 import { SignInForm } from '../../features/auth/components/sign-in-form';
@@ -34,14 +35,14 @@ export function SignInRoute() {
       ) : me.isError ? (
         <ErrorState message={me.error.message} onRetry={() => me.refetch()} />
       ) : me.data.user ? (
-        <div role="status" className="rounded-md border border-cast-line bg-white p-4">
+        <Notice tone="info">
           <p>
             You are signed in as <span className="font-semibold">{me.data.user.name}</span> ({ROLE_LABELS[me.data.user.role]}).
           </p>
           <Link to={landingPath(nextParam, ROLE_HOME[me.data.user.role])} className={`${buttonClass('primary')} mt-3`}>
             Continue
           </Link>
-        </div>
+        </Notice>
       ) : (
         <SignInForm demoAccounts={me.data.demoAccounts} onSignedIn={() => void onSignedIn()} />
       )}

@@ -2,6 +2,7 @@ import { useState } from 'react';
 import { useSearchParams } from 'react-router-dom';
 import { SignUpForm } from '../../features/auth/components/sign-up-form';
 import { safeNextPath, signInHref } from '../../features/auth/next-path';
+import { Notice } from '../../components/ui/notice';
 
 export function SignUpRoute() {
   const [params] = useSearchParams();
@@ -15,10 +16,9 @@ export function SignUpRoute() {
     return (
       <div className="mx-auto grid max-w-2xl grid-cols-[minmax(0,1fr)] gap-4">
         <h1 className="text-3xl font-bold">Check your e-mail</h1>
-        <div role="status" className="rounded border border-machined bg-machined-tint p-4">
-          <p className="font-semibold">We have sent a message to {sent.email}.</p>
-          <p className="mt-1">{sent.message}</p>
-        </div>
+        <Notice tone="done" title={`We have sent a message to ${sent.email}.`}>
+          <p className="mt-1 text-ink">{sent.message}</p>
+        </Notice>
         <p className="text-cast">The link in it works for 24 hours. You can close this page.</p>
       </div>
     );

@@ -1,11 +1,11 @@
 import { Link } from 'react-router-dom';
-import { BadgeCheck, CircleSlash, Clock } from 'lucide-react';
 import type { ReactNode } from 'react';
 import { formatPrice } from '../../../../shared/catalog';
 import { availableCreditCents } from '../../../../shared/credit';
 import type { Me } from '../../../../shared/schemas/accounts';
 import { DEALER_TIERS } from '../../../../shared/pricing';
 import { ROLE_LABELS } from '../roles';
+import { Notice } from '../../../components/ui/notice';
 
 type User = NonNullable<Me['user']>;
 type Dealer = NonNullable<User['dealer']>;
@@ -75,42 +75,41 @@ export function DealerTerms({ dealer }: { dealer: Dealer }) {
 export function ApplicationState({ dealer }: { dealer: Dealer }) {
   if (dealer.status === 'pending') {
     return (
-      <div role="status" className="flex gap-3 rounded-md border border-amber-line bg-amber-tint p-4">
-        <Clock aria-hidden className="mt-0.5 size-5 shrink-0 text-amber" />
-        <div>
-          <p className="font-semibold">
+      <Notice
+        tone="warning"
+        title={
+          <>
             Application received — <span className="uppercase tracking-wide">pending</span>
-          </p>
-          <p>
-            We have your trade application for <span className="font-semibold">{dealer.companyName}</span>. The office checks it and e-mails you the
-            decision, usually within two working days. Until then you buy at retail prices.
-          </p>
-        </div>
-      </div>
+          </>
+        }
+      >
+        <p className="text-ink">
+          We have your trade application for <span className="font-semibold">{dealer.companyName}</span>. The office checks it and e-mails you the
+          decision, usually within two working days. Until then you buy at retail prices.
+        </p>
+      </Notice>
     );
   }
   if (dealer.status === 'declined') {
     return (
-      <div role="status" className="flex gap-3 rounded-md border border-oxide bg-oxide-tint p-4">
-        <CircleSlash aria-hidden className="mt-0.5 size-5 shrink-0 text-oxide" />
-        <div>
-          <p className="font-semibold">
+      <Notice
+        tone="problem"
+        title={
+          <>
             Application <span className="uppercase tracking-wide">declined</span>
-          </p>
-          <p>
-            The trade application for <span className="font-semibold">{dealer.companyName}</span> was declined; the e-mail we sent gives the reason.
-            Call the trade counter if something has changed.
-          </p>
-        </div>
-      </div>
+          </>
+        }
+      >
+        <p className="text-ink">
+          The trade application for <span className="font-semibold">{dealer.companyName}</span> was declined; the e-mail we sent gives the reason.
+          Call the trade counter if something has changed.
+        </p>
+      </Notice>
     );
   }
   return (
-    <div role="status" className="flex gap-3 rounded-md border border-machined bg-machined-tint p-4">
-      <BadgeCheck aria-hidden className="mt-0.5 size-5 shrink-0 text-machined" />
-      <p>
-        <span className="font-semibold">Approved.</span> {dealer.companyName} has a trade account.
-      </p>
-    </div>
+    <Notice tone="done">
+      <span className="font-semibold">Approved.</span> {dealer.companyName} has a trade account.
+    </Notice>
   );
 }

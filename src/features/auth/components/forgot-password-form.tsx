@@ -1,9 +1,9 @@
 import { zodResolver } from '@hookform/resolvers/zod';
-import { MailCheck } from 'lucide-react';
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { SignInSchema } from '../../../../shared/schemas/accounts';
 import { buttonClass } from '../../../components/ui/button';
+import { Notice } from '../../../components/ui/notice';
 import { useRequestPasswordReset } from '../api/request-password-reset';
 import { authErrorMessage } from '../auth-errors';
 import { useErrorSummary } from '../../../components/ui/error-summary';
@@ -28,17 +28,13 @@ export function ForgotPasswordForm({ inboxHint }: { inboxHint?: React.ReactNode 
 
   if (sentTo) {
     return (
-      <div role="status" className="flex gap-3 rounded-md border border-machined bg-machined-tint p-4">
-        <MailCheck aria-hidden className="mt-0.5 size-5 shrink-0 text-machined" />
-        <div>
-          <p className="font-semibold">Check your e-mail</p>
-          <p>
-            If an account uses <span className="font-semibold break-all">{sentTo}</span>, a link to choose a new password is on its way. It works once, for
-            one hour.
-          </p>
-          {inboxHint}
-        </div>
-      </div>
+      <Notice tone="done" title="Check your e-mail">
+        <p className="text-ink">
+          If an account uses <span className="font-semibold break-all">{sentTo}</span>, a link to choose a new password is on its way. It works once, for
+          one hour.
+        </p>
+        {inboxHint}
+      </Notice>
     );
   }
 

@@ -51,7 +51,8 @@ function PaymentBanner({ order, placed, cart }: { order: OrderDetail; placed: bo
       <Notice tone={cancelled.cart === 'still-there' ? 'warning' : 'info'} title={<>Payment not completed: this order was cancelled{when}</>}>
         <p className="text-ink">
           {cancelled.reason && <>{cancelled.reason.replace(/\.?$/, '.')} </>}
-          No money was taken.
+          {/* The recorded reason often says so already. */}
+          {!/no (payment|money) was taken/i.test(cancelled.reason ?? '') && 'No money was taken.'}
         </p>
         {cancelled.cart === 'still-there' ? (
           <p className="text-ink">

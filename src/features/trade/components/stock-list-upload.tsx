@@ -1,5 +1,5 @@
 import { CircleCheck, FileUp, Pencil, ShoppingCart, Trash2, Undo2 } from 'lucide-react';
-import { useState, type FormEvent } from 'react';
+import { useRef, useState, type FormEvent } from 'react';
 import { Link } from 'react-router-dom';
 import { CSV_MAX_BYTES, CSV_MAX_ROWS, type OrderRowResult } from '../../../../shared/schemas/orders';
 import { Button } from '../../../components/ui/button';
@@ -80,6 +80,7 @@ function RowEditor({ row, onChecked, onCancel }: { row: PreviewRow; onChecked: (
 
 export function StockListUpload({ onAdded }: { onAdded: () => void }) {
   const [file, setFile] = useState<File | null>(null);
+  const fileRef = useRef<HTMLInputElement>(null);
   const [fileError, setFileError] = useState<string | null>(null);
   const [rows, setRows] = useState<PreviewRow[] | null>(null);
   const [editing, setEditing] = useState<number | null>(null);
@@ -121,7 +122,7 @@ export function StockListUpload({ onAdded }: { onAdded: () => void }) {
         <Undo2 aria-hidden className="size-4" /> Keep
       </Button>
     ) : (
-      <div className="flex gap-1">
+      <div className="flex flex-wrap gap-1">
         {editing !== r.line && (
           <Button variant="quiet" onClick={() => setEditing(r.line)} aria-label={`Fix row ${r.line}`}>
             <Pencil aria-hidden className="size-4" /> Fix
@@ -148,6 +149,8 @@ export function StockListUpload({ onAdded }: { onAdded: () => void }) {
         setAdded({ count: lines.length, notices: valid.filter((r) => r.result.status === 'replaced').map((r) => r.result.message ?? '') });
         setRows(null);
         setFile(null);
+        // The chooser still shows the old name until its own value is emptied.
+        if (fileRef.current) fileRef.current.value = '';
       },
     });
   };
@@ -160,6 +163,7 @@ export function StockListUpload({ onAdded }: { onAdded: () => void }) {
             Stock list (CSV)
           </label>
           <input
+            ref={fileRef}
             id="stock-file"
             type="file"
             accept=".csv,text/csv"
@@ -227,7 +231,7 @@ export function StockListUpload({ onAdded }: { onAdded: () => void }) {
               <caption className="sr-only">Rows in the uploaded stock list</caption>
               <thead className="text-left text-sm">
                 <tr>
-                  <th scope="col" className="sticky top-0 z-10 border-b-2 border-ink bg-white px-3 py-2 font-semibold">
+                  <th scope="col" className="sticky top-0 z-10 hidden border-b-2 border-ink bg-white px-3 py-2 font-semibold sm:table-cell">
                     Row
                   </th>
                   <th scope="col" className="sticky top-0 z-10 border-b-2 border-ink bg-white px-3 py-2 font-semibold">
@@ -247,10 +251,14 @@ export function StockListUpload({ onAdded }: { onAdded: () => void }) {
               <tbody>
                 {rows.map((r) => (
                   <tr key={r.line} className={`border-b border-cast-line align-top ${r.dropped ? 'text-cast' : ''} ${r.result.status === 'error' && !r.dropped ? 'bg-oxide-tint/40' : ''}`}>
-                    <td className="tabular px-3 py-3">{r.line}</td>
-                    <td className="part-no px-3 py-3">{r.result.input.partNumber || <span className="font-normal italic text-cast">(empty)</span>}</td>
-                    <td className="tabular px-3 py-3 text-right">{r.result.input.quantity || '—'}</td>
-                    <td className="px-3 py-3">
+                    <td className="tabular hidden px-3 py-3 sm:table-cell">{r.line}</td>
+                    <td className="px-2 py-3 sm:px-3">
+                      {/* On a phone the row number rides with the part number, so the result column has the room. */}
+                      <span className="block text-sm text-cast sm:hidden">Row {r.line}</span>
+                      <span className="part-no">{r.result.input.partNumber || <span className="font-normal italic text-cast">(empty)</span>}</span>
+                    </td>
+                    <td className="tabular px-2 py-3 text-right sm:px-3">{r.result.input.quantity || '—'}</td>
+                    <td className="px-2 py-3 sm:px-3">
                       {r.dropped ? (
                         <span className="inline-flex items-center gap-1 text-sm">
                           <Trash2 aria-hidden className="size-4" /> Dropped

@@ -57,7 +57,7 @@ export function PackPage({ number }: { number: string }) {
     <div className="grid grid-cols-[minmax(0,1fr)] gap-6">
       <div className="flex flex-wrap items-end justify-between gap-4">
         <div>
-          <h1 className="text-3xl font-bold">
+          <h1 className="text-2xl font-bold sm:text-3xl">
             Pack and dispatch <span className="tabular whitespace-nowrap">{o.number}</span>
           </h1>
           <p className="text-lg text-cast">
