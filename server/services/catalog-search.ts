@@ -3,8 +3,8 @@ import type { Db } from '../db/client';
 import { changeFeedFor } from '../db/change-feed';
 import { frames, parts } from '../db/schema';
 import { CATEGORIES, categoryLabel } from '../../shared/catalog';
-import type { PartsListResponse, PartsQuery, PartSummary } from '../../shared/schemas/parts';
-import { PAGE_SIZE_DEFAULT } from '../../shared/schemas/parts';
+import type { PartSuggestion, PartSuggestions, PartsListResponse, PartsQuery, PartSummary } from '../../shared/schemas/parts';
+import { PAGE_SIZE_DEFAULT, SUGGEST_LIMIT } from '../../shared/schemas/parts';
 import type { SearchIndex } from './search-index';
 import type { SearchService } from './search';
 
@@ -126,7 +126,28 @@ export function createSearchListing(deps: {
     };
   }
 
-  return { list };
+  /** The first few matches for search as you type, answered from the index alone. */
+  function suggest(q: string, limit = SUGGEST_LIMIT): PartSuggestions {
+    const result = search.find(q);
+    const ix = result.index;
+    const items: PartSuggestion[] = [];
+    for (let i = 0; i < result.ords.length && items.length < limit; i++) {
+      const ord = result.ords[i]!;
+      const d = ix.docs[ord]!;
+      const reasons = result.reasons(ord);
+      items.push({
+        partNumber: d.partNumber,
+        title: d.title,
+        status: d.status as PartSuggestion['status'],
+        supersededBy: d.supersededBy,
+        reason: reasons[0]?.text ?? '',
+        exact: result.exact(ord),
+      });
+    }
+    return { q, items, total: result.ords.length };
+  }
+
+  return { list, suggest };
 }
 
 /** Relevance keeps the search's order; the other sorts order the matches as the plain list would. */

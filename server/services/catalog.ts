@@ -326,7 +326,7 @@ export function createCatalogService(db: Db, search: SearchService) {
     return entry;
   }
 
-  return { listParts, listPartsJson, getPart, listFrames };
+  return { listParts, listPartsJson, getPart, listFrames, suggestParts: (q: string) => searchListing.suggest(q) };
 }
 
 /** A list answer as sent, with its entity tag and its compressed bytes (made when first asked for, then kept). */

@@ -26,6 +26,8 @@ export interface SearchResult {
   /** Ordinals in the index, best first. */
   ords: Int32Array;
   reasons(ord: number): MatchReason[];
+  /** Whether the query was exactly this part's number or one of its aliases. */
+  exact(ord: number): boolean;
 }
 
 /** More changed parts than this at once are indexed again in a worker thread, the current index serving meanwhile. */
@@ -214,9 +216,21 @@ export function createSearchService(db: Db, options: { log?: (err: unknown) => v
       .map(([ord]) => ix.docs[ord]!.id);
   }
 
+  /**
+   * The parts a typed number names exactly: its own number, a cross-reference or an earlier number (as search
+   * resolves it first). The order pad accepts a number that names exactly one part.
+   */
+  function exactParts(typed: string): number[] {
+    const n = normalizePartNumber(typed.trim().slice(0, 40));
+    if (n.length < 2) return [];
+    const ix = current();
+    return [...new Set(ix.numbersAt('flat', n).filter((e) => ix.isAlive(e.ord)).map((e) => ix.docs[e.ord]!.id))];
+  }
+
   return {
     rebuild,
     refresh,
+    exactParts,
     search,
     find,
     suggest,
@@ -234,7 +248,7 @@ export function createSearchService(db: Db, options: { log?: (err: unknown) => v
  */
 export function findIn(ix: SearchIndex, query: string, correct: (word: string) => string | null = () => null): SearchResult {
   const q = query.trim().slice(0, 100);
-  const empty: SearchResult = { index: ix, ords: new Int32Array(0), reasons: () => [] };
+  const empty: SearchResult = { index: ix, ords: new Int32Array(0), reasons: () => [], exact: () => false };
   if (q.length === 0) return empty;
   const n = normalizePartNumber(q);
   const typedExchange = n.endsWith(EXCHANGE_SUFFIX);
@@ -365,6 +379,7 @@ export function findIn(ix: SearchIndex, query: string, correct: (word: string) =
       const num = numbers.get(ord)?.reasons ?? [];
       return inWords[ord] === 1 && shared ? (num.length > 0 ? [...num, shared] : [shared]) : num;
     },
+    exact: (ord) => (numbers.get(ord)?.score ?? Infinity) < 2 * TIER,
   };
 }
 
