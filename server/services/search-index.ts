@@ -67,6 +67,9 @@ export function tokenize(text: string): string[] {
   return out;
 }
 
+/** How many words a title has, as a buyer reads it ("56.3" is one): shorter titles holding the words rank first. */
+const wordCount = (text: string) => Math.min(255, text.split(/[^\p{L}\p{N}.]+/u).filter((t) => t.replace(/\./g, '').length > 1 || /\d/.test(t)).length);
+
 /** Single letters ("A/R" gives "a" and "r") are too common to help and too many to keep. */
 const indexed = (t: string) => t.length > 1 || /\d/.test(t);
 
@@ -147,7 +150,7 @@ export function buildSnapshot(input: { rows: IndexRow[]; aliases: AliasRow[] }, 
   };
   rows.forEach((r, ord) => {
     const titleTokens = tokenize(r.title).filter(indexed);
-    titleLengths[ord] = Math.min(255, titleTokens.length);
+    titleLengths[ord] = wordCount(r.title);
     for (const t of titleTokens) {
       add(title, t, ord);
       add(all, t, ord);
@@ -423,7 +426,7 @@ export class SearchIndex {
       if (doc.frameCode) this.frameCodes.add(doc.frameCode.toLowerCase());
       for (const flat of this.addNumbers(ord)) this.addedFlat.add(flat);
       const titleTokens = [...new Set(tokenize(doc.title).filter(indexed))];
-      this.titleLengths[ord] = Math.min(255, tokenize(doc.title).filter(indexed).length);
+      this.titleLengths[ord] = wordCount(doc.title);
       const allTokens = [...new Set([...titleTokens, ...tokenize(body).filter(indexed)])];
       for (const [field, terms] of [['title', titleTokens], ['all', allTokens]] as const) {
         for (const t of terms) (this.overlay[field].get(t) ?? this.overlay[field].set(t, new Set()).get(t)!).add(ord);
