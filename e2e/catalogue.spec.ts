@@ -7,7 +7,7 @@ test('a buyer searches from the home page with a typo, opens the part and reads 
   await axe();
 
   // "cartrige" is misspelt; the search reads it as "cartridge" and says so.
-  const search = page.getByRole('searchbox', { name: 'Search the catalogue' });
+  const search = page.getByRole('combobox', { name: 'Search the catalogue' });
   await search.fill('ball bearing cartrige fuller');
   await search.press('Enter');
   await expect(page).toHaveURL(/\/catalogue\?q=ball/);

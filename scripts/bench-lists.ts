@@ -26,7 +26,7 @@ const copy = path.join(path.dirname(source), `bench-lists-${process.pid}.db`);
 fs.copyFileSync(source, copy);
 const db = openDatabase(copy);
 const search = createSearchService(db);
-search.rebuild({ ifStale: true });
+search.rebuild();
 const catalog = createCatalogService(db, search);
 const frame = db.$client.prepare("SELECT frame_code FROM parts WHERE frame_code IS NOT NULL GROUP BY 1 ORDER BY count(*) DESC LIMIT 1").pluck().get() as string;
 

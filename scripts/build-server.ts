@@ -1,6 +1,7 @@
 // Compiles the server ahead of time for `npm start`: transpiling TypeScript and resolving hundreds of package files at
 // start-up were most of the server's start-up time. Two bundles: dist/server/index.mjs (the app; also what each cluster
-// worker runs) and dist/server/start.mjs (the local fakes and demo data, then the app).
+// worker runs) and dist/server/start.mjs (the local fakes and demo data, then the app); beside them
+// dist/server/search-worker.mjs, which the app starts in a worker thread to rebuild its search index.
 import path from 'node:path';
 import { build, type Plugin } from 'esbuild';
 
@@ -18,7 +19,7 @@ export async function buildServer(outdir = path.join(root, 'dist', 'server')) {
   const started = Date.now();
   await build({
     absWorkingDir: root,
-    entryPoints: { index: 'server/index.ts', start: 'scripts/start.ts' },
+    entryPoints: { index: 'server/index.ts', start: 'scripts/start.ts', 'search-worker': 'server/services/search-worker.ts' },
     outdir,
     outExtension: { '.js': '.mjs' },
     bundle: true,

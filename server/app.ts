@@ -107,8 +107,8 @@ export function createApp(deps: AppDeps) {
   const now = deps.now ?? (() => new Date());
   const trustedOrigins = [new URL(config.publicUrl).origin, ...(config.trustedOrigins ?? [])];
 
-  const search = createSearchService(db);
-  search.rebuild({ ifStale: true });
+  const search = createSearchService(db, { log });
+  search.rebuild();
   const catalog = createCatalogService(db, search);
   const stock = createStockService(db);
   const cart = createCartService(db, search, { taxRatePct: config.taxRatePct });
@@ -128,7 +128,7 @@ export function createApp(deps: AppDeps) {
   // One fitment service: the check, the saved checks and the shaft logs share its parsed frames and map tables.
   const fitment = createFitmentService(db);
   const shaftLogs = createShaftLogService({ db, fitment });
-  const catalogAdmin = createCatalogAdmin({ db, refreshSearch: (ids) => search.refresh(ids), rebuildSearch: () => search.rebuild() });
+  const catalogAdmin = createCatalogAdmin({ db, refreshSearch: (ids) => search.refresh(ids), rebuildSearch: () => void search.rebuild({ background: true }) });
   const auth = createAuth({
     db,
     baseURL: config.publicUrl,

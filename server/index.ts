@@ -12,7 +12,6 @@ import { parseEnv, publicUrl, type Env } from './env';
 import { PROJECT_ROOT } from './paths';
 import { createMailer } from './services/mailer';
 import { PAYMENTS_TIMEOUT_MS } from './services/orders/order-payments';
-import { createSearchService } from './services/search';
 
 let env: Env;
 try {
@@ -30,13 +29,11 @@ if (env.APP_PROCESSES > 1 && cluster.isPrimary) {
 
 /**
  * Several processes on one port (Node's cluster module shares the listening socket). The primary migrates the
- * database and brings the search index up to date first, so the workers start on a ready file; it restarts a worker
+ * database first, so the workers start on a ready file (each builds its own search index in memory); it restarts a worker
  * that dies and stops them all on a signal.
  */
 function runPrimary(env: Env) {
-  const db = openDatabase(env.DATABASE_FILE);
-  createSearchService(db).rebuild({ ifStale: true });
-  db.$client.close();
+  openDatabase(env.DATABASE_FILE).$client.close();
   cluster.setupPrimary({ exec: fileURLToPath(import.meta.url) });
   let stopping = false;
   for (let i = 0; i < env.APP_PROCESSES; i += 1) cluster.fork();

@@ -32,7 +32,7 @@ const emptyGuest: CartOwner = { guestToken: '' };
 
 const CheckLinesSchema = z.object({
   lines: z
-    .array(z.object({ partNumber: z.string().max(40), quantity: z.string().max(12) }))
+    .array(z.object({ partNumber: z.string().max(40), quantity: z.union([z.string().max(12), z.number().transform(String)]) }))
     .min(1, 'add at least one line')
     .max(CSV_MAX_ROWS, `at most ${CSV_MAX_ROWS} lines per check`),
 });

@@ -1,5 +1,5 @@
 import { Router } from 'express';
-import { PartsQuerySchema } from '../../shared/schemas/parts';
+import { PartsQuerySchema, SuggestQuerySchema } from '../../shared/schemas/parts';
 import { notFound, parseOr400 } from '../middleware/errors';
 import type { CatalogService } from '../services/catalog';
 
@@ -20,6 +20,11 @@ export function partsRouter(catalog: CatalogService): Router {
     const encoding = list.json.length < 1024 ? 'identity' : req.acceptsEncodings('br') ? 'br' : req.acceptsEncodings('gzip') ? 'gzip' : 'identity';
     if (encoding === 'br' || encoding === 'gzip') res.set('Content-Encoding', encoding).send(list.encoded(encoding));
     else res.send(list.json);
+  });
+  // Search as you type: a few matches, from the in-memory index alone (no database read).
+  router.get('/suggest', (req, res) => {
+    const { q } = parseOr400(SuggestQuerySchema, req.query, 'Type something to search for');
+    res.json(catalog.suggestParts(q));
   });
   router.get('/:partNumber', (req, res) => {
     const part = catalog.getPart(String(req.params.partNumber).slice(0, 60));

@@ -142,7 +142,15 @@ export function createCartService(db: Db, search: SearchService, config: { taxRa
 
   /** Resolves a typed number to the part sold today, following supersessions. */
   function resolvePart(typed: string) {
+    // A number the catalogue does not hold may still name one part exactly, as search resolves it: a
+    // cross-reference or an earlier number of that part.
     let part = partByNumber(normalizePartNumber(typed));
+    let namedAs: string | null = null;
+    if (!part) {
+      const named = search.exactParts(typed);
+      part = named.length === 1 ? partById(named[0]!) : undefined;
+      namedAs = part ? typed : null;
+    }
     if (!part) return null;
     let replacedFrom: string | null = null;
     for (let hops = 0; part.status === 'superseded' && part.supersededBy && hops < 5; hops++) {
@@ -151,7 +159,7 @@ export function createCartService(db: Db, search: SearchService, config: { taxRa
       replacedFrom ??= part.partNumber;
       part = next;
     }
-    return { part, replacedFrom };
+    return { part, replacedFrom, namedAs };
   }
 
   /** A few numbers close to one that matched nothing: bounded index look-ups, never a full search. */
@@ -221,7 +229,8 @@ export function createCartService(db: Db, search: SearchService, config: { taxRa
     }
     const backorderNote = qty > part.available ? ` ${qty - Math.max(0, part.available)} will be back-ordered.` : '';
     if (replacedFrom) return { ...known, quantity: qty, status: 'replaced', message: `${replacedFrom} is superseded by ${part.partNumber}; the new number is used.${backorderNote}` };
-    return { ...known, quantity: qty, status: 'ok', message: backorderNote ? backorderNote.trim() : null };
+    const namedNote = resolved.namedAs ? `${resolved.namedAs} is ${part.partNumber}.` : '';
+    return { ...known, quantity: qty, status: 'ok', message: `${namedNote}${backorderNote}`.trim() || null };
   }
 
   function view(owner: CartOwner, user: CurrentUser | null, notices: string[] = []): CartView {

@@ -1,6 +1,6 @@
 import { createHash } from 'node:crypto';
 import zlib from 'node:zlib';
-import { and, asc, count, desc, eq, getTableColumns, gt, gte, lte, ne, sql, type SQL } from 'drizzle-orm';
+import { and, asc, count, desc, eq, getTableColumns, gt, gte, inArray, lte, ne, sql, type SQL } from 'drizzle-orm';
 import type { SelectedFields, SQLiteColumn } from 'drizzle-orm/sqlite-core';
 import type { Db } from '../db/client';
 import { changeFeedFor, type ChangeVersions } from '../db/change-feed';
@@ -10,6 +10,7 @@ import { normalizePartNumber } from '../../shared/part-number';
 import type { FrameSummary, PartDetail, PartsListResponse, PartsQuery, PartSummary } from '../../shared/schemas/parts';
 import { PAGE_SIZE_DEFAULT } from '../../shared/schemas/parts';
 import type { SearchService } from './search';
+import { createSearchListing } from './catalog-search';
 
 const summaryColumns = {
   id: parts.id,
@@ -176,7 +177,16 @@ export function createCatalogService(db: Db, search: SearchService) {
     };
   }
 
+  // A search's page is counted and faceted from the search index (catalog-search.ts).
+  const searchListing = createSearchListing({
+    db,
+    search,
+    summaries: (ids) => new Map(selectSummary().where(inArray(parts.id, ids)).all().map((r) => [r.id, toSummary(r)])),
+    frameNames: () => frameNames(),
+  });
+
   function listParts(query: PartsQuery): PartsListResponse {
+    if (query.q) return searchListing.list({ ...query, q: query.q });
     const page = query.page ?? 1;
     const pageSize = query.pageSize ?? PAGE_SIZE_DEFAULT;
     const hits = query.q ? search.search(query.q) : null;
@@ -379,13 +389,16 @@ export function createCatalogService(db: Db, search: SearchService) {
   const cache = new Map<string, CachedList>();
   const feed = changeFeedFor(db);
   let cachedFor: ChangeVersions | null = null;
+  // The search index may change without a version moving (a rebuild swapped in): its answers are cached only with it.
+  let searchGeneration = -1;
   function listPartsJson(query: PartsQuery): CachedList {
     const versions = feed.current();
     // The catalogue, its search index, stock and frames shape a list; sessions and accounts moving leave it alone.
-    const stale = !cachedFor || (['parts', 'search', 'stock', 'frames'] as const).some((k) => versions[k] !== cachedFor![k]);
+    const stale = !cachedFor || (['parts', 'search', 'stock', 'frames'] as const).some((k) => versions[k] !== cachedFor![k]) || searchGeneration !== search.generation();
     if (stale) {
       cache.clear();
       cachedFor = versions;
+      searchGeneration = search.generation();
     }
     const key = JSON.stringify(query);
     let entry = cache.get(key);
@@ -398,7 +411,7 @@ export function createCatalogService(db: Db, search: SearchService) {
     return entry;
   }
 
-  return { listParts, listPartsJson, getPart, listFrames };
+  return { listParts, listPartsJson, getPart, listFrames, suggestParts: (q: string) => searchListing.suggest(q) };
 }
 
 /** A list answer as sent, with its entity tag and its compressed bytes (made when first asked for, then kept). */

@@ -1,8 +1,13 @@
+import { createRequire } from 'node:module';
+import { pathToFileURL } from 'node:url';
+import { Worker } from 'node:worker_threads';
 import Fuse from 'fuse.js';
 import type { Db } from '../db/client';
-import { changeFeedFor, searchIndexRewritten } from '../db/change-feed';
-import { categoryLabel } from '../../shared/catalog';
+import { changeFeedFor } from '../db/change-feed';
 import { normalizePartNumber } from '../../shared/part-number';
+import { EXCHANGE_SUFFIX } from '../../shared/part-number';
+import { typoCandidates, type TypoCandidate } from '../../shared/part-number-search';
+import { ACTIVE, EXCHANGE, readIndexRows, readSnapshot, SearchIndex, tokenize, type NumberEntry, type Snapshot } from './search-index';
 
 /** Why a part came up, in words a buyer understands. */
 export interface MatchReason {
@@ -15,30 +20,21 @@ export interface SearchHit {
   reasons: MatchReason[];
 }
 
-interface Doc {
-  id: number;
-  partNumber: string;
-  normalizedNumber: string;
-  title: string;
-  status: string;
-  supersededBy: string | null;
-  /** The frame's code in lower case ("ful"), which is how people name a frame in a search. */
-  frameCode: string;
-  aliases: Array<{ alias: string; normalized: string; kind: 'cross-reference' | 'superseded' }>;
+/** Every match of a query, best first, over the index that answered it. */
+export interface SearchResult {
+  index: SearchIndex;
+  /** Ordinals in the index, best first. */
+  ords: Int32Array;
+  reasons(ord: number): MatchReason[];
+  /** Whether the query was exactly this part's number or one of its aliases. */
+  exact(ord: number): boolean;
 }
 
-interface Candidate {
-  doc: Doc;
-  tier: number;
-  reasons: MatchReason[];
-}
+/** More changed parts than this at once are indexed again in a worker thread, the current index serving meanwhile. */
+export const BACKGROUND_REBUILD_ABOVE = 300;
 
-const WORD_LIMIT = 300;
-const RANKED = 100;
-const NEAR_LIMIT = 40;
-const PREFIX_LIMIT = 60;
-/** Suggestions for an unknown number look at no more than this many candidates of each kind. */
-const SUGGEST_LIMIT = 10;
+// Scores: the tier (how it matched) above, how well within the tier below.
+const TIER = 4096;
 
 /** Levenshtein distance, for ordering a handful of suggested numbers. */
 export function editDistance(a: string, b: string): number {
@@ -51,336 +47,412 @@ export function editDistance(a: string, b: string): number {
   return prev[b.length]!;
 }
 
-function trigrams(s: string): string[] {
-  const out = new Set<string>();
-  for (let i = 0; i + 3 <= s.length; i++) out.add(s.slice(i, i + 3));
-  return [...out];
-}
-
-/** Every string one edit away (a character swapped with its neighbour, dropped, added or changed). */
-export function oneEditVariants(n: string): string[] {
-  const out = new Set<string>();
-  const alphabet = (c: string) => (/\d/.test(c) ? '0123456789' : 'ABCDEFGHIJKLMNOPQRSTUVWXYZ');
-  for (let i = 0; i < n.length; i++) {
-    if (i + 1 < n.length) out.add(n.slice(0, i) + n[i + 1] + n[i] + n.slice(i + 2));
-    out.add(n.slice(0, i) + n.slice(i + 1));
-    for (const c of alphabet(n[i]!)) out.add(n.slice(0, i) + c + n.slice(i + 1));
-  }
-  for (let i = 0; i <= n.length; i++) {
-    const near = n[i] ?? n[i - 1] ?? '0';
-    for (const c of alphabet(near)) out.add(n.slice(0, i) + c + n.slice(i));
-  }
-  out.delete(n);
-  return [...out];
-}
-
 function words(q: string): string[] {
-  return q
-    .toLowerCase()
-    .normalize('NFKD')
-    .replace(/[^\p{L}\p{N}.]+/gu, ' ')
-    .split(' ')
-    .map((w) => w.replace(/^\.+|\.+$/g, ''))
-    .filter((w, _i, all) => w.length > 1 || all.length === 1)
-    .slice(0, 8);
+  const all = tokenize(q.replace(/\./g, (m, at: number, s: string) => (/\d/.test(s[at - 1] ?? '') && /\d/.test(s[at + 1] ?? '') ? m : ' ')));
+  return [...new Set(all.filter((w, _i, list) => w.length > 1 || list.length === 1))].slice(0, 8);
 }
 
-const ftsTerm = (w: string) => `"${w.replace(/"/g, '')}"*`;
+const KIND_WORDS: Record<NumberEntry['kind'], string> = { 'part-number': 'part number', superseded: 'earlier number', 'cross-reference': 'cross-reference' };
+
+/** Starts the index build in a worker thread: the compiled worker beside the bundle, or the source through tsx. */
+function buildInWorker(file: string): Promise<Snapshot> {
+  const here = import.meta.url;
+  const workerData = { file };
+  let worker: Worker;
+  if (here.endsWith('.ts')) {
+    // The package's ESM entry beside the CommonJS one that require() resolves.
+    const tsx = pathToFileURL(createRequire(here).resolve('tsx/esm/api').replace(/\.cjs$/, '.mjs')).href;
+    const source = new URL('./search-worker.ts', here).href;
+    const boot = `import(${JSON.stringify(tsx)}).then((m) => { m.register(); return import(${JSON.stringify(source)}); })`;
+    worker = new Worker(boot, { eval: true, workerData });
+  } else {
+    worker = new Worker(new URL('./search-worker.mjs', here), { workerData });
+  }
+  return new Promise((resolve, reject) => {
+    worker.once('message', (snapshot: Snapshot) => resolve(snapshot));
+    worker.once('error', reject);
+    worker.once('exit', (code) => {
+      if (code !== 0) reject(new Error(`the search index worker stopped with code ${code}`));
+    });
+  });
+}
 
 /**
- * Catalogue search: SQLite finds candidates (exact and prefix part numbers through an index, aliases,
- * trigram near misses, FTS5 words), and fuse.js ranks and forgives typos among that small set.
+ * Catalogue search over an in-memory index (search-index.ts): exact, prefix and mistyped part numbers and aliases,
+ * and words (all of them, the last one perhaps still being typed; mistyped ones corrected against the catalogue's
+ * vocabulary). Every match is ranked, none is cut off: tier (how it matched), then how well, then part number.
  */
-export function createSearchService(db: Db) {
+export function createSearchService(db: Db, options: { log?: (err: unknown) => void } = {}) {
   const sqlite = db.$client;
-  const docs = new Map<number, Doc>();
-  let vocabulary = new Set<string>();
-
-  const stmt = {
-    exact: sqlite.prepare('SELECT id FROM parts WHERE normalized_number = ?'),
-    aliasExact: sqlite.prepare('SELECT part_id AS id, alias, kind FROM part_aliases WHERE normalized_alias = ?'),
-    prefix: sqlite.prepare(`SELECT id FROM parts WHERE normalized_number > ? AND normalized_number < ? ORDER BY normalized_number LIMIT ${PREFIX_LIMIT}`),
-    aliasPrefix: sqlite.prepare(`SELECT part_id AS id, alias, kind FROM part_aliases WHERE normalized_alias > ? AND normalized_alias < ? LIMIT ${PREFIX_LIMIT}`),
-    oneEdit: sqlite.prepare('SELECT id, normalized_number AS number FROM parts WHERE normalized_number IN (SELECT value FROM json_each(?))'),
-    aliasOneEdit: sqlite.prepare('SELECT part_id AS id, alias, kind FROM part_aliases WHERE normalized_alias IN (SELECT value FROM json_each(?))'),
-    near: sqlite.prepare(`SELECT part_id AS id, kind, number FROM numbers_tri WHERE numbers_tri MATCH ? ORDER BY rank LIMIT ${NEAR_LIMIT}`),
-    suggestPrefix: sqlite.prepare(`SELECT id, normalized_number AS number FROM parts WHERE normalized_number > ? AND normalized_number < ? ORDER BY normalized_number LIMIT ${SUGGEST_LIMIT}`),
-    // No ORDER BY rank: scoring every match is what costs; fuse.js ranks the candidates instead.
-    words: sqlite.prepare(`SELECT part_id AS id FROM parts_fts WHERE parts_fts MATCH ? LIMIT ${WORD_LIMIT}`),
-  };
-
-  function loadDocs(ids?: number[]) {
-    const where = ids ? `WHERE p.id IN (${ids.map(() => '?').join(',')})` : '';
-    const rows = sqlite
-      .prepare(`SELECT p.id, p.part_number AS partNumber, p.normalized_number AS normalizedNumber, p.title, p.status, p.superseded_by AS supersededBy, lower(COALESCE(p.frame_code, '')) AS frameCode FROM parts p ${where}`)
-      .all(...(ids ?? [])) as Array<Omit<Doc, 'aliases'>>;
-    const aliasRows = sqlite
-      .prepare(`SELECT a.part_id AS id, a.alias, a.normalized_alias AS normalized, a.kind FROM part_aliases a ${ids ? `WHERE a.part_id IN (${ids.map(() => '?').join(',')})` : ''}`)
-      .all(...(ids ?? [])) as Array<{ id: number; alias: string; normalized: string; kind: 'cross-reference' | 'superseded' }>;
-    if (ids) for (const id of ids) docs.delete(id);
-    for (const r of rows) docs.set(r.id, { ...r, aliases: [] });
-    for (const a of aliasRows) docs.get(a.id)?.aliases.push({ alias: a.alias, normalized: a.normalized, kind: a.kind });
-  }
-
-  function writeIndexRows(ids?: number[]) {
-    const where = ids ? `WHERE p.id IN (${ids.map(() => '?').join(',')})` : '';
-    const rows = sqlite
-      .prepare(
-        `SELECT p.id, p.part_number AS partNumber, p.normalized_number AS normalizedNumber, p.title, p.description, p.category, p.condition, p.status,
-                f.code AS frameCode, f.name AS frameName,
-                s.compressor_ar AS compressorAr, s.turbine_ar AS turbineAr, s.trim_pct AS trimPct, s.inducer_mm AS inducerMm, s.exducer_mm AS exducerMm,
-                s.flange_pattern AS flangePattern, s.material, s.bearing, s.wastegate, s.cooling, s.gauge_type AS gaugeType, s.range_text AS rangeText,
-                s.mounting, s.connection
-         FROM parts p LEFT JOIN frames f ON f.code = p.frame_code LEFT JOIN part_specs s ON s.part_id = p.id ${where}`,
-      )
-      .all(...(ids ?? [])) as Array<Record<string, string | number | null>>;
-    const aliasRows = sqlite
-      .prepare(`SELECT part_id AS id, normalized_alias AS normalized, kind FROM part_aliases ${ids ? `WHERE part_id IN (${ids.map(() => '?').join(',')})` : ''}`)
-      .all(...(ids ?? [])) as Array<{ id: number; normalized: string; kind: string }>;
-    const insertFts = sqlite.prepare('INSERT INTO parts_fts (part_id, title, body) VALUES (?, ?, ?)');
-    const insertTri = sqlite.prepare('INSERT INTO numbers_tri (part_id, kind, number) VALUES (?, ?, ?)');
-    sqlite.transaction(() => {
-      if (ids) {
-        const list = ids.map(() => '?').join(',');
-        sqlite.prepare(`DELETE FROM parts_fts WHERE part_id IN (${list})`).run(...ids);
-        sqlite.prepare(`DELETE FROM numbers_tri WHERE part_id IN (${list})`).run(...ids);
-      } else {
-        sqlite.exec('DELETE FROM parts_fts; DELETE FROM numbers_tri;');
-      }
-      for (const r of rows) {
-        const specText = [
-          r.compressorAr != null ? `${r.compressorAr} A/R compressor` : '',
-          r.turbineAr != null ? `${r.turbineAr} A/R turbine` : '',
-          r.trimPct != null ? `${r.trimPct} trim` : '',
-          r.inducerMm != null ? `${r.inducerMm} mm inducer` : '',
-          r.bearing != null ? `${r.bearing} bearing` : '',
-          r.flangePattern ?? '',
-          r.material ?? '',
-          r.wastegate != null ? `${r.wastegate} wastegate` : '',
-          r.cooling != null ? `${r.cooling} cooled` : '',
-          r.gaugeType ?? '',
-          r.rangeText ?? '',
-          r.mounting ?? '',
-          r.connection ?? '',
-        ].join(' ');
-        const body = [categoryLabel(String(r.category)), r.frameCode ?? '', r.frameName ?? '', r.condition, r.description, specText].join(' ');
-        insertFts.run(r.id, r.title, body);
-        insertTri.run(r.id, 'part-number', r.normalizedNumber);
-      }
-      for (const a of aliasRows) insertTri.run(a.id, a.kind, a.normalized);
-      searchIndexRewritten(db);
-    }).immediate();
-  }
-
-  function loadVocabulary() {
-    sqlite.exec("CREATE VIRTUAL TABLE IF NOT EXISTS temp.parts_fts_vocab USING fts5vocab('main', 'parts_fts', 'row')");
-    const terms = (sqlite.prepare("SELECT term FROM temp.parts_fts_vocab WHERE length(term) >= 3 AND term GLOB '*[a-z]*'").all() as Array<{ term: string }>).map((r) => r.term);
-    vocabulary = new Set(terms);
-  }
-
-  /** Rebuilds the whole index: at start and after bulk changes. */
-  /** What the index was built from: the catalogue's size and its latest change. */
-  const signature = () =>
-    JSON.stringify(sqlite.prepare('SELECT count(*) AS n, max(updated_at) AS at, (SELECT count(*) FROM part_aliases) AS aliases FROM parts').get());
-  const builtFrom = () => sqlite.prepare("SELECT value FROM meta WHERE key = 'search_index'").pluck().get() as string | undefined;
-
-  // The latest part change (change feed) this process's documents and vocabulary reflect.
   const feed = changeFeedFor(db);
+  let index: SearchIndex | null = null;
   let syncedTo = 0;
+  let framesSeen = -1;
+  let generation = 0;
+  let rebuilding: Promise<void> | null = null;
+  let correctionTerms: { generation: number; overlay: number; terms: string[] } | null = null;
 
-  function rebuild(options: { ifStale?: boolean } = {}) {
-    syncedTo = feed.current().parts;
-    const now = signature();
-    // At start the index on disk is reused when the catalogue has not changed since it was written.
-    if (!options.ifStale || builtFrom() !== now) {
-      writeIndexRows();
-      sqlite.prepare("INSERT INTO meta (key, value) VALUES ('search_index', ?) ON CONFLICT (key) DO UPDATE SET value = excluded.value").run(now);
-    }
-    docs.clear();
-    loadDocs();
-    loadVocabulary();
-  }
-
-  /** Refreshes the index for parts that changed here: rewrites their index rows, which every process shares. */
-  function refresh(ids: number[]) {
-    if (ids.length === 0) return;
-    const wasCurrent = builtFrom() !== undefined;
-    writeIndexRows(ids);
-    if (wasCurrent) sqlite.prepare("UPDATE meta SET value = ? WHERE key = 'search_index'").run(signature());
-    follow(ids);
+  function install(next: SearchIndex) {
+    index = next;
+    syncedTo = next.syncedTo;
+    generation++;
   }
 
   /**
-   * Brings this process's documents and vocabulary up to the latest part change, whichever process made it: the
-   * parts logged since it last looked (and any given) are reloaded; after a bulk change, everything is.
+   * Builds the index anew. At start (and for an in-memory database) it is built here; otherwise `background` builds
+   * it in a worker thread while the current index keeps answering, and swaps it in when ready.
    */
-  function follow(extra: number[] = []) {
-    const { ids, latest } = feed.partsChangedSince(syncedTo);
-    if (ids === null) {
-      docs.clear();
-      loadDocs();
-    } else {
-      const all = [...new Set([...ids, ...extra])];
-      if (all.length === 0) return;
-      loadDocs(all);
+  function rebuild(opts: { background?: boolean } = {}): Promise<void> {
+    if (!opts.background || !index || sqlite.memory) {
+      install(new SearchIndex(readSnapshot(sqlite)));
+      framesSeen = feed.current().frames;
+      return Promise.resolve();
     }
-    loadVocabulary();
+    rebuilding ??= buildInWorker(sqlite.name)
+      .then((snapshot) => {
+        rebuilding = null;
+        install(new SearchIndex(snapshot));
+        follow();
+      })
+      .catch((err: unknown) => {
+        rebuilding = null;
+        (options.log ?? console.error)(err);
+      });
+    return rebuilding;
+  }
+
+  /** Brings the index up to the latest part change, whichever process made it (and the given parts). */
+  function follow(extra: number[] = []) {
+    if (!index) return;
+    const { ids, latest } = feed.partsChangedSince(syncedTo);
+    const all = ids === null ? null : [...new Set([...ids, ...extra])];
+    if (all === null || all.length > BACKGROUND_REBUILD_ABOVE || index.overlaySize + all.length > 20 * BACKGROUND_REBUILD_ABOVE) {
+      void rebuild({ background: true });
+      return;
+    }
+    if (all.length > 0) {
+      index.apply(all, readIndexRows(sqlite, all));
+      generation++;
+    }
     syncedTo = latest;
   }
 
-  function correctWord(w: string): string | null {
-    if (vocabulary.has(w) || w.length < 4 || /\d/.test(w)) return null;
-    // fuse.js scores the few terms of a similar length that share a first or second letter; a typo rarely
-    // changes both, and scoring the whole vocabulary for every word costs milliseconds.
-    const near = [...vocabulary].filter((t) => Math.abs(t.length - w.length) <= 2 && (t[0] === w[0] || t[1] === w[1]));
+  function current(): SearchIndex {
+    const versions = feed.current();
+    // A frame's name is among its parts' words: a renamed frame has its parts indexed again.
+    if (framesSeen !== versions.frames) {
+      framesSeen = versions.frames;
+      if (index) void rebuild({ background: true });
+    }
+    if (!index) rebuild();
+    else if (!rebuilding && versions.parts !== syncedTo) follow();
+    return index!;
+  }
+
+  /** Refreshes the index for parts changed here, at once; a large change is built again in a worker thread. */
+  function refresh(ids: number[]) {
+    if (ids.length === 0 || !index) return;
+    if (ids.length > BACKGROUND_REBUILD_ABOVE) {
+      void rebuild({ background: true });
+      return;
+    }
+    index.apply(ids, readIndexRows(sqlite, ids));
+    generation++;
+    if (!rebuilding) follow();
+  }
+
+  function correctWord(ix: SearchIndex, w: string): string | null {
+    if (ix.hasTerm(w) || w.length < 4 || /\d/.test(w)) return null;
+    if (!correctionTerms || correctionTerms.generation !== generation) {
+      correctionTerms = { generation, overlay: ix.overlaySize, terms: [...new Set(ix.terms())].filter((t) => t.length >= 3 && /[a-z]/.test(t) && !/\d/.test(t)) };
+    }
+    // fuse.js scores the few terms of a similar length that share a first or second letter; a typo rarely changes
+    // both, and scoring the whole vocabulary for every word costs milliseconds.
+    const near = correctionTerms.terms.filter((t) => Math.abs(t.length - w.length) <= 2 && (t[0] === w[0] || t[1] === w[1]));
     if (near.length === 0) return null;
     const best = new Fuse(near, { threshold: 0.34, ignoreLocation: true, includeScore: true, minMatchCharLength: 3 }).search(w, { limit: 1 })[0];
     return best && best.item !== w ? best.item : null;
   }
 
+  function find(query: string): SearchResult {
+    const ix = current();
+    return findIn(ix, query, (w) => correctWord(ix, w));
+  }
+
+  /** The best matches as part ids with their reasons (all of them ranked; `limit` only shortens the answer). */
   function search(query: string, limit = 300): SearchHit[] {
-    const q = query.trim().slice(0, 100);
-    if (q.length === 0) return [];
-    if (feed.current().parts !== syncedTo) follow();
-    const n = normalizePartNumber(q);
-    const candidates = new Map<number, Candidate>();
-    const note = (id: number, tier: number, reason: MatchReason) => {
-      const doc = docs.get(id);
-      if (!doc) return;
-      const c = candidates.get(id);
-      if (!c) {
-        candidates.set(id, { doc, tier, reasons: [reason] });
-        return;
-      }
-      c.tier = Math.min(c.tier, tier);
-      if (!c.reasons.some((r) => r.kind === reason.kind)) c.reasons.push(reason);
-    };
-
-    if (n.length >= 2) {
-      for (const r of stmt.exact.all(n) as Array<{ id: number }>) {
-        const d = docs.get(r.id);
-        note(r.id, 0, { kind: 'part-number', text: d?.supersededBy ? `Exact part number; superseded by ${d.supersededBy}` : 'Exact part number' });
-      }
-      for (const r of stmt.aliasExact.all(n) as Array<{ id: number; alias: string; kind: string }>) {
-        note(r.id, 1, r.kind === 'superseded' ? { kind: 'superseded', text: `Replaces the earlier number ${r.alias}` } : { kind: 'cross-reference', text: `Cross-reference ${r.alias}` });
-      }
-    }
-    if (n.length >= 3) {
-      const upper = `${n}\uffff`;
-      for (const r of stmt.prefix.all(n, upper) as Array<{ id: number }>) note(r.id, 2, { kind: 'part-number-prefix', text: `Part number starts with ${q.trim()}` });
-      for (const r of stmt.aliasPrefix.all(n, upper) as Array<{ id: number; alias: string; kind: string }>) {
-        note(r.id, 2, { kind: r.kind === 'superseded' ? 'superseded' : 'cross-reference', text: `${r.kind === 'superseded' ? 'Earlier number' : 'Cross-reference'} ${r.alias} starts with ${q.trim()}` });
-      }
-    }
-    const hasDigits = /\d/.test(n);
-    const oneToken = !/\s/.test(q);
-    // A number typed in pieces ("ful 20 0203") is still a number; a phrase with words is not.
-    const numberLike = hasDigits && (oneToken || q.split(/\s+/).every((w) => /\d/.test(w) || w.length <= 3));
-    const exactHit = [...candidates.values()].some((c) => c.tier <= 1);
-    // A number typed exactly needs no near misses or word search; that keeps the common case cheap.
-    if (numberLike && n.length >= 5 && n.length <= 24 && !exactHit) {
-      // One edit away: a digit swapped with its neighbour, dropped, doubled or mistyped; found by index lookups.
-      const variants = JSON.stringify(oneEditVariants(n));
-      for (const r of stmt.oneEdit.all(variants) as Array<{ id: number }>) {
-        const d = docs.get(r.id);
-        if (d) note(r.id, 3, { kind: 'near-number', text: `Close to part number ${d.partNumber}` });
-      }
-      for (const r of stmt.aliasOneEdit.all(variants) as Array<{ id: number; alias: string; kind: string }>) {
-        note(r.id, 3, { kind: 'near-number', text: `Close to ${r.kind === 'superseded' ? 'earlier number' : 'cross-reference'} ${r.alias}` });
-      }
-      // Further misses, only when nothing closer was found: numbers sharing most three-character pieces.
-      const grams = trigrams(n.toLowerCase()).map((g) => `"${g}"`);
-      const nearRows = candidates.size === 0 ? (stmt.near.all(grams.join(' OR ')) as Array<{ id: number; kind: string; number: string }>) : [];
-      for (const r of nearRows) {
-        const d = docs.get(r.id);
-        if (!d) continue;
-        const shown = r.kind === 'part-number' ? d.partNumber : (d.aliases.find((a) => a.normalized === r.number)?.alias ?? r.number);
-        note(r.id, 4, { kind: 'near-number', text: `Close to ${r.kind === 'part-number' ? 'part number' : r.kind === 'superseded' ? 'earlier number' : 'cross-reference'} ${shown}` });
-      }
-    }
-
-    const ws = words(q);
-    if (ws.length > 0 && !(numberLike && candidates.size > 0)) {
-      // Whole words known to the catalogue match exactly (cheap); the last word may be a prefix, as it may still
-      // be being typed. Unknown words are corrected against the catalogue's vocabulary.
-      const term = (w: string, last: boolean) => (last && !vocabulary.has(w) && !/\d/.test(w) ? ftsTerm(w) : `"${w.replace(/"/g, '')}"`);
-      const found = stmt.words.all(ws.map((w, i) => term(w, i === ws.length - 1)).join(' AND ')) as Array<{ id: number }>;
-      for (const r of found) note(r.id, 2, { kind: 'words', text: `Matches “${ws.join(' ')}”` });
-      if (found.length === 0) {
-        const corrected = ws.map((w) => correctWord(w) ?? w);
-        const changed = corrected.some((w, i) => w !== ws[i]);
-        const terms = corrected.map((w, i) => term(w, i === corrected.length - 1));
-        const tryAnd = changed ? (stmt.words.all(terms.join(' AND ')) as Array<{ id: number }>) : [];
-        const rows = tryAnd.length > 0 || terms.length === 1 ? tryAnd : (stmt.words.all(terms.join(' OR ')) as Array<{ id: number }>);
-        const text = changed ? `Matches “${corrected.join(' ')}” (did you mean?)` : `Matches some of “${ws.join(' ')}”`;
-        for (const r of rows) note(r.id, tryAnd.length > 0 ? 3 : 5, { kind: 'corrected-words', text });
-      }
-    }
-
-    const list = [...candidates.values()].sort((a, b) => a.tier - b.tier);
-    if (list.length === 0) return [];
-    // Ranking is for the top of the list; past RANKED candidates, order by tier and number is as good as any.
-    const ranked = list.slice(0, RANKED);
-    // fuse.js orders the candidates within a tier: a number against numbers, words word by word against titles
-    // (its token search, which keeps a long query cheap and still forgives a typo in each word).
-    const numberQuery = hasDigits && oneToken;
-    const fuse = numberQuery
-      ? new Fuse(ranked, {
-          includeScore: true,
-          ignoreLocation: true,
-          threshold: 1,
-          keys: [
-            { name: 'number', weight: 3, getFn: (c) => c.doc.normalizedNumber },
-            { name: 'aliases', weight: 2, getFn: (c) => c.doc.aliases.map((a) => a.normalized) },
-          ],
-        })
-      : new Fuse(ranked, { includeScore: true, ignoreLocation: true, threshold: 0.6, useTokenSearch: true, keys: [{ name: 'title', getFn: (c) => c.doc.title }] });
-    const score = new Map<number, number>();
-    // People name a frame by its code ("ful cartridge"): a word equal to the part's frame code counts for more.
-    const typed = new Set(ws);
-    for (const r of fuse.search(numberQuery ? n : q.slice(0, 100))) score.set(r.item.doc.id, (r.score ?? 1) - (!numberQuery && typed.has(r.item.doc.frameCode) ? 0.2 : 0));
-    const statusPenalty = (d: Doc) => (d.status === 'active' ? 0 : 0.05);
-    list.sort((a, b) => {
-      if (a.tier !== b.tier) return a.tier - b.tier;
-      const sa = (score.get(a.doc.id) ?? 1) + statusPenalty(a.doc);
-      const sb = (score.get(b.doc.id) ?? 1) + statusPenalty(b.doc);
-      return sa - sb || a.doc.partNumber.localeCompare(b.doc.partNumber);
-    });
-    return list.slice(0, limit).map((c) => ({ partId: c.doc.id, reasons: c.reasons }));
+    const r = find(query);
+    const out: SearchHit[] = [];
+    for (let i = 0; i < r.ords.length && i < limit; i++) out.push({ partId: r.index.docs[r.ords[i]!]!.id, reasons: r.reasons(r.ords[i]!) });
+    return out;
   }
 
   /**
-   * Suggestions for a part number that matched nothing (the order pad, a file upload): index look-ups only, each
-   * with a small LIMIT, ranked by edit distance in a few microseconds. No word search and no fuzzy ranking, so a
-   * file of 500 unknown numbers costs a few look-ups per row rather than a full search per row.
+   * Suggestions for a part number that matched nothing (the order pad, a file upload): exact aliases, numbers it
+   * begins, and near misses by the slip model; when none, numbers of the same series. Map look-ups only.
    */
   function suggest(query: string, limit = 3): number[] {
     const n = normalizePartNumber(query.trim().slice(0, 40));
     if (n.length < 3 || n.length > 24) return [];
-    if (feed.current().parts !== syncedTo) follow();
-    const found = new Map<number, string>();
-    const take = (id: number, number: string) => {
-      if (docs.has(id) && !found.has(id)) found.set(id, number);
+    const ix = current();
+    const found = new Map<number, number>();
+    const take = (ord: number, score: number) => {
+      if (ix.isAlive(ord) && (found.get(ord) ?? Infinity) > score) found.set(ord, score);
     };
-    for (const r of stmt.aliasExact.all(n) as Array<{ id: number; alias: string }>) take(r.id, n);
-    for (const r of stmt.suggestPrefix.all(n, `${n}\uffff`) as Array<{ id: number; number: string }>) take(r.id, r.number);
+    const penalty = (ord: number) => (ix.flags[ord]! & EXCHANGE && !n.endsWith(EXCHANGE_SUFFIX) ? 1 : 0);
+    for (const e of ix.numbersAt('flat', n)) if (e.kind !== 'part-number') take(e.ord, 0);
+    ix.numbersStartingWith(n, (e) => take(e.ord, 10 + penalty(e.ord)));
     if (n.length >= 5) {
-      const variants = JSON.stringify(oneEditVariants(n));
-      for (const r of stmt.oneEdit.all(variants) as Array<{ id: number; number: string }>) take(r.id, r.number);
-      // Nothing one edit away: numbers that share all but the last few characters (same family and frame).
+      for (const c of typoCandidates(query)) for (const e of ix.numbersAt(c.form, c.key)) take(e.ord, 20 + c.cost * 2 + penalty(e.ord));
       if (found.size === 0) {
+        // Nothing one slip away: numbers that share all but the last few characters (same family and frame).
         const stem = n.slice(0, Math.max(4, n.length - 3));
-        for (const r of stmt.suggestPrefix.all(stem, `${stem}\uffff`) as Array<{ id: number; number: string }>) take(r.id, r.number);
+        ix.numbersStartingWith(stem, (e) => take(e.ord, 100 + editDistance(n, normalizePartNumber(e.shown)) * 2 + penalty(e.ord)));
       }
     }
     return [...found]
-      .map(([id, number]) => ({ id, d: editDistance(n, number) }))
-      .sort((a, b) => a.d - b.d || a.id - b.id)
+      .sort((a, b) => a[1] - b[1] || a[0] - b[0])
       .slice(0, limit)
-      .map((c) => c.id);
+      .map(([ord]) => ix.docs[ord]!.id);
   }
 
-  return { rebuild, refresh, search, suggest, size: () => docs.size };
+  /**
+   * The parts a typed number names exactly: its own number, a cross-reference or an earlier number (as search
+   * resolves it first). The order pad accepts a number that names exactly one part.
+   */
+  function exactParts(typed: string): number[] {
+    const n = normalizePartNumber(typed.trim().slice(0, 40));
+    if (n.length < 2) return [];
+    const ix = current();
+    return [...new Set(ix.numbersAt('flat', n).filter((e) => ix.isAlive(e.ord)).map((e) => ix.docs[e.ord]!.id))];
+  }
+
+  return {
+    rebuild,
+    refresh,
+    exactParts,
+    search,
+    find,
+    suggest,
+    size: () => current().size,
+    /** Moves whenever the index changes in this process (an edit applied, a rebuild swapped in). */
+    generation: () => generation,
+    /** Resolves when a rebuild under way (if any) has been swapped in. */
+    settled: () => rebuilding ?? Promise.resolve(),
+  };
+}
+
+/**
+ * Every match of the query in the index, ranked. `correct` offers a known word for a mistyped one (or null).
+ * Pure over the index, so it can be tried on a catalogue held only in memory.
+ */
+export function findIn(ix: SearchIndex, query: string, correct: (word: string) => string | null = () => null): SearchResult {
+  const q = query.trim().slice(0, 100);
+  const empty: SearchResult = { index: ix, ords: new Int32Array(0), reasons: () => [], exact: () => false };
+  if (q.length === 0) return empty;
+  const n = normalizePartNumber(q);
+  const typedExchange = n.endsWith(EXCHANGE_SUFFIX);
+  // Number candidates: ordinal → score (lower is better) and why.
+  const numbers = new Map<number, { score: number; reasons: MatchReason[] }>();
+  const note = (ord: number, score: number, reason: MatchReason) => {
+    if (!ix.isAlive(ord)) return;
+    const c = numbers.get(ord);
+    if (!c) numbers.set(ord, { score, reasons: [reason] });
+    else {
+      c.score = Math.min(c.score, score);
+      if (!c.reasons.some((r) => r.kind === reason.kind)) c.reasons.push(reason);
+    }
+  };
+  // Within a tier: on sale before the rest, and a new unit before its exchange unit unless the exchange was typed.
+  const docPenalty = (ord: number) => {
+    const f = ix.flags[ord]!;
+    return (f & ACTIVE ? 0 : 2) + (f & EXCHANGE && !typedExchange ? 1 : 0);
+  };
+
+  if (n.length >= 2) {
+    for (const e of ix.numbersAt('flat', n)) {
+      if (e.kind === 'part-number') {
+        const d = ix.docs[e.ord]!;
+        note(e.ord, 0, { kind: 'part-number', text: d.supersededBy ? `Exact part number; superseded by ${d.supersededBy}` : 'Exact part number' });
+      } else {
+        note(e.ord, TIER + docPenalty(e.ord), e.kind === 'superseded' ? { kind: 'superseded', text: `Replaces the earlier number ${e.shown}` } : { kind: 'cross-reference', text: `Cross-reference ${e.shown}` });
+      }
+    }
+  }
+  if (n.length >= 3) {
+    const startsWith: MatchReason = { kind: 'part-number-prefix', text: `Part number starts with ${q}` };
+    ix.numbersStartingWith(n, (e) => {
+      if (e.kind === 'part-number') note(e.ord, 2 * TIER + docPenalty(e.ord), startsWith);
+      else note(e.ord, 2 * TIER + docPenalty(e.ord), { kind: e.kind, text: `${e.kind === 'superseded' ? 'Earlier number' : 'Cross-reference'} ${e.shown} starts with ${q}` });
+    });
+  }
+  const hasDigits = /\d/.test(n);
+  const oneToken = !/\s/.test(q);
+  // A number typed in pieces ("ful 20 0203") is still a number; a phrase with words is not.
+  const numberLike = hasDigits && (oneToken || q.split(/\s+/).every((w) => /\d/.test(w) || w.length <= 3));
+  const exactHit = [...numbers.values()].some((c) => c.score < 2 * TIER);
+  // A number typed exactly needs no near misses or word search; that keeps the common case cheap.
+  if (numberLike && n.length >= 5 && n.length <= 24 && !exactHit) {
+    const near = (candidates: TypoCandidate[], tier: number) => {
+      let found = false;
+      for (const c of candidates) {
+        for (const e of ix.numbersAt(c.form, c.key)) {
+          found = true;
+          note(e.ord, tier * TIER + c.cost * 8 + docPenalty(e.ord), { kind: 'near-number', text: `Close to ${KIND_WORDS[e.kind]} ${e.shown}` });
+        }
+      }
+      return found;
+    };
+    // One slip inside a group, then one across groups; only when none is found, two slips inside one group.
+    if (!near(typoCandidates(q), 3)) near(typoCandidates(q, { twoSlips: true }), 4);
+  }
+
+  const ws = words(q);
+  let wordOrds: number[] = [];
+  let wordScores: Int32Array | null = null;
+  let wordReason: MatchReason | null = null;
+  if (ws.length > 0 && !(numberLike && numbers.size > 0)) {
+    // Whole words known to the catalogue match exactly; the last word may be a prefix, as it may still be being
+    // typed. Unknown words are corrected against the catalogue's vocabulary.
+    const termsFor = (list: string[]) =>
+      list.map((w, i) => (ix.hasTerm(w) || /\d/.test(w) ? [w] : i === list.length - 1 ? ix.termsStartingWith(w) : []));
+    let terms = termsFor(ws);
+    let hits = matchWords(ix, terms, 'all');
+    let tier = 2;
+    wordReason = { kind: 'words', text: `Matches “${ws.join(' ')}”` };
+    if (hits.ords.length === 0) {
+      const corrected = ws.map((w) => correct(w) ?? w);
+      const changed = corrected.some((w, i) => w !== ws[i]);
+      terms = termsFor(corrected);
+      hits = changed ? matchWords(ix, terms, 'all') : hits;
+      tier = 3;
+      wordReason = { kind: 'corrected-words', text: `Matches “${corrected.join(' ')}” (did you mean?)` };
+      if (hits.ords.length === 0 && terms.length > 1) {
+        hits = matchWords(ix, terms, 'some');
+        tier = 5;
+        wordReason = changed ? wordReason : { kind: 'corrected-words', text: `Matches some of “${ws.join(' ')}”` };
+      }
+    }
+    wordOrds = hits.ords;
+    wordScores = new Int32Array(wordOrds.length);
+    const typedFrames = new Set(ws.filter((w) => ix.frameCodes.has(w)).map((w) => ix.code(w.toUpperCase())));
+    wordOrds.forEach((ord, k) => {
+      // People name a frame by its code ("ful cartridge"): a part of a frame typed comes before the others.
+      const frameMiss = typedFrames.size > 0 && !typedFrames.has(ix.frame[ord]!) ? 1 : 0;
+      wordScores![k] =
+        tier * TIER + (terms.length - hits.matched[k]!) * 800 + (terms.length - hits.inTitle[k]!) * 400 + frameMiss * 200 + (ix.flags[ord]! & ACTIVE ? 0 : 100) + Math.min(ix.titleLengths[ord]!, 99);
+    });
+  }
+
+  if (wordOrds.length + numbers.size === 0) return empty;
+  // Every match is ordered by score, then ordinal (part-number order). Many matches: a counting sort by score over
+  // the ordinals, which come out in order without comparing strings.
+  const score = new Int32Array(ix.capacity);
+  const inWords = new Uint8Array(ix.capacity);
+  const found: number[] = [];
+  wordOrds.forEach((ord, i) => {
+    inWords[ord] = 1;
+    score[ord] = wordScores![i]! + 1;
+    found.push(ord);
+  });
+  for (const [ord, c] of numbers) {
+    if (score[ord] === 0) found.push(ord);
+    if (score[ord] === 0 || c.score + 1 < score[ord]!) score[ord] = c.score + 1;
+  }
+  let ords: Int32Array;
+  if (found.length < 2048) {
+    ords = Int32Array.from(found).sort((a, b) => score[a]! - score[b]! || a - b);
+  } else {
+    let top = 0;
+    for (const ord of found) if (score[ord]! > top) top = score[ord]!;
+    const start = new Int32Array(top + 2);
+    for (const ord of found) start[score[ord]! + 1]!++;
+    for (let v = 1; v < start.length; v++) start[v]! += start[v - 1]!;
+    ords = new Int32Array(found.length);
+    for (let ord = 0; ord < score.length; ord++) if (score[ord]! > 0) ords[start[score[ord]!]!++] = ord;
+  }
+  const shared = wordReason;
+  return {
+    index: ix,
+    ords,
+    reasons: (ord) => {
+      const num = numbers.get(ord)?.reasons ?? [];
+      return inWords[ord] === 1 && shared ? (num.length > 0 ? [...num, shared] : [shared]) : num;
+    },
+    exact: (ord) => (numbers.get(ord)?.score ?? Infinity) < 2 * TIER,
+  };
+}
+
+/**
+ * Parts holding every word (`all`) or any (`some`); each word is a list of terms (a prefix gives several). Counts,
+ * per part found, the words matched and those in its title. Posting lists are walked with a count per ordinal, the
+ * rarest word first, so a phrase of common words costs a few passes over arrays.
+ */
+function matchWords(ix: SearchIndex, words: string[][], mode: 'all' | 'some') {
+  const n = words.length;
+  const count = new Uint8Array(ix.capacity);
+  const seen = new Uint8Array(ix.capacity);
+  const ords: number[] = [];
+  const order = words.map((terms, i) => ({ terms, i, size: terms.reduce((s, t) => s + ix.postingCount('all', t), 0) })).sort((a, b) => a.size - b.size);
+  if (mode === 'all' && order.some((w) => w.size === 0)) return { ords, matched: new Uint8Array(0), inTitle: new Uint8Array(0) };
+  const visit = (field: 'all' | 'title', term: string, each: (ord: number) => void) => {
+    const { base, stale, extra } = ix.postings(field, term);
+    for (let k = 0; k < base.length; k++) {
+      const ord = base[k]!;
+      if (stale[ord] === 0) each(ord);
+    }
+    if (extra) for (const ord of extra) each(ord);
+  };
+  order.forEach(({ terms }, step) => {
+    const last = step === n - 1;
+    for (const t of terms) {
+      if (mode === 'all') {
+        // Inlined: this loop runs once per posting of every word.
+        const { base, stale, extra } = ix.postings('all', t);
+        for (let k = 0; k < base.length; k++) {
+          const ord = base[k]!;
+          if (count[ord] === step && stale[ord] === 0) {
+            count[ord] = step + 1;
+            if (last) ords.push(ord);
+          }
+        }
+        if (extra) {
+          for (const ord of extra) {
+            if (count[ord] === step) {
+              count[ord] = step + 1;
+              if (last) ords.push(ord);
+            }
+          }
+        }
+      } else {
+        visit('all', t, (ord) => {
+          if (seen[ord] === step + 1) return;
+          seen[ord] = step + 1;
+          if (count[ord] === 0) ords.push(ord);
+          count[ord] = count[ord]! + 1;
+        });
+      }
+    }
+  });
+  const titleCount = new Uint8Array(ix.capacity);
+  seen.fill(0);
+  words.forEach((terms, i) => {
+    for (const t of terms) {
+      visit('title', t, (ord) => {
+        if (seen[ord] !== i + 1 && (mode === 'all' ? count[ord] === n : count[ord]! > 0)) {
+          seen[ord] = i + 1;
+          titleCount[ord] = titleCount[ord]! + 1;
+        }
+      });
+    }
+  });
+  const matched = new Uint8Array(ords.length);
+  const inTitle = new Uint8Array(ords.length);
+  for (let k = 0; k < ords.length; k++) {
+    matched[k] = count[ords[k]!]!;
+    inTitle[k] = titleCount[ords[k]!]!;
+  }
+  return { ords, matched, inTitle };
 }
 
 export type SearchService = ReturnType<typeof createSearchService>;

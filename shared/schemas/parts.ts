@@ -124,3 +124,20 @@ export const FrameSummarySchema = z.object({
 });
 export type FrameSummary = z.infer<typeof FrameSummarySchema>;
 export const FramesResponseSchema = z.object({ items: z.array(FrameSummarySchema) });
+
+/** Search as you type: a few parts for what is typed so far (GET /api/parts/suggest?q=). */
+export const SUGGEST_LIMIT = 8;
+export const SuggestQuerySchema = z.object({ q: z.string().trim().min(1, 'type something to search for').max(QUERY_MAX_LENGTH) });
+export const PartSuggestionSchema = z.object({
+  partNumber: z.string(),
+  title: z.string(),
+  status: z.enum(PART_STATUSES),
+  supersededBy: z.string().nullable(),
+  /** Why it came up, in words ("Cross-reference IX 354-3110"). */
+  reason: z.string(),
+  /** The number typed, when it is exactly this part's number or one of its aliases. */
+  exact: z.boolean(),
+});
+export type PartSuggestion = z.infer<typeof PartSuggestionSchema>;
+export const PartSuggestionsSchema = z.object({ q: z.string(), items: z.array(PartSuggestionSchema), total: z.number().int() });
+export type PartSuggestions = z.infer<typeof PartSuggestionsSchema>;

@@ -16,19 +16,29 @@ declare module 'react-aria-components' {
   }
 }
 
+// Search as you type: the combobox (and the accessible-list library) loads just after the page, the plain field
+// standing in until then, so the first page carries none of it.
+const PartSearchBox = lazy(() => import('../components/ui/part-search-box').then((m) => ({ default: m.PartSearchBox })));
+const headerInputClass = 'min-h-11 w-full rounded-l-md border border-cast-line bg-white px-3 text-ink placeholder:text-cast focus:border-temper';
+
 function HeaderSearch() {
   const [params] = useSearchParams();
   const navigate = useNavigate();
   const current = params.get('q') ?? '';
   const [value, setValue] = useState(current);
+  // Whether the stand-in field had focus when the combobox arrived, so typing carries on in it.
+  const [typing, setTyping] = useState(false);
   useEffect(() => setValue(current), [current]);
-  const submit = (e: FormEvent) => {
-    e.preventDefault();
+  const search = () => {
     const q = value.trim();
     navigate(q ? `/catalogue?q=${encodeURIComponent(q)}` : '/catalogue');
   };
-  return (
-    <form role="search" onSubmit={submit} className="flex w-full max-w-xl items-stretch">
+  const submit = (e: FormEvent) => {
+    e.preventDefault();
+    search();
+  };
+  const plain = (
+    <>
       <label htmlFor="header-search" className="sr-only">
         Search the catalogue
       </label>
@@ -37,11 +47,32 @@ function HeaderSearch() {
         type="search"
         value={value}
         onChange={(e) => setValue(e.target.value)}
+        onFocus={() => setTyping(true)}
+        onBlur={() => setTyping(false)}
         placeholder="part number or words"
         maxLength={100}
         autoComplete="off"
-        className="min-h-11 w-full rounded-l-md border border-cast-line bg-white px-3 text-ink placeholder:text-cast focus:border-temper"
+        className={headerInputClass}
       />
+    </>
+  );
+  return (
+    <form role="search" onSubmit={submit} className="flex w-full max-w-xl items-stretch">
+      <Suspense fallback={plain}>
+        <PartSearchBox
+          id="header-search"
+          label="Search the catalogue"
+          labelHidden
+          value={value}
+          onChange={setValue}
+          onPick={(s) => navigate(`/parts/${encodeURIComponent(s.partNumber)}`)}
+          onEnter={search}
+          placeholder="part number or words"
+          maxLength={100}
+          autoFocus={typing}
+          inputClassName={headerInputClass}
+        />
+      </Suspense>
       <button type="submit" className="inline-flex min-h-11 items-center gap-1 rounded-r-md bg-temper px-4 font-semibold text-white hover:bg-temper-deep">
         <Search aria-hidden className="size-4" />
         Search

@@ -2,7 +2,10 @@ import { spawn } from 'node:child_process';
 import fs from 'node:fs';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { Worker } from 'node:worker_threads';
 import { buildServer } from '../../scripts/build-server';
+import { SearchIndex, type Snapshot } from '../../server/services/search-index';
+import { createTestDb } from '../support/test-app';
 import { freePort } from '../support/server-process';
 
 /**
@@ -97,4 +100,23 @@ describe('the server compiled ahead of time', () => {
       await again.stop();
     }
   }, 120_000);
+
+  it('search worker bundle: the app starts it beside itself, and it reads the catalogue into an index snapshot', async () => {
+    // The app bundle finds the worker beside itself (search.ts: new URL('./search-worker.mjs', import.meta.url)).
+    expect(fs.readFileSync(path.join(outdir, 'index.mjs'), 'utf8')).toContain('./search-worker.mjs');
+    const { db, dir } = createTestDb();
+    try {
+      const snapshot = await new Promise<Snapshot>((resolve, reject) => {
+        const worker = new Worker(path.join(outdir, 'search-worker.mjs'), { workerData: { file: db.$client.name } });
+        worker.once('message', resolve);
+        worker.once('error', reject);
+      });
+      const parts = Number(db.$client.prepare('SELECT count(*) FROM parts').pluck().get());
+      expect(snapshot.rows).toHaveLength(parts);
+      expect(new SearchIndex(snapshot).numbersAt('flat', 'FUL200203')[0]?.shown).toBe('FUL-20-0203');
+    } finally {
+      db.$client.close();
+      fs.rmSync(dir, { recursive: true, force: true });
+    }
+  }, 60_000);
 });

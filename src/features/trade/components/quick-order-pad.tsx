@@ -3,6 +3,7 @@ import { useEffect, useMemo, useRef, useState } from 'react';
 import { Link } from 'react-router-dom';
 import type { OrderRowResult } from '../../../../shared/schemas/orders';
 import { Button } from '../../../components/ui/button';
+import { PartSearchBox } from '../../../components/ui/part-search-box';
 import { useAddLinesToCart } from '../api/add-lines-to-cart';
 import { useCheckLines, type TypedLine } from '../api/check-lines';
 import { RowResult } from './row-result';
@@ -83,7 +84,7 @@ export function QuickOrderPad({ onAdded }: { onAdded: () => void }) {
   return (
     <div className="grid min-w-0 gap-4">
       <p className="text-cast">
-        Type a part number and a quantity; press Enter to move on and to start a new row. Each row is checked as you type.
+        Type a part number, a cross-reference or an earlier number and a quantity; parts are suggested as you type (arrow keys and Enter to take one). Press Enter to move on and to start a new row. Each row is checked as you type.
       </p>
       <div className="min-w-0">
         <table className="w-full border-collapse">
@@ -114,25 +115,22 @@ export function QuickOrderPad({ onAdded }: { onAdded: () => void }) {
                 <tr key={row.key} className="border-b border-cast-line align-top max-md:grid max-md:grid-cols-[1.5rem_minmax(0,1fr)_5.5rem_2.75rem] max-md:items-start">
                   <td className="tabular px-2 py-3 text-cast">{i + 1}</td>
                   <td className="px-2 py-2">
-                    <label htmlFor={`qo-part-${row.key}`} className="sr-only">
-                      Part number, row {i + 1}
-                    </label>
-                    <input
+                    <PartSearchBox
                       id={`qo-part-${row.key}`}
+                      label={`Part number, row ${i + 1}`}
+                      labelHidden
                       value={row.partNumber}
                       maxLength={40}
-                      autoComplete="off"
-                      spellCheck={false}
-                      aria-invalid={invalid}
-                      aria-describedby={`qo-result-${row.key}`}
-                      onChange={(e) => update(row.key, { partNumber: e.target.value })}
-                      onKeyDown={(e) => {
-                        if (e.key === 'Enter') {
-                          e.preventDefault();
-                          document.getElementById(`qo-qty-${row.key}`)?.focus();
-                        }
+                      invalid={invalid}
+                      describedBy={`qo-result-${row.key}`}
+                      onChange={(partNumber) => update(row.key, { partNumber })}
+                      // A part picked from the list is taken as its number; the quantity is next.
+                      onPick={(s) => {
+                        update(row.key, { partNumber: s.partNumber });
+                        document.getElementById(`qo-qty-${row.key}`)?.focus();
                       }}
-                      className={`part-no min-h-11 w-full rounded-md md:min-w-44 border bg-white px-3 uppercase ${invalid ? 'border-2 border-oxide' : 'border-cast-line'}`}
+                      onEnter={() => document.getElementById(`qo-qty-${row.key}`)?.focus()}
+                      inputClassName={`part-no min-h-11 w-full rounded-md md:min-w-44 border bg-white px-3 uppercase ${invalid ? 'border-2 border-oxide' : 'border-cast-line'}`}
                     />
                   </td>
                   <td className="px-2 py-2">
