@@ -82,7 +82,7 @@ export const parts = sqliteTable(
     /** On hand less reserved over all bins, kept by the stock service with every movement (a test checks it). */
     available: integer('available').notNull().default(0),
     /**
-     * The bearing in the part's specs, copied by triggers (drizzle/0011) whenever the specs are written, so the
+     * The bearing in the part's specs, copied by triggers (drizzle/0014_list_indexes_and_counts.sql) whenever the specs are written, so the
      * catalogue filters and sorts by it through an index on parts. Never written by code: part_specs holds it.
      */
     bearing: text('bearing', { enum: BEARINGS }),
@@ -867,7 +867,7 @@ export const partsListLines = sqliteTable(
 
 /**
  * How many parts share each combination of the catalogue's filters (category, frame, bearing, status, in stock),
- * kept by triggers on parts and part_specs in the same statement as the change (drizzle/0011), so the list's total
+ * kept by triggers on parts and part_specs in the same statement as the change (drizzle/0014_list_indexes_and_counts.sql), so the list's total
  * and its facet counts add up a few hundred rows instead of counting the parts. '' stands for no frame or no bearing.
  * A combination whose parts all went keeps its row at zero.
  */

@@ -63,7 +63,7 @@ describe('database constraints', () => {
       for (const event of ['insert', 'update', 'delete']) expect(triggers).toContain(`${table}_changed_${event}`);
     }
     expect(triggers).toContain('parts_available_changed');
-    // The catalogue's kept counts and the bearing copied onto each part (drizzle/0011).
+    // The catalogue's kept counts and the bearing copied onto each part (drizzle/0014_list_indexes_and_counts.sql).
     for (const name of ['catalog_counts_part_insert', 'catalog_counts_part_update', 'catalog_counts_part_delete', 'parts_bearing_on_insert']) expect(triggers).toContain(name);
     for (const event of ['insert', 'update', 'delete']) expect(triggers).toContain(`part_specs_bearing_${event}`);
   });
