@@ -47,6 +47,9 @@ export const SCREENS: Screen[] = [
   { role: 'dealer', path: '/returns/new', name: 'new return' },
   { role: 'dealer', path: '/account', name: 'trade account' },
   { role: 'dealer', path: '/fitment/saved/{savedCheck}/logs', name: 'shaft-speed logs' },
+  { role: 'dealer', path: '/notices', name: 'notices' },
+  { role: 'dealer', path: '/account/statement', name: 'account statement' },
+  { role: 'dealer', path: '/trade/lists', name: 'parts lists' },
   // Floor
   { role: 'warehouse', path: '/floor', name: 'pick queue' },
   { role: 'warehouse', path: '/floor/pick?orders={order}', name: 'pick list' },
@@ -64,6 +67,7 @@ export const SCREENS: Screen[] = [
   { role: 'admin', path: '/office/dealers', name: 'dealer accounts' },
   { role: 'admin', path: '/office/payment-alerts', name: 'payment alerts' },
   { role: 'admin', path: '/office/mail', name: 'office mail' },
+  { role: 'admin', path: '/office/audit', name: 'audit log' },
   { role: 'admin', path: '/dev/inbox', name: 'development inbox' },
 ];
 
