@@ -155,11 +155,13 @@ describe('returns that fit the buyer and the kind', () => {
     expect(new Set([...first.items, ...second.items].map((r) => r.id)).size).toBe(23);
     expect(((await dealer.client.get('/api/returns?page=99')).body as Page).page).toBe(2);
 
-    const prepare = vi.spyOn(t.db.$client, 'prepare');
+    // Every query Drizzle runs passes its session's prepareQuery (the statement itself may be a kept one, server/db/client.ts).
+    const session = (t.db as unknown as { session: { prepareQuery: (query: { sql: string }, ...rest: unknown[]) => unknown } }).session;
+    const prepare = vi.spyOn(session, 'prepareQuery');
     try {
       const staff = (await floor.get('/api/warehouse/returns?status=all')).body as Page;
       expect(staff.items).toHaveLength(20);
-      const photoQueries = prepare.mock.calls.filter(([text]) => /from "return_photos"/i.test(String(text)));
+      const photoQueries = prepare.mock.calls.filter(([query]) => /from "return_photos"/i.test(query.sql));
       expect(photoQueries).toHaveLength(1);
     } finally {
       prepare.mockRestore();
