@@ -51,7 +51,9 @@ test('a retail buyer searches, opens a part, adds it and reaches the card step w
   await emptyCart(page, origin);
   await page.goto('/');
 
-  const search = page.getByRole('searchbox', { name: 'Search the catalogue' });
+  // The header's search-as-you-type box (a combobox once its code has loaded, just after the page).
+  const search = page.getByRole('combobox', { name: 'Search the catalogue' });
+  await expect(search).toBeVisible();
   await tabTo(page, search);
   await page.keyboard.type('gasket');
   await page.keyboard.press('Enter');
