@@ -220,4 +220,13 @@ test('an administrator finds a part and changes its price with the keyboard alon
   const stored = z.object({ priceCents: z.number() }).parse(await (await page.request.get('/api/admin/parts/FLG-50-0201')).json());
   expect(stored.priceCents).toBe(Math.round(Number(next) * 100));
   await keepScreenshot(page, 'keyboard-admin-price-saved');
+
+  // Put the price back, the same way: later journeys on this database read the demo price.
+  await tabTo(page, price, { back: true });
+  await typeHere(page, before.replace(/[^0-9.]/g, ''));
+  await tabTo(page, save);
+  await page.keyboard.press('Enter');
+  await expect
+    .poll(async () => z.object({ priceCents: z.number() }).parse(await (await page.request.get('/api/admin/parts/FLG-50-0201')).json()).priceCents)
+    .toBe(Math.round(Number(before.replace(/[^0-9.]/g, '')) * 100));
 });
