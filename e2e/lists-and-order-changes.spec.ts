@@ -1,6 +1,7 @@
 import type { APIRequestContext, Page } from '@playwright/test';
 import { DEMO_EMAILS, DEMO_PASSWORD, expect, test } from './fixtures';
 import { keepScreenshot } from './support/screens';
+import { receiveStock } from './support/stock';
 
 // The machine is shared: screens wait for their data a little longer than the default.
 const see = expect.configure({ timeout: 15_000 });
@@ -39,6 +40,11 @@ async function emptyCart(page: Page) {
   const cart = (await (await page.request.get('/api/cart')).json()) as { lines: Array<{ id: number }> };
   for (const line of cart.lines) expect((await page.request.delete(`/api/cart/lines/${line.id}`, { headers: { origin } })).ok()).toBe(true);
 }
+
+// The journeys order these: stock them up, whatever earlier journeys on this database bought.
+test.beforeEach(async ({ playwright, baseURL }) => {
+  await receiveStock((o) => playwright.request.newContext(o), baseURL ?? 'http://127.0.0.1:3100', ['AWL-10-0202', 'AWL-10-0203', 'FLG-50-0201']);
+});
 
 for (const view of VIEWS) {
   test.describe(`at ${view.name} width`, () => {

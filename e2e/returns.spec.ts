@@ -48,6 +48,9 @@ const money = (cents: number) => new Intl.NumberFormat('en-US', { style: 'curren
  */
 async function partlyShippedCoreOrder(page: Page, baseURL: string, tracking: string) {
   const headers = { origin: new URL(baseURL).origin };
+  // Start from an empty cart: the order must hold only the exchange unit, whatever an earlier journey left.
+  const cart = (await (await page.request.get('/api/cart')).json()) as { lines: Array<{ id: number }> };
+  for (const line of cart.lines) expect((await page.request.delete(`/api/cart/lines/${line.id}`, { headers })).ok()).toBe(true);
   const found = await page.request.get('/api/parts?q=exchange%20unit&inStock=true&category=turbochargers&pageSize=50');
   expect(found.ok()).toBe(true);
   const items = ((await found.json()) as { items: Array<{ partNumber: string; condition: string; coreDepositCents: number; stock: { available: number } }> }).items;
