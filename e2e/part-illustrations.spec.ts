@@ -2,6 +2,7 @@ import { z } from 'zod';
 import type { APIRequestContext } from '@playwright/test';
 import { expect, test } from './fixtures';
 import { keepScreenshot } from './support/screens';
+import { emptyCart } from './support/cart';
 
 const PartsSchema = z.object({ items: z.array(z.object({ partNumber: z.string(), title: z.string(), stock: z.object({ available: z.number() }) })) });
 
@@ -59,6 +60,7 @@ test('cart lines show the drawing of each part', async ({ page, login, axe, base
 test('pick-list lines show the drawing of each part', async ({ page, login, axe, baseURL }) => {
   const origin = originOf(baseURL);
   await login('dealer');
+  await emptyCart(page.request, origin);
   for (const words of ['V-band clamp', 'restrictor']) await addToCart(page.request, origin, (await stockedFitting(page.request, words)).partNumber);
   const checkout = await page.request.post('/api/checkout', { data: { method: 'account', purchaseOrder: 'PO-E2E-DRAW' }, headers: { origin } });
   expect(checkout.ok(), 'checkout on account').toBe(true);

@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { DEMO_EMAILS, DEMO_PASSWORD, expect, test, type Role } from './fixtures';
 import { keepScreenshot } from './support/screens';
+import { emptyCart } from './support/cart';
 
 const PHONE = { width: 390, height: 844 };
 const PartsSchema = z.object({ items: z.array(z.object({ partNumber: z.string(), condition: z.string(), stock: z.object({ available: z.number() }) })) });
@@ -45,6 +46,7 @@ test.describe('the Floor on a handheld', () => {
   test('a phone shows the Floor header and the scan field first, focused, on goods-in, stock and a pick list', async ({ page, login, baseURL }) => {
     const origin = new URL(baseURL ?? 'http://127.0.0.1:3100').origin;
     await login('dealer');
+    await emptyCart(page.request, origin);
     const parts = PartsSchema.parse(await (await page.request.get('/api/parts?limit=40')).json());
     const part = parts.items.find((p) => p.condition === 'new' && p.stock.available >= 3);
     if (!part) throw new Error('no part in stock');

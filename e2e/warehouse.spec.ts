@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { expect, test } from './fixtures';
 import { keepScreenshot } from './support/screens';
+import { emptyCart } from './support/cart';
 
 const PartsSchema = z.object({ items: z.array(z.object({ partNumber: z.string(), condition: z.string(), stock: z.object({ available: z.number() }) })) });
 const LineSchema = z.object({ lineId: z.number(), partNumber: z.string(), binCode: z.string().nullable(), quantity: z.number(), toPick: z.number(), picked: z.number() });
@@ -21,6 +22,7 @@ test('warehouse staff pick an order by typing part numbers (a wrong one first), 
   // A dealer orders on account: two in-stock parts, one of them twice, so a typed quantity is exercised too.
   const dealer = await page.request.post('/api/auth/sign-in/email', { data: { email: 'dealer@spoolyard.test', password: 'spoolyard-demo-1' }, headers: { origin } });
   expect(dealer.ok(), 'dealer sign-in').toBe(true);
+  await emptyCart(page.request, origin);
   const parts = PartsSchema.parse(await (await page.request.get('/api/parts?limit=40')).json());
   const chosen = parts.items.filter((p) => p.condition === 'new' && p.stock.available >= 3).slice(0, 2);
   expect(chosen).toHaveLength(2);
