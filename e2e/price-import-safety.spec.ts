@@ -46,7 +46,10 @@ for (const w of WIDTHS) {
       await keepScreenshot(page, `price-import-flagged-${w.name}`);
 
       // One row by its own checkbox.
-      await page.getByRole('checkbox', { name: new RegExp(`Acknowledge row 2 \\(${w.hundredfold}\\)`) }).check();
+      // The box shows the acknowledgement the server kept, so it turns checked after the round trip, not on the click.
+      const acknowledge = page.getByRole('checkbox', { name: new RegExp(`Acknowledge row 2 \\(${w.hundredfold}\\)`) });
+      await acknowledge.click();
+      await expect(acknowledge).toBeChecked();
       await expect(page.getByText('2 flagged rows wait for a look.')).toBeVisible();
 
       // A tighter share flags the gentle 4 % change too; back to 30 % it is clear again.
