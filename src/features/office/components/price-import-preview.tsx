@@ -12,7 +12,7 @@ import { useApplyPriceImport } from '../api/apply-price-import';
 import { useDropPriceImportRow } from '../api/drop-price-import-row';
 import { useFixPriceImportRow } from '../api/fix-price-import-row';
 import { useSetPriceImportThreshold } from '../api/set-price-import-threshold';
-import { OfficeDialog } from './office-dialog';
+import { ModalDialog } from '../../../components/ui/modal-dialog';
 
 type Filter = 'all' | 'flagged' | 'changed' | 'new' | 'error';
 type ShownRow = PriceImport['rows'][number];
@@ -310,7 +310,7 @@ function ThresholdForm({ result }: { result: PriceImport }) {
 function ApplyConfirm({ result, isOpen, onClose, onApply, pending }: { result: PriceImport; isOpen: boolean; onClose: () => void; onApply: () => void; pending: boolean }) {
   const { changed, new: added, unchanged } = result.counts;
   return (
-    <OfficeDialog title="Apply this price list?" isOpen={isOpen} onClose={onClose}>
+    <ModalDialog title="Apply this price list?" isOpen={isOpen} onClose={onClose}>
       <p>
         <span className="font-mono">{result.fileName}</span> changes the catalogue at once; shop and search show the new prices straight away.
       </p>
@@ -329,7 +329,7 @@ function ApplyConfirm({ result, isOpen, onClose, onApply, pending }: { result: P
           Go back
         </Button>
       </div>
-    </OfficeDialog>
+    </ModalDialog>
   );
 }
 

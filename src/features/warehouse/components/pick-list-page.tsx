@@ -9,7 +9,7 @@ import { ApiError } from '../../../lib/api-client';
 import { usePickList } from '../api/get-pick-list';
 import { useRecordPick } from '../api/record-pick';
 import { currentLine, isLineDone, normalisePartNumber, pickTarget, remainingToPick } from '../lib/pick-progress';
-import { FloorDialog } from './floor-dialog';
+import { ModalDialog } from '../../../components/ui/modal-dialog';
 import { ScanFeedback, type ScanOutcome } from './scan-feedback';
 import { ScanField } from './scan-field';
 
@@ -448,7 +448,7 @@ function ShortPickDialog({ line, isOpen, onClose, onDone }: { line: PickLine; is
   };
 
   return (
-    <FloorDialog title="Bin is short" isOpen={isOpen} onClose={onClose}>
+    <ModalDialog title="Bin is short" isOpen={isOpen} onClose={onClose}>
       <form onSubmit={confirm} className="grid gap-4" noValidate>
         <p className="text-lg">
           Bin <span className="part-no">{line.binCode ?? '—'}</span> should hold <span className="tabular font-semibold">{remaining}</span> more of{' '}
@@ -487,6 +487,6 @@ function ShortPickDialog({ line, isOpen, onClose, onDone }: { line: PickLine; is
           </Button>
         </div>
       </form>
-    </FloorDialog>
+    </ModalDialog>
   );
 }
