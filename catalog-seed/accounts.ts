@@ -14,6 +14,8 @@ export const DEMO_ACCOUNTS = [
   { role: 'dealer', email: 'dealer@spoolyard.test', name: 'Morgan Tillbrook', dealer: { companyName: 'Tillbrook Boost Works', tier: 'preferred', creditLimitCents: 2_500_000, paymentTermsDays: 30, zone: 'national', line1: '14 Kiln Lane', city: 'Emberleigh', postcode: 'EM4 2QT' } },
   { role: 'dealer', email: 'dealer2@spoolyard.test', name: 'Sam Okonedo-Hale', dealer: { companyName: 'Quayside Marine Engines', tier: 'standard', creditLimitCents: 500_000, paymentTermsDays: 14, zone: 'remote', line1: '3 Slipway Road', city: 'Port Fennick', postcode: 'PF1 8LD' } },
   { role: 'warehouse', email: 'warehouse@spoolyard.test', name: 'Jo Ferrand' },
+  // The Bench: service requests, inspections, quotes and rebuilds.
+  { role: 'workshop', email: 'workshop@spoolyard.test', name: 'Dana Quillfeather' },
   // A second buyer at the first dealer: the account's parts lists are shared between its users.
   { role: 'dealer', email: 'dealer-bench@spoolyard.test', name: 'Rowan Kestleby', memberOf: 'Tillbrook Boost Works' },
   { role: 'admin', email: 'admin@spoolyard.test', name: 'Alex Varga-Moor' },

@@ -27,8 +27,8 @@ export interface Started {
 }
 
 /** Runs a compiled entry under plain node with only the given environment; resolves when its output matches `ready`. */
-async function startNode(what: string, file: string, env: Record<string, string>, ready: RegExp, cwd: string): Promise<Started> {
-  const child: ChildProcess = spawn(process.execPath, [file], { cwd, env: { PATH: process.env.PATH, ...env }, stdio: ['ignore', 'pipe', 'pipe'] });
+async function startNode(what: string, file: string, env: Record<string, string>, ready: RegExp, cwd: string, execArgv: string[] = []): Promise<Started> {
+  const child: ChildProcess = spawn(process.execPath, [...execArgv, file], { cwd, env: { PATH: process.env.PATH, ...env }, stdio: ['ignore', 'pipe', 'pipe'] });
   let output = '';
   await new Promise<void>((resolve, reject) => {
     const timer = setTimeout(() => reject(new Error(`${what} did not start within 60 s:\n${output}`)), 60_000);
@@ -116,8 +116,10 @@ export interface CheckoutRunOptions {
   processes: number;
   seconds: number;
   buyers: number;
-  /** Extra settings for the app (e.g. NODE_OPTIONS to profile it). */
+  /** Extra settings for the app. */
   serverEnv?: Record<string, string>;
+  /** Node flags for the app and the fakes (e.g. `--cpu-prof` to profile them). */
+  execArgv?: string[];
   /** Called just before and just after the measured span, with the app's process id (e.g. to signal a profiler). */
   onMeasure?: (phase: 'start' | 'end', appPid: number) => void;
   log?: (message: string) => void;
@@ -200,8 +202,8 @@ export async function runCheckout(o: CheckoutRunOptions): Promise<CheckoutRun> {
     PAYMENTS_FAKE_HOST: '127.0.0.1',
     PAYMENTS_WEBHOOK_URL: `${appUrl}/api/webhooks/payments`,
     PAYMENTS_WEBHOOK_SECRET: WEBHOOK_SECRET,
-  }, /listening on/, o.root);
-  const mail = await startNode('the mail fake', o.build.mail, { MAIL_FAKE_SMTP_PORT: String(smtpPort), MAIL_FAKE_HTTP_PORT: String(inboxPort), MAIL_FAKE_HOST: '127.0.0.1' }, /SMTP on/, o.root);
+  }, /listening on/, o.root, o.execArgv);
+  const mail = await startNode('the mail fake', o.build.mail, { MAIL_FAKE_SMTP_PORT: String(smtpPort), MAIL_FAKE_HTTP_PORT: String(inboxPort), MAIL_FAKE_HOST: '127.0.0.1' }, /SMTP on/, o.root, o.execArgv);
   let server: Started | null = null;
   try {
     server = await startNode('the app', o.build.app, {
@@ -219,7 +221,7 @@ export async function runCheckout(o: CheckoutRunOptions): Promise<CheckoutRun> {
       MAIL_PORT: String(smtpPort),
       MAIL_INBOX_URL: `http://127.0.0.1:${inboxPort}`,
       ...o.serverEnv,
-    }, /is running at/, o.root);
+    }, /is running at/, o.root, o.execArgv);
     const srv = server;
     const app = { url: appUrl } as TestApp;
 

@@ -20,7 +20,8 @@ export type PartCondition = (typeof PART_CONDITIONS)[number];
 /** How a part is known by another number: a cross-reference, or a number it replaced. */
 export const ALIAS_KINDS = ['cross-reference', 'superseded'] as const;
 
-export const ROLES = ['customer', 'dealer', 'warehouse', 'admin'] as const;
+/** `workshop`: the Bench's staff (service requests, inspections, quotes, rebuilds); a role of its own. */
+export const ROLES = ['customer', 'dealer', 'warehouse', 'workshop', 'admin'] as const;
 export type Role = (typeof ROLES)[number];
 
 export const DEALER_STATUSES = ['pending', 'approved', 'declined'] as const;
@@ -90,3 +91,29 @@ export type NoticeKind = (typeof NOTICE_KINDS)[number];
 /** What a catalogue audit entry records: each change to a part, by hand or by a price import. */
 export const AUDIT_ACTIONS = ['part-created', 'part-edited', 'part-superseded', 'part-links-set', 'part-photos-added', 'price-imported', 'part-imported'] as const;
 export type AuditAction = (typeof AUDIT_ACTIONS)[number];
+
+/** How a unit came onto our books: sold by us (serial given at packing) or first seen when booked in for service. */
+export const UNIT_ORIGINS = ['sold', 'booked-in'] as const;
+export type UnitOrigin = (typeof UNIT_ORIGINS)[number];
+
+/**
+ * One line of a unit's history, newest last. The workshop's steps, the sale, shaft-speed logs and reminders each
+ * write one; `ref` names what the line is about (an order number, a service request number, a log id).
+ */
+export const UNIT_EVENT_KINDS = [
+  'sold',
+  'registered',
+  'booked-in',
+  'received',
+  'inspected',
+  'quoted',
+  'approved',
+  'declined',
+  'rebuilt',
+  'tested',
+  'shipped',
+  'log-uploaded',
+  'reminder-sent',
+  'note',
+] as const;
+export type UnitEventKind = (typeof UNIT_EVENT_KINDS)[number];

@@ -20,6 +20,8 @@ import {
   RETURN_STATUSES,
   ROLES,
   STOCK_MOVEMENT_KINDS,
+  UNIT_EVENT_KINDS,
+  UNIT_ORIGINS,
 } from '../../shared/allowed-values';
 import { DEALER_TIER_KEYS, DELIVERY_ZONE_KEYS } from '../../shared/pricing';
 import { BOOST_UNITS } from '../../shared/schemas/shaft-logs';
@@ -28,6 +30,7 @@ import { BEARINGS, CATEGORIES, CATEGORY_SLUGS, type Bearing } from '../../shared
 import type { PriceImportRow } from '../../shared/schemas/admin-catalog';
 import type { PriceFlag } from '../../shared/price-import-flags';
 import { SHAFT_LOG_MAX_ROWS } from '../../shared/schemas/shaft-logs';
+import { APPLICATIONS } from '../../shared/schemas/fitment';
 import { check, index, integer, primaryKey, real, sqliteTable, text, uniqueIndex } from 'drizzle-orm/sqlite-core';
 
 /** The order the shop lists categories in; the same expression sorts the catalogue and backs an index. */
@@ -882,4 +885,56 @@ export const catalogCounts = sqliteTable(
     partCount: integer('part_count').notNull(),
   },
   (t) => [primaryKey({ columns: [t.category, t.frameCode, t.bearing, t.status, t.inStock] })],
+);
+
+/*
+ * Units: each turbocharger or cartridge we know by its serial (shared/unit-serial.ts) — sold by us, or first seen when
+ * a customer books it in for service — and its history, one row per event.
+ */
+export const units = sqliteTable(
+  'units',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    serial: text('serial').notNull(),
+    /** The catalogue part the unit is (a complete unit or a cartridge), when known. */
+    partId: integer('part_id').references(() => parts.id),
+    frameCode: text('frame_code').references(() => frames.code),
+    bearing: text('bearing', { enum: BEARINGS }).notNull(),
+    /** How the unit is used (the fitment check's applications); sets its service interval. */
+    application: text('application', { enum: APPLICATIONS }).notNull().default('street'),
+    origin: text('origin', { enum: UNIT_ORIGINS }).notNull(),
+    /** Who has the unit now: the buyer who bought it or booked it in, and their trade account when they have one. */
+    ownerUserId: text('owner_user_id').references(() => user.id, { onDelete: 'set null' }),
+    dealerAccountId: integer('dealer_account_id').references(() => dealerAccounts.id),
+    /** The order line it left on, when we sold it. */
+    orderLineId: integer('order_line_id').references(() => orderLines.id),
+    createdAt: createdAt(),
+  },
+  (t) => [
+    uniqueIndex('units_serial_uq').on(t.serial),
+    index('units_owner_idx').on(t.ownerUserId),
+    index('units_dealer_idx').on(t.dealerAccountId),
+    index('units_part_idx').on(t.partId),
+    index('units_frame_idx').on(t.frameCode),
+    index('units_order_line_idx').on(t.orderLineId),
+    oneOf('units', 'bearing', BEARINGS),
+    oneOf('units', 'application', APPLICATIONS),
+    oneOf('units', 'origin', UNIT_ORIGINS),
+  ],
+);
+
+export const unitEvents = sqliteTable(
+  'unit_events',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    unitId: integer('unit_id')
+      .notNull()
+      .references(() => units.id, { onDelete: 'cascade' }),
+    kind: text('kind', { enum: UNIT_EVENT_KINDS }).notNull(),
+    summary: text('summary').notNull(),
+    ref: text('ref'),
+    actorUserId: text('actor_user_id').references(() => user.id, { onDelete: 'set null' }),
+    createdAt: createdAt(),
+  },
+  (t) => [index('unit_events_unit_idx').on(t.unitId, t.id), index('unit_events_actor_idx').on(t.actorUserId), oneOf('unit_events', 'kind', UNIT_EVENT_KINDS)],
 );

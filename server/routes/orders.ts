@@ -11,7 +11,7 @@ export function checkoutRouter(orders: OrderService, cart: CartService): Router 
   const router = Router();
   router.post('/', async (req, res) => {
     const user = requireUser(res);
-    if (user.role === 'warehouse') throw new HttpError(403, 'Warehouse accounts do not place orders');
+    if (user.role === 'warehouse' || user.role === 'workshop') throw new HttpError(403, 'Staff accounts do not place orders: sign in with a buyer\'s account');
     const input = parseOr400(CheckoutSchema, req.body, 'Some checkout details are missing or not valid');
     const owner = cartOwner(req, res, cart, false)!;
     const answer = await orders.checkout(user, owner, input);

@@ -84,12 +84,13 @@ function HeaderSearch() {
 const navClass = ({ isActive }: { isActive: boolean }) =>
   `rounded px-2 py-1 font-semibold ${isActive ? 'bg-temper-tint text-temper-deep' : 'text-ink hover:text-temper'}`;
 
-type Workspace = 'Counter' | 'Floor' | 'Office';
+type Workspace = 'Counter' | 'Floor' | 'Office' | 'Bench';
 
-/** The building a path belongs to (DESIGN.md: Counter, Floor, Office). */
+/** The building a path belongs to (DESIGN.md: Counter, Floor, Office, Bench). */
 function workspaceOf(pathname: string): Workspace {
   if (pathname === '/floor' || pathname.startsWith('/floor/')) return 'Floor';
   if (pathname === '/office' || pathname.startsWith('/office/')) return 'Office';
+  if (pathname === '/bench' || pathname.startsWith('/bench/')) return 'Bench';
   return 'Counter';
 }
 
@@ -98,6 +99,7 @@ const WORKSPACE_LINKS: Record<Role, Array<{ name: Workspace; to: string }>> = {
   customer: [],
   dealer: [],
   warehouse: [{ name: 'Floor', to: '/floor' }],
+  workshop: [{ name: 'Bench', to: '/bench' }],
   admin: [{ name: 'Office', to: '/office' }],
 };
 

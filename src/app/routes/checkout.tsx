@@ -13,11 +13,11 @@ export function CheckoutRoute() {
   if (me.isError) return <ErrorState title="Checkout did not load" message={me.error.message} onRetry={() => me.refetch()} />;
   // The server merges the guest cart into the account at sign-in, so nothing is lost on the way.
   if (!me.data.user) return <Navigate to="/sign-in?next=/checkout" replace />;
-  if (me.data.user.role === 'warehouse') {
+  if (me.data.user.role === 'warehouse' || me.data.user.role === 'workshop') {
     return (
       <div className="grid gap-3">
         <h1 className="text-3xl font-bold">Checkout</h1>
-        <p>Warehouse accounts do not place orders. Sign in with a buyer's account to order.</p>
+        <p>Staff accounts do not place orders. Sign in with a buyer's account to order.</p>
       </div>
     );
   }

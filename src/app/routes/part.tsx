@@ -143,7 +143,7 @@ export function PartRoute() {
             </p>
           )}
           <StockBadge stock={p.stock} />
-          {me.data?.user?.role !== 'warehouse' && (
+          {me.data?.user?.role !== 'warehouse' && me.data?.user?.role !== 'workshop' && (
             <AddToCart
               partNumber={p.partNumber}
               retailCents={p.priceCents}

@@ -6,6 +6,7 @@ export const ROLE_LABELS: Record<Role, string> = {
   customer: 'Retail buyer',
   dealer: 'Dealer',
   warehouse: 'Warehouse staff',
+  workshop: 'Workshop staff',
   admin: 'Administrator',
 };
 
@@ -14,5 +15,6 @@ export const ROLE_HOME: Record<Role, string> = {
   customer: '/',
   dealer: '/',
   warehouse: '/floor',
+  workshop: '/bench',
   admin: '/office',
 };

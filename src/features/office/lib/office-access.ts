@@ -1,7 +1,7 @@
 import type { Me } from '../../../../shared/schemas/accounts';
 import type { OfficeAccess } from '../components/office-shell';
 
-const ROLE_WORDS: Record<NonNullable<Me['user']>['role'], string> = { customer: 'a retail buyer', dealer: 'a dealer', warehouse: 'warehouse staff', admin: 'an administrator' };
+const ROLE_WORDS: Record<NonNullable<Me['user']>['role'], string> = { customer: 'a retail buyer', dealer: 'a dealer', warehouse: 'warehouse staff', workshop: 'workshop staff', admin: 'an administrator' };
 
 /** Who may use the Office, from the signed-in user (the server checks again on every call). */
 export function officeAccess(me: { isPending: boolean; data?: Me | undefined }): OfficeAccess {
