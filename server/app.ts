@@ -15,6 +15,7 @@ import { apiNotFound, createErrorHandler } from './middleware/errors';
 import { loadSession, refuseCrossSite } from './middleware/session';
 import { authBodyLimit, authInputGuard, DEFAULT_SIGNIN_LIMITS, signInLimiters, uniformAnswers, type SignInLimits } from './middleware/auth-guard';
 import { noStorePersonal } from './middleware/no-store';
+import { fixedHeaders } from './middleware/fixed-headers';
 import { accountRouter } from './routes/account';
 import { adminDealersRouter } from './routes/admin-dealers';
 import { adminPaymentsRouter } from './routes/admin-payments';
@@ -147,9 +148,9 @@ export function createApp(deps: AppDeps) {
   const app = express();
   app.disable('x-powered-by');
   // The usual security headers; the page loads only its own scripts. Inline styles stay allowed for SVG charts
-  // and for caught e-mails shown in a sandboxed frame.
+  // and for caught e-mails shown in a sandboxed frame. Helmet works them out once; every answer gets the same set.
   app.use(
-    helmet({
+    fixedHeaders(helmet({
       contentSecurityPolicy: {
         directives: {
           defaultSrc: ["'self'"],
@@ -169,7 +170,7 @@ export function createApp(deps: AppDeps) {
       },
       crossOriginEmbedderPolicy: false,
       hsts: config.publicUrl.startsWith('https://'),
-    }),
+    })),
   );
   // Answers made per request (JSON, the page) are compressed as the client accepts; built files come precompressed
   // and cached catalogue lists carry their compressed bytes (services/catalog.ts), so neither is compressed again.

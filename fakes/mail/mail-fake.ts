@@ -97,7 +97,8 @@ export async function startMailFake(options: MailFakeOptions = {}): Promise<Mail
     closeTimeout: 1_000,
     logger: false,
     onData(stream, session, callback) {
-      simpleParser(stream)
+      // The inbox shows the text and HTML parts as sent: no HTML made from the text, no links found in it.
+      simpleParser(stream, { skipTextToHtml: true, skipTextLinks: true, skipImageLinks: true })
         .then((parsed) => {
           if ((stream as unknown as { sizeExceeded?: boolean }).sizeExceeded) {
             const error = Object.assign(new Error('Message exceeds the size limit'), { responseCode: 552 });

@@ -1,4 +1,6 @@
 import { createHmac } from 'node:crypto';
+import http from 'node:http';
+import https from 'node:https';
 import type { EventObject } from './payments-ledger';
 
 /**
@@ -44,6 +46,8 @@ export class WebhookDispatcher {
   private inFlight = 0;
   private idleWaiters: Array<() => void> = [];
   private closing = new AbortController();
+  private httpAgent = new http.Agent({ keepAlive: true });
+  private httpsAgent = new https.Agent({ keepAlive: true });
   private url: string | null;
 
   constructor(private readonly options: DispatcherOptions) {
@@ -111,6 +115,8 @@ export class WebhookDispatcher {
 
   close(): void {
     this.closing.abort();
+    this.httpAgent.destroy();
+    this.httpsAgent.destroy();
   }
 
   private async track<T>(work: Promise<T>): Promise<T> {
@@ -166,24 +172,47 @@ export class WebhookDispatcher {
       ok: false,
     };
     try {
-      const response = await fetch(url, {
-        method: 'POST',
-        headers: {
-          'Content-Type': 'application/json; charset=utf-8',
-          'Stripe-Signature': signWebhookPayload(payload, this.options.secret),
-          'User-Agent': 'Spoolyard-Payments-Fake/1.0 (webhooks)',
-        },
-        body: payload,
-        signal: AbortSignal.any([AbortSignal.timeout(this.options.timeoutMs), this.closing.signal]),
-      });
-      await response.arrayBuffer().catch(() => undefined);
-      attempt.status = response.status;
-      attempt.ok = response.status >= 200 && response.status < 300;
+      attempt.status = await this.post(url, payload);
+      attempt.ok = attempt.status >= 200 && attempt.status < 300;
     } catch (error) {
       attempt.error = error instanceof Error ? `${error.name}: ${error.message}` : String(error);
     }
     record.attempts.push(attempt);
     if (attempt.ok) record.state = 'delivered';
     return structuredClone(attempt);
+  }
+
+  /**
+   * One POST on a kept-alive connection (node:http rather than fetch: a busy shop gets a webhook per payment, and the
+   * fake should cost little beside the app it serves). Answers the status; throws on a network error or timeout.
+   */
+  private post(url: string, payload: string): Promise<number> {
+    const target = new URL(url);
+    const secure = target.protocol === 'https:';
+    return new Promise((resolve, reject) => {
+      const req = (secure ? https : http).request(
+        target,
+        {
+          method: 'POST',
+          agent: secure ? this.httpsAgent : this.httpAgent,
+          headers: {
+            'Content-Type': 'application/json; charset=utf-8',
+            'Content-Length': Buffer.byteLength(payload),
+            'Stripe-Signature': signWebhookPayload(payload, this.options.secret),
+            'User-Agent': 'Spoolyard-Payments-Fake/1.0 (webhooks)',
+          },
+          signal: this.closing.signal,
+          timeout: this.options.timeoutMs,
+        },
+        (res) => {
+          res.resume();
+          res.once('end', () => resolve(res.statusCode ?? 0));
+          res.once('error', reject);
+        },
+      );
+      req.once('timeout', () => req.destroy(Object.assign(new Error(`no answer within ${this.options.timeoutMs} ms`), { name: 'TimeoutError' })));
+      req.once('error', reject);
+      req.end(payload);
+    });
   }
 }

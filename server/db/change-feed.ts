@@ -52,6 +52,8 @@ function createChangeFeed(db: Db): ChangeFeed {
   const ownWritesStatement = db.$client.prepare('SELECT total_changes()').pluck();
   const dataVersion = () => dataVersionStatement.get();
   const ownWrites = () => ownWritesStatement.get();
+  const latestPartChange = db.select({ id: max(partChanges.id) }).from(partChanges).prepare();
+  const topicVersions = db.select().from(changeVersions).prepare();
   let seenData = -1;
   let seenOwn = -1;
   let versions: ChangeVersions = { parts: 0, stock: 0, frames: 0, search: 0, accounts: 0 };
@@ -62,8 +64,8 @@ function createChangeFeed(db: Db): ChangeFeed {
     if (data !== seenData || own !== seenOwn) {
       seenData = data;
       seenOwn = own;
-      const next: ChangeVersions = { parts: db.select({ id: max(partChanges.id) }).from(partChanges).get()?.id ?? 0, stock: 0, frames: 0, search: 0, accounts: 0 };
-      for (const row of db.select().from(changeVersions).all()) next[row.topic] = row.version;
+      const next: ChangeVersions = { parts: latestPartChange.get()?.id ?? 0, stock: 0, frames: 0, search: 0, accounts: 0 };
+      for (const row of topicVersions.all()) next[row.topic] = row.version;
       if ((Object.keys(next) as Array<keyof ChangeVersions>).some((k) => next[k] !== versions[k])) versions = next;
     }
     return versions;

@@ -76,43 +76,51 @@ export function compatibilityWarnings(lines: Array<{ lineId: number; partNumber:
 }
 
 export function createCartService(db: Db, search: SearchService, config: { taxRatePct: number }) {
-  const partBy = (where: SQL) => db.select(partColumns).from(parts).leftJoin(partSpecs, eq(partSpecs.partId, parts.id)).where(where).get();
-  const partByNumber = (number: string) => partBy(eq(parts.normalizedNumber, number));
-  const partById = (id: number) => partBy(eq(parts.id, id));
-  const cartByUser = (userId: string) => db.select({ id: carts.id, zone: carts.deliveryZone }).from(carts).where(eq(carts.userId, userId)).get();
-  const cartByGuest = (guestToken: string) => db.select({ id: carts.id, zone: carts.deliveryZone }).from(carts).where(eq(carts.guestToken, guestToken)).get();
-  const linesOf = (cartId: number) =>
-    db
-      .select({
-        lineId: cartLines.id,
-        quantity: cartLines.quantity,
-        allowBackorder: cartLines.allowBackorder,
-        fitmentId: cartLines.fitmentId,
-        fitmentName: savedFitments.name,
-        fitmentSummary: savedFitments.summary,
-        ...partColumns,
-      })
-      .from(cartLines)
-      .innerJoin(parts, eq(parts.id, cartLines.partId))
-      .leftJoin(partSpecs, eq(partSpecs.partId, parts.id))
-      .leftJoin(savedFitments, eq(savedFitments.id, cartLines.fitmentId))
-      .where(eq(cartLines.cartId, cartId))
-      .orderBy(cartLines.id)
-      .all();
+  // The reads every cart request makes are built and prepared once (Drizzle prepared queries with placeholders).
+  const $ = sql.placeholder;
+  const partQuery = (where: SQL) => db.select(partColumns).from(parts).leftJoin(partSpecs, eq(partSpecs.partId, parts.id)).where(where).prepare();
+  const partByNumberQuery = partQuery(eq(parts.normalizedNumber, $('number')));
+  const partByIdQuery = partQuery(eq(parts.id, $('id')));
+  const cartByUserQuery = db.select({ id: carts.id, zone: carts.deliveryZone }).from(carts).where(eq(carts.userId, $('userId'))).prepare();
+  const cartByGuestQuery = db.select({ id: carts.id, zone: carts.deliveryZone }).from(carts).where(eq(carts.guestToken, $('guestToken'))).prepare();
+  const linesQuery = db
+    .select({
+      lineId: cartLines.id,
+      quantity: cartLines.quantity,
+      allowBackorder: cartLines.allowBackorder,
+      fitmentId: cartLines.fitmentId,
+      fitmentName: savedFitments.name,
+      fitmentSummary: savedFitments.summary,
+      ...partColumns,
+    })
+    .from(cartLines)
+    .innerJoin(parts, eq(parts.id, cartLines.partId))
+    .leftJoin(partSpecs, eq(partSpecs.partId, parts.id))
+    .leftJoin(savedFitments, eq(savedFitments.id, cartLines.fitmentId))
+    .where(eq(cartLines.cartId, $('cartId')))
+    .orderBy(cartLines.id)
+    .prepare();
+  const partByNumber = (number: string) => partByNumberQuery.get({ number });
+  const partById = (id: number) => partByIdQuery.get({ id });
+  const cartByUser = (userId: string) => cartByUserQuery.get({ userId });
+  const cartByGuest = (guestToken: string) => cartByGuestQuery.get({ guestToken });
+  const linesOf = (cartId: number) => linesQuery.all({ cartId });
 
-  const upsertLine = (line: { cartId: number; partId: number; quantity: number; fitmentId: number | null; allowBackorder: boolean }) =>
-    db
-      .insert(cartLines)
-      .values(line)
-      .onConflictDoUpdate({
-        target: [cartLines.cartId, cartLines.partId],
-        set: {
-          quantity: sql`min(${QUANTITY_MAX}, ${cartLines.quantity} + ${excluded(cartLines.quantity)})`,
-          fitmentId: sql`COALESCE(${excluded(cartLines.fitmentId)}, ${cartLines.fitmentId})`,
-          allowBackorder: sql`max(${cartLines.allowBackorder}, ${excluded(cartLines.allowBackorder)})`,
-        },
-      })
-      .run();
+  const upsertLineQuery = db
+    .insert(cartLines)
+    .values({ cartId: $('cartId'), partId: $('partId'), quantity: $('quantity'), fitmentId: $('fitmentId'), allowBackorder: $('allowBackorder') })
+    .onConflictDoUpdate({
+      target: [cartLines.cartId, cartLines.partId],
+      set: {
+        quantity: sql`min(${QUANTITY_MAX}, ${cartLines.quantity} + ${excluded(cartLines.quantity)})`,
+        fitmentId: sql`COALESCE(${excluded(cartLines.fitmentId)}, ${cartLines.fitmentId})`,
+        allowBackorder: sql`max(${cartLines.allowBackorder}, ${excluded(cartLines.allowBackorder)})`,
+      },
+    })
+    .prepare();
+  const upsertLine = (line: { cartId: number; partId: number; quantity: number; fitmentId: number | null; allowBackorder: boolean }) => upsertLineQuery.run(line);
+  const lineCountQuery = db.select({ n: count() }).from(cartLines).where(eq(cartLines.cartId, $('cartId'))).prepare();
+  const touchCartQuery = db.update(carts).set({ updatedAt: sql`strftime('%Y-%m-%dT%H:%M:%fZ','now')` }).where(eq(carts.id, $('cartId'))).prepare();
   const lineOf = (lineId: number, cartId: number) =>
     db
       .select({ id: cartLines.id })
@@ -285,7 +293,7 @@ export function createCartService(db: Db, search: SearchService, config: { taxRa
   function addLines(owner: CartOwner, user: CurrentUser | null, lines: Array<{ partNumber: string; quantity: number; fitmentId?: number; allowBackorder?: boolean }>) {
     const notices: string[] = [];
     // The helpers query through db: better-sqlite3 has one connection, so they run inside this transaction.
-    db.transaction((tx) => {
+    db.transaction(() => {
       const id = cartId(owner, true)!;
       for (const line of lines) {
         const resolved = resolvePart(line.partNumber);
@@ -299,9 +307,9 @@ export function createCartService(db: Db, search: SearchService, config: { taxRa
         if (line.fitmentId !== undefined && (!user || !fitmentOf(line.fitmentId, user.id))) throw new NotFoundError('No such saved fitment check');
         upsertLine({ cartId: id, partId: part.id, quantity: line.quantity, fitmentId: line.fitmentId ?? null, allowBackorder: line.allowBackorder ?? false });
       }
-      const held = tx.select({ n: count() }).from(cartLines).where(eq(cartLines.cartId, id)).get();
+      const held = lineCountQuery.get({ cartId: id });
       if ((held?.n ?? 0) > CART_LINES_MAX) throw new ConflictError(`A cart holds at most ${CART_LINES_MAX} lines`);
-      tx.update(carts).set({ updatedAt: sql`strftime('%Y-%m-%dT%H:%M:%fZ','now')` }).where(eq(carts.id, id)).run();
+      touchCartQuery.run({ cartId: id });
     });
     return view(owner, user, notices);
   }

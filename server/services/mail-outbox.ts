@@ -1,6 +1,7 @@
 import { randomUUID } from 'node:crypto';
 import { and, count, desc, eq, inArray, lt, lte, sql } from 'drizzle-orm';
 import type { Db } from '../db/client';
+import { preparedOn } from '../db/prepared';
 import { mailOutbox } from '../db/schema';
 import type { MailKind, MailState } from '../../shared/allowed-values';
 import type { MailOutboxList, MailOutboxQuery } from '../../shared/schemas/mail-outbox';
@@ -68,7 +69,10 @@ export function enqueueMail(q: Query, kind: MailKind, build: () => OutgoingMail,
       .run();
     return;
   }
-  q.insert(mailOutbox).values({ kind, recipient: message.to, subject: message.subject, text: message.text, html: message.html, nextAttemptAt: now }).run();
+  const $ = sql.placeholder;
+  preparedOn(q, 'outbox:enqueue', (h) =>
+    h.insert(mailOutbox).values({ kind: $('kind'), recipient: $('recipient'), subject: $('subject'), text: $('text'), html: $('html'), nextAttemptAt: $('nextAttemptAt') }).prepare(),
+  ).run({ kind, recipient: message.to, subject: message.subject, text: message.text, html: message.html, nextAttemptAt: now });
 }
 
 export interface OutboxRunResult {

@@ -1,6 +1,7 @@
-import { eq } from 'drizzle-orm';
+import { eq, sql } from 'drizzle-orm';
 import { z } from 'zod';
 import type { Db } from '../db/client';
+import { preparedOn } from '../db/prepared';
 import { creditNotes, dealerAccounts, dealerMembers, orderChanges, orderLines, orders, parts, returns, shipments, user } from '../db/schema';
 import { CATEGORY_SLUGS } from '../../shared/catalog';
 import { DEALER_TIERS } from '../../shared/pricing';
@@ -37,7 +38,8 @@ const categorySlug = z.enum(CATEGORY_SLUGS);
  */
 export function createNotifications(deps: { db: Db; publicUrl: string }) {
   const orderRow = (q: Query, orderId: number) =>
-    q
+    preparedOn(q, 'mail:order', (h) =>
+      h
       .select({
         number: orders.number,
         email: orders.email,
@@ -62,10 +64,12 @@ export function createNotifications(deps: { db: Db; publicUrl: string }) {
       .from(orders)
       .innerJoin(user, eq(user.id, orders.userId))
       .leftJoin(dealerAccounts, eq(dealerAccounts.id, orders.dealerAccountId))
-      .where(eq(orders.id, orderId))
-      .get();
+      .where(eq(orders.id, sql.placeholder('orderId')))
+      .prepare(),
+    ).get({ orderId });
   const orderLinesOf = (q: Query, orderId: number) =>
-    q
+    preparedOn(q, 'mail:order-lines', (h) =>
+      h
       .select({
         partNumber: orderLines.partNumber,
         title: orderLines.title,
@@ -77,9 +81,10 @@ export function createNotifications(deps: { db: Db; publicUrl: string }) {
       })
       .from(orderLines)
       .innerJoin(parts, eq(parts.id, orderLines.partId))
-      .where(eq(orderLines.orderId, orderId))
+      .where(eq(orderLines.orderId, sql.placeholder('orderId')))
       .orderBy(orderLines.id)
-      .all();
+      .prepare(),
+    ).all({ orderId });
   const dealerRow = (q: Query, dealerAccountId: number) =>
     q
       .select({

@@ -12,51 +12,63 @@ export type MovementKind = (typeof stockMovements.$inferSelect)['kind'];
 export function createStockService(db: Db) {
   const free = sql<number>`${stock.onHand} - ${stock.reserved}`;
   const held = sql<number>`sum(${stockMovements.reservedDelta})`;
-  const thisBin = (partId: number, binCode: string) => and(eq(stock.partId, partId), eq(stock.binCode, binCode));
 
-  // Built at the call like every other query; callers' transactions run them (one connection).
+  const $ = sql.placeholder;
+  const thisBin = and(eq(stock.partId, $('partId')), eq(stock.binCode, $('binCode')));
+  // Every order, pick and receipt runs these: each is built and prepared once here (Drizzle's prepared queries with
+  // placeholders), not rebuilt from its parts at every call. Callers' transactions run them (one connection).
+  const prepared = {
+    available: db.select({ n: parts.available }).from(parts).where(eq(parts.id, $('partId'))).prepare(),
+    freeBins: db
+      .select({ binCode: stock.binCode, free })
+      .from(stock)
+      .innerJoin(bins, eq(bins.code, stock.binCode))
+      .where(and(eq(stock.partId, $('partId')), gt(free, 0)))
+      .orderBy(bins.walkOrder)
+      .prepare(),
+    ensureRow: db.insert(stock).values({ partId: $('partId'), binCode: $('binCode'), onHand: 0, reserved: 0 }).onConflictDoNothing().prepare(),
+    apply: db
+      .update(stock)
+      .set({ onHand: sql`${stock.onHand} + ${$('onHandDelta')}`, reserved: sql`${stock.reserved} + ${$('reservedDelta')}` })
+      .where(thisBin)
+      .prepare(),
+    applyPart: db
+      .update(parts)
+      .set({ available: sql`${parts.available} + ${$('delta')}` })
+      .where(eq(parts.id, $('partId')))
+      .prepare(),
+    movement: db
+      .insert(stockMovements)
+      .values({ partId: $('partId'), binCode: $('binCode'), kind: $('kind'), onHandDelta: $('onHandDelta'), reservedDelta: $('reservedDelta'), orderId: $('orderId'), note: $('note') })
+      .prepare(),
+    heldForOrder: db
+      .select({ binCode: stockMovements.binCode, held })
+      .from(stockMovements)
+      .where(and(eq(stockMovements.orderId, $('orderId')), eq(stockMovements.partId, $('partId'))))
+      .groupBy(stockMovements.binCode)
+      .having(gt(held, 0))
+      .prepare(),
+    row: db.select({ onHand: stock.onHand, reserved: stock.reserved }).from(stock).where(thisBin).prepare(),
+    defaultBin: db
+      .select({ binCode: stock.binCode })
+      .from(stock)
+      .innerJoin(bins, eq(bins.code, stock.binCode))
+      .where(eq(stock.partId, $('partId')))
+      .orderBy(bins.walkOrder)
+      .limit(1)
+      .prepare(),
+  };
   const q = {
-    available: (partId: number) => db.select({ n: parts.available }).from(parts).where(eq(parts.id, partId)).get(),
-    freeBins: (partId: number) =>
-      db
-        .select({ binCode: stock.binCode, free })
-        .from(stock)
-        .innerJoin(bins, eq(bins.code, stock.binCode))
-        .where(and(eq(stock.partId, partId), gt(free, 0)))
-        .orderBy(bins.walkOrder)
-        .all(),
-    ensureRow: (partId: number, binCode: string) => db.insert(stock).values({ partId, binCode, onHand: 0, reserved: 0 }).onConflictDoNothing().run(),
-    apply: (partId: number, binCode: string, onHandDelta: number, reservedDelta: number) =>
-      db
-        .update(stock)
-        .set({ onHand: sql`${stock.onHand} + ${onHandDelta}`, reserved: sql`${stock.reserved} + ${reservedDelta}` })
-        .where(thisBin(partId, binCode))
-        .run(),
-    applyPart: (partId: number, delta: number) =>
-      db
-        .update(parts)
-        .set({ available: sql`${parts.available} + ${delta}` })
-        .where(eq(parts.id, partId))
-        .run(),
-    movement: (row: typeof stockMovements.$inferInsert) => db.insert(stockMovements).values(row).run(),
-    heldForOrder: (orderId: number, partId: number) =>
-      db
-        .select({ binCode: stockMovements.binCode, held })
-        .from(stockMovements)
-        .where(and(eq(stockMovements.orderId, orderId), eq(stockMovements.partId, partId)))
-        .groupBy(stockMovements.binCode)
-        .having(gt(held, 0))
-        .all(),
-    row: (partId: number, binCode: string) => db.select({ onHand: stock.onHand, reserved: stock.reserved }).from(stock).where(thisBin(partId, binCode)).get(),
-    defaultBin: (partId: number) =>
-      db
-        .select({ binCode: stock.binCode })
-        .from(stock)
-        .innerJoin(bins, eq(bins.code, stock.binCode))
-        .where(eq(stock.partId, partId))
-        .orderBy(bins.walkOrder)
-        .limit(1)
-        .get(),
+    available: (partId: number) => prepared.available.get({ partId }),
+    freeBins: (partId: number) => prepared.freeBins.all({ partId }),
+    ensureRow: (partId: number, binCode: string) => prepared.ensureRow.run({ partId, binCode }),
+    apply: (partId: number, binCode: string, onHandDelta: number, reservedDelta: number) => prepared.apply.run({ partId, binCode, onHandDelta, reservedDelta }),
+    applyPart: (partId: number, delta: number) => prepared.applyPart.run({ partId, delta }),
+    movement: (row: { partId: number; binCode: string; kind: MovementKind; onHandDelta: number; reservedDelta: number; orderId: number | null; note: string | null }) =>
+      prepared.movement.run(row),
+    heldForOrder: (orderId: number, partId: number) => prepared.heldForOrder.all({ orderId, partId }),
+    row: (partId: number, binCode: string) => prepared.row.get({ partId, binCode }),
+    defaultBin: (partId: number) => prepared.defaultBin.get({ partId }),
   };
 
   function move(partId: number, binCode: string, kind: MovementKind, onHandDelta: number, reservedDelta: number, orderId: number | null, note: string | null) {

@@ -2,6 +2,7 @@ import { and, desc, eq, gt, inArray, isNotNull, isNull, lt, sql } from 'drizzle-
 import Stripe from 'stripe';
 import { z } from 'zod';
 import type { Db } from '../../db/client';
+import { preparedOn } from '../../db/prepared';
 import { orderChanges, orderLines, orders, paymentAlerts, paymentEvents } from '../../db/schema';
 import { PaymentDeclinedError } from '../errors';
 import type { CurrentUser } from '../current-user';
@@ -9,7 +10,7 @@ import type { Checkout, CheckoutResponse } from '../../../shared/schemas/orders'
 import { formatMoney } from '../../../shared/format';
 import type { CartOwner } from '../cart';
 import { addOrderEvent, setOrderState, type OrderPlacement } from './order-placement';
-import { findOrder, type OrderHeader, type Query } from './order-reads';
+import { findOrder, headerColumns, type OrderHeader, type Query } from './order-reads';
 
 /**
  * What the order flow tells people. Each call takes the transaction of the change that causes it and writes the
@@ -122,12 +123,14 @@ export function createOrderPayments(deps: OrderPaymentsDeps) {
   /** Writes the confirmation (and a back-order notice) in the transaction that marks the order paid. */
   function confirmPaid(tx: Query, orderId: number) {
     notify.orderConfirmed(tx, orderId);
-    const backordered = tx
-      .select({ id: orderLines.id })
-      .from(orderLines)
-      .where(and(eq(orderLines.orderId, orderId), gt(orderLines.quantityBackordered, 0)))
-      .limit(1)
-      .get();
+    const backordered = preparedOn(tx, 'payments:backordered', (h) =>
+      h
+        .select({ id: orderLines.id })
+        .from(orderLines)
+        .where(and(eq(orderLines.orderId, sql.placeholder('orderId')), gt(orderLines.quantityBackordered, 0)))
+        .limit(1)
+        .prepare(),
+    ).get({ orderId });
     if (backordered) notify.backordered(tx, orderId);
   }
 
@@ -250,7 +253,7 @@ export function createOrderPayments(deps: OrderPaymentsDeps) {
       const created = await within(deadline, (o) => payments.paymentIntents.create(intentParams(header, input.paymentMethod), { ...o, idempotencyKey: `order-${placed.number}-intent` }));
       if (created.ok) {
         intent = created.value;
-        db.update(orders).set({ paymentIntentId: intent.id }).where(eq(orders.id, placed.orderId)).run();
+        preparedOn(db, 'payments:set-intent', (h) => h.update(orders).set({ paymentIntentId: sql`${sql.placeholder('intentId')}` }).where(eq(orders.id, sql.placeholder('orderId'))).prepare()).run({ intentId: intent.id, orderId: placed.orderId });
       } else {
         // A refused create took nothing: the order goes back to the cart.
         if (created.error instanceof Stripe.errors.StripeInvalidRequestError) {
@@ -305,7 +308,7 @@ export function createOrderPayments(deps: OrderPaymentsDeps) {
   /** The order a webhook's intent belongs to: by the stored intent, or by the order number the intent carries. */
   function orderOfIntent(q: Parameters<typeof findOrder>[0], intentId: string | null, orderNumber: string | undefined) {
     if (!intentId) return undefined;
-    const byIntent = findOrder(q, eq(orders.paymentIntentId, intentId));
+    const byIntent = preparedOn(q, 'payments:order-of-intent', (h) => h.select(headerColumns).from(orders).where(eq(orders.paymentIntentId, sql.placeholder('intentId'))).prepare()).get({ intentId });
     if (byIntent || !orderNumber) return byIntent;
     // The create's reply was lost, so the order never learnt its intent: adopt it now.
     const byNumber = findOrder(q, and(eq(orders.number, orderNumber), isNull(orders.paymentIntentId), eq(orders.paymentMethod, 'card'))!);
@@ -324,7 +327,9 @@ export function createOrderPayments(deps: OrderPaymentsDeps) {
       const intentId = object.object === 'payment_intent' ? object.id : (object.payment_intent ?? null);
       const amountCents = object.amount_received || object.amount || 0;
       const none = { applied: true, effect: null, orderId: null, intentId, amountCents };
-      const inserted = tx.insert(paymentEvents).values({ eventId: event.id, type: event.type, paymentIntentId: intentId }).onConflictDoNothing().run();
+      const inserted = preparedOn(tx, 'payments:event', (h) =>
+        h.insert(paymentEvents).values({ eventId: sql.placeholder('eventId'), type: sql.placeholder('type'), paymentIntentId: sql.placeholder('intentId') }).onConflictDoNothing().prepare(),
+      ).run({ eventId: event.id, type: event.type, intentId });
       if (inserted.changes === 0) return { ...none, applied: false };
       const order = orderOfIntent(tx, intentId, object.object === 'payment_intent' ? (object.metadata?.order_number ?? undefined) : undefined);
       if (!order) return none;

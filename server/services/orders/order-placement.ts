@@ -1,5 +1,6 @@
 import { eq, sql } from 'drizzle-orm';
 import type { Db } from '../../db/client';
+import { preparedOn } from '../../db/prepared';
 import { cartLines, dealerAccounts, orderEvents, orderLines, orders, parts, savedFitments } from '../../db/schema';
 import { ConflictError, InvalidError, NotAllowedError } from '../errors';
 import type { CurrentUser } from '../current-user';
@@ -17,12 +18,18 @@ type PaymentState = (typeof orders.$inferSelect)['paymentState'];
 /** The same expression as the schema's timestamp defaults. */
 const now = sql<string>`strftime('%Y-%m-%dT%H:%M:%fZ','now')`;
 
+const $ = sql.placeholder;
+
 export function setOrderState(q: Query, orderId: number, status: OrderStatus, paymentState: PaymentState) {
-  q.update(orders).set({ status, paymentState, updatedAt: now }).where(eq(orders.id, orderId)).run();
+  preparedOn(q, 'order:state', (h) => h.update(orders).set({ status: sql`${$('status')}`, paymentState: sql`${$('paymentState')}`, updatedAt: now }).where(eq(orders.id, $('orderId'))).prepare()).run({
+    orderId,
+    status,
+    paymentState,
+  });
 }
 
 export function addOrderEvent(q: Query, orderId: number, status: string, note: string | null) {
-  q.insert(orderEvents).values({ orderId, status, note }).run();
+  preparedOn(q, 'order:event', (h) => h.insert(orderEvents).values({ orderId: $('orderId'), status: $('status'), note: $('note') }).prepare()).run({ orderId, status, note });
 }
 
 const isDeliveryZone = (zone: string | undefined): zone is DeliveryZone => DELIVERY_ZONE_KEYS.some((k) => k === zone);
@@ -37,8 +44,22 @@ export interface OrderPlacementDeps {
 export function createOrderPlacement(deps: OrderPlacementDeps) {
   const { db, stock, cart } = deps;
 
+  // Each placement inserts an order and its lines with these, built and prepared once (placeholders by column name).
+  const placeholders = <K extends string>(keys: readonly K[]) => Object.fromEntries(keys.map((k) => [k, $(k)])) as unknown as Record<K, ReturnType<typeof $>>;
+  const ORDER_FIELDS = [
+    'number', 'userId', 'dealerAccountId', 'status', 'paymentMethod', 'paymentState', 'purchaseOrder', 'paymentTermsDays', 'goodsCents', 'discountCents',
+    'coreDepositCents', 'freightCents', 'taxCents', 'totalCents', 'weightGrams', 'deliveryZone', 'shipName', 'shipLine1', 'shipCity', 'shipPostcode', 'email',
+  ] as const;
+  const LINE_FIELDS = [
+    'orderId', 'partId', 'partNumber', 'title', 'quantity', 'quantityBackordered', 'unitPriceCents', 'retailUnitPriceCents', 'coreDepositCents', 'weightGrams',
+    'fitmentId', 'fitmentSummary',
+  ] as const;
+  const insertOrder = db.insert(orders).values(placeholders(ORDER_FIELDS) as unknown as typeof orders.$inferInsert).returning({ id: orders.id }).prepare();
+  const insertLine = db.insert(orderLines).values(placeholders(LINE_FIELDS) as unknown as typeof orderLines.$inferInsert).prepare();
+
   function cartLinesOf(q: Query, cartId: number) {
-    return q
+    return preparedOn(q, 'order:cart-lines', (h) =>
+      h
       .select({
         lineId: cartLines.id,
         partId: parts.id,
@@ -57,9 +78,10 @@ export function createOrderPlacement(deps: OrderPlacementDeps) {
       .from(cartLines)
       .innerJoin(parts, eq(parts.id, cartLines.partId))
       .leftJoin(savedFitments, eq(savedFitments.id, cartLines.fitmentId))
-      .where(eq(cartLines.cartId, cartId))
+      .where(eq(cartLines.cartId, $('cartId')))
       .orderBy(cartLines.id)
-      .all();
+      .prepare(),
+    ).all({ cartId });
   }
 
   function dealerAddress(q: Query, dealerId: number | null) {
@@ -116,15 +138,15 @@ export function createOrderPlacement(deps: OrderPlacementDeps) {
 
         const delivery = input.delivery ?? dealerAddress(tx, dealer?.id ?? null);
         if (!delivery) throw new InvalidError('A delivery address is needed', { delivery: ['enter a delivery address'] });
-        const next = tx
-          .select({ id: sql<number>`coalesce(max(${orders.id}), 0) + 1` })
-          .from(orders)
-          .get();
+        const next = preparedOn(tx, 'order:next-id', (h) =>
+          h
+            .select({ id: sql<number>`coalesce(max(${orders.id}), 0) + 1` })
+            .from(orders)
+            .prepare(),
+        ).get();
         const number = formatOrderNumber(next?.id ?? 1);
         const status: OrderStatus = input.method === 'account' ? 'on_account' : 'pending_payment';
-        const { id: orderId } = tx
-          .insert(orders)
-          .values({
+        const { id: orderId } = insertOrder.get({
             number,
             userId: user.id,
             dealerAccountId: dealer?.id ?? null,
@@ -146,12 +168,9 @@ export function createOrderPlacement(deps: OrderPlacementDeps) {
             shipCity: delivery.city,
             shipPostcode: delivery.postcode,
             email: user.email,
-          })
-          .returning({ id: orders.id })
-          .get();
-        tx.insert(orderLines)
-          .values(
-            lines.map((l, i) => ({
+          } satisfies Record<(typeof ORDER_FIELDS)[number], unknown>)!;
+        lines.forEach((l, i) =>
+          insertLine.run({
               orderId,
               partId: l.partId,
               partNumber: l.partNumber,
@@ -164,9 +183,8 @@ export function createOrderPlacement(deps: OrderPlacementDeps) {
               weightGrams: l.weightGrams,
               fitmentId: l.fitmentId,
               fitmentSummary: l.fitmentId ? `${l.fitmentName ?? 'Saved check'}: ${l.fitmentSummary ?? ''}`.trim() : null,
-            })),
-          )
-          .run();
+            } satisfies Record<(typeof LINE_FIELDS)[number], unknown>),
+        );
         for (const l of lines) {
           const wanted = l.quantity - (backorders.get(l.lineId) ?? 0);
           if (stock.reserve(l.partId, wanted, orderId) !== wanted) throw new Error(`Reservation mismatch on ${l.partNumber}`);
@@ -174,7 +192,7 @@ export function createOrderPlacement(deps: OrderPlacementDeps) {
         addOrderEvent(tx, orderId, 'placed', input.method === 'account' ? `Purchase order ${input.purchaseOrder}` : null);
         if (input.method === 'account' && dealer) addOrderEvent(tx, orderId, 'on_account', `Payment terms ${dealer.paymentTermsDays} days`);
         if (backorders.size > 0) addOrderEvent(tx, orderId, 'back_ordered', `${[...backorders.values()].reduce((a, b) => a + b, 0)} units wait for stock`);
-        tx.delete(cartLines).where(eq(cartLines.cartId, cartId)).run();
+        preparedOn(tx, 'order:empty-cart', () => db.delete(cartLines).where(eq(cartLines.cartId, $('cartId'))).prepare()).run({ cartId });
         return { orderId, number, status, totalCents: totals.totalCents, backordered: backorders.size > 0 };
       },
       { behavior: 'immediate' },

@@ -11,7 +11,7 @@ import type { CartService } from '../cart';
 export type Query = Pick<Db, 'select' | 'insert' | 'update'>;
 
 /** What the order flow reads of an order to decide what may happen to it. */
-const headerColumns = {
+export const headerColumns = {
   id: orders.id,
   number: orders.number,
   userId: orders.userId,
