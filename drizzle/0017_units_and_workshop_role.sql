@@ -61,4 +61,7 @@ INSERT INTO `__new_user`("id", "name", "email", "email_verified", "image", "crea
 DROP TABLE `user`;--> statement-breakpoint
 ALTER TABLE `__new_user` RENAME TO `user`;--> statement-breakpoint
 PRAGMA foreign_keys=ON;--> statement-breakpoint
-CREATE UNIQUE INDEX `user_email_unique` ON `user` (`email`);
+CREATE UNIQUE INDEX `user_email_unique` ON `user` (`email`);--> statement-breakpoint
+CREATE TRIGGER IF NOT EXISTS `user_changed_update` AFTER UPDATE ON `user` BEGIN UPDATE `change_versions` SET `version` = `version` + 1 WHERE `topic` = 'accounts'; END;
+--> statement-breakpoint
+CREATE TRIGGER IF NOT EXISTS `user_changed_delete` AFTER DELETE ON `user` BEGIN UPDATE `change_versions` SET `version` = `version` + 1 WHERE `topic` = 'accounts'; END;

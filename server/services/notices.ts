@@ -1,5 +1,6 @@
 import { and, count, desc, eq, isNull, sql } from 'drizzle-orm';
 import type { Db } from '../db/client';
+import { preparedOn } from '../db/prepared';
 import { creditNotes, notices, orderLines, orders, returns, shipments } from '../db/schema';
 import { formatPrice } from '../../shared/catalog';
 import { NOTICES_PAGE_SIZE, type NoticesPage } from '../../shared/schemas/notices';
@@ -21,15 +22,21 @@ const now = sql<string>`strftime('%Y-%m-%dT%H:%M:%fZ','now')`;
 export function createNotices(deps: { db: Db }) {
   const { db } = deps;
 
+  // Each paid order writes a notice: the two queries are built and prepared once per connection.
+  const $ = sql.placeholder;
   const orderOf = (q: Query, orderId: number) =>
-    q
-      .select({ id: orders.id, number: orders.number, userId: orders.userId, totalCents: orders.totalCents, paymentState: orders.paymentState, purchaseOrder: orders.purchaseOrder })
-      .from(orders)
-      .where(eq(orders.id, orderId))
-      .get();
+    preparedOn(q, 'notices:order', (h) =>
+      h
+        .select({ id: orders.id, number: orders.number, userId: orders.userId, totalCents: orders.totalCents, paymentState: orders.paymentState, purchaseOrder: orders.purchaseOrder })
+        .from(orders)
+        .where(eq(orders.id, $('orderId')))
+        .prepare(),
+    ).get({ orderId });
 
   function add(q: Query, n: { userId: string; orderId: number | null; kind: NoticeKind; title: string; body: string; link: string }) {
-    q.insert(notices).values(n).run();
+    preparedOn(q, 'notices:add', (h) =>
+      h.insert(notices).values({ userId: $('userId'), orderId: $('orderId'), kind: $('kind'), title: $('title'), body: $('body'), link: $('link') }).prepare(),
+    ).run(n);
   }
 
   const waitingLines = (q: Query, orderId: number) =>
