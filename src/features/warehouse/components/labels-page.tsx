@@ -61,7 +61,7 @@ export function LabelsPage() {
   const binOptions = bins.data?.items ?? [];
 
   return (
-    <div className="grid gap-6">
+    <div className="grid grid-cols-[minmax(0,1fr)] gap-6">
       <div className="no-print grid gap-6 lg:grid-cols-[minmax(0,1fr)_minmax(0,1fr)] lg:items-start">
         <form onSubmit={onSubmit} aria-labelledby="labels-choose" className="grid gap-4 rounded-lg border-2 border-cast-line bg-white p-5">
           <h2 id="labels-choose" className="flex items-center gap-2 text-xl font-bold">
@@ -180,7 +180,8 @@ function Sheets({ sheet }: { sheet: LabelSheet }) {
   let n = 0;
   return (
     <section aria-label="Label sheets as they print" tabIndex={0} className="label-sheets -mx-4 overflow-x-auto px-4 pb-4 focus-visible:outline-2 focus-visible:outline-temper">
-      <div className="grid justify-items-center gap-6">
+      {/* As wide as a sheet, centred while it fits; on a narrow screen it scrolls from its left edge. */}
+      <div className="mx-auto grid w-max gap-6">
         {partSheets.map((labels, i) => (
           <div key={`p${i}`} role="group" aria-label={`Sheet ${++n} of ${all}: part labels`} className="label-sheet label-sheet--parts">
             {labels.map((l, j) => (
@@ -205,16 +206,12 @@ function PartLabelView({ label }: { label: PartLabel }) {
     <div className="label label--part">
       <div className="flex items-baseline justify-between gap-2">
         <span className="part-no text-[12pt] leading-none">{label.partNumber}</span>
-        {label.binCode && (
-          <span className="part-no text-[10pt] leading-none">
-            <span className="sr-only">bin </span>
-            {label.binCode}
-          </span>
-        )}
+        {label.binCode && <span className="part-no text-[10pt] leading-none">Bin {label.binCode}</span>}
       </div>
-      <div className="grid grid-cols-[34mm_minmax(0,1fr)] items-start gap-[2mm]">
-        <img src={svgUrl(label.barcodeSvg)} alt={`EAN-13 ${label.gtin}`} className="w-[34mm]" />
-        <span className="line-clamp-4 text-[7.5pt] leading-tight">{label.shortName}</span>
+      {/* About the nominal EAN-13 size (37.29 mm wide with its light margins), so any scanner reads it. */}
+      <div className="grid grid-cols-[38mm_minmax(0,1fr)] items-start gap-[2mm]">
+        <img src={svgUrl(label.barcodeSvg)} alt={`EAN-13 ${label.gtin}`} className="w-[38mm]" />
+        <span className="line-clamp-5 text-[7.5pt] leading-tight">{label.shortName}</span>
       </div>
     </div>
   );
@@ -224,7 +221,8 @@ function BinLabelView({ label }: { label: BinLabel }) {
   return (
     <div className="label label--bin">
       <span className="part-no text-[30pt] leading-none">{label.code}</span>
-      <img src={svgUrl(label.barcodeSvg)} alt={`Code 128 ${label.code}`} className="h-[13mm] w-auto max-w-full" />
+      {/* Stretched evenly to 60 mm: wide bars read from a few metres away, up a racking ladder. */}
+      <img src={svgUrl(label.barcodeSvg)} alt={`Code 128 ${label.code}`} className="h-[14mm] w-[60mm] object-fill" />
       <span className="text-[7pt] leading-none">Zone {label.zone}</span>
     </div>
   );
