@@ -105,3 +105,64 @@ test('warehouse staff pick an order by typing a GTIN and Enter; a wrong check di
   await expect(page.getByText(`All lines picked for ${orderNumber}`)).toBeVisible();
   expect((await list()).lines.every((l) => l.toPick === 0 && l.picked === 1)).toBe(true);
 });
+
+test('goods-in takes a bin label and a GTIN as scanned, and prints labels for what was just received', async ({ page, login, axe }) => {
+  await login('warehouse');
+  const part = await aStockedPart(page.request);
+  await page.goto('/floor/goods-in');
+  const field = page.getByLabel('Part number', { exact: true });
+  await expect(field).toBeFocused();
+  // A bin's label first: it chooses the bin and leaves the field for the part.
+  await field.pressSequentially('b031');
+  await field.press('Enter');
+  await expect(page.getByText('Bin B-03-1 chosen: now scan the part.')).toBeVisible();
+  await expect(page.getByLabel(/^Bin/)).toHaveValue('B-03-1');
+  await expect(field).toHaveValue('');
+  // A GTIN with a misread digit is refused in words; the right one names the part.
+  const wrong = `${part.gtin.slice(0, 12)}${(Number(part.gtin[12]) + 1) % 10}`;
+  await field.pressSequentially(wrong);
+  await field.press('Enter');
+  await expect(page.getByText(`${wrong} is not a valid GTIN`).first()).toBeVisible();
+  await field.fill('');
+  await field.pressSequentially(part.gtin);
+  await field.press('Enter');
+  await expect(field).toHaveValue(part.partNumber);
+  await expect(page.getByText(`GTIN ${part.gtin} is ${part.partNumber}.`)).toBeVisible();
+  await expect(page.getByLabel(/^Bin/)).toHaveValue('B-03-1');
+  await page.getByLabel('Quantity received').fill('2');
+  await page.getByRole('button', { name: 'Receive into bin' }).click();
+  const printLink = page.getByRole('link', { name: /^Print labels for GI-\d+ \(2\)$/ });
+  await expect(printLink).toBeVisible();
+  await axe();
+  await keepScreenshot(page, 'floor-goods-in-labels');
+  await page.setViewportSize({ width: 390, height: 844 });
+  await keepScreenshot(page, 'floor-goods-in-labels-phone');
+  await page.setViewportSize({ width: 1280, height: 900 });
+
+  await printLink.click();
+  await expect(page).toHaveURL(/\/floor\/labels\?receipts=GI-\d+/);
+  const sheet = page.getByRole('group', { name: 'Sheet 1 of 1: part labels' });
+  await expect(sheet.getByRole('img', { name: `EAN-13 ${part.gtin}` })).toHaveCount(2);
+  await expect(sheet).toContainText('Bin B-03-1');
+  await expect(page.getByLabel(/^Goods-in receipts/)).toHaveValue(/^GI-\d+$/);
+});
+
+test('the part page shows the GTIN with its EAN-13, and the Office editor shows it read-only', async ({ page, login }) => {
+  const part = await aStockedPart(page.request);
+  await page.goto(`/parts/${part.partNumber}`);
+  const barcode = page.getByRole('img', { name: `EAN-13 barcode of GTIN ${part.gtin}` });
+  await expect(barcode).toBeVisible();
+  await expect.poll(() => barcode.evaluate((img: HTMLImageElement) => img.complete && img.naturalWidth > 0)).toBe(true);
+  await expect(page.getByText(`GTIN ${part.gtin}`)).toBeVisible();
+  await keepScreenshot(page, 'part-gtin');
+  await page.setViewportSize({ width: 390, height: 844 });
+  await keepScreenshot(page, 'part-gtin-phone');
+
+  await login('admin');
+  await page.setViewportSize({ width: 1280, height: 900 });
+  await page.goto(`/office/parts/${part.partNumber}`);
+  const gtin = page.getByLabel('GTIN');
+  await expect(gtin).toHaveValue(part.gtin);
+  await expect(gtin).toHaveAttribute('readonly', '');
+  await keepScreenshot(page, 'office-part-gtin');
+});
