@@ -104,6 +104,18 @@ test('warehouse staff pick an order by typing a GTIN and Enter; a wrong check di
   await expect(page).toHaveURL(new RegExp(`/floor/orders/${orderNumber}/pack`));
   await expect(page.getByText(`All lines picked for ${orderNumber}`)).toBeVisible();
   expect((await list()).lines.every((l) => l.toPick === 0 && l.picked === 1)).toBe(true);
+
+  // At the packing bench the same GTIN checks the part against the order before it goes into the carton.
+  const check = page.getByLabel('Check a part going into the carton');
+  await check.click();
+  await check.pressSequentially(part.gtin);
+  await check.press('Enter');
+  await expect(page.getByRole('status', { name: 'Last check' })).toContainText(`${part.partNumber} belongs in this carton`);
+  await check.pressSequentially(wrong);
+  await check.press('Enter');
+  await expect(page.getByRole('status', { name: 'Last check' })).toContainText('is not a valid GTIN');
+  await axe();
+  await keepScreenshot(page, 'floor-pack-check');
 });
 
 test('goods-in takes a bin label and a GTIN as scanned, and prints labels for what was just received', async ({ page, login, axe }) => {
