@@ -178,3 +178,17 @@ test('the part page shows the GTIN with its EAN-13, and the Office editor shows 
   await expect(gtin).toHaveAttribute('readonly', '');
   await keepScreenshot(page, 'office-part-gtin');
 });
+
+test('the returns desk says what a scanned part or bin label is instead of opening nothing', async ({ page, login }) => {
+  await login('warehouse');
+  const part = await aStockedPart(page.request);
+  await page.goto('/floor/returns');
+  const field = page.getByLabel('Return label');
+  await field.pressSequentially(part.gtin);
+  await field.press('Enter');
+  await expect(page.getByText(`That is ${part.partNumber}'s part label, not a return label: scan a return number such as RT-5001`)).toBeVisible();
+  await field.fill('');
+  await field.pressSequentially('A-01-1');
+  await field.press('Enter');
+  await expect(page.getByText("That is bin A-01-1's label, not a return label")).toBeVisible();
+});
