@@ -59,6 +59,11 @@ describe('GTINs on parts', () => {
     }
     const suggest = (await floor.get(`/api/parts/suggest?q=${gtin}`)).body as { items: Array<{ partNumber: string; exact: boolean }> };
     expect(suggest.items[0]).toMatchObject({ partNumber: part.partNumber, exact: true });
+    // The order pad takes it as the part's number.
+    const { client: dealer } = await createDealer(t);
+    const checked = await dealer.send('POST', '/api/cart/check', { lines: [{ partNumber: gtin, quantity: '1' }] });
+    expect(checked.status, JSON.stringify(checked.body)).toBe(200);
+    expect((checked.body as { rows: Array<Record<string, unknown>> }).rows[0]).toMatchObject({ status: 'ok', partNumber: part.partNumber });
     // A wrong check digit names no part.
     const wrong = (await floor.get(`/api/parts?q=${badCheckDigit(gtin)}`)).body as { items: Array<{ partNumber: string }> };
     expect(wrong.items.map((i) => i.partNumber)).not.toContain(part.partNumber);
