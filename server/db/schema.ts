@@ -89,7 +89,7 @@ export const parts = sqliteTable(
     /**
      * The part's GTIN-13 (shared/gtin.ts): our prefix in GS1's restricted-circulation range 200–299, the part id as
      * item reference, the check digit. Null only between an insert and the trigger that fills it from the id
-     * (drizzle/0018_gtin_backfill.sql), so every writer gets one; the seed and the Office write it themselves.
+     * (drizzle/*_gtin_backfill.sql), so every writer gets one; the seed and the Office write it themselves.
      */
     gtin: text('gtin'),
     createdAt: createdAt(),

@@ -130,7 +130,7 @@ export function createCatalogService(db: Db, search: SearchService) {
     const available = Math.max(0, r.available);
     return {
       partNumber: r.partNumber,
-      // Filled by the database from the id when a writer leaves it out (drizzle/0018); the same number either way.
+      // Filled by the database from the id when a writer leaves it out (the gtin_backfill migration); the same number either way.
       gtin: r.gtin ?? gtinForPart(r.id),
       title: r.title,
       category: r.category,
