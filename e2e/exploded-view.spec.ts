@@ -121,3 +121,24 @@ test('a dealer orders a complete unit built with a chosen orientation; the floor
   await expect(page.getByText(chosen).first()).toBeVisible();
   await keepScreenshot(page, 'floor-slip-orientation');
 });
+
+test('under a fitment recommendation the recommended frame is taken apart, with a way to its frame page', async ({ page, axe }) => {
+  await page.goto('/fitment');
+  await page.getByRole('radio', { name: /Imperial/ }).check();
+  await page.getByLabel('Engine displacement').fill('2.0');
+  await page.getByLabel('Power wanted').fill('300');
+  await page.getByLabel('Peak-power rpm').fill('6500');
+  await page.getByLabel('Fuel', { exact: true }).selectOption('petrol');
+  await page.getByLabel('Application', { exact: true }).selectOption('street');
+  await page.getByRole('button', { name: 'Check fitment' }).click();
+  await expect(page.getByRole('heading', { name: 'Build sheet', level: 2 })).toBeVisible();
+
+  const drawing = page.getByRole('group', { name: 'Pieces of frame DRF, taken apart along the shaft' });
+  await drawing.scrollIntoViewIfNeeded();
+  await drawing.getByRole('button', { name: /^Turbine housing: \d+ parts/ }).click();
+  await expect(page.getByRole('list', { name: 'Turbine housing parts of frame DRF' }).getByRole('link').first()).toContainText('DRF-40-');
+  await axe();
+  await keepScreenshot(page, 'fitment-exploded-view');
+  await page.getByRole('link', { name: 'Everything about frame DRF' }).click();
+  await expect(page).toHaveURL(/\/frames\/DRF$/);
+});
