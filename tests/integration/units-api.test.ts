@@ -36,7 +36,11 @@ function ownParts() {
 async function packedOrder(buyer: TestUser, lines: Array<{ partNumber: string; quantity: number }>) {
   const { order } = await createOrder(buyer, lines);
   if (order.status === 'pending_payment') {
-    await expect.poll(async () => ((await buyer.client.get(`/api/orders/${order.number}`)).body as { status: string }).status, { timeout: 5000 }).toBe('paid');
+    // The card payment settles through the fake's webhook; wait for it (also from a beforeAll, where expect.poll cannot run).
+    for (let i = 0; i < 100; i++) {
+      if (((await buyer.client.get(`/api/orders/${order.number}`)).body as { status: string }).status === 'paid') break;
+      await new Promise((r) => setTimeout(r, 50));
+    }
   }
   const pickList = (await floor.get(`/api/warehouse/orders/${order.number}/pick-list`)).body as { lines: Array<{ lineId: number; partNumber: string; toPick: number }> };
   for (const l of pickList.lines) {
