@@ -18,6 +18,24 @@ export const SERVICE_INTERVAL_MONTHS = { min: 1, max: 60 } as const;
 /** The history lines that count as a service: after one of these, the unit's interval starts again. */
 export const SERVICE_EVENT_KINDS = ['inspected', 'rebuilt', 'tested', 'shipped'] as const;
 
+/** Each history line's kind in the shop's words. */
+export const UNIT_EVENT_LABELS: Record<(typeof UNIT_EVENT_KINDS)[number], string> = {
+  sold: 'Sold',
+  registered: 'Registered',
+  'booked-in': 'Booked in',
+  received: 'Received at the Bench',
+  inspected: 'Inspected',
+  quoted: 'Quoted',
+  approved: 'Quote approved',
+  declined: 'Quote declined',
+  rebuilt: 'Rebuilt',
+  tested: 'Tested',
+  shipped: 'Sent back',
+  'log-uploaded': 'Shaft-speed log',
+  'reminder-sent': 'Service reminder',
+  note: 'Note',
+};
+
 export const UnitSummarySchema = z.object({
   serial: z.string(),
   partNumber: z.string().nullable(),
