@@ -486,7 +486,8 @@ function addSupersessionsAndCrossRefs(b: Builder, random: () => number) {
 
 /**
  * Rebuild kits: one per cartridge family (frame and bearing), linked both ways with the cartridges and complete units
- * they rebuild. Added after the rest of the demo catalogue so the parts, stock and numbers before them stay as they were.
+ * they rebuild. Added after the rest of the catalogue (and its synthetic lines) so the parts, stock and numbers before
+ * them stay as they were.
  */
 function addRebuildKits(b: Builder) {
   FRAMES.forEach((f, index) => {
@@ -512,7 +513,8 @@ function addRebuildKits(b: Builder) {
       });
       // Both ways: the kit lists what it rebuilds, and each cartridge and complete unit of the family lists its kit.
       for (const p of b.parts) {
-        if (p.status !== 'active' || p.frameCode !== f.code || p.specs.bearing !== bearing) continue;
+        // The main range only: a large generated catalogue's further lines would give each kit thousands of links.
+        if (p.status !== 'active' || p.frameCode !== f.code || p.specs.bearing !== bearing || parsePartNumber(p.partNumber)?.line !== 0) continue;
         if (p.category !== 'cartridges' && p.category !== 'turbochargers') continue;
         kit.goesWith.push(p.partNumber);
         p.goesWith.push(kit.partNumber);
@@ -555,8 +557,10 @@ export function generateCatalogue(options: GenerateOptions = {}): CatalogueSeed 
   discontinueWithReplacements(b);
   linkGoesWith(b);
   addSupersessionsAndCrossRefs(b, random);
+  // The kits come last but count toward the size asked for.
+  const kits = FRAMES.reduce((n, f) => n + f.bearingOptions.length, 0);
+  if (options.parts && options.parts - kits > b.parts.length) addSynthetic(b, options.parts - kits, random);
   addRebuildKits(b);
-  if (options.parts && options.parts > b.parts.length) addSynthetic(b, options.parts, random);
   const bins = makeBins();
   assignStock(b, bins, random);
   return { frames: FRAMES, parts: b.parts, bins };

@@ -202,3 +202,9 @@ INSERT INTO `service_intervals` (`bearing`, `application`, `months`, `note`) VAL
   ('ball', 'offroad', 12, 'A check at the end of each season, as for other hard use (our choice, following common practice).'),
   ('ball', 'marine', 12, 'A check once a year, at the end of the boating season (our choice).'),
   ('ball', 'street', 24, 'Road use is light on a ball bearing: a check every other year (our choice).');
+--> statement-breakpoint
+-- 0017 rebuilt `user` (its role CHECK gained workshop) and so dropped the triggers 0010 put on it, which tell every
+-- process that an account changed (a role change or a ban must be seen on the next request). They come back here.
+CREATE TRIGGER IF NOT EXISTS `user_changed_update` AFTER UPDATE ON `user` BEGIN UPDATE `change_versions` SET `version` = `version` + 1 WHERE `topic` = 'accounts'; END;
+--> statement-breakpoint
+CREATE TRIGGER IF NOT EXISTS `user_changed_delete` AFTER DELETE ON `user` BEGIN UPDATE `change_versions` SET `version` = `version` + 1 WHERE `topic` = 'accounts'; END;

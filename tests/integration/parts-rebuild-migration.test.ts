@@ -57,6 +57,9 @@ describe('the parts table rebuild for rebuild kits', () => {
     const after = onParts(sqlite);
     expect(after.map((r) => `${r.type} ${r.name}`)).toEqual(before.map((r) => `${r.type} ${r.name}`));
     for (const [i, row] of before.entries()) expect(sameText(after[i]!.sql), row.name).toBe(sameText(row.sql));
+    // The account-change triggers the earlier rebuild of `user` dropped are back too.
+    const userTriggers = sqlite.prepare("SELECT name FROM sqlite_master WHERE type = 'trigger' AND tbl_name = 'user' ORDER BY name").pluck().all();
+    expect(userTriggers).toEqual(['user_changed_delete', 'user_changed_update']);
     // The expression indexes are on the expression (not on a column named like it) and list the new category.
     expect(after.find((r) => r.name === 'parts_browse_order_idx')?.sql).toMatch(/ON `parts` \(\(CASE category .*WHEN 'rebuild-kits' THEN 6 ELSE 7 END\)/);
     sqlite.close();
