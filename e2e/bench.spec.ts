@@ -93,7 +93,7 @@ test('a dealer books a unit in; the Bench receives it by scan, inspects, quotes,
   await page.getByLabel('Purchase-order number').fill('PO-BENCH-E2E');
   await axe();
   await shots(page, 'bench-06-decide');
-  await page.getByRole('button', { name: /^Approve and charge/ }).click();
+  await page.getByRole('button', { name: /^Approve and put on account/ }).click();
   await expect(page.getByText('Approved — being rebuilt').first()).toBeVisible();
 
   // The workshop rebuilds it: the gaskets leave stock; balance and test are recorded.

@@ -147,6 +147,14 @@ describe('the Bench: booking in to shipping back', () => {
     expect(statement.openInvoices).toContainEqual(expect.objectContaining({ number: shipped.invoiceNumber, openCents: expected.totalCents }));
     expect(statement.totals.openInvoicesCents).toBeGreaterThanOrEqual(expected.totalCents);
 
+    // The Office records the dealer's payment of the service invoice as it does an order invoice's.
+    const office = (await createUser(t, { role: 'admin' })).client;
+    const paidRes = await office.send('POST', `/api/admin/dealers/${dealer.dealerAccountId}/invoices/${shipped.invoiceNumber}/paid`, { reference: 'BANK-SV-1' });
+    expect(paidRes.status, JSON.stringify(paidRes.body)).toBe(200);
+    const after = (await dealer.client.get('/api/account/statement')).body as AccountStatement;
+    expect(after.lines).toContainEqual(expect.objectContaining({ kind: 'payment', reference: 'BANK-SV-1', creditCents: expected.totalCents }));
+    expect(after.openInvoices.map((i) => i.number)).not.toContain(shipped.invoiceNumber);
+
     // Every step is in the unit's history and the request's timeline.
     const history = t.db.$client.prepare('SELECT e.kind FROM unit_events e JOIN units u ON u.id = e.unit_id WHERE u.serial = ? ORDER BY e.id').pluck().all(req.serial);
     expect(history).toEqual(['registered', 'booked-in', 'received', 'inspected', 'quoted', 'approved', 'rebuilt', 'tested', 'shipped']);

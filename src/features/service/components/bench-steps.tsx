@@ -221,8 +221,8 @@ export function RebuildForm({ data }: { data: BenchRequest }) {
       </h3>
       <Caution title="Working safely">
         <p>
-          Wheels are sharp: never touch them while they spin. Prime the oil supply before the first start on the test stand. {r.frameName} units weigh
-          up to about 40 kg on the largest frames: lift with two people. Fitting to a vehicle is for a licensed mechanic, to local rules.
+          Wheels are sharp: never touch them while they spin. Prime the oil supply before the first start on the test stand. The largest units weigh
+          about 40 kg: lift them with two people. Fitting to a vehicle is for a licensed mechanic, to local rules.
         </p>
       </Caution>
       <div className="rounded-md bg-panel p-3">

@@ -294,7 +294,7 @@ function DecisionPanel({ r, payer }: { r: ServiceRequestView; payer: Payer }) {
       )}
       {method === 'card' &&
         (payer.live ? (
-          <p className="text-sm">Card payment for service work is taken by phone in live mode for now: call the Bench, or pay on account.</p>
+          <p className="text-sm">Card payment of service work is not offered online yet: pay on account, or contact the Bench.</p>
         ) : (
           <fieldset className="grid gap-2">
             <legend className="text-sm text-cast">Test mode: choose one of the provider's test cards. No money moves.</legend>
@@ -308,7 +308,7 @@ function DecisionPanel({ r, payer }: { r: ServiceRequestView; payer: Payer }) {
         ))}
       <div>
         <Button type="submit" size="lg" disabled={decide.isPending || (method === 'card' && payer.live)}>
-          {decide.isPending ? 'Recording…' : `${decision === 'approve' ? 'Approve' : 'Decline'} and ${method === 'card' ? 'pay' : 'charge'} ${formatPrice(amount)}`}
+          {decide.isPending ? 'Recording…' : `${decision === 'approve' ? 'Approve' : 'Decline'} and ${method === 'card' ? 'pay' : 'put on account'} ${formatPrice(amount)}`}
         </Button>
       </div>
     </form>
