@@ -226,14 +226,18 @@ function NextStep({ data }: { data: BenchRequest }) {
       return <ShipForm data={data} />;
     case 'shipped':
       return (
-        <p className="flex flex-wrap items-center gap-3 text-lg">
-          Shipped with {r.shipment?.carrier} <span className="part-no">{r.shipment?.trackingNumber}</span>.
+        <div className="grid gap-2 text-lg">
+          <p>
+            Shipped with {r.shipment?.carrier} <span className="part-no">{r.shipment?.trackingNumber}</span>.
+          </p>
           {r.invoiceNumber && (
-            <Link to={`/service/${r.reference}/invoice`} className="inline-flex items-center gap-1 font-semibold text-temper underline underline-offset-2">
-              <FileText aria-hidden className="size-5" /> Invoice {r.invoiceNumber}
-            </Link>
+            <p>
+              <Link to={`/service/${r.reference}/invoice`} className="inline-flex min-h-11 items-center gap-1 font-semibold text-temper underline underline-offset-2">
+                <FileText aria-hidden className="size-5" /> Invoice {r.invoiceNumber}
+              </Link>
+            </p>
           )}
-        </p>
+        </div>
       );
   }
 }
