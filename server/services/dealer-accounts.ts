@@ -140,7 +140,19 @@ export function createDealerAccountsService(deps: { db: Db; notify: DealerNotifi
         .all();
       for (const n of rows) notes.set(n.orderId, [...(notes.get(n.orderId) ?? []), n.number]);
     }
-    return open.map((o) => ({
+    // Service invoices from the Bench on account, issued when the unit shipped, so the office can record their payment too.
+    const service = db
+      .select({ number: serviceRequests.invoiceNumber, shippedAt: serviceRequests.shippedAt, purchaseOrder: serviceRequests.purchaseOrder, totalCents: serviceRequests.chargeCents, termsDays: serviceRequests.paymentTermsDays })
+      .from(serviceRequests)
+      .where(and(eq(serviceRequests.dealerAccountId, dealerAccountId), eq(serviceRequests.paymentMethod, 'account'), isNull(serviceRequests.invoicePaidAt)))
+      .orderBy(serviceRequests.id)
+      .all()
+      .flatMap((v) =>
+        v.number && v.shippedAt
+          ? [{ number: v.number, createdAt: v.shippedAt, purchaseOrder: v.purchaseOrder, totalCents: v.totalCents, creditedCents: 0, openCents: v.totalCents, termsDays: v.termsDays, dueDate: invoiceDueDate(v.shippedAt, v.termsDays), creditNotes: null }]
+          : [],
+      );
+    return [...open.map((o) => ({
       number: o.number,
       createdAt: o.createdAt,
       purchaseOrder: o.purchaseOrder,
@@ -150,7 +162,7 @@ export function createDealerAccountsService(deps: { db: Db; notify: DealerNotifi
       termsDays: o.termsDays,
       dueDate: invoiceDueDate(o.createdAt, o.termsDays),
       creditNotes: notes.get(o.id)?.join(', ') ?? null,
-    }));
+    })), ...service].sort((a, b) => a.createdAt.localeCompare(b.createdAt));
   }
 
   /** The office records a dealer's payment of an on-account invoice; it then no longer counts against the limit. */

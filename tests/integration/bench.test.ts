@@ -149,6 +149,8 @@ describe('the Bench: booking in to shipping back', () => {
 
     // The Office records the dealer's payment of the service invoice as it does an order invoice's.
     const office = (await createUser(t, { role: 'admin' })).client;
+    const openList = (await office.get(`/api/admin/dealers/${dealer.dealerAccountId}/invoices`)).body as { items: Array<{ number: string; openCents: number }> };
+    expect(openList.items).toContainEqual(expect.objectContaining({ number: shipped.invoiceNumber, openCents: expected.totalCents }));
     const paidRes = await office.send('POST', `/api/admin/dealers/${dealer.dealerAccountId}/invoices/${shipped.invoiceNumber}/paid`, { reference: 'BANK-SV-1' });
     expect(paidRes.status, JSON.stringify(paidRes.body)).toBe(200);
     const after = (await dealer.client.get('/api/account/statement')).body as AccountStatement;
