@@ -561,6 +561,23 @@ export function createServiceRequests(deps: {
         throw new PaymentServiceError('The card provider did not answer. Try again in a moment: you will not be charged twice.');
       }
     }
+    try {
+      return record(who, r, input, amount, intentId);
+    } catch (err) {
+      // The card was charged but the decision could not be recorded (decided meanwhile by another request, say): the
+      // charge is given back, once, unless it is the very payment that decision recorded.
+      const stored = row(db, r.reference).paymentIntentId;
+      if (intentId && stored !== intentId) {
+        await payments.refunds
+          .create({ payment_intent: intentId, reason: 'duplicate', metadata: { service_reference: r.reference } }, { idempotencyKey: `service-${intentId}-refund` })
+          .catch((e: unknown) => console.warn(`payments: could not refund ${intentId} for ${r.reference}:`, (e as Error).message));
+      }
+      throw err;
+    }
+  }
+
+  function record(who: CurrentUser, r: RequestRow, input: ServiceDecision, amount: number, intentId: string | null): ServiceRequestView {
+    const approve = input.decision === 'approve';
     return db.transaction((tx) => {
       const fresh = row(tx, r.reference);
       if (fresh.status !== 'quoted') throw new ConflictError(`${r.reference} was already decided`);

@@ -184,6 +184,18 @@ describe('the Bench: booking in to shipping back', () => {
     expect((await retail.client.send('POST', `/api/service/${req.reference}/decision`, { decision: 'decline', method: 'card', paymentMethod: TEST_PAYMENT_METHODS.success })).status).toBe(409);
   });
 
+  it('two approvals at once with different cards charge once: the loser’s payment is refunded', async () => {
+    const retail = await createUser(t, { role: 'customer' });
+    const req = await toQuoted(retail, createPart(t, { stock: 1 }));
+    const refunds = () => t.payments!.events().filter((e) => e.event.type === 'charge.refunded').length;
+    const before = refunds();
+    const answers = await Promise.all(
+      [TEST_PAYMENT_METHODS.success, TEST_PAYMENT_METHODS.successAlt].map((pm) => retail.client.send('POST', `/api/service/${req.reference}/decision`, { decision: 'approve', method: 'card', paymentMethod: pm })),
+    );
+    expect(answers.map((a) => a.status).sort()).toEqual([200, 409]);
+    expect(refunds()).toBe(before + 1);
+  });
+
   it('a declined quote ships back unrepaired with an invoice for the inspection fee only', async () => {
     const kit = createPart(t, { stock: 1 });
     const req = await toQuoted(dealer, kit);
