@@ -27,7 +27,7 @@ export function ServiceRequestList({ page, onPage }: { page: number; onPage: (p:
             <tr>
               <Th>Request</Th>
               <Th>Unit</Th>
-              <Th>Booked</Th>
+              <Th className="hidden sm:table-cell">Booked</Th>
               <Th>Where it stands</Th>
             </tr>
           </thead>
@@ -41,8 +41,9 @@ export function ServiceRequestList({ page, onPage }: { page: number; onPage: (p:
                 </Td>
                 <Td>
                   <span className="part-no">{r.serial}</span> <span className="text-cast">{r.frameCode}</span>
+                  <span className="block text-sm text-cast sm:hidden">booked {formatDate(r.createdAt)}</span>
                 </Td>
-                <Td className="whitespace-nowrap">{formatDate(r.createdAt)}</Td>
+                <Td className="hidden whitespace-nowrap sm:table-cell">{formatDate(r.createdAt)}</Td>
                 <Td>
                   <ServiceStatusBadge status={r.status} />
                 </Td>

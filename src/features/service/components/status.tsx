@@ -18,8 +18,8 @@ export function ServiceStatusBadge({ status }: { status: ServiceStatus }) {
   const look = LOOKS[status];
   const Icon = look.icon;
   return (
-    <span className={`inline-flex items-center gap-1.5 whitespace-nowrap rounded-full border px-2.5 py-0.5 text-sm font-semibold ${look.tone}`}>
-      <Icon aria-hidden className="size-4" />
+    <span className={`inline-flex items-center gap-1.5 rounded-2xl border px-2.5 py-0.5 sm:whitespace-nowrap text-sm font-semibold ${look.tone}`}>
+      <Icon aria-hidden className="size-4 shrink-0" />
       {SERVICE_STATUS_WORDS[status]}
     </span>
   );
