@@ -8,6 +8,7 @@ import {
   parsePartNumber,
 } from '../shared/part-number';
 import { type CategorySlug, trimPct } from '../shared/catalog';
+import { gtinForPart } from '../shared/gtin';
 import { FRAMES, HOUSE_BRAND, type FrameSeed, flangeInletMm, isVBand, turbineHousingArs } from './frames';
 
 export interface SpecSeed {
@@ -31,6 +32,11 @@ export interface SpecSeed {
 
 export interface PartSeed {
   partNumber: string;
+  /**
+   * GTIN-13 (shared/gtin.ts), its item reference the part's place in the catalogue counted from 1: the id the part
+   * gets when the catalogue is loaded into an empty database, which load.ts checks.
+   */
+  gtin: string;
   title: string;
   category: string;
   frameCode: string | null;
@@ -111,7 +117,10 @@ function nextNumber(b: Builder, prefix: string, category: CategorySlug, line = 0
   return formatPartNumber({ prefix, group: CATEGORY_GROUP[category], line, serial });
 }
 
-function add(b: Builder, part: Omit<PartSeed, 'aliases' | 'goesWith' | 'stock' | 'status' | 'supersededBy' | 'minStock' | 'coreDepositCents' | 'condition'> & Partial<PartSeed>): PartSeed {
+function add(
+  b: Builder,
+  part: Omit<PartSeed, 'gtin' | 'aliases' | 'goesWith' | 'stock' | 'status' | 'supersededBy' | 'minStock' | 'coreDepositCents' | 'condition'> & Partial<PartSeed>,
+): PartSeed {
   const full: PartSeed = {
     status: 'active',
     condition: 'new',
@@ -122,6 +131,8 @@ function add(b: Builder, part: Omit<PartSeed, 'aliases' | 'goesWith' | 'stock' |
     goesWith: [],
     stock: [],
     ...part,
+    // Numbered here, whatever part it was copied from (a revision, an earlier number, a synthetic variant).
+    gtin: gtinForPart(b.parts.length + 1),
   };
   b.parts.push(full);
   b.byNumber.set(full.partNumber, full);

@@ -1,6 +1,7 @@
 import { sql } from 'drizzle-orm';
 import type { Db } from '../server/db/client';
 import { bins, frames, partAliases, partLinks, parts, partSpecs, stock, stockMovements } from '../server/db/schema';
+import { itemReferenceOf } from '../shared/gtin';
 import { normalizePartNumber } from '../shared/part-number';
 import { buildCompressorMap } from '../shared/fitment/compressor-map';
 import type { CatalogueSeed } from './generate';
@@ -47,6 +48,9 @@ export function loadCatalogue(db: Db, seed: CatalogueSeed): { parts: number } {
         .insert(parts)
         .values(
           group.map((p) => ({
+            // The GTIN's item reference is the part id, as for parts added later (shared/gtin.ts), so ids are given.
+            id: itemReferenceOf(p.gtin) ?? undefined,
+            gtin: p.gtin,
             partNumber: p.partNumber,
             normalizedNumber: normalizePartNumber(p.partNumber),
             title: p.title,

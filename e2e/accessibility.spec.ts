@@ -58,6 +58,7 @@ export const SCREENS: Screen[] = [
   { role: 'warehouse', path: '/floor/goods-in', name: 'goods in' },
   { role: 'warehouse', path: '/floor/stock', name: 'stock' },
   { role: 'warehouse', path: '/floor/returns', name: 'floor returns' },
+  { role: 'warehouse', path: '/floor/labels?parts={part}*2&binFrom=A-01-1&binTo=A-01-4', name: 'label sheets' },
   // Office
   { role: 'admin', path: '/office', name: 'office index' },
   { role: 'admin', path: '/office/parts', name: 'office parts' },

@@ -32,6 +32,7 @@ import { noticesRouter } from './routes/notices';
 import { shaftLogsRouter } from './routes/shaft-logs';
 import { adminCatalogRouter } from './routes/admin-catalog';
 import { createWarehouseService } from './services/warehouse';
+import { createLabelService } from './services/labels';
 import { createReturnsService } from './services/returns';
 import { createCatalogAdmin } from './services/catalog-admin';
 import { createAuditLogReader } from './services/audit-log';
@@ -243,7 +244,7 @@ export function createApp(deps: AppDeps) {
   app.use('/api/checkout', checkoutRouter(orders, cart));
   app.use('/api/orders', ordersRouter(orders));
   app.use('/api/lists', partsListsRouter(createPartsListsService({ db, cart })));
-  app.use('/api/warehouse', warehouseRouter({ db, warehouse, returns }));
+  app.use('/api/warehouse', warehouseRouter({ db, warehouse, returns, labels: createLabelService(db) }));
   app.use('/api/returns', returnsRouter({ returns, photosDir: returnPhotosDir }));
   app.use('/api/notices', noticesRouter(notices));
   app.use('/api/admin', adminCatalogRouter({ admin: catalogAdmin, audit: createAuditLogReader({ db }), photosDir: partPhotosDir }));

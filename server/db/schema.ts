@@ -89,11 +89,18 @@ export const parts = sqliteTable(
      * catalogue filters and sorts by it through an index on parts. Never written by code: part_specs holds it.
      */
     bearing: text('bearing', { enum: BEARINGS }),
+    /**
+     * The part's GTIN-13 (shared/gtin.ts): our prefix in GS1's restricted-circulation range 200–299, the part id as
+     * item reference, the check digit. Null only between an insert and the trigger that fills it from the id
+     * (drizzle/*_gtin_backfill.sql), so every writer gets one; the seed and the Office write it themselves.
+     */
+    gtin: text('gtin'),
     createdAt: createdAt(),
     updatedAt: stamp('updated_at'),
   },
   (t) => [
     uniqueIndex('parts_part_number_uq').on(t.partNumber),
+    uniqueIndex('parts_gtin_uq').on(t.gtin),
     index('parts_normalized_number_idx').on(t.normalizedNumber),
     index('parts_frame_idx').on(t.frameCode, t.status, t.available),
     // The catalogue's default order (category as the shop lists them, frame, number), so a page is read in order.

@@ -2,6 +2,7 @@ import { Router } from 'express';
 import { PartsQuerySchema, SuggestQuerySchema } from '../../shared/schemas/parts';
 import { notFound, parseOr400 } from '../middleware/errors';
 import type { CatalogService } from '../services/catalog';
+import { ean13Svg } from '../services/barcodes';
 
 export function partsRouter(catalog: CatalogService): Router {
   const router = Router();
@@ -25,6 +26,12 @@ export function partsRouter(catalog: CatalogService): Router {
   router.get('/suggest', (req, res) => {
     const { q } = parseOr400(SuggestQuerySchema, req.query, 'Type something to search for');
     res.json(catalog.suggestParts(q));
+  });
+  // The part's GTIN drawn as EAN-13 (the part page shows it small); a part's GTIN never changes, so it keeps a day.
+  router.get('/:partNumber/gtin.svg', async (req, res) => {
+    const part = catalog.getPart(String(req.params.partNumber).slice(0, 60));
+    if (!part) throw notFound(`No part with the number ${String(req.params.partNumber).slice(0, 60)}`);
+    res.type('image/svg+xml').set('Cache-Control', 'public, max-age=86400').send(await ean13Svg(part.gtin));
   });
   router.get('/:partNumber', (req, res) => {
     const part = catalog.getPart(String(req.params.partNumber).slice(0, 60));

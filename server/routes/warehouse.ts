@@ -6,6 +6,10 @@ import { HttpError, parseOr400 } from '../middleware/errors';
 import { requireRole } from '../middleware/session';
 import type { ReturnsService } from '../services/returns';
 import type { WarehouseService } from '../services/warehouse';
+import type { LabelService } from '../services/labels';
+import { resolveScan } from '../services/scan';
+import { ScanQuerySchema } from '../../shared/schemas/scan';
+import { LabelQuerySchema } from '../../shared/schemas/labels';
 import { ORDER_NUMBER_PATTERN } from '../../shared/part-number';
 
 const orderNumber = (raw: unknown) => {
@@ -14,7 +18,7 @@ const orderNumber = (raw: unknown) => {
   return n;
 };
 
-export function warehouseRouter(deps: { db: Db; warehouse: WarehouseService; returns: ReturnsService }): Router {
+export function warehouseRouter(deps: { db: Db; warehouse: WarehouseService; returns: ReturnsService; labels: LabelService }): Router {
   const { warehouse, returns } = deps;
   const router = Router();
   router.use(requireRole('warehouse', 'admin'));
@@ -57,6 +61,14 @@ export function warehouseRouter(deps: { db: Db; warehouse: WarehouseService; ret
   });
   router.get('/bins', (_req, res) => {
     res.json({ items: deps.db.select({ code: bins.code, zone: bins.zone, walkOrder: bins.walkOrder }).from(bins).orderBy(bins.walkOrder).all() });
+  });
+  // Every Floor scan field asks here what a scanned code is: a part (number, cross-reference, GTIN), a bin, a return.
+  router.get('/scan', (req, res) => {
+    const q = parseOr400(ScanQuerySchema, req.query, 'That scan could not be read');
+    res.json(resolveScan(deps.db, q.code, q.accepts));
+  });
+  router.get('/labels', async (req, res) => {
+    res.json(await deps.labels.sheet(parseOr400(LabelQuerySchema, req.query, 'Some label choices are not valid')));
   });
   router.get('/returns', (req, res) => {
     res.json(returns.listAll(req.query.status === 'all' ? 'all' : 'requested', Number(req.query.page) || 1));

@@ -7,6 +7,7 @@ import { diffFields, recordAudit, type AuditEntryInput } from './audit-log';
 import { ConflictError, InvalidError, NotFoundError, TooLargeError } from './errors';
 import { CATEGORY_SLUGS } from '../../shared/catalog';
 import { parseMoneyToCents } from '../../shared/format';
+import { gtinForPart } from '../../shared/gtin';
 import { normalizePartNumber, PART_NUMBER_EXAMPLE, PART_NUMBER_PATTERN } from '../../shared/part-number';
 import { DEFAULT_MAX_CHANGE_PCT, describeFlag, isAcknowledged, priceFlags } from '../../shared/price-import-flags';
 import {
@@ -72,6 +73,7 @@ export function createCatalogAdmin(deps: { db: Db; refreshSearch: (ids: number[]
     const p = db
       .select({
         partNumber: parts.partNumber,
+        gtin: parts.gtin,
         title: parts.title,
         category: parts.category,
         frameCode: parts.frameCode,
@@ -98,7 +100,7 @@ export function createCatalogAdmin(deps: { db: Db; refreshSearch: (ids: number[]
       .orderBy(parts.partNumber)
       .all()
       .map((r) => r.partNumber);
-    return { ...p, status: p.status === 'superseded' ? 'discontinued' : p.status, specs, goesWith };
+    return { ...p, gtin: p.gtin ?? gtinForPart(id), status: p.status === 'superseded' ? 'discontinued' : p.status, specs, goesWith };
   }
 
   const writeSpecs = (id: number, specs: PartForm['specs']) => {
@@ -137,6 +139,8 @@ export function createCatalogAdmin(deps: { db: Db; refreshSearch: (ids: number[]
         })
         .returning({ id: parts.id })
         .get();
+      // The GTIN's item reference is the new part's id (shared/gtin.ts); never typed, never changed afterwards.
+      tx.update(parts).set({ gtin: gtinForPart(row.id) }).where(eq(parts.id, row.id)).run();
       writeSpecs(row.id, form.specs);
       const { images: _i, supersededBy: _s, goesWith: _g, ...created } = getForm(form.partNumber);
       recordAudit(tx, [{ userId, action: 'part-created', partId: row.id, partNumber: form.partNumber, changes: diffFields({}, auditView(created)) }]);

@@ -6,6 +6,7 @@ import type { Db } from '../db/client';
 import { changeFeedFor, type ChangeVersions } from '../db/change-feed';
 import { bins, catalogCounts, CATEGORY_ORDER_EXPR, frames, partAliases, partLinks, parts, partSpecs, stock } from '../db/schema';
 import { CATEGORIES, categoryLabel, stockState, trimPct, type CategorySlug } from '../../shared/catalog';
+import { gtinForPart } from '../../shared/gtin';
 import { normalizePartNumber } from '../../shared/part-number';
 import type { FrameSummary, PartDetail, PartsListResponse, PartsQuery, PartSummary } from '../../shared/schemas/parts';
 import { PAGE_SIZE_DEFAULT } from '../../shared/schemas/parts';
@@ -15,6 +16,7 @@ import { createSearchListing } from './catalog-search';
 const summaryColumns = {
   id: parts.id,
   partNumber: parts.partNumber,
+  gtin: parts.gtin,
   title: parts.title,
   // Plain text in the schema (the seed writes it as a string), but every writer stores one of the shop's categories.
   category: sql<CategorySlug>`${parts.category}`,
@@ -128,6 +130,8 @@ export function createCatalogService(db: Db, search: SearchService) {
     const available = Math.max(0, r.available);
     return {
       partNumber: r.partNumber,
+      // Filled by the database from the id when a writer leaves it out (the gtin_backfill migration); the same number either way.
+      gtin: r.gtin ?? gtinForPart(r.id),
       title: r.title,
       category: r.category,
       frameCode: r.frameCode,

@@ -2,7 +2,10 @@ import { createRequire } from 'node:module';
 import { pathToFileURL } from 'node:url';
 import { Worker } from 'node:worker_threads';
 import Fuse from 'fuse.js';
+import { eq } from 'drizzle-orm';
 import type { Db } from '../db/client';
+import { parts } from '../db/schema';
+import { isValidGtin13, normalizeGtinInput } from '../../shared/gtin';
 import { changeFeedFor } from '../db/change-feed';
 import { normalizePartNumber } from '../../shared/part-number';
 import { EXCHANGE_SUFFIX } from '../../shared/part-number';
@@ -11,7 +14,7 @@ import { ACTIVE, EXCHANGE, readIndexRows, readSnapshot, SearchIndex, tokenize, t
 
 /** Why a part came up, in words a buyer understands. */
 export interface MatchReason {
-  kind: 'part-number' | 'part-number-prefix' | 'superseded' | 'cross-reference' | 'near-number' | 'words' | 'corrected-words';
+  kind: 'gtin' | 'part-number' | 'part-number-prefix' | 'superseded' | 'cross-reference' | 'near-number' | 'words' | 'corrected-words';
   text: string;
 }
 
@@ -174,9 +177,21 @@ export function createSearchService(db: Db, options: { log?: (err: unknown) => v
     return best && best.item !== w ? best.item : null;
   }
 
+  /**
+   * The part whose GTIN this query is (13 digits, spaces allowed, check digit right), by the unique index on
+   * parts.gtin: one look-up, and only for a query shaped like a GTIN. GTINs are not in the in-memory index, so a
+   * run of digits typed in part is not matched against 200,000 of them.
+   */
+  function partIdByGtin(query: string): number | undefined {
+    const gtin = normalizeGtinInput(query.slice(0, 40));
+    if (!gtin || !isValidGtin13(gtin)) return undefined;
+    return db.select({ id: parts.id }).from(parts).where(eq(parts.gtin, gtin)).get()?.id;
+  }
+
   function find(query: string): SearchResult {
     const ix = current();
-    return findIn(ix, query, (w) => correctWord(ix, w));
+    const byGtin = partIdByGtin(query);
+    return findIn(ix, query, (w) => correctWord(ix, w), byGtin === undefined ? undefined : ix.ordOf(byGtin));
   }
 
   /** The best matches as part ids with their reasons (all of them ranked; `limit` only shortens the answer). */
@@ -223,6 +238,8 @@ export function createSearchService(db: Db, options: { log?: (err: unknown) => v
   function exactParts(typed: string): number[] {
     const n = normalizePartNumber(typed.trim().slice(0, 40));
     if (n.length < 2) return [];
+    const byGtin = partIdByGtin(typed);
+    if (byGtin !== undefined) return [byGtin];
     const ix = current();
     return [...new Set(ix.numbersAt('flat', n).filter((e) => ix.isAlive(e.ord)).map((e) => ix.docs[e.ord]!.id))];
   }
@@ -246,7 +263,7 @@ export function createSearchService(db: Db, options: { log?: (err: unknown) => v
  * Every match of the query in the index, ranked. `correct` offers a known word for a mistyped one (or null).
  * Pure over the index, so it can be tried on a catalogue held only in memory.
  */
-export function findIn(ix: SearchIndex, query: string, correct: (word: string) => string | null = () => null): SearchResult {
+export function findIn(ix: SearchIndex, query: string, correct: (word: string) => string | null = () => null, gtinOrd?: number): SearchResult {
   const q = query.trim().slice(0, 100);
   const empty: SearchResult = { index: ix, ords: new Int32Array(0), reasons: () => [], exact: () => false };
   if (q.length === 0) return empty;
@@ -269,6 +286,8 @@ export function findIn(ix: SearchIndex, query: string, correct: (word: string) =
     return (f & ACTIVE ? 0 : 2) + (f & EXCHANGE && !typedExchange ? 1 : 0);
   };
 
+  // A GTIN typed or scanned names one part exactly: it comes first, with the exact part numbers.
+  if (gtinOrd !== undefined) note(gtinOrd, 0, { kind: 'gtin', text: 'Exact GTIN' });
   if (n.length >= 2) {
     for (const e of ix.numbersAt('flat', n)) {
       if (e.kind === 'part-number') {

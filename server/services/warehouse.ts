@@ -6,6 +6,8 @@ import { normalizePartNumber } from '../../shared/part-number';
 import { PICK_QUEUE_PAGE_SIZE, PickLineSchema, type Dispatch, type Pick as PickInput, type PickLine, type PickList, type PickQueueQuery } from '../../shared/schemas/warehouse';
 import type { OrderStatus } from '../../shared/schemas/orders';
 import type { StockService } from './stock';
+import { resolveScan } from './scan';
+import { formatReceipt } from '../../shared/schemas/labels';
 
 /** What the warehouse tells customers, written in the transaction of the pick or dispatch (the mail outbox in the app). */
 export interface WarehouseNotifier {
@@ -195,9 +197,19 @@ export function createWarehouseService(deps: { db: Db; stock: StockService; noti
       if (!PICKABLE.includes(order.status) || order.status === 'packed') throw new ConflictError(`Order ${number} is ${order.status.replace('_', ' ')} and cannot be picked`);
       const line = lineRows(tx, and(eq(orderLines.id, input.lineId), eq(orderLines.orderId, order.id))).get();
       if (!line) throw new NotFoundError(`Order ${number} has no such line`);
-      const scanned = normalizePartNumber(input.scannedPartNumber);
-      if (scanned !== line.normalizedNumber) {
-        throw new ConflictError(`Scanned ${input.scannedPartNumber.trim().toUpperCase()} but this line is ${line.partNumber}: nothing was recorded`);
+      // The part's number, a cross-reference or earlier number naming it alone, or its GTIN (check digit verified:
+      // a misread is refused as invalid before anything else).
+      const typed = input.scannedPartNumber.trim().toUpperCase();
+      let scanned: string | null = null;
+      try {
+        const found = resolveScan(tx, input.scannedPartNumber, ['part']);
+        scanned = found.part.partNumber;
+      } catch (err) {
+        if (!(err instanceof NotFoundError)) throw err;
+      }
+      if (scanned === null || normalizePartNumber(scanned) !== line.normalizedNumber) {
+        const shown = scanned && normalizePartNumber(scanned) !== normalizePartNumber(typed) ? `${typed} (${scanned})` : typed;
+        throw new ConflictError(`Scanned ${shown} but this line is ${line.partNumber}: nothing was recorded`);
       }
       const open = toPick(line);
       if (open <= 0) throw new ConflictError(`${line.partNumber} on ${number} is already picked`);
@@ -321,11 +333,15 @@ export function createWarehouseService(deps: { db: Db; stock: StockService; noti
   }
 
   function partOr404(q: DbOrTx, partNumber: string) {
-    const part = q
-      .select({ id: parts.id, partNumber: parts.partNumber, title: parts.title })
-      .from(parts)
-      .where(eq(parts.normalizedNumber, normalizePartNumber(partNumber)))
-      .get();
+    const byNumber = (n: string) =>
+      q.select({ id: parts.id, partNumber: parts.partNumber, title: parts.title }).from(parts).where(eq(parts.normalizedNumber, normalizePartNumber(n))).get();
+    // Its own number first; else what the scan resolver makes of it (a GTIN, a cross-reference naming one part).
+    let part = byNumber(partNumber);
+    try {
+      part ??= byNumber(resolveScan(q, partNumber, ['part']).part.partNumber);
+    } catch (err) {
+      if (!(err instanceof NotFoundError)) throw err;
+    }
     if (!part) throw new NotFoundError(`No part ${partNumber}`);
     return part;
   }
@@ -345,6 +361,12 @@ export function createWarehouseService(deps: { db: Db; stock: StockService; noti
       const part = partOr404(tx, input.partNumber);
       binOr400(tx, input.binCode);
       stock.goodsIn(part.id, input.binCode, input.quantity, input.note ?? null);
+      // The receipt is the ledger row just written: its number prints this delivery's labels (GET /labels?receipts=).
+      const receipt = tx
+        .select({ id: sql<number>`max(${stockMovements.id})` })
+        .from(stockMovements)
+        .where(and(eq(stockMovements.partId, part.id), eq(stockMovements.binCode, input.binCode), eq(stockMovements.kind, 'goods-in')))
+        .get()!.id;
       const waiting = tx
         .select({ lineId: orderLines.id, orderId: orderLines.orderId, number: orders.number, backordered: orderLines.quantityBackordered })
         .from(orderLines)
@@ -365,7 +387,7 @@ export function createWarehouseService(deps: { db: Db; stock: StockService; noti
         addEvent(tx, w.orderId, 'stock_arrived', `${n} × ${part.partNumber} arrived for the back-order`);
         released.push({ orderNumber: w.number, quantity: n });
       }
-      return { partNumber: part.partNumber, binCode: input.binCode, onHand: stockIn(tx, part.id, input.binCode)?.onHand ?? 0, released };
+      return { partNumber: part.partNumber, binCode: input.binCode, onHand: stockIn(tx, part.id, input.binCode)?.onHand ?? 0, released, receipt: formatReceipt(receipt), quantity: input.quantity };
     });
 
   const adjust = (input: { partNumber: string; binCode: string; delta: number; reason: string }) =>

@@ -1,11 +1,13 @@
 import { z } from 'zod';
 import { PART_CONDITIONS } from '../allowed-values';
 import { CATEGORY_SLUGS, PART_STATUSES } from '../catalog';
-import { SpecsSchema } from './parts';
+import { GtinSchema, SpecsSchema } from './parts';
 
 /** A part as the office edits it: the form's fields plus photos, links and what supersedes it. Read leniently: old rows may predate today's form rules. */
 export const AdminPartSchema = z.object({
   partNumber: z.string(),
+  /** Given by the shop (shared/gtin.ts), shown read-only. */
+  gtin: GtinSchema,
   title: z.string(),
   category: z.enum(CATEGORY_SLUGS),
   frameCode: z.string().nullable(),

@@ -1,5 +1,6 @@
 import { FRAME_CODE_EXAMPLE, FRAME_CODE_PATTERN } from '../part-number';
 import { z } from 'zod';
+import { isValidGtin13 } from '../gtin';
 import { PART_CONDITIONS } from '../allowed-values';
 import { BEARINGS, CATEGORY_SLUGS, PART_STATUSES } from '../catalog';
 
@@ -65,8 +66,12 @@ export const StockStateSchema = z.enum(['in-stock', 'low', 'out-of-stock', 'disc
 
 export const MatchReasonSchema = z.object({ kind: z.string(), text: z.string() });
 
+/** A part's GTIN-13: 13 digits, the last the GS1 check digit (shared/gtin.ts). */
+export const GtinSchema = z.string().refine(isValidGtin13, 'a GTIN is 13 digits ending in its check digit');
+
 export const PartSummarySchema = z.object({
   partNumber: z.string(),
+  gtin: GtinSchema,
   title: z.string(),
   category: z.enum(CATEGORY_SLUGS),
   frameCode: z.string().nullable(),

@@ -85,6 +85,7 @@ const router = createBrowserRouter([
       page('floor/goods-in', () => import('./routes/floor-goods-in'), 'FloorGoodsInRoute'),
       page('floor/stock', () => import('./routes/floor-stock'), 'FloorStockRoute'),
       page('floor/returns', () => import('./routes/floor-returns'), 'FloorReturnsRoute'),
+      page('floor/labels', () => import('./routes/floor-labels'), 'FloorLabelsRoute'),
       page('office/parts', () => import('./routes/office-parts'), 'OfficePartsRoute'),
       page('office/parts/new', () => import('./routes/office-part-edit'), 'OfficePartEditRoute'),
       page('office/parts/:partNumber', () => import('./routes/office-part-edit'), 'OfficePartEditRoute'),

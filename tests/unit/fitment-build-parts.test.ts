@@ -25,6 +25,7 @@ function createPart(overrides: Partial<Omit<PartSummary, 'specs'>> & { specs?: P
   const { specs, ...rest } = overrides;
   return {
     partNumber: 'TST-10-0201',
+    gtin: '2473100000016',
     title: 'test part',
     category: 'turbochargers',
     frameCode: 'TST',

@@ -132,6 +132,20 @@ export function PartRoute() {
                 )}
               </dl>
             )}
+            <figure className="mt-4 inline-grid justify-items-start gap-1">
+              {/* Drawn by the server (bwip-js); the digits under the bars are part of the drawing. */}
+              <img
+                src={`/api/parts/${encodeURIComponent(p.partNumber)}/gtin.svg`}
+                alt={`EAN-13 barcode of GTIN ${p.gtin}`}
+                loading="lazy"
+                width={114}
+                height={56}
+                className="h-14 w-auto bg-white"
+              />
+              <figcaption className="text-sm text-cast">
+                GTIN <span className="tabular">{p.gtin}</span>
+              </figcaption>
+            </figure>
           </div>
         </div>
         <div className="grid content-start gap-3 rounded-lg bg-white p-5 shadow-sm ring-1 ring-cast-line">

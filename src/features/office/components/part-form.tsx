@@ -290,6 +290,17 @@ export function PartFormView({ part, onSaved }: { part?: AdminPart; onSaved: (pa
           className={`part-no uppercase ${part ? 'bg-panel' : ''}`}
           {...form.register('partNumber')}
         />
+        {part && (
+          <TextField
+            id="part-gtin"
+            label="GTIN"
+            hint="Given by the shop when the part was added (our numbers for internal use); it never changes and prints on the part's labels."
+            readOnly
+            autoComplete="off"
+            className="tabular bg-panel"
+            value={part.gtin}
+          />
+        )}
         <TextField id="part-title" label="Title" error={fieldError('title')} autoComplete="off" {...form.register('title')} />
         <SelectField id="part-category" label="Category" hint="Decides which specification fields apply." error={fieldError('category')} {...form.register('category')}>
           <option value="">Choose a category</option>

@@ -13,4 +13,5 @@ export const warehouseKeys = {
   returns: () => [...warehouseKeys.all, 'returns'] as const,
   returnList: (status: 'requested' | 'all', page = 1) => [...warehouseKeys.returns(), status, page] as const,
   returnByCode: (code: string) => [...warehouseKeys.returns(), 'code', code] as const,
+  labels: (query: string) => [...warehouseKeys.all, 'labels', query] as const,
 };

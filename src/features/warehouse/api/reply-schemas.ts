@@ -15,6 +15,9 @@ export const GoodsInReplySchema = z.object({
   binCode: z.string(),
   onHand: z.number().int(),
   released: z.array(z.object({ orderNumber: z.string(), quantity: z.number().int() })),
+  /** The goods-in receipt (GI-123): its labels print from /floor/labels?receipts=. */
+  receipt: z.string(),
+  quantity: z.number().int(),
 });
 export type GoodsInReply = z.infer<typeof GoodsInReplySchema>;
 

@@ -13,6 +13,7 @@ const tabs = [
   { to: '/floor/goods-in', label: 'Goods in', end: false },
   { to: '/floor/stock', label: 'Stock', end: false },
   { to: '/floor/returns', label: 'Returns and cores', end: false },
+  { to: '/floor/labels', label: 'Labels', end: false },
 ];
 
 const tabClass = ({ isActive }: { isActive: boolean }) =>

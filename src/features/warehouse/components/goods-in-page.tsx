@@ -1,15 +1,16 @@
 import { zodResolver } from '@hookform/resolvers/zod';
-import { PackagePlus, RotateCcw } from 'lucide-react';
+import { PackagePlus, RotateCcw, Tags } from 'lucide-react';
 import { useEffect, useRef, useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { Link } from 'react-router-dom';
 import { GoodsInSchema } from '../../../../shared/schemas/warehouse';
-import { Button } from '../../../components/ui/button';
+import { Button, buttonClass } from '../../../components/ui/button';
 import { Notice } from '../../../components/ui/notice';
 import { ApiError } from '../../../lib/api-client';
 import { useBins } from '../api/get-bins';
 import { useStock } from '../api/get-stock';
 import { useReceiveGoods, type GoodsIn } from '../api/receive-goods';
+import { resolveScan } from '../api/resolve-scan';
 import type { GoodsInReply } from '../api/reply-schemas';
 import { normalisePartNumber } from '../lib/pick-progress';
 import { useErrorSummary } from '../../../components/ui/error-summary';
@@ -30,6 +31,10 @@ export function GoodsInPage() {
   const [lookup, setLookup] = useState<string | null>(null);
   const stock = useStock(lookup);
   const [result, setResult] = useState<GoodsInReply | null>(null);
+  // Every receipt on this screen since it opened: their labels print together.
+  const [received, setReceived] = useState<GoodsInReply[]>([]);
+  const [binScanned, setBinScanned] = useState<string | null>(null);
+  const [scanNote, setScanNote] = useState<string | null>(null);
   const partRef = useRef<HTMLInputElement | null>(null);
   const summary = useErrorSummary(form, FIELDS);
   const errors = form.formState.errors;
@@ -41,14 +46,43 @@ export function GoodsInPage() {
     if (home) form.setValue('binCode', home.binCode, { shouldValidate: false });
   }, [stock.data, form]);
 
+  // The field takes what a scanner types: a part number, a cross-reference, a GTIN (check digit verified) or a bin's
+  // label, which chooses the bin and leaves the field for the part. The server says which (one resolver for the Floor).
   const lookUpPart = () => {
-    const value = normalisePartNumber(form.getValues('partNumber'));
-    form.setValue('partNumber', value);
-    if (value.length >= 2) {
-      setLookup(value);
-      form.resetField('binCode', { defaultValue: '' });
-      requestAnimationFrame(() => document.getElementById('gi-qty')?.focus());
-    }
+    const raw = form.getValues('partNumber').trim();
+    setScanNote(null);
+    if (raw.length < 2) return;
+    form.clearErrors('partNumber');
+    resolveScan(raw, ['part', 'bin']).then(
+      (found) => {
+        if (found.kind === 'bin') {
+          form.setValue('binCode', found.bin.code, { shouldDirty: true });
+          form.setValue('partNumber', '');
+          setBinScanned(found.bin.code);
+          setScanNote(`Bin ${found.bin.code} chosen: now scan the part.`);
+          requestAnimationFrame(() => partRef.current?.focus());
+          return;
+        }
+        if (found.kind !== 'part') return;
+        const value = found.part.partNumber;
+        form.setValue('partNumber', value);
+        setLookup(value);
+        if (!binScanned) form.resetField('binCode', { defaultValue: '' });
+        if (found.via === 'gtin') setScanNote(`GTIN ${found.part.gtin} is ${value}.`);
+        requestAnimationFrame(() => document.getElementById('gi-qty')?.focus());
+      },
+      (err: unknown) => {
+        // A part that is not in the catalogue still gets the plain "no part" answer below the field.
+        if (err instanceof ApiError && err.isNotFound && !/^\d[\d\s]*$/.test(raw)) {
+          const value = normalisePartNumber(raw);
+          form.setValue('partNumber', value);
+          setLookup(value);
+          return;
+        }
+        form.setError('partNumber', { message: err instanceof Error ? err.message : 'That scan could not be read' });
+        requestAnimationFrame(() => partRef.current?.select());
+      },
+    );
   };
 
   const onSubmit = summary.handleSubmit(
@@ -58,9 +92,12 @@ export function GoodsInPage() {
         {
           onSuccess: (reply) => {
             setResult(reply);
+            setReceived((r) => [...r, reply]);
             // No values given: the form's own reset empties every field, the number ones included.
             form.reset();
             setLookup(null);
+            setBinScanned(null);
+            setScanNote(null);
             requestAnimationFrame(() => partRef.current?.focus());
           },
           onError: (err) => {
@@ -85,7 +122,7 @@ export function GoodsInPage() {
           id="gi-part"
           label="Part number"
           error={errors.partNumber?.message}
-          hint="Scan the label on the carton; Enter looks the part up."
+          hint="Scan the carton’s label (part number or GTIN) or a bin’s label; Enter looks it up."
           {...partRegister}
           ref={(el) => {
             partRegister.ref(el);
@@ -93,7 +130,7 @@ export function GoodsInPage() {
           }}
           onBlur={(e) => {
             void partRegister.onBlur(e);
-            if (normalisePartNumber(e.target.value) !== lookup && e.target.value.trim()) lookUpPart();
+            if (normalisePartNumber(e.target.value) !== lookup && e.target.value.trim() && !form.getFieldState('partNumber').error) lookUpPart();
           }}
           onKeyDown={(e) => {
             if (e.key === 'Enter') {
@@ -103,6 +140,7 @@ export function GoodsInPage() {
           }}
         />
         <div aria-live="polite">
+          {scanNote && <p className="text-lg font-semibold text-machined">{scanNote}</p>}
           {lookup && stock.isPending && <p className="text-cast">Looking up {lookup}…</p>}
           {notFound && (
             <Notice tone="problem" live="off">
@@ -145,14 +183,36 @@ export function GoodsInPage() {
           Last receipt
         </h2>
         {result ? <Receipt reply={result} /> : <p className="rounded-md border border-dashed border-cast-line bg-white/60 p-4 text-cast">Nothing received on this screen yet.</p>}
+        {received.length > 0 && <PrintReceived received={received} />}
       </section>
+    </div>
+  );
+}
+
+/** Labels for what was just received: one per unit, in the bin it went to. */
+function PrintReceived({ received }: { received: GoodsInReply[] }) {
+  const last = received.at(-1)!;
+  const units = received.reduce((s, r) => s + r.quantity, 0);
+  const link = (list: GoodsInReply[]) => `/floor/labels?receipts=${encodeURIComponent(list.map((r) => r.receipt).join(','))}`;
+  return (
+    <div className="flex flex-wrap gap-3">
+      <Link to={link([last])} className={buttonClass('secondary', 'lg')}>
+        <Tags aria-hidden className="size-5" />
+        Print labels for {last.receipt} ({last.quantity})
+      </Link>
+      {received.length > 1 && (
+        <Link to={link(received)} className={buttonClass('secondary', 'lg')}>
+          <Tags aria-hidden className="size-5" />
+          Labels for all {received.length} receipts ({units})
+        </Link>
+      )}
     </div>
   );
 }
 
 function Receipt({ reply }: { reply: GoodsInReply }) {
   return (
-    <Notice tone="done" size="floor" live="off" title={`Received into ${reply.binCode}`}>
+    <Notice tone="done" size="floor" live="off" title={`Received into ${reply.binCode} · receipt ${reply.receipt}`}>
       <div className="grid gap-3 text-ink">
         <p className="text-lg">
           <span className="part-no text-2xl">{reply.partNumber}</span> — on hand in {reply.binCode}: <span className="tabular text-2xl font-bold">{reply.onHand}</span>

@@ -1,6 +1,6 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { FileText, ListChecks, PackageCheck, Truck, Undo2 } from 'lucide-react';
-import { useState } from 'react';
+import { useState, type FormEvent } from 'react';
 import { useForm } from 'react-hook-form';
 import { Link, useLocation } from 'react-router-dom';
 import type { OrderDetail } from '../../../../shared/schemas/orders';
@@ -17,6 +17,8 @@ import type { DispatchReply } from '../api/reply-schemas';
 import { useErrorSummary } from '../../../components/ui/error-summary';
 import { ErrorSummary, SelectField, TextField } from '../../../components/ui/form';
 import { ScanField } from './scan-field';
+import { ScanFeedback, type ScanOutcome } from './scan-feedback';
+import { resolveScan } from '../api/resolve-scan';
 
 const PackDispatchFormSchema = PackSchema.extend({ carrier: DispatchSchema.shape.carrier, trackingNumber: DispatchSchema.shape.trackingNumber });
 type PackDispatchForm = { cartons: number; weightKg: number; carrier: (typeof CARRIERS)[number]; trackingNumber: string };
@@ -93,7 +95,10 @@ export function PackPage({ number }: { number: string }) {
           </Link>
         </Notice>
       ) : (
-        <PackForm order={o} onDispatched={setDispatched} />
+        <>
+          <PackCheck order={o} />
+          <PackForm order={o} onDispatched={setDispatched} />
+        </>
       )}
     </div>
   );
@@ -128,6 +133,48 @@ function PackedLines({ order }: { order: OrderDetail }) {
         </tbody>
       </table>
     </TableFrame>
+  );
+}
+
+/**
+ * A last check at the bench: scan each part (its number or the GTIN on its label) as it goes into the carton, and
+ * the screen says whether it belongs to this order. Nothing is recorded; the pick already was.
+ */
+function PackCheck({ order }: { order: OrderDetail }) {
+  const [code, setCode] = useState('');
+  const [outcome, setOutcome] = useState<ScanOutcome | null>(null);
+  const [stamp, setStamp] = useState(0);
+  const show = (o: ScanOutcome) => {
+    setOutcome(o);
+    setStamp((s) => s + 1);
+  };
+  const onScan = (e: FormEvent) => {
+    e.preventDefault();
+    const typed = code.trim();
+    setCode('');
+    if (!typed) return;
+    resolveScan(typed, ['part']).then(
+      (found) => {
+        if (found.kind !== 'part') return;
+        const line = order.lines.find((l) => l.partNumber === found.part.partNumber);
+        if (line) show({ kind: 'ok', title: `${found.part.partNumber} belongs in this carton`, detail: `${line.quantityPicked} picked for ${order.number}: ${line.title}` });
+        else show({ kind: 'refused', title: `${found.part.partNumber} is not on ${order.number}`, detail: 'Put it aside and check the pick.' });
+      },
+      (err: unknown) => show({ kind: 'refused', title: err instanceof Error ? err.message : 'That scan could not be read' }),
+    );
+  };
+  return (
+    <form onSubmit={onScan} aria-label="Check a part before packing" className="grid gap-3 rounded-lg border-2 border-cast-line bg-white p-4">
+      <ScanField
+        id="pack-check"
+        label="Check a part going into the carton"
+        keepFocus={false}
+        value={code}
+        onChange={(e) => setCode(e.target.value)}
+        hint="Its part number or GTIN; the scanner ends with Enter. Nothing is recorded."
+      />
+      <ScanFeedback outcome={outcome} stamp={stamp} label="Last check" idle="Scan a part to check it against this order." />
+    </form>
   );
 }
 

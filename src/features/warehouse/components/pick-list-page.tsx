@@ -191,7 +191,7 @@ function PickWorkspace({ orders, list }: { orders: string[]; list: PickList }) {
                 ref={scanRef}
                 id="pick-scan"
                 label="Scan or type the part number"
-                hint={line ? 'The scanner ends with Enter. A part that is not this line’s is refused and nothing is recorded.' : 'Every line is picked.'}
+                hint={line ? 'Its part number or GTIN (the EAN-13 on the part’s label); the scanner ends with Enter. A part that is not this line’s is refused and nothing is recorded.' : 'Every line is picked.'}
                 value={scan}
                 hold={shortOpen}
                 disabled={!line}

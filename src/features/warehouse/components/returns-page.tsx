@@ -20,6 +20,7 @@ import { Notice } from '../../../components/ui/notice';
 import { PageNav } from '../../../components/ui/page-nav';
 import { ApiError } from '../../../lib/api-client';
 import { ScanField } from './scan-field';
+import { resolveScan } from '../api/resolve-scan';
 import { Button } from '../../../components/ui/button';
 import { StatusBadge } from '../../../components/ui/status-badge';
 import { TableFrame, Td, Th } from '../../../components/ui/table';
@@ -56,8 +57,23 @@ export function ReturnsPage({
   const submitScan = (e: React.FormEvent) => {
     e.preventDefault();
     const reference = normalizeReturnReference(scan);
+    const typed = scan.trim();
     if (!reference) {
-      setScanError(scan.trim() ? `${scan.trim()} is not a return label: those read like RT-5001.` : 'Scan the code on the return label.');
+      if (!typed) {
+        setScanError('Scan the code on the return label.');
+        return;
+      }
+      // Not a return number: the Floor's resolver says what it is (a part's or a bin's label, a misread GTIN).
+      resolveScan(typed, ['return']).then(
+        (found) => {
+          if (found.kind !== 'return') return;
+          setScanError(undefined);
+          setScan('');
+          onOpen(found.return.reference);
+        },
+        (err: unknown) =>
+          setScanError(err instanceof ApiError && !err.isNotFound ? err.message : `${typed} is not a return label: those read like RT-5001.`),
+      );
       return;
     }
     setScanError(undefined);
