@@ -6,6 +6,7 @@ import { normalizePartNumber } from '../../shared/part-number';
 import { PICK_QUEUE_PAGE_SIZE, PickLineSchema, type Dispatch, type Pick as PickInput, type PickLine, type PickList, type PickQueueQuery } from '../../shared/schemas/warehouse';
 import type { OrderStatus } from '../../shared/schemas/orders';
 import type { StockService } from './stock';
+import { orientationFrom } from '../../shared/exploded-view';
 
 /** What the warehouse tells customers, written in the transaction of the pick or dispatch (the mail outbox in the app). */
 export interface WarehouseNotifier {
@@ -39,6 +40,8 @@ const lineColumns = {
   picked: orderLines.quantityPicked,
   dispatched: orderLines.quantityDispatched,
   fitmentSummary: orderLines.fitmentSummary,
+  compressorOutletClock: orderLines.compressorOutletClock,
+  turbineInletClock: orderLines.turbineInletClock,
 };
 
 function lineRows(q: DbOrTx, where: SQL | undefined) {
@@ -88,6 +91,7 @@ export function createWarehouseService(deps: { db: Db; stock: StockService; noti
       picked: l.picked - l.dispatched,
       backordered: l.backordered,
       fitmentSummary: l.fitmentSummary,
+      orientation: orientationFrom(l.compressorOutletClock, l.turbineInletClock),
     };
   }
 

@@ -1,6 +1,6 @@
 import { eq, sql } from 'drizzle-orm';
 import type { Db } from '../../db/client';
-import { cartLines, dealerAccounts, orderEvents, orderLines, orders, parts, savedFitments } from '../../db/schema';
+import { CART_LINE_COMPRESSOR_CLOCK_KEY, CART_LINE_TURBINE_CLOCK_KEY, cartLines, dealerAccounts, orderEvents, orderLines, orders, parts, savedFitments } from '../../db/schema';
 import { ConflictError, InvalidError, NotAllowedError } from '../errors';
 import type { CurrentUser } from '../current-user';
 import { checkCredit } from '../../../shared/credit';
@@ -53,6 +53,8 @@ export function createOrderPlacement(deps: OrderPlacementDeps) {
         fitmentId: cartLines.fitmentId,
         fitmentName: savedFitments.name,
         fitmentSummary: savedFitments.summary,
+        compressorOutletClock: cartLines.compressorOutletClock,
+        turbineInletClock: cartLines.turbineInletClock,
       })
       .from(cartLines)
       .innerJoin(parts, eq(parts.id, cartLines.partId))
@@ -164,6 +166,8 @@ export function createOrderPlacement(deps: OrderPlacementDeps) {
               weightGrams: l.weightGrams,
               fitmentId: l.fitmentId,
               fitmentSummary: l.fitmentId ? `${l.fitmentName ?? 'Saved check'}: ${l.fitmentSummary ?? ''}`.trim() : null,
+              compressorOutletClock: l.compressorOutletClock,
+              turbineInletClock: l.turbineInletClock,
             })),
           )
           .run();
@@ -196,7 +200,14 @@ export function createOrderPlacement(deps: OrderPlacementDeps) {
       // The lines go back as they were: quantity, the fitment check they were bought for, and the back-order tick
       // (a line that went on back-order had it ticked; the saved check is only kept if it still exists).
       const lines = tx
-        .select({ partId: orderLines.partId, quantity: orderLines.quantity, backordered: orderLines.quantityBackordered, fitmentId: savedFitments.id })
+        .select({
+          partId: orderLines.partId,
+          quantity: orderLines.quantity,
+          backordered: orderLines.quantityBackordered,
+          fitmentId: savedFitments.id,
+          compressorOutletClock: orderLines.compressorOutletClock,
+          turbineInletClock: orderLines.turbineInletClock,
+        })
         .from(orderLines)
         .leftJoin(savedFitments, eq(savedFitments.id, orderLines.fitmentId))
         .where(eq(orderLines.orderId, orderId))
@@ -205,8 +216,16 @@ export function createOrderPlacement(deps: OrderPlacementDeps) {
       for (const l of lines) {
         stock.release(orderId, l.partId, Infinity, 'payment not completed');
         tx.insert(cartLines)
-          .values({ cartId: restoreTo, partId: l.partId, quantity: l.quantity, fitmentId: l.fitmentId, allowBackorder: l.backordered > 0 })
-          .onConflictDoNothing({ target: [cartLines.cartId, cartLines.partId] })
+          .values({
+            cartId: restoreTo,
+            partId: l.partId,
+            quantity: l.quantity,
+            fitmentId: l.fitmentId,
+            allowBackorder: l.backordered > 0,
+            compressorOutletClock: l.compressorOutletClock,
+            turbineInletClock: l.turbineInletClock,
+          })
+          .onConflictDoNothing({ target: [cartLines.cartId, cartLines.partId, CART_LINE_COMPRESSOR_CLOCK_KEY, CART_LINE_TURBINE_CLOCK_KEY] })
           .run();
       }
       setOrderState(tx, orderId, 'cancelled', 'failed');
