@@ -4,10 +4,12 @@ import tailwindcss from '@tailwindcss/vite';
 import { precompressPlugin } from './scripts/precompress';
 
 // Not the sign-up schema: it brings the password-strength dictionary (a quarter of a megabyte).
-const SHARED = /[\\/]node_modules[\\/]zod[\\/]|[\\/]shared[\\/](schemas[\\/]|(allowed-values|catalog|format|part-number|pricing|units|part-illustration|ageing|price-import-flags|gtin|scan-code)\.ts$)/;
+const SHARED = /[\\/]node_modules[\\/]zod[\\/]|[\\/]shared[\\/](schemas[\\/]|(allowed-values|catalog|format|part-number|pricing|units|part-illustration|exploded-view|ageing|price-import-flags|gtin|scan-code)\.ts$)/;
 const BLOCKS = /[\\/]src[\\/](components[\\/](ui|illustrations)|lib|features[\\/]([\w-]+[\\/](api[\\/]|[\w-]+\.ts$)|catalog[\\/]components|cart[\\/](components[\\/]quantity-stepper|lib[\\/])))/;
 // Forms, tables, dialogs and menus bring libraries of their own (form state, tables, accessible overlays, the card form).
 const HEAVY_BLOCKS = /[\\/]ui[\\/](form|sort-header|table|error-summary|part-search-box)\.|(form|table|dialog|menu|live-card|mail-inbox|-page)\.tsx$/;
+// Loaded on demand where it is shown (React.lazy), never as a block a page waits for.
+const ON_DEMAND = /[\\/]illustrations[\\/]exploded-view\.tsx$/;
 
 const apiPort = Number(process.env.PORT ?? 3000);
 
@@ -31,7 +33,7 @@ export default defineConfig({
             // The validation library with the schemas and the small shared rules: every page reads its data through them.
             { name: 'shared', test: (id) => SHARED.test(id) && !/sign-up\.ts$/.test(id), priority: 20 },
             // Small building blocks several pages use; not the ones that bring a library of their own (forms, tables).
-            { name: 'blocks', test: (id) => BLOCKS.test(id) && !HEAVY_BLOCKS.test(id), minShareCount: 2, priority: 10 },
+            { name: 'blocks', test: (id) => BLOCKS.test(id) && !HEAVY_BLOCKS.test(id) && !ON_DEMAND.test(id), minShareCount: 2, priority: 10 },
           ],
         },
       },

@@ -22,6 +22,7 @@ export const SCREENS: Screen[] = [
   { role: 'guest', path: '/catalogue', name: 'catalogue' },
   { role: 'guest', path: '/catalogue?q=cartridge', name: 'catalogue search' },
   { role: 'guest', path: '/parts/{part}', name: 'part page' },
+  { role: 'guest', path: '/frames/CHS', name: 'frame page with its exploded view' },
   { role: 'guest', path: '/fitment', name: 'fitment check' },
   { role: 'guest', path: '/sign-in', name: 'sign in' },
   { role: 'guest', path: '/sign-up', name: 'sign up' },

@@ -80,7 +80,7 @@ export type MailState = (typeof MAIL_STATES)[number];
 
 /** `column IN ('a', 'b', …)` for a CHECK constraint; the values are our own constants, never user input. */
 export function inListSql(column: string, values: readonly string[]): string {
-  for (const v of values) if (!/^[\w -]+$/.test(v)) throw new Error(`not a plain allowed value: ${v}`);
+  for (const v of values) if (!/^[\w :-]+$/.test(v)) throw new Error(`not a plain allowed value: ${v}`);
   return `${column} IN (${values.map((v) => `'${v}'`).join(', ')})`;
 }
 

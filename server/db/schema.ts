@@ -31,6 +31,7 @@ import type { PriceImportRow } from '../../shared/schemas/admin-catalog';
 import type { PriceFlag } from '../../shared/price-import-flags';
 import { SHAFT_LOG_MAX_ROWS } from '../../shared/schemas/shaft-logs';
 import { APPLICATIONS } from '../../shared/schemas/fitment';
+import { CLOCK_POSITIONS } from '../../shared/exploded-view';
 import { check, index, integer, primaryKey, real, sqliteTable, text, uniqueIndex } from 'drizzle-orm/sqlite-core';
 
 /** The order the shop lists categories in; the same expression sorts the catalogue and backs an index. */
@@ -42,6 +43,18 @@ const createdAt = () => stamp('created_at');
 const oneOf = (table: string, column: string, values: readonly string[]) => check(`${table}_${column}_ck`, sql.raw(inListSql(column, values)));
 /** A CHECK on plain column arithmetic, named after the table and what it holds. */
 const holds = (table: string, name: string, expression: string) => check(`${table}_${name}_ck`, sql.raw(expression));
+/**
+ * A cart line's orientation as one value for its unique index, '' for none (null would make every line distinct). A
+ * CASE, not ifnull(): drizzle-kit splits index expressions at commas. Upserts name the same expressions as target.
+ */
+export const CART_LINE_COMPRESSOR_CLOCK_KEY = sql.raw(`(CASE WHEN compressor_outlet_clock IS NULL THEN '' ELSE compressor_outlet_clock END)`);
+export const CART_LINE_TURBINE_CLOCK_KEY = sql.raw(`(CASE WHEN turbine_inlet_clock IS NULL THEN '' ELSE turbine_inlet_clock END)`);
+/** Both clock positions or neither, each one we name. */
+const orientationChecks = (table: string) => [
+  oneOf(table, 'compressor_outlet_clock', CLOCK_POSITIONS),
+  oneOf(table, 'turbine_inlet_clock', CLOCK_POSITIONS),
+  holds(table, 'orientation', '(compressor_outlet_clock IS NULL) = (turbine_inlet_clock IS NULL)'),
+];
 
 export const frames = sqliteTable('frames', {
   code: text('code').primaryKey(),
@@ -377,10 +390,15 @@ export const cartLines = sqliteTable(
     quantity: integer('quantity').notNull(),
     fitmentId: integer('fitment_id').references(() => savedFitments.id, { onDelete: 'set null' }),
     allowBackorder: integer('allow_backorder', { mode: 'boolean' }).notNull().default(false),
+    /** A complete unit's clocked housings (shared/exploded-view.ts); null on every other part. */
+    compressorOutletClock: text('compressor_outlet_clock', { enum: CLOCK_POSITIONS }),
+    turbineInletClock: text('turbine_inlet_clock', { enum: CLOCK_POSITIONS }),
     createdAt: createdAt(),
   },
   (t) => [
-    uniqueIndex('cart_lines_cart_part_uq').on(t.cartId, t.partId),
+    // The same part in two orientations is two lines.
+    uniqueIndex('cart_lines_cart_part_uq').on(t.cartId, t.partId, sql`${CART_LINE_COMPRESSOR_CLOCK_KEY}`, sql`${CART_LINE_TURBINE_CLOCK_KEY}`),
+    ...orientationChecks('cart_lines'),
     index('cart_lines_part_idx').on(t.partId),
     index('cart_lines_fitment_idx').on(t.fitmentId),
     holds('cart_lines', 'quantity', 'quantity > 0'),
@@ -458,9 +476,12 @@ export const orderLines = sqliteTable(
     weightGrams: integer('weight_grams').notNull(),
     fitmentId: integer('fitment_id'),
     fitmentSummary: text('fitment_summary'),
+    compressorOutletClock: text('compressor_outlet_clock', { enum: CLOCK_POSITIONS }),
+    turbineInletClock: text('turbine_inlet_clock', { enum: CLOCK_POSITIONS }),
   },
   (t) => [
     index('order_lines_order_idx').on(t.orderId),
+    ...orientationChecks('order_lines'),
     index('order_lines_part_idx').on(t.partId),
     holds(
       'order_lines',

@@ -2,13 +2,14 @@ import crypto from 'node:crypto';
 import { and, count, eq, sql, type SQL } from 'drizzle-orm';
 import type { SQLiteColumn } from 'drizzle-orm/sqlite-core';
 import type { Db } from '../db/client';
-import { cartLines, carts, parts, partSpecs, savedFitments } from '../db/schema';
+import { CART_LINE_COMPRESSOR_CLOCK_KEY, CART_LINE_TURBINE_CLOCK_KEY, cartLines, carts, parts, partSpecs, savedFitments } from '../db/schema';
 import { parse } from 'csv-parse/sync';
 import { ConflictError, InvalidError, NotAllowedError, NotFoundError, TooLargeError } from './errors';
 import type { CurrentUser } from './current-user';
 import { normalizePartNumber } from '../../shared/part-number';
 import { DEALER_TIERS, priceOrder, type Buyer, type DeliveryZone } from '../../shared/pricing';
 import { CART_LINES_MAX, CSV_MAX_ROWS, QUANTITY_MAX, type CartView, type OrderRowResult } from '../../shared/schemas/orders';
+import { clockingOf, orientationFrom, orientationProblem, takesOrientation, type Orientation } from '../../shared/exploded-view';
 import type { SearchService } from './search';
 
 export type CartOwner = { userId: string } | { guestToken: string };
@@ -75,6 +76,21 @@ export function compatibilityWarnings(lines: Array<{ lineId: number; partNumber:
   return warnings;
 }
 
+/**
+ * The clock positions a line is stored with: a complete unit is built to the orientation asked for, or its frame's
+ * standard one (quick order, stock lists, parts lists and a guest cart come in that way); any other part has none,
+ * and asking for one on it is refused.
+ */
+export function lineOrientation(part: { partNumber: string; category: string; frameCode: string | null; flangePattern: string | null }, asked: Orientation | undefined) {
+  const frame = part.frameCode ? { code: part.frameCode, flangePattern: part.flangePattern ?? '' } : null;
+  if (asked) {
+    const problem = orientationProblem(part, frame, asked);
+    if (problem) throw new InvalidError(problem, { orientation: [problem] });
+  }
+  const chosen = asked ?? (takesOrientation(part.category) && frame ? clockingOf(frame).standard : null);
+  return { compressorOutletClock: chosen?.compressorOutlet ?? null, turbineInletClock: chosen?.turbineInlet ?? null };
+}
+
 export function createCartService(db: Db, search: SearchService, config: { taxRatePct: number }) {
   // The reads every cart request makes are built and prepared once (Drizzle prepared queries with placeholders).
   const $ = sql.placeholder;
@@ -91,6 +107,8 @@ export function createCartService(db: Db, search: SearchService, config: { taxRa
       fitmentId: cartLines.fitmentId,
       fitmentName: savedFitments.name,
       fitmentSummary: savedFitments.summary,
+      compressorOutletClock: cartLines.compressorOutletClock,
+      turbineInletClock: cartLines.turbineInletClock,
       ...partColumns,
     })
     .from(cartLines)
@@ -108,9 +126,18 @@ export function createCartService(db: Db, search: SearchService, config: { taxRa
 
   const upsertLineQuery = db
     .insert(cartLines)
-    .values({ cartId: $('cartId'), partId: $('partId'), quantity: $('quantity'), fitmentId: $('fitmentId'), allowBackorder: $('allowBackorder') })
+    .values({
+      cartId: $('cartId'),
+      partId: $('partId'),
+      quantity: $('quantity'),
+      fitmentId: $('fitmentId'),
+      allowBackorder: $('allowBackorder'),
+      compressorOutletClock: $('compressorOutletClock'),
+      turbineInletClock: $('turbineInletClock'),
+    })
     .onConflictDoUpdate({
-      target: [cartLines.cartId, cartLines.partId],
+      // The unique index's own expressions: the same part in another orientation is another line.
+      target: [cartLines.cartId, cartLines.partId, CART_LINE_COMPRESSOR_CLOCK_KEY, CART_LINE_TURBINE_CLOCK_KEY],
       set: {
         quantity: sql`min(${QUANTITY_MAX}, ${cartLines.quantity} + ${excluded(cartLines.quantity)})`,
         fitmentId: sql`COALESCE(${excluded(cartLines.fitmentId)}, ${cartLines.fitmentId})`,
@@ -118,7 +145,8 @@ export function createCartService(db: Db, search: SearchService, config: { taxRa
       },
     })
     .prepare();
-  const upsertLine = (line: { cartId: number; partId: number; quantity: number; fitmentId: number | null; allowBackorder: boolean }) => upsertLineQuery.run(line);
+  type LineValues = Pick<typeof cartLines.$inferInsert, 'cartId' | 'partId' | 'quantity' | 'fitmentId' | 'allowBackorder' | 'compressorOutletClock' | 'turbineInletClock'>;
+  const upsertLine = (line: LineValues) => upsertLineQuery.run(line);
   const lineCountQuery = db.select({ n: count() }).from(cartLines).where(eq(cartLines.cartId, $('cartId'))).prepare();
   const touchCartQuery = db.update(carts).set({ updatedAt: sql`strftime('%Y-%m-%dT%H:%M:%fZ','now')` }).where(eq(carts.id, $('cartId'))).prepare();
   const lineOf = (lineId: number, cartId: number) =>
@@ -274,6 +302,7 @@ export function createCartService(db: Db, search: SearchService, config: { taxRa
         coreDepositCents: priced.lineCoreDepositCents,
         weightGrams: priced.lineWeightGrams,
         fitment: r.fitmentId ? { id: r.fitmentId, name: r.fitmentName ?? '', summary: r.fitmentSummary ?? '' } : null,
+        orientation: orientationFrom(r.compressorOutletClock, r.turbineInletClock),
         specs: { mounting: r.mounting },
         photo: r.photo,
       };
@@ -290,7 +319,7 @@ export function createCartService(db: Db, search: SearchService, config: { taxRa
     };
   }
 
-  function addLines(owner: CartOwner, user: CurrentUser | null, lines: Array<{ partNumber: string; quantity: number; fitmentId?: number; allowBackorder?: boolean }>) {
+  function addLines(owner: CartOwner, user: CurrentUser | null, lines: Array<{ partNumber: string; quantity: number; fitmentId?: number; allowBackorder?: boolean; orientation?: Orientation }>) {
     const notices: string[] = [];
     // The helpers query through db: better-sqlite3 has one connection, so they run inside this transaction.
     db.transaction(() => {
@@ -305,7 +334,7 @@ export function createCartService(db: Db, search: SearchService, config: { taxRa
         if (replacedFrom) notices.push(`${replacedFrom} is superseded: ${part.partNumber} was added instead.`);
         if (part.status === 'discontinued' && part.available <= 0) throw new ConflictError(`${part.partNumber} is discontinued and out of stock`);
         if (line.fitmentId !== undefined && (!user || !fitmentOf(line.fitmentId, user.id))) throw new NotFoundError('No such saved fitment check');
-        upsertLine({ cartId: id, partId: part.id, quantity: line.quantity, fitmentId: line.fitmentId ?? null, allowBackorder: line.allowBackorder ?? false });
+        upsertLine({ cartId: id, partId: part.id, quantity: line.quantity, fitmentId: line.fitmentId ?? null, allowBackorder: line.allowBackorder ?? false, ...lineOrientation(part, line.orientation) });
       }
       const held = lineCountQuery.get({ cartId: id });
       if ((held?.n ?? 0) > CART_LINES_MAX) throw new ConflictError(`A cart holds at most ${CART_LINES_MAX} lines`);
@@ -343,8 +372,13 @@ export function createCartService(db: Db, search: SearchService, config: { taxRa
       const guest = cartByGuest(guestToken);
       if (!guest) return;
       const target = cartId({ userId }, true)!;
-      for (const l of tx.select({ partId: cartLines.partId, quantity: cartLines.quantity }).from(cartLines).where(eq(cartLines.cartId, guest.id)).all()) {
-        upsertLine({ cartId: target, partId: l.partId, quantity: l.quantity, fitmentId: null, allowBackorder: false });
+      const guestLines = tx
+        .select({ partId: cartLines.partId, quantity: cartLines.quantity, compressorOutletClock: cartLines.compressorOutletClock, turbineInletClock: cartLines.turbineInletClock })
+        .from(cartLines)
+        .where(eq(cartLines.cartId, guest.id))
+        .all();
+      for (const l of guestLines) {
+        upsertLine({ cartId: target, fitmentId: null, allowBackorder: false, ...l });
       }
       tx.delete(carts).where(eq(carts.id, guest.id)).run();
     });

@@ -8,7 +8,7 @@ import { bins, catalogCounts, CATEGORY_ORDER_EXPR, frames, partAliases, partLink
 import { CATEGORIES, categoryLabel, stockState, trimPct, type CategorySlug } from '../../shared/catalog';
 import { gtinForPart } from '../../shared/gtin';
 import { normalizePartNumber } from '../../shared/part-number';
-import type { FrameSummary, PartDetail, PartsListResponse, PartsQuery, PartSummary } from '../../shared/schemas/parts';
+import type { FrameDetail, FrameSummary, PartDetail, PartsListResponse, PartsQuery, PartSummary } from '../../shared/schemas/parts';
 import { PAGE_SIZE_DEFAULT } from '../../shared/schemas/parts';
 import type { SearchService } from './search';
 import { createSearchListing } from './catalog-search';
@@ -360,29 +360,51 @@ export function createCatalogService(db: Db, search: SearchService) {
     return detail;
   }
 
+  // Every column but the compressor map, which only the fitment check reads.
+  const { compressorMap: _map, ...frameColumns } = getTableColumns(frames);
+  type FrameRow = ReturnType<ReturnType<typeof selectFrames>['all']>[number];
+  const selectFrames = () => db.select(frameColumns).from(frames);
+
   function listFrames(): FrameSummary[] {
-    // Every column but the compressor map, which only the fitment check reads.
-    const { compressorMap: _map, turbineWheelMm: _wheel, ...columns } = getTableColumns(frames);
-    return db
-      .select(columns)
-      .from(frames)
-      .orderBy(frames.maxFlowLbMin)
+    return selectFrames().orderBy(frames.maxFlowLbMin).all().map(frameSummary);
+  }
+
+  /** A frame with its parts on sale (superseded numbers left out, as the catalogue lists them), or null. */
+  function getFrame(code: string): FrameDetail | null {
+    const row = selectFrames().where(eq(frames.code, code.toUpperCase())).get();
+    if (!row) return null;
+    const items = selectSummary()
+      .where(and(eq(parts.frameCode, row.code), ne(parts.status, 'superseded')))
+      .orderBy(CATEGORY_ORDER, parts.partNumber)
       .all()
-      .map((r) => ({
-        code: r.code,
-        name: r.name,
-        powerBandHp: [r.powerMinHp, r.powerMaxHp],
-        maxFlowLbMin: r.maxFlowLbMin,
-        flowReference: { temperatureK: r.flowRefTempK, pressureKpa: r.flowRefPressureKpa },
-        maxPressureRatio: r.maxPressureRatio,
-        maxShaftRpm: r.maxShaftRpm,
-        inducerMm: r.inducerMm,
-        exducerMm: r.exducerMm,
-        trimPct: trimPct(r.inducerMm, r.exducerMm),
-        weightKg: r.weightKg,
-        flangePattern: r.flangePattern,
-        bearingOptions: r.bearingOptions,
-      }));
+      .map(toSummary);
+    const arsOf = (pick: (p: PartSummary) => number | null, category: CategorySlug) =>
+      [...new Set(items.flatMap((p) => (p.category === category && p.status === 'active' && pick(p) !== null ? [pick(p)!] : [])))].sort((a, b) => a - b);
+    return {
+      ...frameSummary(row),
+      turbineWheelMm: row.turbineWheelMm,
+      compressorArOptions: arsOf((p) => p.specs.compressorAr, 'compressor-housings'),
+      turbineArOptions: arsOf((p) => p.specs.turbineAr, 'turbine-housings'),
+      parts: items,
+    };
+  }
+
+  function frameSummary(r: FrameRow): FrameSummary {
+    return {
+      code: r.code,
+      name: r.name,
+      powerBandHp: [r.powerMinHp, r.powerMaxHp],
+      maxFlowLbMin: r.maxFlowLbMin,
+      flowReference: { temperatureK: r.flowRefTempK, pressureKpa: r.flowRefPressureKpa },
+      maxPressureRatio: r.maxPressureRatio,
+      maxShaftRpm: r.maxShaftRpm,
+      inducerMm: r.inducerMm,
+      exducerMm: r.exducerMm,
+      trimPct: trimPct(r.inducerMm, r.exducerMm),
+      weightKg: r.weightKg,
+      flangePattern: r.flangePattern,
+      bearingOptions: r.bearingOptions,
+    };
   }
 
   /**
@@ -415,7 +437,7 @@ export function createCatalogService(db: Db, search: SearchService) {
     return entry;
   }
 
-  return { listParts, listPartsJson, getPart, listFrames, suggestParts: (q: string) => searchListing.suggest(q) };
+  return { listParts, listPartsJson, getPart, listFrames, getFrame, suggestParts: (q: string) => searchListing.suggest(q) };
 }
 
 /** A list answer as sent, with its entity tag and its compressed bytes (made when first asked for, then kept). */

@@ -27,6 +27,7 @@ import type { OrderNotifier } from './orders';
 import type { OrderChangeNotifier } from './orders/order-changes';
 import { renderOrderChanged } from './mail-templates/order-changed';
 import { OrderChangeLineSchema } from '../../shared/schemas/order-changes';
+import { orientationWords } from '../../shared/exploded-view';
 
 /** parts.category is plain text in the schema; the templates take the shop's category slugs. */
 const categorySlug = z.enum(CATEGORY_SLUGS);
@@ -78,6 +79,8 @@ export function createNotifications(deps: { db: Db; publicUrl: string }) {
         unitPriceCents: orderLines.unitPriceCents,
         coreDepositCents: orderLines.coreDepositCents,
         backordered: orderLines.quantityBackordered,
+        compressorOutletClock: orderLines.compressorOutletClock,
+        turbineInletClock: orderLines.turbineInletClock,
       })
       .from(orderLines)
       .innerJoin(parts, eq(parts.id, orderLines.partId))
@@ -134,6 +137,7 @@ export function createNotifications(deps: { db: Db; publicUrl: string }) {
             lineTotalCents: l.unitPriceCents * l.quantity,
             coreDepositCents: l.coreDepositCents || undefined,
             backOrderedQuantity: l.backordered || undefined,
+            orientation: orientationWords(l.compressorOutletClock, l.turbineInletClock),
           })),
           totals: {
             goodsCents: order.goodsCents + order.discountCents,

@@ -8,6 +8,7 @@ import type { OrderStatus } from '../../shared/schemas/orders';
 import type { StockService } from './stock';
 import { resolveScan } from './scan';
 import { formatReceipt } from '../../shared/schemas/labels';
+import { orientationFrom } from '../../shared/exploded-view';
 
 /** What the warehouse tells customers, written in the transaction of the pick or dispatch (the mail outbox in the app). */
 export interface WarehouseNotifier {
@@ -41,6 +42,8 @@ const lineColumns = {
   picked: orderLines.quantityPicked,
   dispatched: orderLines.quantityDispatched,
   fitmentSummary: orderLines.fitmentSummary,
+  compressorOutletClock: orderLines.compressorOutletClock,
+  turbineInletClock: orderLines.turbineInletClock,
 };
 
 function lineRows(q: DbOrTx, where: SQL | undefined) {
@@ -90,6 +93,7 @@ export function createWarehouseService(deps: { db: Db; stock: StockService; noti
       picked: l.picked - l.dispatched,
       backordered: l.backordered,
       fitmentSummary: l.fitmentSummary,
+      orientation: orientationFrom(l.compressorOutletClock, l.turbineInletClock),
     };
   }
 

@@ -2,6 +2,7 @@ import { z } from 'zod';
 import { ORDER_STATUSES, PART_CONDITIONS, type OrderStatus } from '../allowed-values';
 import { DEALER_TIER_KEYS, DELIVERY_ZONE_KEYS } from '../pricing';
 import { IllustrationSpecsSchema, PhotoNameSchema } from './parts';
+import { CLOCK_POSITIONS } from '../exploded-view';
 
 export const QUANTITY_MAX = 999;
 export const CART_LINES_MAX = 200;
@@ -17,11 +18,19 @@ const quantity = z
 
 const partNumber = z.string({ error: 'part number is required' }).trim().min(2, 'part number is required').max(40, 'part number is too long');
 
+/** A complete unit's clocked housings, as clock positions viewed from the compressor inlet (shared/exploded-view.ts). */
+export const OrientationSchema = z.object({
+  compressorOutlet: z.enum(CLOCK_POSITIONS, { error: 'choose a clock position for the compressor outlet' }),
+  turbineInlet: z.enum(CLOCK_POSITIONS, { error: 'choose a clock position for the turbine inlet' }),
+});
+
 export const AddCartLineSchema = z.object({
   partNumber,
   quantity,
   fitmentId: z.number().int().positive().optional(),
   allowBackorder: z.boolean().optional(),
+  /** Complete units only; left out, a complete unit is built in its frame's standard position. */
+  orientation: OrientationSchema.optional(),
 });
 export type AddCartLine = z.infer<typeof AddCartLineSchema>;
 
@@ -85,6 +94,7 @@ export const CartLineViewSchema = z.object({
   coreDepositCents: z.number().int(),
   weightGrams: z.number().int(),
   fitment: z.object({ id: z.number().int(), name: z.string(), summary: z.string() }).nullable(),
+  orientation: OrientationSchema.nullable(),
   specs: IllustrationSpecsSchema,
   photo: PhotoNameSchema,
 });
@@ -155,6 +165,7 @@ export const OrderLineViewSchema = z.object({
   coreDepositCents: z.number().int(),
   lineCents: z.number().int(),
   fitmentSummary: z.string().nullable(),
+  orientation: OrientationSchema.nullable(),
   category: z.string(),
   condition: z.enum(PART_CONDITIONS),
 });

@@ -130,6 +130,17 @@ export const FrameSummarySchema = z.object({
 export type FrameSummary = z.infer<typeof FrameSummarySchema>;
 export const FramesResponseSchema = z.object({ items: z.array(FrameSummarySchema) });
 
+/** A frame's page (GET /api/frames/:code): its data, what the catalogue sells for it, and the parts themselves. */
+export const FrameDetailSchema = FrameSummarySchema.extend({
+  turbineWheelMm: z.number(),
+  /** The A/Rs of the housings on sale for the frame, smallest first. */
+  compressorArOptions: z.array(z.number()),
+  turbineArOptions: z.array(z.number()),
+  /** The frame's parts on sale, superseded numbers left out, in the catalogue's order. */
+  parts: z.array(PartSummarySchema.omit({ matched: true })),
+});
+export type FrameDetail = z.infer<typeof FrameDetailSchema>;
+
 /** Search as you type: a few parts for what is typed so far (GET /api/parts/suggest?q=). */
 export const SUGGEST_LIMIT = 8;
 export const SuggestQuerySchema = z.object({ q: z.string().trim().min(1, 'type something to search for').max(QUERY_MAX_LENGTH) });

@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { CATEGORY_SLUGS } from '../catalog';
-import { ORDER_STATUS_KEYS } from './orders';
+import { ORDER_STATUS_KEYS, OrientationSchema } from './orders';
 import { IllustrationSpecsSchema, PhotoNameSchema } from './parts';
 import { pageFields, pageQuerySchema } from './paging';
 
@@ -63,6 +63,8 @@ export const PickLineSchema = z.object({
   picked: z.number().int(),
   backordered: z.number().int(),
   fitmentSummary: z.string().nullable(),
+  /** A complete unit's clocked housings, to check or set before it is packed. */
+  orientation: OrientationSchema.nullable(),
 });
 export type PickLine = z.infer<typeof PickLineSchema>;
 

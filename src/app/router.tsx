@@ -3,6 +3,7 @@ import { Layout } from './layout';
 import { RouteError } from './route-error';
 import { LoadingState } from '../components/ui/states';
 import { framesQueryOptions } from '../features/catalog/api/get-frames';
+import { frameQueryOptions } from '../features/catalog/api/get-frame';
 import { partQueryOptions } from '../features/catalog/api/get-part';
 import { partsQueryOptions } from '../features/catalog/api/get-parts';
 import { frameMapsQueryOptions } from '../features/fitment/api/get-frame-maps';
@@ -55,6 +56,7 @@ const router = createBrowserRouter([
       page(null, () => import('./routes/home'), 'HomeRoute', () => queryClient.prefetchQuery(framesQueryOptions())),
       page('catalogue', () => import('./routes/catalogue'), 'CatalogueRoute', prefetchCatalogue),
       page('parts/:partNumber', () => import('./routes/part'), 'PartRoute', ({ params }) => queryClient.prefetchQuery(partQueryOptions(params.partNumber ?? ''))),
+      page('frames/:code', () => import('./routes/frame'), 'FrameRoute', ({ params }) => queryClient.prefetchQuery(frameQueryOptions((params.code ?? '').toUpperCase()))),
       page('fitment', () => import('./routes/fitment'), 'FitmentRoute', () => queryClient.prefetchQuery(frameMapsQueryOptions())),
       page('fitment/saved', () => import('./routes/saved-fitments'), 'SavedFitmentsRoute'),
       page('fitment/saved/:id/logs', () => import('./routes/shaft-logs'), 'ShaftLogsRoute'),

@@ -26,6 +26,8 @@ export interface OrderConfirmationLine extends MailPartRef {
   coreDepositCents?: number | undefined;
   /** How many of `quantity` wait for stock (dealers may back-order the rest). */
   backOrderedQuantity?: number | undefined;
+  /** A complete unit's clocked housings, in words (shared/exploded-view.ts orientationText). */
+  orientation?: string | undefined;
 }
 
 export interface OrderTotals {
@@ -110,6 +112,7 @@ export function renderOrderConfirmation(data: OrderConfirmationData): RenderedMa
   for (const line of data.lines) {
     text.push('', `${line.partNumber}  ${line.title}`);
     text.push(...indent([`Qty ${line.quantity} x ${money(line.unitPriceCents)} = ${money(line.lineTotalCents)}`]));
+    if (line.orientation) text.push(...indent([`Built with: ${line.orientation}`]));
     if (backOrdered(line) > 0) text.push(...indent([`BACK-ORDER: ${backOrderWords(line)}`]));
     if (line.coreDepositCents) {
       text.push(
@@ -134,7 +137,7 @@ export function renderOrderConfirmation(data: OrderConfirmationData): RenderedMa
     const waiting = backOrdered(line);
     rows.push([
       partNumber(line.partNumber),
-      html`${line.title}${waiting > 0 ? html`<br>${tag('Back-order')} ${backOrderWords(line)}` : ''}`,
+      html`${line.title}${line.orientation ? html`<br>Built with: ${line.orientation}` : ''}${waiting > 0 ? html`<br>${tag('Back-order')} ${backOrderWords(line)}` : ''}`,
       line.quantity,
       money(line.unitPriceCents),
       money(line.lineTotalCents),

@@ -1,7 +1,7 @@
 import { eq, sql } from 'drizzle-orm';
 import type { Db } from '../../db/client';
 import { preparedOn } from '../../db/prepared';
-import { cartLines, dealerAccounts, orderEvents, orderLines, orders, parts, savedFitments } from '../../db/schema';
+import { CART_LINE_COMPRESSOR_CLOCK_KEY, CART_LINE_TURBINE_CLOCK_KEY, cartLines, dealerAccounts, orderEvents, orderLines, orders, parts, savedFitments } from '../../db/schema';
 import { ConflictError, InvalidError, NotAllowedError } from '../errors';
 import type { CurrentUser } from '../current-user';
 import { checkCredit } from '../../../shared/credit';
@@ -52,7 +52,7 @@ export function createOrderPlacement(deps: OrderPlacementDeps) {
   ] as const;
   const LINE_FIELDS = [
     'orderId', 'partId', 'partNumber', 'title', 'quantity', 'quantityBackordered', 'unitPriceCents', 'retailUnitPriceCents', 'coreDepositCents', 'weightGrams',
-    'fitmentId', 'fitmentSummary',
+    'fitmentId', 'fitmentSummary', 'compressorOutletClock', 'turbineInletClock',
   ] as const;
   const insertOrder = db.insert(orders).values(placeholders(ORDER_FIELDS) as unknown as typeof orders.$inferInsert).returning({ id: orders.id }).prepare();
   const insertLine = db.insert(orderLines).values(placeholders(LINE_FIELDS) as unknown as typeof orderLines.$inferInsert).prepare();
@@ -74,6 +74,8 @@ export function createOrderPlacement(deps: OrderPlacementDeps) {
         fitmentId: cartLines.fitmentId,
         fitmentName: savedFitments.name,
         fitmentSummary: savedFitments.summary,
+        compressorOutletClock: cartLines.compressorOutletClock,
+        turbineInletClock: cartLines.turbineInletClock,
       })
       .from(cartLines)
       .innerJoin(parts, eq(parts.id, cartLines.partId))
@@ -183,6 +185,8 @@ export function createOrderPlacement(deps: OrderPlacementDeps) {
               weightGrams: l.weightGrams,
               fitmentId: l.fitmentId,
               fitmentSummary: l.fitmentId ? `${l.fitmentName ?? 'Saved check'}: ${l.fitmentSummary ?? ''}`.trim() : null,
+              compressorOutletClock: l.compressorOutletClock,
+              turbineInletClock: l.turbineInletClock,
             } satisfies Record<(typeof LINE_FIELDS)[number], unknown>),
         );
         for (const l of lines) {
@@ -214,7 +218,14 @@ export function createOrderPlacement(deps: OrderPlacementDeps) {
       // The lines go back as they were: quantity, the fitment check they were bought for, and the back-order tick
       // (a line that went on back-order had it ticked; the saved check is only kept if it still exists).
       const lines = tx
-        .select({ partId: orderLines.partId, quantity: orderLines.quantity, backordered: orderLines.quantityBackordered, fitmentId: savedFitments.id })
+        .select({
+          partId: orderLines.partId,
+          quantity: orderLines.quantity,
+          backordered: orderLines.quantityBackordered,
+          fitmentId: savedFitments.id,
+          compressorOutletClock: orderLines.compressorOutletClock,
+          turbineInletClock: orderLines.turbineInletClock,
+        })
         .from(orderLines)
         .leftJoin(savedFitments, eq(savedFitments.id, orderLines.fitmentId))
         .where(eq(orderLines.orderId, orderId))
@@ -223,8 +234,16 @@ export function createOrderPlacement(deps: OrderPlacementDeps) {
       for (const l of lines) {
         stock.release(orderId, l.partId, Infinity, 'payment not completed');
         tx.insert(cartLines)
-          .values({ cartId: restoreTo, partId: l.partId, quantity: l.quantity, fitmentId: l.fitmentId, allowBackorder: l.backordered > 0 })
-          .onConflictDoNothing({ target: [cartLines.cartId, cartLines.partId] })
+          .values({
+            cartId: restoreTo,
+            partId: l.partId,
+            quantity: l.quantity,
+            fitmentId: l.fitmentId,
+            allowBackorder: l.backordered > 0,
+            compressorOutletClock: l.compressorOutletClock,
+            turbineInletClock: l.turbineInletClock,
+          })
+          .onConflictDoNothing({ target: [cartLines.cartId, cartLines.partId, CART_LINE_COMPRESSOR_CLOCK_KEY, CART_LINE_TURBINE_CLOCK_KEY] })
           .run();
       }
       setOrderState(tx, orderId, 'cancelled', 'failed');

@@ -6,6 +6,7 @@ import { NotFoundError } from '../errors';
 import type { CurrentUser } from '../current-user';
 import type { OrderDetail, OrderSummary } from '../../../shared/schemas/orders';
 import type { CartService } from '../cart';
+import { orientationFrom, orientationProblem, type Orientation } from '../../../shared/exploded-view';
 
 /** The database or the transaction a query runs in: better-sqlite3 has one connection, so both see the same data. */
 export type Query = Pick<Db, 'select' | 'insert' | 'update'>;
@@ -92,6 +93,8 @@ export function createOrderReads(deps: { db: Db; cart: CartService; trackingUrls
         coreDepositCents: orderLines.coreDepositCents,
         lineCents: sql<number>`${orderLines.unitPriceCents} * ${orderLines.quantity}`,
         fitmentSummary: orderLines.fitmentSummary,
+        compressorOutletClock: orderLines.compressorOutletClock,
+        turbineInletClock: orderLines.turbineInletClock,
         category: parts.category,
         condition: parts.condition,
       })
@@ -99,7 +102,8 @@ export function createOrderReads(deps: { db: Db; cart: CartService; trackingUrls
       .innerJoin(parts, eq(parts.id, orderLines.partId))
       .where(eq(orderLines.orderId, id))
       .orderBy(orderLines.id)
-      .all();
+      .all()
+      .map(({ compressorOutletClock, turbineInletClock, ...l }) => ({ ...l, orientation: orientationFrom(compressorOutletClock, turbineInletClock) }));
     const timeline = db
       .select({ status: orderEvents.status, note: orderEvents.note, at: orderEvents.createdAt })
       .from(orderEvents)
@@ -151,17 +155,21 @@ export function createOrderReads(deps: { db: Db; cart: CartService; trackingUrls
     };
   }
 
-  /** Rebuilds the cart from a past order; superseded parts are replaced by what supersedes them, with a notice. */
+  /**
+   * Rebuilds the cart from a past order; superseded parts are replaced by what supersedes them, with a notice. A
+   * complete unit keeps the orientation it was ordered in (it goes back into the same installation), unless the part
+   * now sold cannot be built that way: then it comes in its frame's standard position, with a notice.
+   */
   function reorder(user: CurrentUser, number: string) {
     const { id } = ownOrder(user, number);
     const lines = db
-      .select({ partNumber: orderLines.partNumber, quantity: orderLines.quantity })
+      .select({ partNumber: orderLines.partNumber, quantity: orderLines.quantity, compressorOutletClock: orderLines.compressorOutletClock, turbineInletClock: orderLines.turbineInletClock })
       .from(orderLines)
       .where(eq(orderLines.orderId, id))
       .orderBy(orderLines.id)
       .all();
     const notices: string[] = [];
-    const addable: Array<{ partNumber: string; quantity: number }> = [];
+    const addable: Array<{ partNumber: string; quantity: number; orientation?: Orientation }> = [];
     for (const l of lines) {
       const resolved = cart.resolvePart(l.partNumber);
       if (!resolved) {
@@ -174,7 +182,13 @@ export function createOrderReads(deps: { db: Db; cart: CartService; trackingUrls
       }
       // The line is added under its new number, so addLines cannot see the supersession: say so here.
       if (resolved.replacedFrom) notices.push(`${l.partNumber} is superseded: ${resolved.part.partNumber} was added instead.`);
-      addable.push({ partNumber: resolved.part.partNumber, quantity: l.quantity });
+      const part = resolved.part;
+      let orientation = orientationFrom(l.compressorOutletClock, l.turbineInletClock) ?? undefined;
+      if (orientation && orientationProblem(part, part.frameCode ? { code: part.frameCode, flangePattern: part.flangePattern ?? '' } : null, orientation)) {
+        notices.push(`${part.partNumber} cannot be built in the orientation of ${l.partNumber}: it comes in its standard position.`);
+        orientation = undefined;
+      }
+      addable.push({ partNumber: part.partNumber, quantity: l.quantity, orientation });
     }
     const view = addable.length ? cart.addLines({ userId: user.id }, user, addable) : cart.view({ userId: user.id }, user);
     return { added: addable.length, notices: [...view.notices, ...notices] };

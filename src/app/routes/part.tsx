@@ -1,6 +1,8 @@
 import { ArrowRight, Gauge } from 'lucide-react';
+import { lazy, Suspense, useState } from 'react';
 import { Link, useParams, useSearchParams } from 'react-router-dom';
 import { categoryLabel, formatPrice } from '../../../shared/catalog';
+import { clockingOf, pieceForCategory, takesOrientation, type Orientation } from '../../../shared/exploded-view';
 import { buttonClass } from '../../components/ui/button';
 import { PartPicture, partPhotoUrl } from '../../components/illustrations/part-picture';
 import { ApiError } from '../../lib/api-client';
@@ -9,15 +11,22 @@ import { useMe } from '../../features/auth/api/get-me';
 import { AddToCart } from '../../features/cart/components/add-to-cart';
 import { AddToList } from '../../features/lists/components/add-to-list';
 import { usePart } from '../../features/catalog/api/get-part';
+import { useFrame } from '../../features/catalog/api/get-frame';
 import { PartCautions } from '../../features/catalog/components/part-cautions';
 import { PartListItem } from '../../features/catalog/components/part-list-item';
 import { specRows } from '../../features/catalog/components/spec-rows';
 import { StockBadge } from '../../features/catalog/components/stock-badge';
 
+// The drawing is its own chunk, loaded once the part's frame is known.
+const ExplodedView = lazy(() => import('../../components/illustrations/exploded-view'));
+
 export function PartRoute() {
   const { partNumber = '' } = useParams();
   const part = usePart(partNumber);
   const me = useMe();
+  const frame = useFrame(part.data?.frame?.code ?? null);
+  // A complete unit's housing positions, chosen here; null keeps the frame's standard position.
+  const [orientation, setOrientation] = useState<{ partNumber: string; value: Orientation } | null>(null);
   // A fitment screen links here with ?fitment=<saved check id> so the line remembers what it was chosen for.
   const fitmentParam = Number(useSearchParams()[0].get('fitment'));
   const dealer = me.data?.user?.role === 'dealer' && me.data.user.dealer?.status === 'approved' ? me.data.user.dealer : null;
@@ -40,6 +49,8 @@ export function PartRoute() {
   const rows = specRows(p.specs);
   const first = p.images[0];
   const pictureSize = 'size-28 sm:size-40 lg:size-48';
+  const clocking = p.frame && takesOrientation(p.category) ? clockingOf(p.frame) : null;
+  const chosen = clocking ? (orientation?.partNumber === p.partNumber ? orientation.value : clocking.standard) : null;
 
   return (
     <article className="grid gap-8">
@@ -55,8 +66,8 @@ export function PartRoute() {
           <>
             {' '}
             /{' '}
-            <Link to={`/catalogue?frame=${p.frameCode}`} className="hover:underline">
-              {p.frameCode}
+            <Link to={`/frames/${p.frameCode}`} className="hover:underline">
+              Frame {p.frameCode}
             </Link>
           </>
         )}
@@ -165,6 +176,7 @@ export function PartRoute() {
               discontinued={p.status === 'discontinued'}
               tier={dealer?.tier ?? null}
               {...(Number.isInteger(fitmentParam) && fitmentParam > 0 && me.data?.user ? { fitmentId: fitmentParam } : {})}
+              {...(clocking && chosen ? { orientation: { clocking, value: chosen, onChange: (value: Orientation) => setOrientation({ partNumber: p.partNumber, value }) } } : {})}
             />
           )}
           {dealer && <AddToList source={{ kind: 'part', partNumber: p.partNumber }} />}
@@ -191,7 +203,10 @@ export function PartRoute() {
                     Frame
                   </th>
                   <td className="tabular py-2">
-                    {p.frame.code} {p.frame.name} · {p.frame.powerBandHp[0]}–{p.frame.powerBandHp[1]} hp · max {p.frame.maxShaftRpm.toLocaleString('en-US')} rpm
+                    <Link to={`/frames/${p.frame.code}`} className="text-temper underline">
+                      {p.frame.code} {p.frame.name}
+                    </Link>{' '}
+                    · {p.frame.powerBandHp[0]}–{p.frame.powerBandHp[1]} hp · max {p.frame.maxShaftRpm.toLocaleString('en-US')} rpm
                   </td>
                 </tr>
               )}
@@ -214,6 +229,12 @@ export function PartRoute() {
         </div>
         <PartCautions category={p.category} />
       </section>
+
+      {p.frame && frame.data && (
+        <Suspense fallback={<LoadingState label="Loading the drawing…" />}>
+          <ExplodedView frame={frame.data} parts={frame.data.parts} highlight={pieceForCategory(p.category)} orientation={chosen} />
+        </Suspense>
+      )}
 
       {p.goesWith.length > 0 && (
         <section aria-labelledby="goes-with-heading">

@@ -5,6 +5,7 @@ import { formatPrice } from '../../../../shared/catalog';
 import { DEALER_TIERS, dealerUnitPriceCents, type DealerTier } from '../../../../shared/pricing';
 import { Button } from '../../../components/ui/button';
 import { useAddCartLine } from '../api/add-cart-line';
+import { OrientationPicker, type OrientationChoice } from './orientation-picker';
 import { QuantityStepper } from './quantity-stepper';
 
 export interface AddToCartProps {
@@ -15,10 +16,12 @@ export interface AddToCartProps {
   /** The buyer's trade tier when they have an approved trade account. */
   tier: DealerTier | null;
   fitmentId?: number;
+  /** A complete unit: the housing positions it is built in. */
+  orientation?: OrientationChoice;
 }
 
 /** The buying part of a part page: quantity, add, and for dealers their trade price and a back-order choice. */
-export function AddToCart({ partNumber, retailCents, available, discontinued, tier, fitmentId }: AddToCartProps) {
+export function AddToCart({ partNumber, retailCents, available, discontinued, tier, fitmentId, orientation }: AddToCartProps) {
   const [quantity, setQuantity] = useState(1);
   const [backorder, setBackorder] = useState(false);
   const add = useAddCartLine();
@@ -29,7 +32,13 @@ export function AddToCart({ partNumber, retailCents, available, discontinued, ti
   const submit = (e: FormEvent) => {
     e.preventDefault();
     if (blocked) return;
-    add.mutate({ partNumber, quantity, ...(fitmentId ? { fitmentId } : {}), ...(dealer && short > 0 ? { allowBackorder: true } : {}) });
+    add.mutate({
+      partNumber,
+      quantity,
+      ...(fitmentId ? { fitmentId } : {}),
+      ...(dealer && short > 0 ? { allowBackorder: true } : {}),
+      ...(orientation ? { orientation: orientation.value } : {}),
+    });
   };
 
   return (
@@ -40,6 +49,7 @@ export function AddToCart({ partNumber, retailCents, available, discontinued, ti
           <span className="tabular text-2xl font-bold text-machined">{formatPrice(dealerUnitPriceCents(retailCents, tier))}</span>
         </p>
       )}
+      {orientation && <OrientationPicker {...orientation} disabled={add.isPending} />}
       <div className="flex flex-wrap items-end gap-3">
         <div className="grid gap-1">
           <span className="text-sm font-semibold">

@@ -16,6 +16,7 @@ import { CartTotals } from './cart-totals';
 import { LineAvailability } from './line-availability';
 import { QuantityStepper } from './quantity-stepper';
 import { blockedLines } from '../lib/cart-lines';
+import { OrientationNote } from '../../../components/ui/orientation-note';
 
 
 export function UnitPrice({ line, cart }: { line: CartLineView; cart: CartView }) {
@@ -52,6 +53,7 @@ function CartLine({ line, cart }: { line: CartLineView; cart: CartView }) {
             {line.partNumber}
           </Link>
           <p className="font-semibold leading-snug">{line.title}</p>
+          <OrientationNote orientation={line.orientation} />
           <LineAvailability line={line} dealer={dealer} busy={busy} onBackorder={(allow) => update.mutate({ id: line.id, allowBackorder: allow })} />
           {line.fitment ? (
             <p className="inline-flex items-start gap-1 text-sm">

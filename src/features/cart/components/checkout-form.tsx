@@ -19,6 +19,7 @@ import { blockedLines } from '../lib/cart-lines';
 import { ErrorSummary } from '../../../components/ui/form';
 import { useErrorSummary, type SummaryField } from '../../../components/ui/error-summary';
 import type { LiveCardHandle } from './live-card';
+import { OrientationNote } from '../../../components/ui/orientation-note';
 
 // Loaded only in live mode, so test mode never fetches the provider's script.
 const LiveCard = lazy(() => import('./live-card'));
@@ -183,6 +184,7 @@ function OrderLinesSummary({ cart }: { cart: CartView }) {
           <span className="min-w-0">
             <span className="tabular">{l.quantity}</span> × <span className="part-no">{l.partNumber}</span>
             <span className="block text-cast">{l.title}</span>
+            <OrientationNote orientation={l.orientation} />
             {l.backorderQuantity > 0 && l.allowBackorder && <span className="block text-amber">{l.backorderQuantity} on back-order</span>}
           </span>
           <span className="tabular shrink-0">{formatPrice(l.lineCents)}</span>

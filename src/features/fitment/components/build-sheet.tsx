@@ -317,7 +317,9 @@ export function BuildSheet({ candidate: c, frame, assumptions, request, recommen
       <dl className="divide-y divide-cast-line/70">
         <SheetRow label="Frame">
           <p>
-            <span className="part-no">{c.frameCode}</span> {c.frameName}
+            <Link to={`/frames/${encodeURIComponent(c.frameCode)}`} className="text-temper underline">
+              <span className="part-no">{c.frameCode}</span> {c.frameName}
+            </Link>
             <span className="text-cast"> · shaft limit {show.rpm(c.maxShaftRpm)}</span>
           </p>
           {c.reasons[0] && <p className="text-sm text-cast">{sentence(c.reasons[0])}</p>}

@@ -1,3 +1,4 @@
+import { Link } from 'react-router-dom';
 import { Map as MapIcon, Wrench } from 'lucide-react';
 import { isUsable } from '../../../../shared/fitment/verdict';
 import type { FitmentCandidate } from '../../../../shared/schemas/fitment';
@@ -35,7 +36,9 @@ export function CandidateList({ candidates, onMap, cameFrom, onShowOnMap, onBuil
                 {c.rank}.
               </span>
               <h4 id={id} className="font-bold">
-                <span className="part-no">{c.frameCode}</span> {c.frameName}
+                <Link to={`/frames/${encodeURIComponent(c.frameCode)}`} className="hover:text-temper hover:underline">
+                  <span className="part-no">{c.frameCode}</span> {c.frameName}
+                </Link>
                 {c.layout === 'twin' && <span className="font-semibold text-cast"> · twin</span>}
               </h4>
               <VerdictBadge verdict={c.verdict} direction={directions} />

@@ -12,6 +12,7 @@ import { show, type UnitSystem } from '../lib/units';
 import { BuildSheet } from './build-sheet';
 import { CandidateList, candidateKey } from './candidate-list';
 import { CompressorMapChart } from './compressor-map-chart';
+import { FrameExploded } from './frame-exploded';
 import { FrameParts } from './frame-parts';
 import { FUEL_LABELS } from './fitment-form';
 import { TurbineHousings } from './turbine-housings';
@@ -355,6 +356,7 @@ export function FitmentResults({ request, result, system, cameFrom, signedIn, ca
       </section>
 
       {build && <FrameParts frameCode={build.frameCode} />}
+      {build && <FrameExploded key={build.frameCode} frameCode={build.frameCode} />}
 
       <AssumptionsUsed result={result} system={system} />
     </section>

@@ -4,6 +4,7 @@ import { formatPrice } from '../../../../shared/catalog';
 import { DELIVERY_ZONES, type DeliveryZone } from '../../../../shared/pricing';
 import type { OrderDetail } from '../../../../shared/schemas/orders';
 import { useFocusableWhenScrolling } from '../../../components/ui/scroll-focus';
+import { OrientationNote } from '../../../components/ui/orientation-note';
 
 export function zoneLabel(zone: string) {
   return DELIVERY_ZONES[zone as DeliveryZone] ?? zone;
@@ -47,6 +48,7 @@ export function OrderLinesTable({ order, print = false, lineAction }: { order: O
               <td className="px-2 py-2">
                 <span className="part-no">{l.partNumber}</span>
                 <span className="block">{l.title}</span>
+                <OrientationNote orientation={l.orientation} className="mt-0.5 text-sm" />
                 {l.fitmentSummary && (
                   <span className="mt-0.5 flex items-start gap-1 text-sm text-cast">
                     <Gauge aria-hidden className="mt-0.5 size-4 shrink-0 print:hidden" />

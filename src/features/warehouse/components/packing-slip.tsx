@@ -8,6 +8,7 @@ import { ApiError } from '../../../lib/api-client';
 import { useOrder } from '../../../lib/orders';
 import { usePickList } from '../api/get-pick-list';
 import { formatDate } from '../../../../shared/format';
+import { OrientationNote } from '../../../components/ui/orientation-note';
 
 export const DISTRIBUTOR = { name: 'Spoolyard Turbo Supply', address: 'Unit 7, Foundry Row, Quenchfold' } as const;
 
@@ -104,6 +105,7 @@ export function PackingSlip({ order, picks, binsError }: { order: OrderDetail; p
               <td className="part-no py-2 pr-3 text-lg">{l.partNumber}</td>
               <td className="py-2 pr-3">
                 {l.title}
+                <OrientationNote orientation={l.orientation} className="text-base font-semibold" />
                 {l.fitmentSummary && <span className="block text-sm text-cast">For: {l.fitmentSummary}</span>}
               </td>
               <td className="tabular py-2 pr-3 text-right">{l.quantity}</td>

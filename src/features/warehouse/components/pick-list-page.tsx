@@ -12,6 +12,7 @@ import { currentLine, isLineDone, normalisePartNumber, pickTarget, remainingToPi
 import { ModalDialog } from '../../../components/ui/modal-dialog';
 import { ScanFeedback, type ScanOutcome } from './scan-feedback';
 import { ScanField } from './scan-field';
+import { OrientationNote } from '../../../components/ui/orientation-note';
 
 /** Order numbers from ?orders=SY-1,SY-2, de-duplicated, in the order given. */
 export function parseOrdersParam(raw: string | null): string[] {
@@ -302,6 +303,12 @@ function CurrentLineCard({ line, batch }: { line: PickLine; batch: boolean }) {
         {/* Beside the big part number only where there is room for both; the line list shows it on a phone. */}
         <PartPicture part={line} photo={line.photo} className="hidden size-24 sm:block" />
       </div>
+      {line.orientation && (
+        <p className="rounded-md bg-temper-tint px-3 py-2 text-lg">
+          <span className="font-semibold">Build to: </span>
+          <OrientationNote orientation={line.orientation} className="inline-flex text-lg" />
+        </p>
+      )}
       {line.fitmentSummary && <Fitment summary={line.fitmentSummary} />}
     </div>
   );
@@ -338,6 +345,7 @@ function LineRow({ line, current, batch, onChoose }: { line: PickLine; current: 
         <p className="truncate">{line.title}</p>
         {batch && <p className="text-cast">Order <span className="part-no">{line.orderNumber}</span></p>}
         {line.fitmentSummary && <p className="truncate text-sm text-cast">For: {line.fitmentSummary}</p>}
+        <OrientationNote orientation={line.orientation} />
         {line.backordered > 0 && (
           <p className="inline-flex items-center gap-1 font-semibold text-amber">
             <CircleAlert aria-hidden className="size-4" />

@@ -1,0 +1,2 @@
+DROP INDEX `cart_lines_cart_part_uq`;--> statement-breakpoint
+CREATE UNIQUE INDEX `cart_lines_cart_part_uq` ON `cart_lines` (`cart_id`,`part_id`,(CASE WHEN compressor_outlet_clock IS NULL THEN '' ELSE compressor_outlet_clock END),(CASE WHEN turbine_inlet_clock IS NULL THEN '' ELSE turbine_inlet_clock END));
