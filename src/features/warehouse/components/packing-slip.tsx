@@ -105,6 +105,11 @@ export function PackingSlip({ order, picks, binsError }: { order: OrderDetail; p
               <td className="py-2 pr-3">
                 {l.title}
                 {l.fitmentSummary && <span className="block text-sm text-cast">For: {l.fitmentSummary}</span>}
+                {l.serials.length > 0 && (
+                  <span className="block text-sm">
+                    {l.serials.length === 1 ? 'Serial' : 'Serials'}: <span className="part-no">{l.serials.join(', ')}</span>
+                  </span>
+                )}
               </td>
               <td className="tabular py-2 pr-3 text-right">{l.quantity}</td>
               <td className="tabular py-2 pr-3 text-right">{l.quantityBackordered > 0 ? l.quantityBackordered : '—'}</td>
