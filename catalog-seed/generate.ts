@@ -495,6 +495,45 @@ function addSupersessionsAndCrossRefs(b: Builder, random: () => number) {
   });
 }
 
+/**
+ * Rebuild kits: one per cartridge family (frame and bearing), linked both ways with the cartridges and complete units
+ * they rebuild. Added after the rest of the catalogue (and its synthetic lines) so the parts, stock and numbers before
+ * them stay as they were.
+ */
+function addRebuildKits(b: Builder) {
+  FRAMES.forEach((f, index) => {
+    const sizeFactor = 1 + index * 0.42;
+    const line = `${HOUSE_BRAND} ${f.name} (${f.code})`;
+    for (const bearing of f.bearingOptions) {
+      const journal = bearing === 'journal';
+      const kit = add(b, {
+        partNumber: nextNumber(b, f.code, 'rebuild-kits'),
+        title: journal ? `${line} rebuild kit, journal bearing cartridges` : `${line} seal kit, ball bearing cartridges`,
+        category: 'rebuild-kits',
+        frameCode: f.code,
+        priceCents: roundPrice((journal ? 96 : 64) * sizeFactor ** 1.1),
+        weightGrams: Math.round((journal ? 180 : 90) * sizeFactor),
+        description: journal
+          ? `Everything that wears in a ${f.code} journal bearing cartridge, for one rebuild: two journal bearings, the thrust bearing and thrust collar, the piston rings for the compressor and turbine ends, and the O-rings. Rebuild on a clean bench, check shaft play against the workshop manual and balance the rotating assembly before it runs again; have it done by a qualified workshop.`
+          : `Cartridge seals (piston rings for the compressor and turbine ends) and O-rings for a ${f.code} ball bearing cartridge, for one rebuild. The ball bearing cartridge itself is a separate part: replacing it whole rather than its balls and races is common practice. Balance the rotating assembly before it runs again; have it done by a qualified workshop.`,
+        minStock: journal ? 4 : 3,
+        specs: {
+          bearing,
+          material: journal ? 'journal bearings, thrust bearing and collar, piston rings, fluoroelastomer O-rings' : 'piston rings (cartridge seals), fluoroelastomer O-rings',
+        },
+      });
+      // Both ways: the kit lists what it rebuilds, and each cartridge and complete unit of the family lists its kit.
+      for (const p of b.parts) {
+        // The main range only: a large generated catalogue's further lines would give each kit thousands of links.
+        if (p.status !== 'active' || p.frameCode !== f.code || p.specs.bearing !== bearing || parsePartNumber(p.partNumber)?.line !== 0) continue;
+        if (p.category !== 'cartridges' && p.category !== 'turbochargers') continue;
+        kit.goesWith.push(p.partNumber);
+        p.goesWith.push(kit.partNumber);
+      }
+    }
+  });
+}
+
 function assignStock(b: Builder, bins: BinSeed[], random: () => number) {
   // Heavy parts live in the last zones (near dispatch), small parts in the first.
   const heavyBins = bins.filter((x) => x.zone >= 'D');
@@ -529,7 +568,10 @@ export function generateCatalogue(options: GenerateOptions = {}): CatalogueSeed 
   discontinueWithReplacements(b);
   linkGoesWith(b);
   addSupersessionsAndCrossRefs(b, random);
-  if (options.parts && options.parts > b.parts.length) addSynthetic(b, options.parts, random);
+  // The kits come last but count toward the size asked for.
+  const kits = FRAMES.reduce((n, f) => n + f.bearingOptions.length, 0);
+  if (options.parts && options.parts - kits > b.parts.length) addSynthetic(b, options.parts - kits, random);
+  addRebuildKits(b);
   const bins = makeBins();
   assignStock(b, bins, random);
   return { frames: FRAMES, parts: b.parts, bins };

@@ -1,10 +1,12 @@
 import { z } from 'zod';
 import { DEMO_EMAILS, DEMO_PASSWORD, expect, test, type Role } from './fixtures';
+import { packedUnit } from './support/units';
 
 /**
  * Every main screen of every role, checked by axe at desktop and phone width: no serious or critical finding.
  * To add a screen, add a row. `{order}` is an order the demo dealer placed on account for this run, `{part}` a part
- * in stock and `{savedCheck}` the demo dealer's saved fitment check; `guest` is nobody signed in.
+ * in stock, `{savedCheck}` the demo dealer's saved fitment check and `{unit}` the serial of a turbocharger the demo dealer
+ * bought and the Floor packed; `guest` is nobody signed in.
  */
 interface Screen {
   role: Role | 'guest';
@@ -51,6 +53,8 @@ export const SCREENS: Screen[] = [
   { role: 'dealer', path: '/notices', name: 'notices' },
   { role: 'dealer', path: '/account/statement', name: 'account statement' },
   { role: 'dealer', path: '/trade/lists', name: 'parts lists' },
+  { role: 'dealer', path: '/account/units', name: 'my units' },
+  { role: 'dealer', path: '/units/{unit}', name: 'unit history' },
   // Floor
   { role: 'warehouse', path: '/floor', name: 'pick queue' },
   { role: 'warehouse', path: '/floor/pick?orders={order}', name: 'pick list' },
@@ -60,6 +64,7 @@ export const SCREENS: Screen[] = [
   { role: 'warehouse', path: '/floor/stock', name: 'stock' },
   { role: 'warehouse', path: '/floor/returns', name: 'floor returns' },
   { role: 'warehouse', path: '/floor/labels?parts={part}*2&binFrom=A-01-1&binTo=A-01-4', name: 'label sheets' },
+  { role: 'warehouse', path: '/units/{unit}', name: 'unit history for staff' },
   // Office
   { role: 'admin', path: '/office', name: 'office index' },
   { role: 'admin', path: '/office/parts', name: 'office parts' },
@@ -70,6 +75,7 @@ export const SCREENS: Screen[] = [
   { role: 'admin', path: '/office/payment-alerts', name: 'payment alerts' },
   { role: 'admin', path: '/office/mail', name: 'office mail' },
   { role: 'admin', path: '/office/audit', name: 'audit log' },
+  { role: 'admin', path: '/office/service-intervals', name: 'service intervals' },
   { role: 'admin', path: '/dev/inbox', name: 'development inbox' },
 ];
 
@@ -83,7 +89,7 @@ const SavedSchema = z.object({ items: z.array(z.object({ id: z.number() })) });
 
 let values: Record<string, string> | undefined;
 
-/** The run's own order, part and saved check, made once through the API the screens use. */
+/** The run's own order, part, saved check and unit, made once through the API the screens use. */
 test.beforeAll(async ({ playwright, baseURL }) => {
   const base = baseURL ?? 'http://127.0.0.1:3100';
   const headers = { origin: new URL(base).origin };
@@ -93,6 +99,7 @@ test.beforeAll(async ({ playwright, baseURL }) => {
     expect(res.ok(), `sign-in as ${role}`).toBe(true);
     return ctx;
   };
+  const { serial: unit } = await packedUnit((o) => playwright.request.newContext(o), base, 'dealer');
   const dealer = await as('dealer');
   const parts = PartsSchema.parse(await (await dealer.get('/api/parts?limit=40')).json());
   const part = parts.items.find((p) => p.condition === 'new' && p.stock.available >= 3);
@@ -110,7 +117,7 @@ test.beforeAll(async ({ playwright, baseURL }) => {
   const retail = await as('retail');
   expect((await retail.post('/api/cart/lines', { data: { partNumber: part.partNumber, quantity: 1 }, headers })).ok()).toBe(true);
   await retail.dispose();
-  values = { order, part: part.partNumber, savedCheck: String(savedCheck) };
+  values = { order, part: part.partNumber, savedCheck: String(savedCheck), unit };
 });
 
 const fill = (path: string) => path.replace(/\{(\w+)\}/g, (_, key: string) => values?.[key] ?? `{${key}}`);

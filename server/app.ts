@@ -33,6 +33,10 @@ import { shaftLogsRouter } from './routes/shaft-logs';
 import { adminCatalogRouter } from './routes/admin-catalog';
 import { createWarehouseService } from './services/warehouse';
 import { createLabelService } from './services/labels';
+import { createUnitsService } from './services/units';
+import { createServiceReminders } from './services/service-reminders';
+import { createUnitHistories } from './services/unit-histories';
+import { serviceIntervalsRouter, unitsRouter } from './routes/units';
 import { createReturnsService } from './services/returns';
 import { createCatalogAdmin } from './services/catalog-admin';
 import { createAuditLogReader } from './services/audit-log';
@@ -125,11 +129,14 @@ export function createApp(deps: AppDeps) {
   const orders = createOrderService({ db, stock, cart, payments: deps.payments, notify: notify.orders, taxRatePct: config.taxRatePct, now, trackingUrls: { ...DEFAULT_TRACKING_URLS, ...config.trackingUrls } });
   const returnPhotosDir = path.join(config.uploadsDir, 'returns');
   const partPhotosDir = path.join(config.uploadsDir, 'parts');
-  const warehouse = createWarehouseService({ db, stock, notify: notify.warehouse });
+  const units = createUnitsService({ db });
+  const warehouse = createWarehouseService({ db, stock, notify: notify.warehouse, units });
   const returns = createReturnsService({ db, stock, payments: deps.payments, notify: notify.returns, photosDir: returnPhotosDir, taxRatePct: config.taxRatePct });
   // One fitment service: the check, the saved checks and the shaft logs share its parsed frames and map tables.
   const fitment = createFitmentService(db);
   const shaftLogs = createShaftLogService({ db, fitment });
+  const reminders = createServiceReminders({ db, units, publicUrl: config.publicUrl });
+  const unitHistories = createUnitHistories({ db, units, reminders, shaftLogs });
   const catalogAdmin = createCatalogAdmin({ db, refreshSearch: (ids) => search.refresh(ids), rebuildSearch: () => void search.rebuild({ background: true }) });
   const auth = createAuth({
     db,
@@ -252,6 +259,8 @@ export function createApp(deps: AppDeps) {
   app.use('/api/admin/mail', adminMailRouter(mailOutbox));
   app.use('/api/admin/payment-alerts', adminPaymentsRouter(orders));
   app.use('/api/admin/office', adminOfficeRouter(db));
+  app.use('/api/admin/service-intervals', serviceIntervalsRouter(reminders));
+  app.use('/api/units', unitsRouter(unitHistories));
   if (config.devTools) app.use('/api/dev', devRouter({ mailInboxUrl: config.mailInboxUrl, paymentsApiUrl: config.paymentsApiUrl, orders }));
   app.use('/api', apiNotFound);
 
@@ -279,5 +288,5 @@ export function createApp(deps: AppDeps) {
     });
   }
   app.use(createErrorHandler(log));
-  return { app, search, catalog, stock, cart, orders, dealers, auth, notifications, notices, mailOutbox, warehouse, returns, catalogAdmin, shaftLogs, fitment };
+  return { app, search, catalog, stock, cart, orders, dealers, auth, notifications, notices, mailOutbox, warehouse, returns, catalogAdmin, shaftLogs, fitment, units, reminders, unitHistories };
 }

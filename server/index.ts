@@ -69,7 +69,7 @@ function runApp(env: Env) {
   });
   const mailer = createMailer({ host: env.MAIL_HOST, port: env.MAIL_PORT, from: env.MAIL_FROM, ignoreTLS: env.NODE_ENV !== 'production' });
   const devTools = env.NODE_ENV !== 'production';
-  const { app, orders, mailOutbox } = createApp({
+  const { app, orders, mailOutbox, reminders } = createApp({
     db,
     payments,
     mailer,
@@ -105,7 +105,7 @@ function runApp(env: Env) {
   });
 
   // Housekeeping runs in exactly one process at a time, the one holding its lease: unpaid card orders give their stock
-  // back after 30 minutes, open card payments are reconciled with the provider, ended rate-limit windows and old
+  // back after 30 minutes, open card payments are reconciled with the provider, units due for service are reminded, ended rate-limit windows and old
   // entries of the change log are dropped.
   const holder = `${process.pid}-${randomUUID().slice(0, 8)}`;
   const everyMs = env.HOUSEKEEPING_SECONDS * 1000;
@@ -116,6 +116,9 @@ function runApp(env: Env) {
       // Open card orders are compared with the provider: paid, failed or refunded payments the webhook missed.
       const drift = await orders.reconcilePayments();
       if (drift.paid + drift.cancelled + drift.refunded > 0) console.log(`housekeeping: payments reconciled ${JSON.stringify(drift)}`);
+      // Units due for service get one reminder each (mail, history line, notice), never twice for one due date.
+      const reminded = reminders.sendDue();
+      if (reminded > 0) console.log(`housekeeping: ${reminded} service reminder${reminded === 1 ? '' : 's'} sent`);
       pruneRateLimits(db);
       pruneChangeLog(db);
     }).catch((err: unknown) => console.warn('housekeeping failed:', (err as Error).message));

@@ -71,6 +71,7 @@ export const MAIL_KINDS = [
   'account-confirm',
   'existing-account-notice',
   'order-changed',
+  'service-reminder',
 ] as const;
 export type MailKind = (typeof MAIL_KINDS)[number];
 
@@ -85,7 +86,7 @@ export function inListSql(column: string, values: readonly string[]): string {
 }
 
 /** What an on-site notice tells a buyer: the changes of their orders and returns that also go out by e-mail. */
-export const NOTICE_KINDS = ['paid', 'on-account', 'picking', 'back-ordered', 'dispatched', 'return-decided'] as const;
+export const NOTICE_KINDS = ['paid', 'on-account', 'picking', 'back-ordered', 'dispatched', 'return-decided', 'service-due'] as const;
 export type NoticeKind = (typeof NOTICE_KINDS)[number];
 
 /** What a catalogue audit entry records: each change to a part, by hand or by a price import. */

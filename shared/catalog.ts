@@ -7,6 +7,7 @@ export const CATEGORIES = [
   { slug: 'turbine-housings', label: 'Turbine housings', blurb: 'Cast iron or steel exhaust side, by A/R and flange.' },
   { slug: 'gaskets-fittings', label: 'Gaskets & fittings', blurb: 'Flange gaskets, oil and water lines.' },
   { slug: 'gauges-sensors', label: 'Gauges & sensors', blurb: 'Boost, exhaust temperature, oil pressure and shaft speed.' },
+  { slug: 'rebuild-kits', label: 'Rebuild kits', blurb: 'Bearings, seals and thrust parts to rebuild one cartridge.' },
 ] as const;
 
 export type CategorySlug = (typeof CATEGORIES)[number]['slug'];

@@ -25,6 +25,8 @@ export const KINDS_BY_CATEGORY: Record<CategorySlug, readonly [IllustrationKind,
   'turbine-housings': ['turbine-housing'],
   'gaskets-fittings': ['flange-gasket', 'hose-line', 'silicone-coupler', 'v-band-clamp', 'small-fitting'],
   'gauges-sensors': ['dash-gauge', 'sensor-probe', 'plug-in-logger'],
+  // Bearings, seals and O-rings in a bag: the seal drawing stands for the kit.
+  'rebuild-kits': ['flange-gasket'],
 };
 
 /** What the choice needs: a part, a cart line or a pick line all carry these. */

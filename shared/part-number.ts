@@ -11,7 +11,7 @@ export function normalizePartNumber(input: string): string {
  *   frame code      three letters from the frame's name (Gimlet → GIM); size lives in the specs, never in the code
  *   part number     PREFIX-GL-SSSS[-XCH]
  *                   PREFIX  a frame code, or FLG (flange parts shared by frames) / INS (gauges and sensors)
- *                   G       the category group (1 turbochargers … 6 gauges and sensors)
+ *                   G       the category group (1 turbochargers … 6 gauges and sensors, 7 rebuild kits)
  *                   L       the product line (0 the main range; 1–9 later lines)
  *                   SSSS    a serial; an earlier number of the same part has a lower serial than its replacement
  *                   XCH     a remanufactured unit sold on exchange
@@ -31,6 +31,7 @@ export const CATEGORY_GROUP = {
   'turbine-housings': 4,
   'gaskets-fittings': 5,
   'gauges-sensors': 6,
+  'rebuild-kits': 7,
 } as const;
 
 export interface PartNumberParts {

@@ -32,7 +32,7 @@ import type { PriceFlag } from '../../shared/price-import-flags';
 import { SHAFT_LOG_MAX_ROWS } from '../../shared/schemas/shaft-logs';
 import { APPLICATIONS } from '../../shared/schemas/fitment';
 import { CLOCK_POSITIONS } from '../../shared/exploded-view';
-import { check, index, integer, primaryKey, real, sqliteTable, text, uniqueIndex } from 'drizzle-orm/sqlite-core';
+import { check, index, integer, primaryKey, real, sqliteTable, text, uniqueIndex, type AnySQLiteColumn } from 'drizzle-orm/sqlite-core';
 
 /** The order the shop lists categories in; the same expression sorts the catalogue and backs an index. */
 export const CATEGORY_ORDER_EXPR = `(CASE category ${CATEGORIES.map((c, i) => `WHEN '${c.slug}' THEN ${i}`).join(' ')} ELSE ${CATEGORIES.length} END)`;
@@ -357,10 +357,13 @@ export const shaftLogs = sqliteTable(
     /** The rows as read (boost in kPa gauge), parsed with ShaftLogRowSchema when read back. Map points are worked out
      * on each read, so they follow today's maps. */
     rows: text('rows', { mode: 'json' }).$type<unknown>().notNull(),
+    /** The unit the log was taken on, when it was uploaded from the unit's page (its history shows it). */
+    unitId: integer('unit_id').references((): AnySQLiteColumn => units.id, { onDelete: 'set null' }),
     createdAt: createdAt(),
   },
   (t) => [
     index('shaft_logs_fitment_idx').on(t.savedFitmentId, t.createdAt),
+    index('shaft_logs_unit_idx').on(t.unitId, t.createdAt),
     index('shaft_logs_frame_idx').on(t.frameCode),
     oneOf('shaft_logs', 'boost_unit', BOOST_UNITS),
     check('shaft_logs_row_count_ck', sql.raw(`row_count BETWEEN 1 AND ${SHAFT_LOG_MAX_ROWS}`)),
@@ -965,4 +968,44 @@ export const unitEvents = sqliteTable(
     createdAt: createdAt(),
   },
   (t) => [index('unit_events_unit_idx').on(t.unitId, t.id), index('unit_events_actor_idx').on(t.actorUserId), oneOf('unit_events', 'kind', UNIT_EVENT_KINDS)],
+);
+
+/**
+ * How often a unit should come in, by bearing and use: defaults seeded by migration from common practice, adjusted by
+ * staff in the Office (docs/decisions/0010-serials-logs-reminders.md).
+ */
+export const serviceIntervals = sqliteTable(
+  'service_intervals',
+  {
+    bearing: text('bearing', { enum: BEARINGS }).notNull(),
+    application: text('application', { enum: APPLICATIONS }).notNull(),
+    months: integer('months').notNull(),
+    /** Why this interval: shown to staff beside it. */
+    note: text('note').notNull().default(''),
+    updatedBy: text('updated_by').references(() => user.id, { onDelete: 'set null' }),
+    updatedAt: stamp('updated_at'),
+  },
+  (t) => [
+    primaryKey({ columns: [t.bearing, t.application] }),
+    index('service_intervals_updated_by_idx').on(t.updatedBy),
+    oneOf('service_intervals', 'bearing', BEARINGS),
+    oneOf('service_intervals', 'application', APPLICATIONS),
+    holds('service_intervals', 'months', 'months BETWEEN 1 AND 60'),
+  ],
+);
+
+/** One row per service reminder sent: a unit is reminded once for each date it falls due. */
+export const serviceReminders = sqliteTable(
+  'service_reminders',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    unitId: integer('unit_id')
+      .notNull()
+      .references(() => units.id, { onDelete: 'cascade' }),
+    /** The calendar date (YYYY-MM-DD) the unit fell due on. */
+    dueOn: text('due_on').notNull(),
+    mailId: integer('mail_id').references(() => mailOutbox.id, { onDelete: 'set null' }),
+    createdAt: createdAt(),
+  },
+  (t) => [uniqueIndex('service_reminders_unit_due_uq').on(t.unitId, t.dueOn), index('service_reminders_mail_idx').on(t.mailId)],
 );

@@ -19,6 +19,7 @@ import type { Db } from '../db/client';
 import { shaftLogs } from '../db/schema';
 import { ConflictError, InvalidError, NotFoundError, TooLargeError } from './errors';
 import type { FitmentService } from './fitment';
+import type { Query } from './orders/order-reads';
 
 const listColumns = {
   id: shaftLogs.id,
@@ -82,6 +83,12 @@ export interface ShaftLogFile {
   fileName?: string;
 }
 
+/** A log uploaded for one unit: stored with it, and `stored` writes the unit's history line in the same transaction. */
+export interface ForUnit {
+  unitId: number;
+  stored: (tx: Query, log: ShaftLog) => void;
+}
+
 /** Shaft-speed logs belong to a saved check and so to its owner; anyone else is told the check does not exist. */
 export function createShaftLogService(deps: { db: Db; fitment: FitmentService }) {
   const { db, fitment } = deps;
@@ -122,7 +129,7 @@ export function createShaftLogService(deps: { db: Db; fitment: FitmentService })
     },
 
     /** Reads and checks the file; nothing is stored unless every row is good. */
-    upload(userId: string, fitmentId: number, form: ShaftLogUpload, file: ShaftLogFile): ShaftLog {
+    upload(userId: string, fitmentId: number, form: ShaftLogUpload, file: ShaftLogFile, forUnit?: ForUnit): ShaftLog {
       const saved = fitment.getSaved(userId, fitmentId);
       const frame = frameOr400(form.frameCode);
       const parsed = parseShaftLogCsv(file.text);
@@ -145,7 +152,7 @@ export function createShaftLogService(deps: { db: Db; fitment: FitmentService })
         if ((held?.n ?? 0) >= SHAFT_LOGS_PER_CHECK_MAX) {
           throw new ConflictError(`This check already has ${SHAFT_LOGS_PER_CHECK_MAX} logs. Delete some you no longer need, then upload again.`);
         }
-        return tx
+        const log = tx
           .insert(shaftLogs)
           .values({
             savedFitmentId: saved.id,
@@ -155,9 +162,12 @@ export function createShaftLogService(deps: { db: Db; fitment: FitmentService })
             rowCount: parsed.rows.length,
             durationS: first && last ? round(last.t - first.t, 3) : 0,
             rows: parsed.rows,
+            unitId: forUnit?.unitId ?? null,
           })
           .returning(listColumns)
           .get();
+        forUnit?.stored(tx, log);
+        return log;
       });
     },
 

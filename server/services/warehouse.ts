@@ -1,6 +1,6 @@
 import { and, count, desc, eq, gt, inArray, lte, ne, notInArray, or, sql, type SQL } from 'drizzle-orm';
 import type { Db } from '../db/client';
-import { bins, stock as binStock, orderEvents, orderLines, orders, parts, partSpecs, shipments, stockMovements } from '../db/schema';
+import { bins, stock as binStock, orderEvents, orderLines, orders, parts, partSpecs, shipments, stockMovements, units as unitRows } from '../db/schema';
 import { ConflictError, InvalidError, NotFoundError } from './errors';
 import { normalizePartNumber } from '../../shared/part-number';
 import { PICK_QUEUE_PAGE_SIZE, PickLineSchema, type Dispatch, type Pick as PickInput, type PickLine, type PickList, type PickQueueQuery } from '../../shared/schemas/warehouse';
@@ -9,6 +9,7 @@ import type { StockService } from './stock';
 import { resolveScan } from './scan';
 import { formatReceipt } from '../../shared/schemas/labels';
 import { orientationFrom } from '../../shared/exploded-view';
+import type { UnitsService } from './units';
 
 /** What the warehouse tells customers, written in the transaction of the pick or dispatch (the mail outbox in the app). */
 export interface WarehouseNotifier {
@@ -67,8 +68,40 @@ function addEvent(q: DbOrTx, orderId: number, status: string, note: string | nul
   q.insert(orderEvents).values({ orderId, status, note }).run();
 }
 
-export function createWarehouseService(deps: { db: Db; stock: StockService; notify: WarehouseNotifier }) {
-  const { db, stock, notify } = deps;
+/** What we sell by serial: each unit of these leaves the warehouse with one (shared/unit-serial.ts). */
+const SERIALISED_CATEGORIES = ['turbochargers', 'cartridges'];
+
+export function createWarehouseService(deps: { db: Db; stock: StockService; notify: WarehouseNotifier; units: UnitsService }) {
+  const { db, stock, notify, units } = deps;
+
+  /**
+   * Gives every packed unit of a complete turbocharger or cartridge its serial, owned by the buyer (and their trade
+   * account), with a `sold` line in its history. Units already serialised on an earlier pack of the line keep theirs.
+   */
+  function serialisePacked(tx: DbOrTx, order: { id: number; number: string }, lines: LineRow[]): number {
+    const buyer = tx.select({ userId: orders.userId, dealerAccountId: orders.dealerAccountId }).from(orders).where(eq(orders.id, order.id)).get();
+    let given = 0;
+    for (const l of lines) {
+      if (!SERIALISED_CATEGORIES.includes(l.category)) continue;
+      const have = tx.select({ n: count() }).from(unitRows).where(eq(unitRows.orderLineId, l.lineId)).get()?.n ?? 0;
+      if (l.picked <= have) continue;
+      const part = tx.select({ frameCode: parts.frameCode, bearing: parts.bearing, specBearing: partSpecs.bearing }).from(parts).leftJoin(partSpecs, eq(partSpecs.partId, parts.id)).where(eq(parts.id, l.partId)).get();
+      for (let i = have; i < l.picked; i++) {
+        const unit = units.register(tx, {
+          partId: l.partId,
+          frameCode: part?.frameCode ?? null,
+          bearing: part?.bearing ?? part?.specBearing ?? 'journal',
+          origin: 'sold',
+          ownerUserId: buyer?.userId ?? null,
+          dealerAccountId: buyer?.dealerAccountId ?? null,
+          orderLineId: l.lineId,
+        });
+        units.addEvent(tx, unit.id, { kind: 'sold', summary: `Sold on ${order.number}: ${l.partNumber} ${l.title}`, ref: order.number });
+        given += 1;
+      }
+    }
+    return given;
+  }
 
   const toPick = (l: LineRow) => l.quantity - l.backordered - l.picked;
 
@@ -291,6 +324,7 @@ export function createWarehouseService(deps: { db: Db; stock: StockService; noti
         setStatus(tx, order.id, 'packed');
         addEvent(tx, order.id, 'packed', `${cartons} carton${cartons === 1 ? '' : 's'}, ${weightKg} kg`);
       }
+      serialisePacked(tx, order, lines);
       return { status: 'packed' as const };
     });
 

@@ -16,6 +16,7 @@ export const MAIL_KIND_LABELS = {
   'account-confirm': 'Account confirmation link',
   'existing-account-notice': 'Sign-up for an existing account',
   'order-changed': 'Order changed or cancelled',
+  'service-reminder': 'Service reminder',
 } as const satisfies Record<(typeof MAIL_KINDS)[number], string>;
 
 export const MAIL_STATE_LABELS = {

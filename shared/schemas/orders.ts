@@ -168,6 +168,8 @@ export const OrderLineViewSchema = z.object({
   orientation: OrientationSchema.nullable(),
   category: z.string(),
   condition: z.enum(PART_CONDITIONS),
+  /** Serials given to this line's units when they were packed (complete turbochargers and cartridges). */
+  serials: z.array(z.string()),
 });
 
 export const OrderDetailSchema = OrderSummarySchema.extend({

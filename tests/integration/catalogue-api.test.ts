@@ -61,6 +61,7 @@ describe('GET /api/parts', () => {
       'turbine-housings',
       'gaskets-fittings',
       'gauges-sensors',
+      'rebuild-kits',
     ]);
   });
 

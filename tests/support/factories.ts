@@ -136,6 +136,8 @@ export interface TestPart {
 export interface PartOverrides extends Partial<Omit<PartForm, 'partNumber' | 'specs'>> {
   /** Units put on the shelf through goods-in, so the ledger holds them. */
   stock?: number;
+  /** The category's specifications (a bearing for a complete unit or cartridge, say). */
+  specs?: PartForm['specs'];
   binCode?: string;
 }
 

@@ -61,7 +61,7 @@ describe('trim', () => {
 });
 
 describe('demo catalogue', () => {
-  it('has at least 400 parts across the six categories', () => {
+  it('has at least 400 parts across the seven categories', () => {
     expect(active.length).toBeGreaterThanOrEqual(400);
     for (const slug of CATEGORY_SLUGS) expect(active.filter((p) => p.category === slug).length, slug).toBeGreaterThanOrEqual(20);
   });
@@ -195,3 +195,37 @@ describe('demo catalogue hangs together', () => {
     }
   });
 });
+
+describe('rebuild kits', () => {
+  const kits = onSale.filter((p) => p.category === 'rebuild-kits');
+
+  it('has one kit for each cartridge family (frame and bearing), numbered in the kits group', () => {
+    const families = new Set(onSale.filter((p) => p.category === 'cartridges').map((p) => `${p.frameCode} ${p.specs.bearing}`));
+    expect(new Set(kits.map((k) => `${k.frameCode} ${k.specs.bearing}`))).toEqual(families);
+    expect(kits.length).toBe(families.size);
+    for (const k of kits) expect(parsePartNumber(k.partNumber)?.group, k.partNumber).toBe(7);
+  });
+
+  it('lists what is in it: journal kits the bearings, thrust parts, rings and O-rings; ball kits only seals and O-rings', () => {
+    for (const k of kits) {
+      if (k.specs.bearing === 'journal') {
+        expect(k.description, k.partNumber).toMatch(/journal bearings.*thrust bearing and thrust collar.*piston rings.*O-rings/);
+      } else {
+        expect(k.description, k.partNumber).toMatch(/seals.*O-rings/);
+        // The ball bearing cartridge is a separate part; replacing it whole is common practice.
+        expect(k.description, k.partNumber).toMatch(/separate part.*common practice/);
+        expect(k.specs.material).not.toMatch(/bearing/);
+      }
+    }
+  });
+
+  it('goes with every cartridge and complete unit of its family, both ways', () => {
+    for (const k of kits) {
+      const family = onSale.filter((p) => (p.category === 'cartridges' || p.category === 'turbochargers') && p.frameCode === k.frameCode && p.specs.bearing === k.specs.bearing);
+      expect(family.length).toBeGreaterThan(0);
+      expect(new Set(k.goesWith)).toEqual(new Set(family.map((p) => p.partNumber)));
+      for (const p of family) expect(p.goesWith, p.partNumber).toContain(k.partNumber);
+    }
+  });
+});
+

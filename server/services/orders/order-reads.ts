@@ -1,6 +1,6 @@
 import { count, desc, eq, sql, type SQL } from 'drizzle-orm';
 import type { Db } from '../../db/client';
-import { dealerAccounts, orderEvents, orderLines, orders, parts, returns, shipments } from '../../db/schema';
+import { dealerAccounts, orderEvents, orderLines, orders, parts, returns, shipments, units } from '../../db/schema';
 import { DEFAULT_TRACKING_URLS, trackingUrl, type TrackingUrlPatterns } from '../../../shared/carriers';
 import { NotFoundError } from '../errors';
 import type { CurrentUser } from '../current-user';
@@ -104,6 +104,13 @@ export function createOrderReads(deps: { db: Db; cart: CartService; trackingUrls
       .orderBy(orderLines.id)
       .all()
       .map(({ compressorOutletClock, turbineInletClock, ...l }) => ({ ...l, orientation: orientationFrom(compressorOutletClock, turbineInletClock) }));
+    const serials = db
+      .select({ lineId: units.orderLineId, serial: units.serial })
+      .from(units)
+      .innerJoin(orderLines, eq(orderLines.id, units.orderLineId))
+      .where(eq(orderLines.orderId, id))
+      .orderBy(units.serial)
+      .all();
     const timeline = db
       .select({ status: orderEvents.status, note: orderEvents.note, at: orderEvents.createdAt })
       .from(orderEvents)
@@ -135,7 +142,7 @@ export function createOrderReads(deps: { db: Db; cart: CartService; trackingUrls
       unitsDispatched: lines.reduce((n, l) => n + l.quantityDispatched, 0),
       email: o.email,
       paymentTermsDays: o.paymentTermsDays,
-      lines,
+      lines: lines.map((l) => ({ ...l, serials: serials.filter((u) => u.lineId === l.id).map((u) => u.serial) })),
       totals: {
         goodsCents: o.goodsCents,
         discountCents: o.discountCents,

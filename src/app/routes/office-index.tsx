@@ -1,4 +1,4 @@
-import { AlertTriangle, Boxes, CreditCard, FileSpreadsheet, History, Mail, Store, type LucideIcon } from 'lucide-react';
+import { AlertTriangle, Boxes, CalendarClock, CreditCard, FileSpreadsheet, History, Mail, Store, type LucideIcon } from 'lucide-react';
 import { Link } from 'react-router-dom';
 import type { OfficeSummary } from '../../../shared/schemas/office-summary';
 import { useMe } from '../../features/auth/api/get-me';
@@ -53,6 +53,12 @@ export const OFFICE_CARDS: OfficeCard[] = [
     what: 'Upload a price list, check every change, then apply it.',
     Icon: FileSpreadsheet,
     count: (s) => ({ text: s.priceImportPreviews ? `${plural(s.priceImportPreviews, 'upload', 'uploads')} not applied` : 'No upload waiting', attention: false }),
+  },
+  {
+    to: '/office/service-intervals',
+    title: 'Service intervals',
+    what: 'How often units should come in, by bearing and use; reminders follow them.',
+    Icon: CalendarClock,
   },
   {
     to: '/office/audit',

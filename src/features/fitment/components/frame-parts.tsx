@@ -7,6 +7,7 @@ const LINKED_CATEGORIES = [
   { slug: 'compressor-housings', label: 'Compressor housings' },
   { slug: 'turbine-housings', label: 'Turbine housings' },
   { slug: 'gaskets-fittings', label: 'Gaskets and fittings' },
+  { slug: 'rebuild-kits', label: 'Rebuild kits' },
 ] as const;
 
 /** Links to everything the catalogue has on a frame, for a buyer who wants other housings or spares than the build. */

@@ -10,4 +10,5 @@ export const officeKeys = {
   mailList: (state: string, page: number) => [...officeKeys.mail(), { state, page }] as const,
   paymentAlerts: () => [...officeKeys.all, 'payment-alerts'] as const,
   summary: () => [...officeKeys.all, 'summary'] as const,
+  serviceIntervals: () => [...officeKeys.all, 'service-intervals'] as const,
 };

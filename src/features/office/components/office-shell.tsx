@@ -28,6 +28,9 @@ export function OfficeNav() {
       <NavLink to="/office/mail" className={tab}>
         Mail
       </NavLink>
+      <NavLink to="/office/service-intervals" className={tab}>
+        Service intervals
+      </NavLink>
       <NavLink to="/office/audit" className={tab}>
         Audit log
       </NavLink>

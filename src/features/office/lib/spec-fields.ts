@@ -39,6 +39,7 @@ const BY_CATEGORY: Record<CategorySlug, SpecKey[]> = {
   'turbine-housings': ['turbineAr', 'flangePattern', 'material', 'wastegate'],
   'gaskets-fittings': ['flangePattern', 'material', 'connection'],
   'gauges-sensors': ['gaugeType', 'rangeText', 'mounting', 'connection'],
+  'rebuild-kits': ['bearing', 'material'],
 };
 
 export const ALL_SPEC_KEYS = Object.keys(SPEC_FIELDS) as SpecKey[];

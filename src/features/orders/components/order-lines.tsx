@@ -1,5 +1,6 @@
 import { Clock, Gauge, Truck } from 'lucide-react';
 import type { ReactNode } from 'react';
+import { Link } from 'react-router-dom';
 import { formatPrice } from '../../../../shared/catalog';
 import { DELIVERY_ZONES, type DeliveryZone } from '../../../../shared/pricing';
 import type { OrderDetail } from '../../../../shared/schemas/orders';
@@ -53,6 +54,23 @@ export function OrderLinesTable({ order, print = false, lineAction }: { order: O
                   <span className="mt-0.5 flex items-start gap-1 text-sm text-cast">
                     <Gauge aria-hidden className="mt-0.5 size-4 shrink-0 print:hidden" />
                     Chosen for: {l.fitmentSummary}
+                  </span>
+                )}
+                {l.serials.length > 0 && (
+                  <span className="mt-0.5 block text-sm">
+                    <span className="text-cast">{l.serials.length === 1 ? 'Serial' : 'Serials'}: </span>
+                    {l.serials.map((serial, i) => (
+                      <span key={serial}>
+                        {i > 0 && ', '}
+                        {print ? (
+                          <span className="part-no">{serial}</span>
+                        ) : (
+                          <Link to={`/units/${encodeURIComponent(serial)}`} className="part-no text-temper underline underline-offset-2">
+                            {serial}
+                          </Link>
+                        )}
+                      </span>
+                    ))}
                   </span>
                 )}
                 {l.quantityBackordered > 0 && (

@@ -122,7 +122,14 @@ function PackedLines({ order }: { order: OrderDetail }) {
           {order.lines.map((l) => (
             <tr key={l.id} className="border-t border-cast-line first:border-t-0">
               <Td className="part-no text-lg">{l.partNumber}</Td>
-              <Td>{l.title}</Td>
+              <Td>
+                {l.title}
+                {l.serials.length > 0 && (
+                  <span className="block text-sm">
+                    {l.serials.length === 1 ? 'Serial' : 'Serials'}: <span className="part-no">{l.serials.join(', ')}</span>
+                  </span>
+                )}
+              </Td>
               <Td numeric>{l.quantity}</Td>
               <Td numeric className="font-semibold">
                 {l.quantityPicked}

@@ -107,6 +107,11 @@ export function PackingSlip({ order, picks, binsError }: { order: OrderDetail; p
                 {l.title}
                 <OrientationNote orientation={l.orientation} className="text-base font-semibold" />
                 {l.fitmentSummary && <span className="block text-sm text-cast">For: {l.fitmentSummary}</span>}
+                {l.serials.length > 0 && (
+                  <span className="block text-sm">
+                    {l.serials.length === 1 ? 'Serial' : 'Serials'}: <span className="part-no">{l.serials.join(', ')}</span>
+                  </span>
+                )}
               </td>
               <td className="tabular py-2 pr-3 text-right">{l.quantity}</td>
               <td className="tabular py-2 pr-3 text-right">{l.quantityBackordered > 0 ? l.quantityBackordered : '—'}</td>
