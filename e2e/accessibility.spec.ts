@@ -4,7 +4,7 @@ import { DEMO_EMAILS, DEMO_PASSWORD, expect, test, type Role } from './fixtures'
 /**
  * Every main screen of every role, checked by axe at desktop and phone width: no serious or critical finding.
  * To add a screen, add a row. `{order}` is an order the demo dealer placed on account for this run, `{part}` a part
- * in stock and `{savedCheck}` the demo dealer's saved fitment check; `guest` is nobody signed in.
+ * in stock, `{savedCheck}` the demo dealer's saved fitment check and `{serviceRef}` a unit the dealer booked in for service; `guest` is nobody signed in.
  */
 interface Screen {
   role: Role | 'guest';
@@ -50,6 +50,13 @@ export const SCREENS: Screen[] = [
   { role: 'dealer', path: '/notices', name: 'notices' },
   { role: 'dealer', path: '/account/statement', name: 'account statement' },
   { role: 'dealer', path: '/trade/lists', name: 'parts lists' },
+  { role: 'dealer', path: '/service', name: 'service requests' },
+  { role: 'dealer', path: '/service/new', name: 'book a unit in' },
+  { role: 'dealer', path: '/service/{serviceRef}', name: 'service request' },
+  { role: 'dealer', path: '/service/{serviceRef}/label', name: 'service label' },
+  // Bench
+  { role: 'workshop', path: '/bench', name: 'bench queue' },
+  { role: 'workshop', path: '/bench?ref={serviceRef}', name: 'bench request' },
   // Floor
   { role: 'warehouse', path: '/floor', name: 'pick queue' },
   { role: 'warehouse', path: '/floor/pick?orders={order}', name: 'pick list' },
@@ -104,11 +111,18 @@ test.beforeAll(async ({ playwright, baseURL }) => {
   const saved = SavedSchema.parse(await (await dealer.get('/api/fitments')).json());
   const savedCheck = saved.items[0]?.id;
   if (savedCheck === undefined) throw new Error('the demo dealer has no saved check');
+  // A unit booked in for service, for the service and Bench screens.
+  const booked = await dealer.post('/api/service', {
+    multipart: { noSerial: 'true', frameCode: 'BUR', bearing: 'ball', symptoms: 'season-check', application: 'street', returnName: 'Accessibility run', returnLine1: '1 Check Lane', returnCity: 'Quenchfold', returnPostcode: 'QF1 1AA' },
+    headers,
+  });
+  expect(booked.ok(), 'book a unit in').toBe(true);
+  const serviceRef = z.object({ reference: z.string() }).parse(await booked.json()).reference;
   await dealer.dispose();
   const retail = await as('retail');
   expect((await retail.post('/api/cart/lines', { data: { partNumber: part.partNumber, quantity: 1 }, headers })).ok()).toBe(true);
   await retail.dispose();
-  values = { order, part: part.partNumber, savedCheck: String(savedCheck) };
+  values = { order, part: part.partNumber, savedCheck: String(savedCheck), serviceRef };
 });
 
 const fill = (path: string) => path.replace(/\{(\w+)\}/g, (_, key: string) => values?.[key] ?? `{${key}}`);

@@ -1,6 +1,6 @@
-import { and, count, desc, eq, exists, inArray, sql } from 'drizzle-orm';
+import { and, count, desc, eq, exists, inArray, isNull, sql } from 'drizzle-orm';
 import type { Db } from '../db/client';
-import { creditNotes, dealerAccounts, dealerMembers, dealerPayments, orderEvents, orders, user } from '../db/schema';
+import { creditNotes, dealerAccounts, dealerMembers, dealerPayments, orderEvents, orders, serviceRequests, user } from '../db/schema';
 import { invoiceDueDate, invoiceOpenCents, isOpenInvoice, openBalanceCents, type CreditOrder } from '../../shared/credit';
 import { DEALERS_PAGE_SIZE, type DealerAccounts, type DealerApplication, type DealerDecision, type OpenInvoice } from '../../shared/schemas/accounts';
 import type { PageQuery } from '../../shared/schemas/paging';
@@ -140,7 +140,19 @@ export function createDealerAccountsService(deps: { db: Db; notify: DealerNotifi
         .all();
       for (const n of rows) notes.set(n.orderId, [...(notes.get(n.orderId) ?? []), n.number]);
     }
-    return open.map((o) => ({
+    // Service invoices from the Bench on account, issued when the unit shipped, so the office can record their payment too.
+    const service = db
+      .select({ number: serviceRequests.invoiceNumber, shippedAt: serviceRequests.shippedAt, purchaseOrder: serviceRequests.purchaseOrder, totalCents: serviceRequests.chargeCents, termsDays: serviceRequests.paymentTermsDays })
+      .from(serviceRequests)
+      .where(and(eq(serviceRequests.dealerAccountId, dealerAccountId), eq(serviceRequests.paymentMethod, 'account'), isNull(serviceRequests.invoicePaidAt)))
+      .orderBy(serviceRequests.id)
+      .all()
+      .flatMap((v) =>
+        v.number && v.shippedAt
+          ? [{ number: v.number, createdAt: v.shippedAt, purchaseOrder: v.purchaseOrder, totalCents: v.totalCents, creditedCents: 0, openCents: v.totalCents, termsDays: v.termsDays, dueDate: invoiceDueDate(v.shippedAt, v.termsDays), creditNotes: null }]
+          : [],
+      );
+    return [...open.map((o) => ({
       number: o.number,
       createdAt: o.createdAt,
       purchaseOrder: o.purchaseOrder,
@@ -150,12 +162,22 @@ export function createDealerAccountsService(deps: { db: Db; notify: DealerNotifi
       termsDays: o.termsDays,
       dueDate: invoiceDueDate(o.createdAt, o.termsDays),
       creditNotes: notes.get(o.id)?.join(', ') ?? null,
-    }));
+    })), ...service].sort((a, b) => a.createdAt.localeCompare(b.createdAt));
   }
 
   /** The office records a dealer's payment of an on-account invoice; it then no longer counts against the limit. */
   function recordInvoicePaid(dealerAccountId: number, number: string, reference: string): { number: string; paymentState: 'paid' } {
     return db.transaction((tx): { number: string; paymentState: 'paid' } => {
+      if (number.startsWith('SV-')) {
+        // A service invoice from the Bench: its payment is kept on the service request.
+        const done = tx
+          .update(serviceRequests)
+          .set({ invoicePaidAt: now, invoicePaymentReference: reference, paymentState: 'paid', updatedAt: now })
+          .where(and(eq(serviceRequests.invoiceNumber, number), eq(serviceRequests.dealerAccountId, dealerAccountId), eq(serviceRequests.paymentMethod, 'account'), isNull(serviceRequests.invoicePaidAt)))
+          .run();
+        if (done.changes !== 1) throw new NotFoundError('No such open invoice on this account');
+        return { number, paymentState: 'paid' };
+      }
       const order = tx
         .select({ id: orders.id, paymentState: orders.paymentState, totalCents: orders.totalCents, refundedCents: orders.refundedCents })
         .from(orders)

@@ -1,4 +1,4 @@
-import { BellRing, Check, CheckCheck, ClipboardList, CreditCard, Landmark, PackageCheck, RotateCcw, Truck, type LucideIcon } from 'lucide-react';
+import { BellRing, Check, CheckCheck, ClipboardList, CreditCard, Landmark, PackageCheck, RotateCcw, Truck, Wrench, type LucideIcon } from 'lucide-react';
 import { Link } from 'react-router-dom';
 import type { NoticeKind } from '../../../../shared/allowed-values';
 import { formatDateTime } from '../../../../shared/format';
@@ -15,6 +15,7 @@ const ICONS: Record<NoticeKind, LucideIcon> = {
   'back-ordered': BellRing,
   dispatched: Truck,
   'return-decided': RotateCcw,
+  service: Wrench,
 };
 
 /** The buyer's notices, newest first; unread ones carry a marker and the word "New", and open or mark read one by one. */
