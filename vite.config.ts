@@ -4,7 +4,7 @@ import tailwindcss from '@tailwindcss/vite';
 import { precompressPlugin } from './scripts/precompress';
 
 // Not the sign-up schema: it brings the password-strength dictionary (a quarter of a megabyte).
-const SHARED = /[\\/]node_modules[\\/]zod[\\/]|[\\/]shared[\\/](schemas[\\/]|(allowed-values|catalog|format|part-number|pricing|units|part-illustration|exploded-view|ageing|price-import-flags|gtin|scan-code)\.ts$)/;
+const SHARED = /[\\/]node_modules[\\/]zod[\\/]|[\\/]shared[\\/](schemas[\\/]|(allowed-values|catalog|format|part-number|pricing|units|part-illustration|exploded-view|ageing|price-import-flags|gtin|scan-code|service|unit-serial)\.ts$)/;
 const BLOCKS = /[\\/]src[\\/](components[\\/](ui|illustrations)|lib|features[\\/]([\w-]+[\\/](api[\\/]|[\w-]+\.ts$)|catalog[\\/]components|cart[\\/](components[\\/]quantity-stepper|lib[\\/])))/;
 // Forms, tables, dialogs and menus bring libraries of their own (form state, tables, accessible overlays, the card form).
 const HEAVY_BLOCKS = /[\\/]ui[\\/](form|sort-header|table|error-summary|part-search-box)\.|(form|table|dialog|menu|live-card|mail-inbox|-page)\.tsx$/;

@@ -192,7 +192,7 @@ DELETE FROM `catalog_counts`;
 INSERT INTO `catalog_counts` (`category`, `frame_code`, `bearing`, `status`, `in_stock`, `part_count`)
 SELECT `category`, COALESCE(`frame_code`, ''), COALESCE(`bearing`, ''), `status`, `available` > 0, count(*) FROM `parts` GROUP BY 1, 2, 3, 4, 5;
 --> statement-breakpoint
--- Service intervals by bearing and use (common practice, our reading; docs/decisions/0010-serials-logs-reminders.md).
+-- Service intervals by bearing and use (common practice, our reading; docs/decisions/0012-serials-logs-reminders.md).
 INSERT INTO `service_intervals` (`bearing`, `application`, `months`, `note`) VALUES
   ('journal', 'circuit', 3, 'Journal thrust bearings wear fast in hard use: a freshen-up a few times a season (common practice).'),
   ('journal', 'drag', 3, 'Journal thrust bearings wear fast in hard use: a freshen-up a few times a season (common practice).'),

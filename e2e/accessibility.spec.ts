@@ -6,7 +6,7 @@ import { packedUnit } from './support/units';
  * Every main screen of every role, checked by axe at desktop and phone width: no serious or critical finding.
  * To add a screen, add a row. `{order}` is an order the demo dealer placed on account for this run, `{part}` a part
  * in stock, `{savedCheck}` the demo dealer's saved fitment check and `{unit}` the serial of a turbocharger the demo dealer
- * bought and the Floor packed; `guest` is nobody signed in.
+ * bought and the Floor packed, `{serviceRef}` a unit the dealer booked in for service; `guest` is nobody signed in.
  */
 interface Screen {
   role: Role | 'guest';
@@ -55,6 +55,13 @@ export const SCREENS: Screen[] = [
   { role: 'dealer', path: '/trade/lists', name: 'parts lists' },
   { role: 'dealer', path: '/account/units', name: 'my units' },
   { role: 'dealer', path: '/units/{unit}', name: 'unit history' },
+  { role: 'dealer', path: '/service', name: 'service requests' },
+  { role: 'dealer', path: '/service/new', name: 'book a unit in' },
+  { role: 'dealer', path: '/service/{serviceRef}', name: 'service request' },
+  { role: 'dealer', path: '/service/{serviceRef}/label', name: 'service label' },
+  // Bench
+  { role: 'workshop', path: '/bench', name: 'bench queue' },
+  { role: 'workshop', path: '/bench?ref={serviceRef}', name: 'bench request' },
   // Floor
   { role: 'warehouse', path: '/floor', name: 'pick queue' },
   { role: 'warehouse', path: '/floor/pick?orders={order}', name: 'pick list' },
@@ -113,11 +120,18 @@ test.beforeAll(async ({ playwright, baseURL }) => {
   const saved = SavedSchema.parse(await (await dealer.get('/api/fitments')).json());
   const savedCheck = saved.items[0]?.id;
   if (savedCheck === undefined) throw new Error('the demo dealer has no saved check');
+  // A unit booked in for service, for the service and Bench screens.
+  const booked = await dealer.post('/api/service', {
+    multipart: { noSerial: 'true', frameCode: 'BUR', bearing: 'ball', symptoms: 'season-check', application: 'street', returnName: 'Accessibility run', returnLine1: '1 Check Lane', returnCity: 'Quenchfold', returnPostcode: 'QF1 1AA' },
+    headers,
+  });
+  expect(booked.ok(), 'book a unit in').toBe(true);
+  const serviceRef = z.object({ reference: z.string() }).parse(await booked.json()).reference;
   await dealer.dispose();
   const retail = await as('retail');
   expect((await retail.post('/api/cart/lines', { data: { partNumber: part.partNumber, quantity: 1 }, headers })).ok()).toBe(true);
   await retail.dispose();
-  values = { order, part: part.partNumber, savedCheck: String(savedCheck), unit };
+  values = { order, part: part.partNumber, savedCheck: String(savedCheck), unit, serviceRef };
 });
 
 const fill = (path: string) => path.replace(/\{(\w+)\}/g, (_, key: string) => values?.[key] ?? `{${key}}`);

@@ -2,7 +2,7 @@ import { test as base, expect } from '@playwright/test';
 import { expectNoSeriousA11yViolations, type AxeOptions } from './support/axe';
 
 /** The people who use the storefront (see PRODUCT.md). */
-export type Role = 'retail' | 'dealer' | 'dealer2' | 'warehouse' | 'admin' | 'dealerColleague';
+export type Role = 'retail' | 'dealer' | 'dealer2' | 'warehouse' | 'workshop' | 'admin' | 'dealerColleague';
 
 /** The seeded demo accounts (catalog-seed/accounts.ts). */
 export const DEMO_PASSWORD = 'spoolyard-demo-1';
@@ -11,6 +11,7 @@ export const DEMO_EMAILS: Record<Role, string> = {
   dealer: 'dealer@spoolyard.test',
   dealer2: 'dealer2@spoolyard.test',
   warehouse: 'warehouse@spoolyard.test',
+  workshop: 'workshop@spoolyard.test',
   admin: 'admin@spoolyard.test',
   /** A second buyer of the first dealer's trade account. */
   dealerColleague: 'dealer-bench@spoolyard.test',

@@ -61,6 +61,10 @@ import { DEFAULT_TRACKING_URLS, type TrackingUrlPatterns } from '../shared/carri
 import { createPartsListsService } from './services/parts-lists';
 import { partsListsRouter } from './routes/parts-lists';
 import { adminOfficeRouter } from './routes/admin-office';
+import { benchRouter, serviceRouter } from './routes/service';
+import { createServiceRequests, type ServiceRates } from './services/service-requests';
+import { createServiceNotifier } from './services/service-notify';
+import { DEFAULT_BALANCING_CENTS, DEFAULT_INSPECTION_FEE_CENTS, DEFAULT_LABOUR_RATE_CENTS } from '../shared/service';
 
 export interface AppConfig {
   publicUrl: string;
@@ -87,6 +91,8 @@ export interface AppConfig {
   orderPadLimitPerMinute?: number;
   /** Carriers' tracking pages laid over the invented defaults (shared/carriers.ts). */
   trackingUrls?: TrackingUrlPatterns;
+  /** The Bench's labour rate, inspection fee and balancing charge (defaults in shared/service.ts); tax is taxRatePct. */
+  serviceRates?: Partial<Omit<ServiceRates, 'taxRatePct'>>;
 }
 
 /** Longer than the password hash and the database work of either path on a busy machine. */
@@ -137,6 +143,22 @@ export function createApp(deps: AppDeps) {
   const shaftLogs = createShaftLogService({ db, fitment });
   const reminders = createServiceReminders({ db, units, publicUrl: config.publicUrl });
   const unitHistories = createUnitHistories({ db, units, reminders, shaftLogs });
+  const servicePhotosDir = path.join(config.uploadsDir, 'service');
+  const service = createServiceRequests({
+    db,
+    stock,
+    units,
+    payments: deps.payments,
+    notify: createServiceNotifier({ db, publicUrl: config.publicUrl, taxRatePct: config.taxRatePct }),
+    photosDir: servicePhotosDir,
+    rates: {
+      labourRateCents: config.serviceRates?.labourRateCents ?? DEFAULT_LABOUR_RATE_CENTS,
+      inspectionFeeCents: config.serviceRates?.inspectionFeeCents ?? DEFAULT_INSPECTION_FEE_CENTS,
+      balancingCents: config.serviceRates?.balancingCents ?? DEFAULT_BALANCING_CENTS,
+      taxRatePct: config.taxRatePct,
+    },
+    trackingUrls: { ...DEFAULT_TRACKING_URLS, ...config.trackingUrls },
+  });
   const catalogAdmin = createCatalogAdmin({ db, refreshSearch: (ids) => search.refresh(ids), rebuildSearch: () => void search.rebuild({ background: true }) });
   const auth = createAuth({
     db,
@@ -254,6 +276,8 @@ export function createApp(deps: AppDeps) {
   app.use('/api/warehouse', warehouseRouter({ db, warehouse, returns, labels: createLabelService(db) }));
   app.use('/api/returns', returnsRouter({ returns, photosDir: returnPhotosDir }));
   app.use('/api/notices', noticesRouter(notices));
+  app.use('/api/service', serviceRouter({ service, photosDir: servicePhotosDir }));
+  app.use('/api/bench', benchRouter({ service, photosDir: servicePhotosDir }));
   app.use('/api/admin', adminCatalogRouter({ admin: catalogAdmin, audit: createAuditLogReader({ db }), photosDir: partPhotosDir }));
   app.use('/api/admin/dealers', adminDealersRouter(dealers));
   app.use('/api/admin/mail', adminMailRouter(mailOutbox));
@@ -288,5 +312,5 @@ export function createApp(deps: AppDeps) {
     });
   }
   app.use(createErrorHandler(log));
-  return { app, search, catalog, stock, cart, orders, dealers, auth, notifications, notices, mailOutbox, warehouse, returns, catalogAdmin, shaftLogs, fitment, units, reminders, unitHistories };
+  return { app, search, catalog, stock, cart, orders, dealers, auth, notifications, notices, mailOutbox, warehouse, returns, catalogAdmin, shaftLogs, fitment, units, reminders, unitHistories, service };
 }

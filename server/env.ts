@@ -26,6 +26,9 @@ const EnvSchema = z
     /** How often the housekeeping job (unpaid-order expiry, counters) runs, in the one process holding its lease. */
     HOUSEKEEPING_SECONDS: z.coerce.number().int().min(1).max(3600).default(60),
     TAX_RATE_PCT: z.coerce.number().min(0).max(40).default(8),
+    /** The Bench's labour rate per hour and the inspection fee charged when a quote is declined, in cents. */
+    SERVICE_LABOUR_RATE_CENTS: z.coerce.number().int().min(0).max(1_000_000).default(9_500),
+    SERVICE_INSPECTION_FEE_CENTS: z.coerce.number().int().min(0).max(1_000_000).default(6_500),
     /** "test" talks to the local payments fake; "live" to the real service with its browser script. */
     PAYMENTS_MODE: z.enum(['test', 'live']).default('test'),
     PAYMENTS_SECRET_KEY: z.string().regex(/^sk_(test|live)_/, 'must start with sk_test_ or sk_live_').default('sk_test_spoolyard_development_only'),

@@ -90,6 +90,7 @@ function runApp(env: Env) {
       uploadsDir: path.resolve(env.UPLOADS_DIR),
       demoAccounts: devTools ? demoAccountList() : undefined,
       trackingUrls: env.CARRIER_TRACKING_URLS,
+      serviceRates: { labourRateCents: env.SERVICE_LABOUR_RATE_CENTS, inspectionFeeCents: env.SERVICE_INSPECTION_FEE_CENTS },
       trustedOrigins: [`http://127.0.0.1:${env.PORT}`, `http://localhost:${env.PORT}`, 'http://localhost:5173', 'http://127.0.0.1:5173'],
     },
   });

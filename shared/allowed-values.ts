@@ -35,7 +35,8 @@ export const PAYMENT_ALERT_REFUND_STATES = ['pending', 'refunded', 'failed'] as 
 export type PaymentAlertRefundState = (typeof PAYMENT_ALERT_REFUND_STATES)[number];
 
 /** Every row of the stock ledger is one of these movements. */
-export const STOCK_MOVEMENT_KINDS = ['goods-in', 'reserve', 'release', 'pick', 'dispatch', 'adjustment', 'return'] as const;
+/** `workshop`: parts the Bench fitted in a rebuild (the service request's number is in the note). */
+export const STOCK_MOVEMENT_KINDS = ['goods-in', 'reserve', 'release', 'pick', 'dispatch', 'adjustment', 'return', 'workshop'] as const;
 export type StockMovementKind = (typeof STOCK_MOVEMENT_KINDS)[number];
 
 export const RETURN_STATUSES = ['requested', 'refunded', 'credited', 'rejected'] as const;
@@ -72,6 +73,10 @@ export const MAIL_KINDS = [
   'existing-account-notice',
   'order-changed',
   'service-reminder',
+  'service-booked',
+  'service-quote',
+  'service-decision',
+  'service-shipped',
 ] as const;
 export type MailKind = (typeof MAIL_KINDS)[number];
 
@@ -86,7 +91,7 @@ export function inListSql(column: string, values: readonly string[]): string {
 }
 
 /** What an on-site notice tells a buyer: the changes of their orders and returns that also go out by e-mail. */
-export const NOTICE_KINDS = ['paid', 'on-account', 'picking', 'back-ordered', 'dispatched', 'return-decided', 'service-due'] as const;
+export const NOTICE_KINDS = ['paid', 'on-account', 'picking', 'back-ordered', 'dispatched', 'return-decided', 'service-due', 'service'] as const;
 export type NoticeKind = (typeof NOTICE_KINDS)[number];
 
 /** What a catalogue audit entry records: each change to a part, by hand or by a price import. */
@@ -118,3 +123,16 @@ export const UNIT_EVENT_KINDS = [
   'note',
 ] as const;
 export type UnitEventKind = (typeof UNIT_EVENT_KINDS)[number];
+
+/**
+ * Where a service request stands on the Bench (docs/decisions/0013-bench-service-requests.md): booked in by the
+ * customer and on its way, received, inspected, quoted and waiting for the customer, approved (to rebuild) or
+ * declined (goes back unrepaired with the inspection fee), rebuilt (to ship), shipped (closed).
+ */
+export const SERVICE_STATUSES = ['booked', 'received', 'inspected', 'quoted', 'approved', 'declined', 'rebuilt', 'shipped'] as const;
+export type ServiceStatus = (typeof SERVICE_STATUSES)[number];
+/** How the customer pays for a service request: card at the decision, or on a dealer's account. */
+export const SERVICE_PAYMENT_STATES = ['none', 'paid', 'on_account'] as const;
+export type ServicePaymentState = (typeof SERVICE_PAYMENT_STATES)[number];
+/** When a photo of a serviced unit was taken: by the customer at booking, or on the Bench at inspection. */
+export const SERVICE_PHOTO_STAGES = ['booking', 'inspection'] as const;

@@ -19,6 +19,9 @@ import {
   PRICE_IMPORT_STATUSES,
   RETURN_STATUSES,
   ROLES,
+  SERVICE_PAYMENT_STATES,
+  SERVICE_PHOTO_STAGES,
+  SERVICE_STATUSES,
   STOCK_MOVEMENT_KINDS,
   UNIT_EVENT_KINDS,
   UNIT_ORIGINS,
@@ -972,7 +975,7 @@ export const unitEvents = sqliteTable(
 
 /**
  * How often a unit should come in, by bearing and use: defaults seeded by migration from common practice, adjusted by
- * staff in the Office (docs/decisions/0010-serials-logs-reminders.md).
+ * staff in the Office (docs/decisions/0012-serials-logs-reminders.md).
  */
 export const serviceIntervals = sqliteTable(
   'service_intervals',
@@ -1008,4 +1011,158 @@ export const serviceReminders = sqliteTable(
     createdAt: createdAt(),
   },
   (t) => [uniqueIndex('service_reminders_unit_due_uq').on(t.unitId, t.dueOn), index('service_reminders_mail_idx').on(t.mailId)],
+);
+
+/*
+ * The Bench: service requests from booking in to shipping back (docs/decisions/0013-bench-service-requests.md). Their
+ * money lives here, apart from orders: the quote, the card payment taken at approval and the invoice issued at shipping.
+ */
+export const serviceRequests = sqliteTable(
+  'service_requests',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    reference: text('reference').notNull().unique(),
+    unitId: integer('unit_id')
+      .notNull()
+      .references(() => units.id),
+    userId: text('user_id')
+      .notNull()
+      .references(() => user.id),
+    dealerAccountId: integer('dealer_account_id').references(() => dealerAccounts.id),
+    status: text('status', { enum: SERVICE_STATUSES }).notNull().default('booked'),
+    frameCode: text('frame_code')
+      .notNull()
+      .references(() => frames.code),
+    bearing: text('bearing', { enum: BEARINGS }).notNull(),
+    application: text('application', { enum: APPLICATIONS }).notNull(),
+    /** Ticked symptoms (shared/service.ts SERVICE_SYMPTOMS), parsed when read. */
+    symptoms: text('symptoms', { mode: 'json' }).$type<unknown>().notNull(),
+    symptomNotes: text('symptom_notes').notNull().default(''),
+    returnName: text('return_name').notNull(),
+    returnLine1: text('return_line1').notNull(),
+    returnCity: text('return_city').notNull(),
+    returnPostcode: text('return_postcode').notNull(),
+    receivedAt: text('received_at'),
+    receivedBy: text('received_by').references(() => user.id),
+    /** The inspection's findings (shared/schemas/service.ts InspectionSchema), parsed when read. */
+    inspection: text('inspection', { mode: 'json' }).$type<unknown>(),
+    inspectedAt: text('inspected_at'),
+    inspectedBy: text('inspected_by').references(() => user.id),
+    /** The quote; labour in tenths of an hour at the rate of the day, every amount fixed when quoted. */
+    labourTenths: integer('labour_tenths'),
+    labourRateCents: integer('labour_rate_cents'),
+    labourCents: integer('labour_cents'),
+    balancingCents: integer('balancing_cents'),
+    partsCents: integer('parts_cents'),
+    discountCents: integer('discount_cents'),
+    taxCents: integer('tax_cents'),
+    totalCents: integer('total_cents'),
+    quoteNotes: text('quote_notes'),
+    quotedAt: text('quoted_at'),
+    quotedBy: text('quoted_by').references(() => user.id),
+    /** The inspection fee charged if the quote is declined (fixed at booking, with its tax at the decision). */
+    inspectionFeeCents: integer('inspection_fee_cents').notNull(),
+    decidedAt: text('decided_at'),
+    decision: text('decision', { enum: ['approve', 'decline'] }),
+    paymentMethod: text('payment_method', { enum: ['card', 'account'] }),
+    paymentState: text('payment_state', { enum: SERVICE_PAYMENT_STATES }).notNull().default('none'),
+    paymentIntentId: text('payment_intent_id').unique(),
+    purchaseOrder: text('purchase_order'),
+    paymentTermsDays: integer('payment_terms_days'),
+    /** What the customer owes for the request: the quote's total when approved, the fee with tax when declined. */
+    chargeCents: integer('charge_cents').notNull().default(0),
+    /** Balance readings and the test record (shared/schemas/service.ts RebuildSchema), parsed when read. */
+    rebuild: text('rebuild', { mode: 'json' }).$type<unknown>(),
+    rebuiltAt: text('rebuilt_at'),
+    rebuiltBy: text('rebuilt_by').references(() => user.id),
+    carrier: text('carrier'),
+    trackingNumber: text('tracking_number'),
+    shippedAt: text('shipped_at'),
+    shippedBy: text('shipped_by').references(() => user.id),
+    /** Issued when the unit ships; an invoice on account is on the dealer's statement from then. */
+    invoiceNumber: text('invoice_number').unique(),
+    invoicePaidAt: text('invoice_paid_at'),
+    invoicePaymentReference: text('invoice_payment_reference'),
+    createdAt: createdAt(),
+    updatedAt: stamp('updated_at'),
+  },
+  (t) => [
+    index('service_requests_user_idx').on(t.userId, t.id),
+    index('service_requests_dealer_idx').on(t.dealerAccountId),
+    index('service_requests_status_idx').on(t.status, t.id),
+    index('service_requests_unit_idx').on(t.unitId),
+    index('service_requests_frame_idx').on(t.frameCode),
+    index('service_requests_received_by_idx').on(t.receivedBy),
+    index('service_requests_inspected_by_idx').on(t.inspectedBy),
+    index('service_requests_quoted_by_idx').on(t.quotedBy),
+    index('service_requests_rebuilt_by_idx').on(t.rebuiltBy),
+    index('service_requests_shipped_by_idx').on(t.shippedBy),
+    oneOf('service_requests', 'status', SERVICE_STATUSES),
+    oneOf('service_requests', 'bearing', BEARINGS),
+    oneOf('service_requests', 'application', APPLICATIONS),
+    oneOf('service_requests', 'payment_method', ['card', 'account']),
+    oneOf('service_requests', 'decision', ['approve', 'decline']),
+    oneOf('service_requests', 'payment_state', SERVICE_PAYMENT_STATES),
+    holds(
+      'service_requests',
+      'money',
+      'inspection_fee_cents >= 0 AND charge_cents >= 0 AND coalesce(total_cents, 0) >= 0 AND coalesce(tax_cents, 0) >= 0 AND coalesce(labour_tenths, 0) >= 0',
+    ),
+  ],
+);
+
+export const serviceRequestLines = sqliteTable(
+  'service_request_lines',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    requestId: integer('request_id')
+      .notNull()
+      .references(() => serviceRequests.id, { onDelete: 'cascade' }),
+    partId: integer('part_id')
+      .notNull()
+      .references(() => parts.id),
+    partNumber: text('part_number').notNull(),
+    title: text('title').notNull(),
+    quantity: integer('quantity').notNull(),
+    retailUnitCents: integer('retail_unit_cents').notNull(),
+    unitCents: integer('unit_cents').notNull(),
+  },
+  (t) => [
+    index('service_request_lines_request_idx').on(t.requestId),
+    index('service_request_lines_part_idx').on(t.partId),
+    holds('service_request_lines', 'amounts', 'quantity > 0 AND retail_unit_cents >= 0 AND unit_cents >= 0'),
+  ],
+);
+
+/** The request's timeline: one row per step, with who took it. */
+export const serviceRequestEvents = sqliteTable(
+  'service_request_events',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    requestId: integer('request_id')
+      .notNull()
+      .references(() => serviceRequests.id, { onDelete: 'cascade' }),
+    status: text('status').notNull(),
+    note: text('note'),
+    actorUserId: text('actor_user_id').references(() => user.id, { onDelete: 'set null' }),
+    createdAt: createdAt(),
+  },
+  (t) => [index('service_request_events_request_idx').on(t.requestId, t.id), index('service_request_events_actor_idx').on(t.actorUserId)],
+);
+
+export const serviceRequestPhotos = sqliteTable(
+  'service_request_photos',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    requestId: integer('request_id')
+      .notNull()
+      .references(() => serviceRequests.id, { onDelete: 'cascade' }),
+    stage: text('stage', { enum: SERVICE_PHOTO_STAGES }).notNull(),
+    /** Made by the server; the uploaded name is never used on disk. */
+    storedName: text('stored_name').notNull().unique(),
+    mimeType: text('mime_type').notNull(),
+    bytes: integer('bytes').notNull(),
+    createdAt: createdAt(),
+  },
+  (t) => [index('service_request_photos_request_idx').on(t.requestId), oneOf('service_request_photos', 'stage', SERVICE_PHOTO_STAGES), holds('service_request_photos', 'bytes', 'bytes >= 0')],
 );

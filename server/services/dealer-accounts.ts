@@ -1,6 +1,6 @@
-import { and, count, desc, eq, exists, inArray, sql } from 'drizzle-orm';
+import { and, count, desc, eq, exists, inArray, isNull, sql } from 'drizzle-orm';
 import type { Db } from '../db/client';
-import { creditNotes, dealerAccounts, dealerMembers, dealerPayments, orderEvents, orders, user } from '../db/schema';
+import { creditNotes, dealerAccounts, dealerMembers, dealerPayments, orderEvents, orders, serviceRequests, user } from '../db/schema';
 import { invoiceDueDate, invoiceOpenCents, isOpenInvoice, openBalanceCents, type CreditOrder } from '../../shared/credit';
 import { DEALERS_PAGE_SIZE, type DealerAccounts, type DealerApplication, type DealerDecision, type OpenInvoice } from '../../shared/schemas/accounts';
 import type { PageQuery } from '../../shared/schemas/paging';
@@ -32,9 +32,28 @@ const creditColumns = {
   refundedCents: orders.refundedCents,
 };
 
-/** A dealer's open balance; order placement calls this inside its transaction to check the credit limit. */
+/**
+ * What trade accounts owe for Bench work put on account (a repair approved or an inspection fee, until its service
+ * invoice is paid), by account. It counts against the same credit limit as orders.
+ */
+function serviceOwedByDealer(q: Query, dealerAccountIds: number[]): Map<number, number> {
+  if (dealerAccountIds.length === 0) return new Map();
+  const rows = q
+    .select({ dealerAccountId: serviceRequests.dealerAccountId, owed: sql<number>`coalesce(sum(${serviceRequests.chargeCents}), 0)` })
+    .from(serviceRequests)
+    .where(and(inArray(serviceRequests.dealerAccountId, dealerAccountIds), eq(serviceRequests.paymentState, 'on_account'), isNull(serviceRequests.invoicePaidAt)))
+    .groupBy(serviceRequests.dealerAccountId)
+    .all();
+  return new Map(rows.map((r) => [r.dealerAccountId!, r.owed]));
+}
+
+/**
+ * A dealer's open balance, orders and Bench work on account together; order placement and the Bench's approval call
+ * this inside their transactions to check the credit limit.
+ */
 export function dealerOpenBalance(q: Query, dealerAccountId: number): number {
-  return openBalanceCents(q.select(creditColumns).from(orders).where(eq(orders.dealerAccountId, dealerAccountId)).all());
+  const ordersOpen = openBalanceCents(q.select(creditColumns).from(orders).where(eq(orders.dealerAccountId, dealerAccountId)).all());
+  return ordersOpen + (serviceOwedByDealer(q, [dealerAccountId]).get(dealerAccountId) ?? 0);
 }
 
 export function createDealerAccountsService(deps: { db: Db; notify: DealerNotifier }) {
@@ -99,8 +118,9 @@ export function createDealerAccountsService(deps: { db: Db; notify: DealerNotifi
       .from(dealerAccounts)
       .where(exists(db.select({ one: sql`1` }).from(dealerMembers).where(eq(dealerMembers.dealerAccountId, dealerAccounts.id))))
       .get();
+    const serviceOwed = serviceOwedByDealer(db, accounts.map((a) => a.id));
     return {
-      items: accounts.map((a) => ({ ...a, openBalanceCents: openBalanceCents(byDealer.get(a.id) ?? []) })),
+      items: accounts.map((a) => ({ ...a, openBalanceCents: openBalanceCents(byDealer.get(a.id) ?? []) + (serviceOwed.get(a.id) ?? 0) })),
       total: counts?.total ?? 0,
       pending: counts?.pending ?? 0,
       page: query.page,
@@ -140,7 +160,19 @@ export function createDealerAccountsService(deps: { db: Db; notify: DealerNotifi
         .all();
       for (const n of rows) notes.set(n.orderId, [...(notes.get(n.orderId) ?? []), n.number]);
     }
-    return open.map((o) => ({
+    // Service invoices from the Bench on account, issued when the unit shipped, so the office can record their payment too.
+    const service = db
+      .select({ number: serviceRequests.invoiceNumber, shippedAt: serviceRequests.shippedAt, purchaseOrder: serviceRequests.purchaseOrder, totalCents: serviceRequests.chargeCents, termsDays: serviceRequests.paymentTermsDays })
+      .from(serviceRequests)
+      .where(and(eq(serviceRequests.dealerAccountId, dealerAccountId), eq(serviceRequests.paymentMethod, 'account'), isNull(serviceRequests.invoicePaidAt)))
+      .orderBy(serviceRequests.id)
+      .all()
+      .flatMap((v) =>
+        v.number && v.shippedAt
+          ? [{ number: v.number, createdAt: v.shippedAt, purchaseOrder: v.purchaseOrder, totalCents: v.totalCents, creditedCents: 0, openCents: v.totalCents, termsDays: v.termsDays, dueDate: invoiceDueDate(v.shippedAt, v.termsDays), creditNotes: null }]
+          : [],
+      );
+    return [...open.map((o) => ({
       number: o.number,
       createdAt: o.createdAt,
       purchaseOrder: o.purchaseOrder,
@@ -150,12 +182,22 @@ export function createDealerAccountsService(deps: { db: Db; notify: DealerNotifi
       termsDays: o.termsDays,
       dueDate: invoiceDueDate(o.createdAt, o.termsDays),
       creditNotes: notes.get(o.id)?.join(', ') ?? null,
-    }));
+    })), ...service].sort((a, b) => a.createdAt.localeCompare(b.createdAt));
   }
 
   /** The office records a dealer's payment of an on-account invoice; it then no longer counts against the limit. */
   function recordInvoicePaid(dealerAccountId: number, number: string, reference: string): { number: string; paymentState: 'paid' } {
     return db.transaction((tx): { number: string; paymentState: 'paid' } => {
+      if (number.startsWith('SV-')) {
+        // A service invoice from the Bench: its payment is kept on the service request.
+        const done = tx
+          .update(serviceRequests)
+          .set({ invoicePaidAt: now, invoicePaymentReference: reference, paymentState: 'paid', updatedAt: now })
+          .where(and(eq(serviceRequests.invoiceNumber, number), eq(serviceRequests.dealerAccountId, dealerAccountId), eq(serviceRequests.paymentMethod, 'account'), isNull(serviceRequests.invoicePaidAt)))
+          .run();
+        if (done.changes !== 1) throw new NotFoundError('No such open invoice on this account');
+        return { number, paymentState: 'paid' };
+      }
       const order = tx
         .select({ id: orders.id, paymentState: orders.paymentState, totalCents: orders.totalCents, refundedCents: orders.refundedCents })
         .from(orders)

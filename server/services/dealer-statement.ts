@@ -1,6 +1,6 @@
-import { and, eq, inArray, ne } from 'drizzle-orm';
+import { and, eq, inArray, isNotNull, ne } from 'drizzle-orm';
 import type { Db } from '../db/client';
-import { creditNotes, dealerAccounts, dealerPayments, orderEvents, orders, returns } from '../db/schema';
+import { creditNotes, dealerAccounts, dealerPayments, orderEvents, orders, returns, serviceRequests } from '../db/schema';
 import { ageInvoices, ageingBucket, daysPastDue, overdueCents, utcDate } from '../../shared/ageing';
 import { availableCreditCents, invoiceDueDate, invoiceOpenCents, isOpenInvoice } from '../../shared/credit';
 import { STATEMENT_DEFAULT_DAYS, STATEMENT_MAX_DAYS, type AccountStatement, type StatementLine } from '../../shared/schemas/statement';
@@ -97,7 +97,37 @@ export function createDealerStatements(deps: { db: Db; now: () => Date }) {
       }
     }
 
+    // Service invoices from the Bench on account: issued when the unit ships back, paid when the office records it.
+    const service = db
+      .select({
+        number: serviceRequests.invoiceNumber,
+        reference: serviceRequests.reference,
+        shippedAt: serviceRequests.shippedAt,
+        termsDays: serviceRequests.paymentTermsDays,
+        purchaseOrder: serviceRequests.purchaseOrder,
+        totalCents: serviceRequests.chargeCents,
+        paidAt: serviceRequests.invoicePaidAt,
+        paymentReference: serviceRequests.invoicePaymentReference,
+      })
+      .from(serviceRequests)
+      .where(and(eq(serviceRequests.dealerAccountId, dealerAccountId), eq(serviceRequests.paymentMethod, 'account'), isNotNull(serviceRequests.invoiceNumber), isNotNull(serviceRequests.shippedAt)))
+      .orderBy(serviceRequests.id)
+      .all()
+      .map((v) => ({ ...v, number: v.number ?? '', at: v.shippedAt ?? '' }));
+
     const events: Event[] = [
+      ...service.map((v): Event => ({
+        at: v.at,
+        kind: 'invoice',
+        reference: v.number,
+        orderNumber: null,
+        detail: `Service ${v.reference} · due ${invoiceDueDate(v.at, v.termsDays)}${v.purchaseOrder ? ` · your PO ${v.purchaseOrder}` : ''}`,
+        debitCents: v.totalCents,
+        creditCents: 0,
+      })),
+      ...service
+        .filter((v) => v.paidAt !== null)
+        .map((v): Event => ({ at: v.paidAt ?? v.at, kind: 'payment', reference: v.paymentReference ?? 'payment', orderNumber: null, detail: `Payment of ${v.number}`, debitCents: 0, creditCents: v.totalCents })),
       ...invoices.map((i): Event => ({
         at: i.createdAt,
         kind: 'invoice',
@@ -153,6 +183,10 @@ export function createDealerStatements(deps: { db: Db; now: () => Date }) {
         openCents: invoiceOpenCents(i),
       };
     });
+    for (const v of service.filter((x) => x.paidAt === null)) {
+      const dueDate = invoiceDueDate(v.at, v.termsDays);
+      open.push({ number: v.number, date: v.at.slice(0, 10), purchaseOrder: v.purchaseOrder, dueDate, daysPastDue: daysPastDue(dueDate, asOf), bucket: ageingBucket(dueDate, asOf), totalCents: v.totalCents, creditedCents: 0, openCents: v.totalCents });
+    }
     const ageing = ageInvoices(open, asOf);
     const openInvoicesCents = open.reduce((s, i) => s + i.openCents, 0);
     const sum = (kind: StatementLine['kind'], pick: 'debitCents' | 'creditCents') => during.filter((e) => e.kind === kind).reduce((s, e) => s + e[pick], 0);

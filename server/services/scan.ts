@@ -1,6 +1,6 @@
 import { eq } from 'drizzle-orm';
 import type { Db } from '../db/client';
-import { bins, partAliases, parts, returns } from '../db/schema';
+import { bins, partAliases, parts, returns, serviceRequests, units } from '../db/schema';
 import { acceptedWords, SCAN_KIND_WORDS, SCAN_KINDS, SCAN_READERS, scanProblem, type ScanKeys, type ScanKind } from '../../shared/scan-code';
 import type { ScanReply } from '../../shared/schemas/scan';
 import { gtinForPart } from '../../shared/gtin';
@@ -13,8 +13,7 @@ type Reader = Pick<Db, 'select'>;
 
 /**
  * How each kind of code is looked up, once its reader (shared/scan-code.ts) has said what it would be. A new kind
- * (a workshop service request "SR-7001") adds its reader there and its look-up here; every scan field that lists
- * it in `accepts` then takes it.
+ * adds its reader there and its look-up here; every scan field that lists it in `accepts` then takes it.
  */
 const LOOKUPS: { [K in ScanKind]: (q: Reader, key: ScanKeys[K], code: string) => Reply<K> | null } = {
   part(q, key, code) {
@@ -52,7 +51,31 @@ const LOOKUPS: { [K in ScanKind]: (q: Reader, key: ScanKeys[K], code: string) =>
     const r = q.select({ id: returns.id, reference: returns.reference, status: returns.status }).from(returns).where(eq(returns.reference, key)).get();
     return r ? { kind: 'return', code, return: r } : null;
   },
+  service(q, key, code) {
+    const r = q.select({ id: serviceRequests.id, reference: serviceRequests.reference, status: serviceRequests.status }).from(serviceRequests).where(eq(serviceRequests.reference, key)).get();
+    return r ? { kind: 'service', code, service: r } : null;
+  },
+  unit(q, key, code) {
+    const u = q.select({ id: units.id, serial: units.serial, frameCode: units.frameCode }).from(units).where(eq(units.serial, key)).get();
+    return u ? { kind: 'unit', code, unit: u } : null;
+  },
 };
+
+/** How a code of another kind is named when a field refuses it. */
+function whatItIs(found: ScanReply): string {
+  switch (found.kind) {
+    case 'part':
+      return `${found.part.partNumber}'s part label`;
+    case 'bin':
+      return `bin ${found.bin.code}'s label`;
+    case 'return':
+      return `return ${found.return.reference}'s label`;
+    case 'service':
+      return `service request ${found.service.reference}'s label`;
+    case 'unit':
+      return `unit ${found.unit.serial}'s serial plate`;
+  }
+}
 
 function lookUp<K extends ScanKind>(q: Reader, kind: K, code: string): Reply<K> | null {
   const key = SCAN_READERS[kind](code);
@@ -78,8 +101,7 @@ export function resolveScan<K extends ScanKind>(q: Reader, raw: string, accepts:
   }
   const wanted = acceptedWords(accepts);
   if (other) {
-    const what = other.kind === 'part' ? `${other.part.partNumber}'s part label` : other.kind === 'bin' ? `bin ${other.bin.code}'s label` : `return ${other.return.reference}'s label`;
-    throw new InvalidError(`That is ${what}, not ${SCAN_KIND_WORDS[accepts[0] ?? 'part'].label}: scan ${wanted}`, { code: [`scan ${wanted}`] });
+    throw new InvalidError(`That is ${whatItIs(other)}, not ${SCAN_KIND_WORDS[accepts[0] ?? 'part'].label}: scan ${wanted}`, { code: [`scan ${wanted}`] });
   }
   throw new NotFoundError(`Nothing here has the code ${code.slice(0, 40)}: scan ${wanted}`);
 }

@@ -148,6 +148,25 @@ export function createStockService(db: Db) {
       move(partId, binCode, 'return', quantity, 0, orderId, note);
     },
 
+    /**
+     * Parts fitted on the Bench leave stock from free bins in walk order (as the Floor picks): on hand falls, nothing
+     * is reserved. Answers the bins taken from; throws when there is not enough free stock, so the caller's
+     * transaction rolls back whole.
+     */
+    consumeForWorkshop(partId: number, quantity: number, note: string): Array<{ binCode: string; quantity: number }> {
+      const taken: Array<{ binCode: string; quantity: number }> = [];
+      let left = quantity;
+      for (const bin of q.freeBins(partId)) {
+        if (left <= 0) break;
+        const take = Math.min(left, bin.free);
+        move(partId, bin.binCode, 'workshop', -take, 0, null, note);
+        taken.push({ binCode: bin.binCode, quantity: take });
+        left -= take;
+      }
+      if (left > 0) throw new Error(`Not enough free stock of part ${partId}: ${left} short`);
+      return taken;
+    },
+
     defaultBin(partId: number): string | null {
       return q.defaultBin(partId)?.binCode ?? null;
     },

@@ -17,6 +17,10 @@ export const MAIL_KIND_LABELS = {
   'existing-account-notice': 'Sign-up for an existing account',
   'order-changed': 'Order changed or cancelled',
   'service-reminder': 'Service reminder',
+  'service-booked': 'Service request booked in',
+  'service-quote': 'Service quote ready',
+  'service-decision': 'Service quote approved or declined',
+  'service-shipped': 'Serviced unit shipped back',
 } as const satisfies Record<(typeof MAIL_KINDS)[number], string>;
 
 export const MAIL_STATE_LABELS = {

@@ -26,5 +26,7 @@ export const ScanReplySchema = z.discriminatedUnion('kind', [
   z.object({ kind: z.literal('part'), code: z.string(), via: z.enum(['gtin', 'part-number', 'cross-reference', 'superseded']), part: ScannedPartSchema }),
   z.object({ kind: z.literal('bin'), code: z.string(), bin: z.object({ code: z.string(), zone: z.string() }) }),
   z.object({ kind: z.literal('return'), code: z.string(), return: z.object({ id: z.number().int(), reference: z.string(), status: z.string() }) }),
+  z.object({ kind: z.literal('service'), code: z.string(), service: z.object({ id: z.number().int(), reference: z.string(), status: z.string() }) }),
+  z.object({ kind: z.literal('unit'), code: z.string(), unit: z.object({ id: z.number().int(), serial: z.string(), frameCode: z.string().nullable() }) }),
 ]);
 export type ScanReply = z.infer<typeof ScanReplySchema>;

@@ -1,5 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { gtinForPart, isValidGtin13 } from '../../shared/gtin';
+import { formatSerial } from '../../shared/unit-serial';
 import { createDealer, createPart, createUser } from '../support/factories';
 import type { Client } from '../support/session';
 import { startTestApp, type TestApp } from '../support/test-app';
@@ -106,6 +107,13 @@ describe('one scan resolver for the Floor', () => {
     const nothing = await scan('ZZZ-00-0001', 'part');
     expect(nothing.status).toBe(404);
     expect((await scan('x', 'workshop')).status).toBe(400);
+    // The Bench's codes (a service request's label, a unit's serial plate) are named too when a Floor field gets one.
+    const unit = t.db.$client
+      .prepare("INSERT INTO units (serial, part_id, frame_code, bearing, origin) SELECT ?, id, frame_code, 'journal', 'booked-in' FROM parts WHERE category = 'turbochargers' LIMIT 1 RETURNING serial")
+      .get(formatSerial(2026, 999_042)) as { serial: string };
+    const plate = await scan(unit.serial.replace(/-/g, ''), 'part,bin');
+    expect(plate.status).toBe(400);
+    expect((plate.body as { error: { message: string } }).error.message).toBe(`That is unit ${unit.serial}'s serial plate, not a part label: scan a part number such as FUL-20-0203 or a 13-digit GTIN or a bin code such as A-01-2`);
   });
 
   it('pick refuses a GTIN with a wrong check digit and records nothing; another part’s GTIN is the wrong part', async () => {

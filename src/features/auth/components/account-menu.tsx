@@ -55,6 +55,11 @@ export function AccountMenu({ user, onSignOut, signingOut }: { user: User; onSig
                 </MenuItem>
               )}
               {(user.role === 'customer' || trade) && (
+                <MenuItem href="/service" className={itemClass}>
+                  Service
+                </MenuItem>
+              )}
+              {(user.role === 'customer' || trade) && (
                 <MenuItem href="/notices" className={itemClass}>
                   Notices
                 </MenuItem>

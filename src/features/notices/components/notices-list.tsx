@@ -16,6 +16,7 @@ const ICONS: Record<NoticeKind, LucideIcon> = {
   dispatched: Truck,
   'return-decided': RotateCcw,
   'service-due': Wrench,
+  service: Wrench,
 };
 
 /** The buyer's notices, newest first; unread ones carry a marker and the word "New", and open or mark read one by one. */
