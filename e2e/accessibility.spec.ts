@@ -137,15 +137,26 @@ test.beforeAll(async ({ playwright, baseURL }) => {
 const fill = (path: string) => path.replace(/\{(\w+)\}/g, (_, key: string) => values?.[key] ?? `{${key}}`);
 
 for (const screen of SCREENS) {
-  for (const size of WIDTHS) {
-    test(`${screen.name} (${screen.role}, ${screen.path}) at ${size.label} width has no serious accessibility finding`, async ({ page, login, axe }) => {
-      await page.setViewportSize({ width: size.width, height: size.height });
-      if (screen.role !== 'guest') await login(screen.role);
-      await page.goto(fill(screen.path));
-      // A busy machine can take a while to show the first page's code.
-      await expect(page.getByRole('heading', { level: 1 }).first()).toBeVisible({ timeout: 20_000 });
-      await page.waitForLoadState('networkidle');
-      await axe({ exclude: screen.exclude, disableRules: screen.disableRules });
-    });
-  }
+  // One page per screen: loaded and checked at desktop width, then narrowed to phone width (as a window is resized or a
+  // tablet turned) and checked again. Layout follows the width through CSS and the media-query hooks alone.
+  test(`${screen.name} (${screen.role}, ${screen.path}) has no serious accessibility finding at desktop and phone width`, async ({ page, login, axe }) => {
+    const [first, ...others] = WIDTHS;
+    await page.setViewportSize({ width: first.width, height: first.height });
+    if (screen.role !== 'guest') await login(screen.role);
+    await page.goto(fill(screen.path));
+    // A busy machine can take a while to show the first page's code.
+    await expect(page.getByRole('heading', { level: 1 }).first()).toBeVisible({ timeout: 20_000 });
+    await page.waitForLoadState('networkidle');
+    for (const size of [first, ...others]) {
+      await test.step(`at ${size.label} width`, async () => {
+        if (size !== first) {
+          await page.setViewportSize({ width: size.width, height: size.height });
+          // Two frames: the resize's media-query updates render before axe reads the page.
+          await page.evaluate(() => new Promise<void>((done) => requestAnimationFrame(() => requestAnimationFrame(() => done()))));
+          await expect(page.getByRole('heading', { level: 1 }).first()).toBeVisible();
+        }
+        await axe({ exclude: screen.exclude, disableRules: screen.disableRules });
+      });
+    }
+  });
 }
