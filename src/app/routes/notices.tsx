@@ -25,7 +25,7 @@ export function NoticesRoute() {
     <div className="grid gap-5">
       <div>
         <h1 className="text-2xl font-bold">Notices</h1>
-        <p className="text-cast">What changed on your orders and returns: payments, picking, back-orders, dispatches and return decisions.</p>
+        <p className="text-cast">What changed on your orders, returns and units: payments, picking, back-orders, dispatches, return decisions, service steps and service reminders.</p>
       </div>
       <NoticesList page={page} onPage={(p) => setParams(p > 1 ? { page: String(p) } : {})} />
     </div>

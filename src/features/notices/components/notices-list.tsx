@@ -29,7 +29,7 @@ export function NoticesList({ page, onPage }: { page: number; onPage: (page: num
   if (items.length === 0) {
     return (
       <EmptyState title="No notices yet">
-        <p>When an order is paid, picked, back-ordered or dispatched, or a return is decided, it shows here as well as in your e-mail.</p>
+        <p>When an order is paid, picked, back-ordered or dispatched, a return is decided, a unit you sent in moves on at the Bench, or a unit is due for service, it shows here as well as in your e-mail.</p>
       </EmptyState>
     );
   }
