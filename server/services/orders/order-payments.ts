@@ -10,7 +10,7 @@ import type { Checkout, CheckoutResponse } from '../../../shared/schemas/orders'
 import { formatMoney } from '../../../shared/format';
 import type { CartOwner } from '../cart';
 import { addOrderEvent, setOrderState, type OrderPlacement } from './order-placement';
-import { findOrder, headerColumns, type OrderHeader, type Query } from './order-reads';
+import { findOrder, findOrderByIntent, type OrderHeader, type Query } from './order-reads';
 
 /**
  * What the order flow tells people. Each call takes the transaction of the change that causes it and writes the
@@ -308,7 +308,7 @@ export function createOrderPayments(deps: OrderPaymentsDeps) {
   /** The order a webhook's intent belongs to: by the stored intent, or by the order number the intent carries. */
   function orderOfIntent(q: Parameters<typeof findOrder>[0], intentId: string | null, orderNumber: string | undefined) {
     if (!intentId) return undefined;
-    const byIntent = preparedOn(q, 'payments:order-of-intent', (h) => h.select(headerColumns).from(orders).where(eq(orders.paymentIntentId, sql.placeholder('intentId'))).prepare()).get({ intentId });
+    const byIntent = findOrderByIntent(q, intentId);
     if (byIntent || !orderNumber) return byIntent;
     // The create's reply was lost, so the order never learnt its intent: adopt it now.
     const byNumber = findOrder(q, and(eq(orders.number, orderNumber), isNull(orders.paymentIntentId), eq(orders.paymentMethod, 'card'))!);

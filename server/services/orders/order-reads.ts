@@ -1,5 +1,6 @@
 import { count, desc, eq, sql, type SQL } from 'drizzle-orm';
 import type { Db } from '../../db/client';
+import { preparedOn } from '../../db/prepared';
 import { dealerAccounts, orderEvents, orderLines, orders, parts, returns, shipments, units } from '../../db/schema';
 import { DEFAULT_TRACKING_URLS, trackingUrl, type TrackingUrlPatterns } from '../../../shared/carriers';
 import { NotFoundError } from '../errors';
@@ -27,6 +28,11 @@ export const headerColumns = {
 /** One order's header by id, number or payment intent; the other modules of the order flow share it. */
 export function findOrder(q: Query, where: SQL) {
   return q.select(headerColumns).from(orders).where(where).get();
+}
+
+/** The same header by payment intent, prepared once per connection: every payment webhook looks one up. */
+export function findOrderByIntent(q: Query, intentId: string) {
+  return preparedOn(q, 'orders:header-by-intent', (h) => h.select(headerColumns).from(orders).where(eq(orders.paymentIntentId, sql.placeholder('intentId'))).prepare()).get({ intentId });
 }
 
 export type OrderHeader = NonNullable<ReturnType<typeof findOrder>>;
@@ -202,7 +208,7 @@ export function createOrderReads(deps: { db: Db; cart: CartService; trackingUrls
   }
 
   function orderForIntent(user: CurrentUser, intentId: string): OrderHeader {
-    const order = findOrder(db, eq(orders.paymentIntentId, intentId));
+    const order = findOrderByIntent(db, intentId);
     if (!order || order.userId !== user.id) throw new NotFoundError('No such payment');
     return order;
   }
