@@ -5,7 +5,7 @@ import { normalizeSerial } from '../unit-serial';
 import { BENCH_QUEUE_KEYS, SERVICE_SYMPTOM_KEYS, WHEEL_DAMAGE_KEYS } from '../service';
 import { APPLICATIONS } from './fitment';
 import { pageFields } from './paging';
-import { CARRIERS } from './warehouse';
+import { ShipmentFieldsSchema } from './warehouse';
 
 export const SERVICE_PAGE_SIZE = 20;
 export const SERVICE_PHOTOS_MAX = 4;
@@ -99,15 +99,7 @@ export const RebuildSchema = z.object({
 });
 export type Rebuild = z.infer<typeof RebuildSchema>;
 
-export const ServiceShipSchema = z.object({
-  carrier: z.enum(CARRIERS, { error: 'choose a carrier' }),
-  trackingNumber: z
-    .string()
-    .trim()
-    .min(4, 'enter the tracking number')
-    .max(40, 'tracking number is too long')
-    .regex(/^[A-Za-z0-9-]+$/, 'tracking number may use letters, digits and dashes'),
-});
+export const ServiceShipSchema = ShipmentFieldsSchema;
 export type ServiceShip = z.infer<typeof ServiceShipSchema>;
 
 export const BenchScanSchema = z.object({ code: z.string().trim().min(1, 'scan a request label or a unit serial').max(60) });

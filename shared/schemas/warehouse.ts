@@ -23,7 +23,8 @@ export const PackSchema = z.object({
   weightKg: z.number({ error: 'enter the packed weight' }).positive('weight must be above 0').max(2000, 'weight must be at most 2000 kg'),
 });
 
-export const DispatchSchema = PackSchema.partial().extend({
+/** The carrier and tracking number a parcel leaves with: an order's dispatch, a serviced unit going back. */
+export const ShipmentFieldsSchema = z.object({
   carrier: z.enum(CARRIERS, { error: 'choose a carrier' }),
   trackingNumber: z
     .string()
@@ -32,6 +33,8 @@ export const DispatchSchema = PackSchema.partial().extend({
     .max(40, 'tracking number is too long')
     .regex(/^[A-Za-z0-9-]+$/, 'tracking number may use letters, digits and dashes'),
 });
+
+export const DispatchSchema = PackSchema.partial().extend(ShipmentFieldsSchema.shape);
 export type Dispatch = z.infer<typeof DispatchSchema>;
 
 export const GoodsInSchema = z.object({

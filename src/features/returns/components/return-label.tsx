@@ -1,15 +1,12 @@
 import { Printer, Scissors } from 'lucide-react';
 import { Link } from 'react-router-dom';
-import { formatDate } from '../../../../shared/format';
 import { RETURN_KINDS, type ReturnLabel } from '../../../../shared/schemas/warehouse';
 import { Button } from '../../../components/ui/button';
 import { Notice } from '../../../components/ui/notice';
+import { ParcelLabel } from '../../../components/ui/parcel-label';
 import { ErrorState, LoadingState } from '../../../components/ui/states';
 import { ApiError } from '../../../lib/api-client';
 import { useReturnLabel } from '../api/get-return-label';
-
-/** Where returns go: the distributor's returns desk. */
-const RETURNS_DESK = { name: 'Spoolyard Turbo Supply', desk: 'Returns desk', address: 'Unit 7, Foundry Row, Quenchfold' } as const;
 
 const PACKING: Record<ReturnLabel['kind'], string[]> = {
   core: [
@@ -22,48 +19,19 @@ const PACKING: Record<ReturnLabel['kind'], string[]> = {
 };
 
 function Label({ label }: { label: ReturnLabel }) {
-  // The server draws the bars (bwip-js, Code 128 of the reference); shown as an image so it prints sharp at any size.
-  const barcode = `data:image/svg+xml;charset=utf-8,${encodeURIComponent(label.barcodeSvg)}`;
   return (
-    <article
-      aria-label={`Return label ${label.reference}`}
-      className="mx-auto grid w-full max-w-[100mm] gap-3 border-2 border-dashed border-cast bg-white p-4 text-ink print:min-h-[150mm] print:border-ink"
-    >
-      <header className="flex items-baseline justify-between gap-3 border-b-4 border-ink pb-2">
-        <p className="text-3xl font-bold tracking-wide">RETURN</p>
-        <p className="text-sm">{formatDate(label.createdAt)}</p>
-      </header>
-      <section aria-label="Deliver to">
-        <p className="text-xs font-semibold uppercase tracking-wider">To</p>
-        <p className="text-lg font-bold leading-tight">{RETURNS_DESK.name}</p>
-        <p className="leading-tight">{RETURNS_DESK.desk}</p>
-        <p className="leading-tight">{RETURNS_DESK.address}</p>
-      </section>
-      <section aria-label="From">
-        <p className="text-xs font-semibold uppercase tracking-wider">From</p>
-        <p className="leading-tight">{label.from.name}</p>
-        <p className="leading-tight">{label.from.line1}</p>
-        <p className="leading-tight">
-          {label.from.city} {label.from.postcode}
-        </p>
-      </section>
-      <figure className="grid justify-items-center gap-1 border-y-2 border-ink py-3">
-        <img src={barcode} alt={`Barcode of return ${label.reference}`} className="h-24 w-full max-w-[80mm] object-contain [image-rendering:crisp-edges]" />
-        <figcaption className="part-no text-2xl tracking-widest">{label.reference}</figcaption>
-      </figure>
-      <dl className="grid grid-cols-[auto_1fr] gap-x-3 text-sm">
-        <dt className="font-semibold">Contents</dt>
-        <dd>
-          <span className="tabular">{label.quantity}</span> × <span className="part-no">{label.partNumber}</span>
-        </dd>
-        <dt className="sr-only">Description</dt>
-        <dd className="col-start-2">{label.title}</dd>
-        <dt className="font-semibold">Why</dt>
-        <dd>{RETURN_KINDS[label.kind]}</dd>
-        <dt className="font-semibold">Order</dt>
-        <dd className="part-no">{label.orderNumber}</dd>
-      </dl>
-    </article>
+    <ParcelLabel heading="RETURN" what="Return" barcodeOf="return" reference={label.reference} createdAt={label.createdAt} desk="Returns desk" from={label.from} barcodeSvg={label.barcodeSvg} className="print:min-h-[150mm]">
+      <dt className="font-semibold">Contents</dt>
+      <dd>
+        <span className="tabular">{label.quantity}</span> × <span className="part-no">{label.partNumber}</span>
+      </dd>
+      <dt className="sr-only">Description</dt>
+      <dd className="col-start-2">{label.title}</dd>
+      <dt className="font-semibold">Why</dt>
+      <dd>{RETURN_KINDS[label.kind]}</dd>
+      <dt className="font-semibold">Order</dt>
+      <dd className="part-no">{label.orderNumber}</dd>
+    </ParcelLabel>
   );
 }
 
