@@ -34,8 +34,8 @@ export default defineConfig({
           groups: [
             // What the entry needs stays with the entry: nothing of it waits in a group a page also needs.
             { name: 'index', test: /./, tags: ['$initial'], priority: 50 },
-            // Every other icon in one file (a few hundred bytes each).
-            { name: 'icons', test: /[\\/]node_modules[\\/]lucide-react[\\/]/, priority: 30 },
+            // Every other icon two or more chunks use in one file (a few hundred bytes each); one page's own icon goes with it.
+            { name: 'icons', test: /[\\/]node_modules[\\/]lucide-react[\\/]/, minShareCount: 2, priority: 30 },
             // The validation library with the schemas and the small shared rules: every page reads its data through them.
             { name: 'shared', test: (id) => SHARED_FIRST.test(id), priority: 21 },
             { name: 'schemas', test: (id) => SHARED.test(id) && !/sign-up\.ts$/.test(id), priority: 20 },
