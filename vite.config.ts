@@ -12,6 +12,9 @@ const BLOCKS = /[\\/]src[\\/](components[\\/](ui|illustrations)|lib|features[\\/
 // The blocks of the Floor, Office, Bench and the account's own pages (orders, returns, units, service): kept apart
 // from the shop's, so the first page does not bring them (nor their schemas).
 const TOOL_BLOCKS = /[\\/]src[\\/]features[\\/](?!(catalog|cart|auth|fitment|notices|lists)[\\/])[\w-]+[\\/]/;
+// The blocks that show parts (drawings, list rows, specs, the quantity stepper): the catalogue and part pages need
+// them, the home page and the fitment form do not.
+const PART_BLOCKS = /[\\/]src[\\/](components[\\/]illustrations|features[\\/](catalog[\\/]components|cart|lists)[\\/])/;
 // Forms, tables, dialogs and menus bring libraries of their own (form state, tables, accessible overlays, the card form).
 const HEAVY_BLOCKS = /[\\/]ui[\\/](form|sort-header|table|error-summary|part-search-box)\.|(form|table|dialog|menu|live-card|mail-inbox|-page)\.tsx$/;
 // Loaded on demand where it is shown (React.lazy), never as a block a page waits for.
@@ -40,6 +43,7 @@ export default defineConfig({
             { name: 'shared', test: (id) => SHARED_FIRST.test(id), priority: 21 },
             { name: 'schemas', test: (id) => SHARED.test(id) && !/sign-up\.ts$/.test(id), priority: 20 },
             // Small building blocks several pages use; not the ones that bring a library of their own (forms, tables).
+            { name: 'part-blocks', test: (id) => PART_BLOCKS.test(id) && BLOCKS.test(id) && !HEAVY_BLOCKS.test(id) && !ON_DEMAND.test(id), minShareCount: 2, priority: 12 },
             { name: 'blocks', test: (id) => BLOCKS.test(id) && !HEAVY_BLOCKS.test(id) && !ON_DEMAND.test(id) && !TOOL_BLOCKS.test(id), minShareCount: 2, priority: 11 },
             { name: 'tool-blocks', test: (id) => BLOCKS.test(id) && !HEAVY_BLOCKS.test(id) && !ON_DEMAND.test(id), minShareCount: 2, priority: 10 },
           ],

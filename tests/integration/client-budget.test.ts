@@ -16,10 +16,10 @@ import { describeChunks, entryScripts, firstVisitScripts, pageScripts, totalByte
  * hold each page where it now is, to keep it from growing back; lowering them needs one of those libraries gone.
  */
 const FIRST_VISIT_BUDGET_BYTES: Record<string, number> = {
-  'src/app/routes/home.tsx': 174_000,
+  'src/app/routes/home.tsx': 169_000,
   'src/app/routes/catalogue.tsx': 175_000,
   'src/app/routes/part.tsx': 185_000,
-  'src/app/routes/fitment.tsx': 201_000,
+  'src/app/routes/fitment.tsx': 196_000,
 };
 /** The entry alone, before any page's chunk. */
 const ENTRY_BUDGET_BYTES = 120_000;
