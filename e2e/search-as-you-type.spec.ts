@@ -76,3 +76,45 @@ for (const view of VIEWS) {
     await expect(page.getByRole('status').filter({ hasText: '2 lines added to your cart' })).toBeVisible();
   });
 }
+
+for (const view of VIEWS) {
+  test(`the header field takes typing before its suggestions have loaded and keeps it, in place, when they arrive (${view.name})`, async ({ page, axe }) => {
+    await page.setViewportSize({ width: view.width, height: view.height });
+    // The combobox's code is held back until released, as on a slow connection.
+    const asked: string[] = [];
+    let release = () => {};
+    const released = new Promise<void>((resolve) => (release = resolve));
+    await page.route('**/assets/part-search-box-*.js', async (route) => {
+      asked.push(route.request().url());
+      await released;
+      await route.continue();
+    });
+    await page.goto('/');
+    await expect(page.getByRole('heading', { level: 1 })).toBeVisible();
+    const box = page.getByRole('combobox', { name: 'Search the catalogue' });
+    const before = await box.boundingBox();
+    // A first page loads none of it until someone reaches for the field.
+    expect(asked).toEqual([]);
+    await axe();
+    await keepScreenshot(page, `header-search-stand-in-${view.name}`);
+
+    await box.click();
+    await page.keyboard.type('ful-2');
+    await expect(box).toHaveValue('ful-2');
+    expect(asked).toHaveLength(1);
+
+    release();
+    // The combobox has taken the field's place: focused, with what was typed and the caret after it, in the same box.
+    await expect(box).toHaveAttribute('data-rac', '');
+    await expect(box).toBeFocused();
+    await expect(box).toHaveValue('ful-2');
+    expect(await box.evaluate((el: HTMLInputElement) => [el.selectionStart, el.selectionEnd])).toEqual([5, 5]);
+    expect(await box.boundingBox()).toEqual(before);
+    await keepScreenshot(page, `header-search-arrived-${view.name}`);
+
+    // Typing carries on in it, and the suggestions come.
+    await page.keyboard.type('0-02');
+    await expect(box).toHaveValue('ful-20-02');
+    await expect(page.getByRole('listbox').getByRole('option').first()).toContainText('FUL-20-02');
+  });
+}

@@ -16,9 +16,23 @@ declare module 'react-aria-components' {
   }
 }
 
-// Search as you type: the combobox (and the accessible-list library) loads just after the page, the plain field
-// standing in until then, so the first page carries none of it.
-const PartSearchBox = lazy(() => import('../components/ui/part-search-box').then((m) => ({ default: m.PartSearchBox })));
+// Search as you type: the combobox (and the accessible-list library, a good third of a first page's script) loads
+// when someone shows they mean to search: the pointer comes over the field, or it is touched or focused. Until then a
+// plain field of the same size stands in, and a search typed there works as a form. Loaded once, kept for every page.
+type SearchBox = typeof import('../components/ui/part-search-box').PartSearchBox;
+let loadedSearchBox: SearchBox | null = null;
+let loadingSearchBox: Promise<SearchBox> | null = null;
+function loadSearchBox(): Promise<SearchBox> {
+  loadingSearchBox ??= import('../components/ui/part-search-box').then(
+    (m) => (loadedSearchBox = m.PartSearchBox),
+    (err: unknown) => {
+      // A failed load (say, the connection dropped) is tried again on the next sign of intent; the plain field works.
+      loadingSearchBox = null;
+      throw err;
+    },
+  );
+  return loadingSearchBox;
+}
 const headerInputClass = 'min-h-11 w-full rounded-l-md border border-cast-line bg-white px-3 text-ink placeholder:text-cast focus:border-temper';
 
 function HeaderSearch() {
@@ -26,9 +40,17 @@ function HeaderSearch() {
   const navigate = useNavigate();
   const current = params.get('q') ?? '';
   const [value, setValue] = useState(current);
+  const [Box, setBox] = useState<SearchBox | null>(() => loadedSearchBox);
   // Whether the stand-in field had focus when the combobox arrived, so typing carries on in it.
   const [typing, setTyping] = useState(false);
   useEffect(() => setValue(current), [current]);
+  const want = () => {
+    if (Box) return;
+    loadSearchBox().then(
+      (loaded) => setBox(() => loaded),
+      () => undefined,
+    );
+  };
   const search = () => {
     const q = value.trim();
     navigate(q ? `/catalogue?q=${encodeURIComponent(q)}` : '/catalogue');
@@ -37,29 +59,10 @@ function HeaderSearch() {
     e.preventDefault();
     search();
   };
-  const plain = (
-    <>
-      <label htmlFor="header-search" className="sr-only">
-        Search the catalogue
-      </label>
-      <input
-        id="header-search"
-        type="search"
-        value={value}
-        onChange={(e) => setValue(e.target.value)}
-        onFocus={() => setTyping(true)}
-        onBlur={() => setTyping(false)}
-        placeholder="part number or words"
-        maxLength={100}
-        autoComplete="off"
-        className={headerInputClass}
-      />
-    </>
-  );
   return (
     <form role="search" onSubmit={submit} className="flex w-full max-w-xl items-stretch">
-      <Suspense fallback={plain}>
-        <PartSearchBox
+      {Box ? (
+        <Box
           id="header-search"
           label="Search the catalogue"
           labelHidden
@@ -72,7 +75,33 @@ function HeaderSearch() {
           autoFocus={typing}
           inputClassName={headerInputClass}
         />
-      </Suspense>
+      ) : (
+        // The same box as the combobox's own wrapper, so nothing moves when it takes this field's place.
+        <div className="relative w-full min-w-0">
+          <input
+            id="header-search"
+            // It is the combobox, before its list can open: the same name and role either side of the swap.
+            role="combobox"
+            aria-expanded={false}
+            aria-autocomplete="list"
+            aria-label="Search the catalogue"
+            value={value}
+            onChange={(e) => setValue(e.target.value)}
+            onPointerEnter={want}
+            onPointerDown={want}
+            onFocus={() => {
+              setTyping(true);
+              want();
+            }}
+            onBlur={() => setTyping(false)}
+            placeholder="part number or words"
+            maxLength={100}
+            autoComplete="off"
+            spellCheck={false}
+            className={headerInputClass}
+          />
+        </div>
+      )}
       <button type="submit" className="inline-flex min-h-11 items-center gap-1 rounded-r-md bg-temper px-4 font-semibold text-white hover:bg-temper-deep">
         <Search aria-hidden className="size-4" />
         Search

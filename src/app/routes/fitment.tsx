@@ -1,6 +1,6 @@
 import { useQueryClient } from '@tanstack/react-query';
 import { Gauge } from 'lucide-react';
-import { useEffect, useRef, useState } from 'react';
+import { lazy, Suspense, useEffect, useRef, useState } from 'react';
 import { Link, useSearchParams } from 'react-router-dom';
 import { FITMENT_CAUTIONS } from '../../../shared/fitment/check';
 import type { FitmentRequest } from '../../../shared/schemas/fitment';
@@ -13,10 +13,15 @@ import { useFrameMaps } from '../../features/fitment/api/get-frame-maps';
 import { useSavedFitment } from '../../features/fitment/api/get-saved-fitment';
 import { useRunFitmentCheck } from '../../features/fitment/api/run-fitment-check';
 import { FitmentForm, formValuesFor } from '../../features/fitment/components/fitment-form';
-import { FitmentCautions, FitmentResults } from '../../features/fitment/components/fitment-results';
+import { FitmentCautions } from '../../features/fitment/components/fitment-cautions';
 import { useUnitSystem } from '../../features/fitment/lib/use-unit-system';
 import { FRAME_CODE_PATTERN } from '../../../shared/part-number';
 
+// The answer's views (build sheet, compressor map, candidates) load when a check is run, beside its request, or when
+// the form is first touched: a first visit to the form does not wait for them.
+const loadResults = () => import('../../features/fitment/components/fitment-results');
+const FitmentResults = lazy(() => loadResults().then((m) => ({ default: m.FitmentResults })));
+const preloadResults = () => void loadResults().catch(() => undefined);
 
 export function FitmentRoute() {
   const [params] = useSearchParams();
@@ -43,6 +48,7 @@ export function FitmentRoute() {
   const loadedSaved = useRef<number | null>(null);
 
   const run = (next: FitmentRequest, keep: Pick<SavedFitment, 'id' | 'name'> | null = null) => {
+    preloadResults();
     setRequest(next);
     setSaved(keep);
     setRefusedHere(false);
@@ -107,7 +113,7 @@ export function FitmentRoute() {
       )}
 
       <div className="grid items-start gap-8 lg:grid-cols-[26rem_minmax(0,1fr)]">
-        <div className="rounded-lg bg-white p-5 shadow-sm ring-1 ring-cast-line">
+        <div className="rounded-lg bg-white p-5 shadow-sm ring-1 ring-cast-line" onFocus={preloadResults} onPointerDown={preloadResults}>
           <FitmentForm
             key={form.key}
             initialValues={form.values}
@@ -139,18 +145,20 @@ export function FitmentRoute() {
               Fix the values marked in the form, then press <span className="font-semibold text-ink">Check fitment</span> again.
             </EmptyState>
           ) : check.data && request ? (
-            <FitmentResults
-              key={runId}
-              request={request}
-              result={check.data}
-              system={system}
-              cameFrom={cameFrom}
-              signedIn={signedIn}
-              canBackorder={canBackorder}
-              saved={saved}
-              onSaved={(s) => setSaved({ id: s.id, name: s.name })}
-              onAddedToCart={() => queryClient.invalidateQueries({ queryKey: cartKeys.all })}
-            />
+            <Suspense fallback={<LoadingState label="Checking every frame…" />}>
+              <FitmentResults
+                key={runId}
+                request={request}
+                result={check.data}
+                system={system}
+                cameFrom={cameFrom}
+                signedIn={signedIn}
+                canBackorder={canBackorder}
+                saved={saved}
+                onSaved={(s) => setSaved({ id: s.id, name: s.name })}
+                onAddedToCart={() => queryClient.invalidateQueries({ queryKey: cartKeys.all })}
+              />
+            </Suspense>
           ) : (
             <div className="grid gap-4">
               <EmptyState title="No check yet">

@@ -1,4 +1,4 @@
-import { useRef, type KeyboardEvent } from 'react';
+import { useEffect, useRef, type KeyboardEvent } from 'react';
 import { ComboBox, Input, Label, ListBox, ListBoxItem, Popover, Text } from 'react-aria-components';
 import type { PartSuggestion } from '../../../shared/schemas/parts';
 import { SUGGEST_MIN_LENGTH, useSuggestions } from '../../lib/part-suggestions';
@@ -31,6 +31,13 @@ export function PartSearchBox(props: Props) {
   const { data, isFetching, isError } = useSuggestions(props.value);
   const items = data?.items ?? [];
   const inputRef = useRef<HTMLInputElement>(null);
+  // Arriving with focus (it took the place of a field being typed in): the caret goes after what was typed.
+  useEffect(() => {
+    const input = inputRef.current;
+    if (props.autoFocus && input && document.activeElement === input) input.setSelectionRange(input.value.length, input.value.length);
+    // Only as it arrives.
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+  }, []);
   const onKeyDown = (e: KeyboardEvent<HTMLInputElement>) => {
     if (e.key !== 'Enter' || e.nativeEvent.isComposing) return;
     // An option is highlighted (virtual focus): the combobox takes it. Otherwise Enter is the caller's.

@@ -1,11 +1,10 @@
 import { ArrowLeft, Ban } from 'lucide-react';
 import { useEffect, useRef, useState } from 'react';
-import { FITMENT_CAUTIONS } from '../../../../shared/fitment/check';
 import { APPLICATION_DEFAULTS } from '../../../../shared/fitment/defaults';
 import { isUsable } from '../../../../shared/fitment/verdict';
-import type { FitmentCandidate, FitmentCaution, FitmentRequest, FitmentResponse } from '../../../../shared/schemas/fitment';
+import type { FitmentCandidate, FitmentRequest, FitmentResponse } from '../../../../shared/schemas/fitment';
 import type { SavedFitment } from '../../../../shared/schemas/saved-fitments';
-import { Caution } from '../../../components/ui/caution';
+import { FitmentCautions } from './fitment-cautions';
 import { ErrorState, LoadingState } from '../../../components/ui/states';
 import { useFrameMaps } from '../api/get-frame-maps';
 import { show, type UnitSystem } from '../lib/units';
@@ -25,45 +24,6 @@ function Figure({ label, value, detail }: { label: string; value: string; detail
       <dt className="font-semibold">{label}</dt>
       <dd className="tabular text-right text-lg font-bold whitespace-nowrap">{value}</dd>
       {detail && <dd className="tabular col-span-2 text-sm text-cast">{detail}</dd>}
-    </div>
-  );
-}
-
-const GENERAL_CAUTIONS = new Set(FITMENT_CAUTIONS.map((c) => c.code));
-
-/** A short title for each caution the numbers can raise; the message itself carries the number. */
-const CAUTION_TITLES: Record<string, string> = {
-  'charge-temperature': 'Hot charge air',
-  'no-intercooler': 'No charge cooler',
-  'hot-outlet': 'Hot compressor outlet',
-  'fuel-flow': 'Fuel system',
-  'back-pressure': 'Exhaust back pressure',
-  'overspeed-margin': 'Little shaft-speed margin',
-  'specific-output': 'Power per litre',
-};
-
-/** Cautions: each one the numbers raised in its own amber block, then the ones shown beside every result. */
-export function FitmentCautions({ cautions }: { cautions: readonly FitmentCaution[] }) {
-  const reacting = cautions.filter((c) => !GENERAL_CAUTIONS.has(c.code));
-  const general = cautions.filter((c) => GENERAL_CAUTIONS.has(c.code));
-  return (
-    <div className="grid gap-3">
-      {reacting.map((c) => (
-        <div key={c.code} data-caution={c.code}>
-          <Caution title={CAUTION_TITLES[c.code] ?? 'Caution'}>
-            <p>{c.message}</p>
-          </Caution>
-        </div>
-      ))}
-      {general.length > 0 && (
-        <Caution title="Before you buy or fit">
-          <ul className="mt-1 list-disc space-y-1 pl-5">
-            {general.map((c) => (
-              <li key={c.code}>{c.message}</li>
-            ))}
-          </ul>
-        </Caution>
-      )}
     </div>
   );
 }
