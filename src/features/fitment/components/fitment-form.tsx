@@ -10,7 +10,6 @@ import {
   DEFAULT_CHARGE_LOSS_PSI_NO_INTERCOOLER,
   DEFAULT_COMPRESSOR_EFFICIENCY,
   DEFAULT_INLET_LOSS_PSI,
-  DEFAULT_INTERCOOLED,
   DEFAULT_VOLUMETRIC_EFFICIENCY,
 } from '../../../../shared/fitment/defaults';
 import {
@@ -27,7 +26,7 @@ import {
 import { Button } from '../../../components/ui/button';
 import { useErrorSummary, type SummaryField } from '../../../components/ui/error-summary';
 import { ErrorSummary } from '../../../components/ui/form';
-import { DISPLACEMENT_UNIT_LABELS, rememberDisplacementUnit, storedDisplacementUnit } from '../lib/displacement-unit';
+import { DISPLACEMENT_UNIT_LABELS, rememberDisplacementUnit } from '../lib/displacement-unit';
 import {
   ADVANCED_FIELDS,
   displacementSystem,
@@ -54,34 +53,7 @@ export const APPLICATION_LABELS: Record<Application, string> = {
   marine: 'Marine',
 };
 
-/** A 2.0 L petrol street engine making 300 hp at 6500 rpm: a common first turbo project. */
-const STARTING_ENGINE: Partial<FitmentRequest> = { displacementL: 2.0, powerHp: 300, rpm: 6500, fuel: 'petrol', application: 'street' };
-
-const BLANK: FitmentFormValues = {
-  displacement: '',
-  displacementUnit: 'L',
-  power: '',
-  rpm: '',
-  fuel: 'petrol',
-  application: 'street',
-  altitude: '',
-  inletTemp: '',
-  intercooled: DEFAULT_INTERCOOLED,
-  bsfc: '',
-  afr: '',
-  volumetricEfficiency: '',
-  manifoldTemp: '',
-  chargeLoss: '',
-  inletLoss: '',
-  compressorEfficiency: '',
-  fullBoostRpm: '',
-  intercoolerEffectiveness: '',
-  cylinders: '',
-};
-
-export function formValuesFor(request: Partial<FitmentRequest> | null, system: UnitSystem): FitmentFormValues {
-  return requestToForm(request ?? STARTING_ENGINE, system, { ...BLANK, displacementUnit: storedDisplacementUnit() });
-}
+export { formValuesFor } from '../lib/form-values';
 
 const fieldId = (name: FormField) => `fitment-${name}`;
 const fieldOfId = (id: string) => id.replace(/^fitment-/, '') as FormField;
