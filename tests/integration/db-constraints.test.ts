@@ -66,6 +66,8 @@ describe('database constraints', () => {
     // The catalogue's kept counts and the bearing copied onto each part (drizzle/0014_list_indexes_and_counts.sql).
     for (const name of ['catalog_counts_part_insert', 'catalog_counts_part_update', 'catalog_counts_part_delete', 'parts_bearing_on_insert']) expect(triggers).toContain(name);
     for (const event of ['insert', 'update', 'delete']) expect(triggers).toContain(`part_specs_bearing_${event}`);
+    // A part's GTIN filled in when written without one, and checked for 13 digits (drizzle/0019_gtin_backfill.sql).
+    for (const name of ['parts_gtin_fill', 'parts_gtin_insert_ck', 'parts_gtin_update_ck']) expect(triggers).toContain(name);
   });
 
   it('indexes every foreign-key column (as the first column of some index or key)', () => {
