@@ -130,7 +130,7 @@ export function createMailOutbox(deps: { db: Db; mailer: MailerPort; policy?: Pa
   let stopped = false;
 
   /** Hands one claimed row to the mail server and records what happened, if the claim is still this worker's. */
-  async function sendOne(row: typeof mailOutbox.$inferSelect, result: OutboxRunResult) {
+  async function sendOne(row: typeof mailOutbox.$inferSelect, result: OutboxRunResult, sent: Array<typeof mailOutbox.$inferSelect>) {
     try {
       await mailer.send({ to: row.recipient, subject: row.subject, text: row.text, html: row.html });
     } catch (error) {
@@ -151,14 +151,33 @@ export function createMailOutbox(deps: { db: Db; mailer: MailerPort; policy?: Pa
       } else result.retrying += 1;
       return;
     }
-    // A reset or confirmation link is a credential: once it has gone it is not kept in the database.
-    const clear = CARRIES_A_CREDENTIAL.has(row.kind) ? { text: '', html: '' } : {};
-    const marked = db
-      .update(mailOutbox)
-      .set({ state: 'sent', sentAt: new Date(now()).toISOString(), claimedBy: null, claimExpiresAt: null, lastError: null, ...clear })
-      .where(mine(row.id))
-      .run().changes;
-    if (marked === 1) result.sent += 1;
+    sent.push(row);
+  }
+
+  /**
+   * Marks a batch's delivered rows sent in one write (one commit for the batch, not one per message), if their claims
+   * are still this worker's. A reset or confirmation link is a credential: once it has gone it is not kept.
+   */
+  function markSent(rows: Array<typeof mailOutbox.$inferSelect>, result: OutboxRunResult) {
+    if (rows.length === 0) return;
+    const at = new Date(now()).toISOString();
+    const credentials = rows.filter((r) => CARRIES_A_CREDENTIAL.has(r.kind)).map((r) => r.id);
+    const marked = db.transaction(() => {
+      let n = 0;
+      for (const [ids, clear] of [
+        [rows.filter((r) => !CARRIES_A_CREDENTIAL.has(r.kind)).map((r) => r.id), {}],
+        [credentials, { text: '', html: '' }],
+      ] as const) {
+        if (ids.length === 0) continue;
+        n += db
+          .update(mailOutbox)
+          .set({ state: 'sent', sentAt: at, claimedBy: null, claimExpiresAt: null, lastError: null, ...clear })
+          .where(and(inArray(mailOutbox.id, [...ids]), eq(mailOutbox.state, 'sending'), eq(mailOutbox.claimedBy, holder)))
+          .run().changes;
+      }
+      return n;
+    });
+    result.sent += marked;
   }
 
   /** Sends every message due now (one batch at a time) and returns what happened. */
@@ -173,14 +192,16 @@ export function createMailOutbox(deps: { db: Db; mailer: MailerPort; policy?: Pa
       // A few messages in hand at once, one per pooled connection; a stop leaves the rest untried and gives them back.
       let next = 0;
       const untried: number[] = [];
+      const sent: Array<typeof mailOutbox.$inferSelect> = [];
       const worker = async () => {
         while (next < rows.length) {
           const row = rows[next++]!;
           if (stopped) untried.push(row.id);
-          else await sendOne(row, result);
+          else await sendOne(row, result, sent);
         }
       };
       await Promise.all(Array.from({ length: Math.min(policy.concurrency, rows.length) }, worker));
+      markSent(sent, result);
       unclaim(untried);
     }
     return result;
