@@ -14,7 +14,7 @@ import { performance } from 'node:perf_hooks';
 import { openDatabase } from '../server/db/client';
 import { createCatalogService } from '../server/services/catalog';
 import { createSearchService } from '../server/services/search';
-import type { PartsQuery } from '../shared/schemas/parts';
+import { listSet } from './bench-list-set';
 
 const source = process.argv[2];
 const runs = Number(process.argv.slice(3).find((a) => /^\d+$/.test(a)) ?? 60);
@@ -28,35 +28,7 @@ const db = openDatabase(copy);
 const search = createSearchService(db);
 search.rebuild();
 const catalog = createCatalogService(db, search);
-const frame = db.$client.prepare("SELECT frame_code FROM parts WHERE frame_code IS NOT NULL GROUP BY 1 ORDER BY count(*) DESC LIMIT 1").pluck().get() as string;
-
-const lists: Array<[string, PartsQuery]> = [
-  ['search-less list', {}],
-  ['category page', { category: 'cartridges' }],
-  ['bearing facet', { bearing: 'ball' }],
-  ['in stock', { inStock: true }],
-  ['frame', { frame }],
-  ['power 300-600 hp', { minHp: 300, maxHp: 600 }],
-  ['price low-high', { sort: 'price-asc' }],
-  ['price high-low', { sort: 'price-desc' }],
-  ['part number', { sort: 'number' }],
-  ['title', { sort: 'title' }],
-  ['category by price', { category: 'turbine-housings', sort: 'price-asc' }],
-  ['category by number', { category: 'gaskets-fittings', sort: 'number' }],
-  ['category by title', { category: 'compressor-housings', sort: 'title' }],
-  ['category + frame', { category: 'cartridges', frame }],
-  ['category + bearing + in stock', { category: 'turbochargers', bearing: 'journal', inStock: true, sort: 'price-desc' }],
-  ['frame + bearing by price', { frame, bearing: 'ball', sort: 'price-asc' }],
-  ['frame + bearing', { frame, bearing: 'journal' }],
-  ['category + frame + bearing by title', { category: 'turbochargers', frame, bearing: 'ball', sort: 'title' }],
-  ['bearing by price', { bearing: 'ball', sort: 'price-asc' }],
-  ['bearing by number', { bearing: 'journal', sort: 'number' }],
-  ['bearing by title', { bearing: 'ball', sort: 'title' }],
-  ['in stock by price', { inStock: true, sort: 'price-desc' }],
-  ['power by price', { minHp: 300, maxHp: 600, sort: 'price-asc' }],
-  ['category, page 40', { category: 'turbochargers', page: 40 }],
-  ['search "cartridge"', { q: 'cartridge' }],
-];
+const lists = listSet(db.$client);
 
 function median(xs: number[]) {
   const s = [...xs].sort((a, b) => a - b);

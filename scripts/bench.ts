@@ -4,13 +4,14 @@ import { parseArgs } from 'node:util';
 import { catalogueSection, type BenchEnv } from './bench-catalogues';
 import { checkoutSection } from './bench-checkout';
 import { fitmentSection } from './bench-fitment';
+import { freshListSection } from './bench-fresh-lists';
 import { printReport, runSections, writeReport, type BenchSection } from './bench-harness';
 import { httpSection } from './bench-http';
 import { markdownTable } from './bench-figures';
 import { pagesSection } from './bench-pages';
 import { searchSection } from './bench-search';
 
-// Usage: npm run bench -- [--quick] [--sizes 5000,50000,200000] [--duration 5] [--rounds 2] [--only search|list|fitment|checkout|pages] [--pages] [--keep]
+// Usage: npm run bench -- [--quick] [--sizes 5000,50000,200000] [--duration 5] [--rounds 2] [--only search|fresh|list|fitment|checkout|pages] [--pages] [--keep]
 // --pages adds the throttled page loads in Chromium (a few minutes; also alone: npx tsx scripts/bench-pages.ts).
 const { values } = parseArgs({
   options: {
@@ -35,9 +36,9 @@ if (!Number.isInteger(rounds) || rounds < 1 || rounds > 10) throw new Error('--r
 const root = path.resolve(import.meta.dirname, '..');
 const env: BenchEnv = { root, workDir: path.join(root, '.tmp', 'bench'), sizes, httpDurationS, rounds, quick, catalogues: [] };
 
-const sections: Array<BenchSection<BenchEnv>> = [searchSection, httpSection, fitmentSection, checkoutSection, ...(values.pages || values.only ? [pagesSection] : [])].filter((s) => !values.only || s.name.toLowerCase().includes(values.only.toLowerCase()));
-// Only the search figures need the generated sizes.
-if (!sections.includes(searchSection)) env.sizes = [];
+const sections: Array<BenchSection<BenchEnv>> = [searchSection, freshListSection, httpSection, fitmentSection, checkoutSection, ...(values.pages || values.only ? [pagesSection] : [])].filter((s) => !values.only || s.name.toLowerCase().includes(values.only.toLowerCase()));
+// Only the search and fresh-list figures need the generated sizes.
+if (!sections.includes(searchSection) && !sections.includes(freshListSection)) env.sizes = [];
 
 const report = await runSections([catalogueSection, ...sections], env);
 printReport(report);
