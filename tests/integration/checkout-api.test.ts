@@ -271,28 +271,51 @@ describe('checkout by card', () => {
     expect(line).toMatchObject({ partNumber: TURBO, quantity: 1, fitment: { id: fitmentId, name: 'shop car' } });
   });
 
-  it('pays through the webhook; the same event ten times changes the order once', async () => {
+  it('pays at checkout on the provider’s own answer; its success event, ten times over, writes nothing', async () => {
     const { c, email } = await freshCustomer();
     await c.add(GASKET, 1);
     const res = await c.call('POST', '/api/checkout', { method: 'card', paymentMethod: 'pm_card_visa', delivery: DELIVERY, totalCents: 1 });
     expect(res.status).toBe(201);
-    const { order } = CheckoutResponseSchema.parse(res.body);
-    expect(order.status).toBe('pending_payment');
-    await waitForStatus(c, order.number, 'paid');
-    const intent = orderRow(order.number).payment_intent_id!;
+    const { order, outcome } = CheckoutResponseSchema.parse(res.body);
+    expect(order.status).toBe('paid');
+    expect(outcome).toBe('confirmed');
+    const { id, payment_intent_id: intent } = orderRow(order.number);
+    expect(intent).toMatch(/^pi_/);
     const succeeded = t.payments!.events().find((e) => e.event.type === 'payment_intent.succeeded' && (e.event.data.object as { id: string }).id === intent)!;
     expect(succeeded).toBeDefined();
+    await t.payments!.waitForWebhooks();
     for (let i = 0; i < 9; i++) expect((await t.payments!.resendEvent(succeeded.event.id)).status).toBe(200);
     await t.payments!.waitForWebhooks();
     await t.mailSettled();
-    const { id } = orderRow(order.number);
     expect(sql("SELECT 1 FROM order_events WHERE order_id = ? AND status = 'paid'", id)).toHaveLength(1);
-    expect(sql('SELECT 1 FROM payment_events WHERE event_id = ?', succeeded.event.id)).toHaveLength(1);
+    // Nothing to apply for an order already paid: the event is answered without a write.
+    expect(sql('SELECT 1 FROM payment_events WHERE event_id = ?', succeeded.event.id)).toHaveLength(0);
     const confirmations = t.mail!.messages().filter((m) => m.to.includes(email) && m.subject.includes(`Order ${order.number} confirmed`));
     expect(confirmations).toHaveLength(1);
   });
 
-  it('takes a card payment in one call to the provider (created and confirmed together), still paid by the webhook', async () => {
+  it('an order still awaiting its payment is paid by the webhook; the same event ten times changes it once', async () => {
+    const { c, email } = await freshCustomer();
+    await c.add(GASKET, 1);
+    const res = await c.call('POST', '/api/checkout', { method: 'card', paymentMethod: 'pm_card_authenticationRequired', delivery: DELIVERY });
+    expect(res.status).toBe(201);
+    const placed = CheckoutResponseSchema.parse(res.body);
+    expect(placed.order.status).toBe('pending_payment');
+    const intent = placed.nextAction!.paymentIntentId;
+    t.payments!.authenticate(intent, 'succeed');
+    await waitForStatus(c, placed.order.number, 'paid');
+    const succeeded = t.payments!.events().find((e) => e.event.type === 'payment_intent.succeeded' && (e.event.data.object as { id: string }).id === intent)!;
+    for (let i = 0; i < 9; i++) expect((await t.payments!.resendEvent(succeeded.event.id)).status).toBe(200);
+    await t.payments!.waitForWebhooks();
+    await t.mailSettled();
+    const { id } = orderRow(placed.order.number);
+    expect(sql("SELECT 1 FROM order_events WHERE order_id = ? AND status = 'paid'", id)).toHaveLength(1);
+    expect(sql('SELECT 1 FROM payment_events WHERE event_id = ?', succeeded.event.id)).toHaveLength(1);
+    const confirmations = t.mail!.messages().filter((m) => m.to.includes(email) && m.subject.includes(`Order ${placed.order.number} confirmed`));
+    expect(confirmations).toHaveLength(1);
+  });
+
+  it('takes a card payment in one call to the provider (created and confirmed together)', async () => {
     const { c } = await freshCustomer();
     await c.add(GASKET, 1);
     const { order } = CheckoutResponseSchema.parse((await c.call('POST', '/api/checkout', { method: 'card', paymentMethod: 'pm_card_visa', delivery: DELIVERY })).body);

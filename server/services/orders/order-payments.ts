@@ -107,9 +107,13 @@ export function createOrderPayments(deps: OrderPaymentsDeps) {
 
   const orderById = (orderId: number) => findOrder(db, eq(orders.id, orderId));
 
-  /** Marks a pending order paid once; says whether this call did it (and so should send the confirmation). */
-  function markPaid(orderId: number, note: string) {
+  /**
+   * Marks a pending order paid once; says whether this call did it (and so should send the confirmation). Given the
+   * provider's intent, the order learns it in the same write (if it did not know it yet).
+   */
+  function markPaid(orderId: number, note: string, intentId?: string) {
     const done = db.transaction((tx) => {
+      if (intentId) setIntentIfUnknown(tx, orderId, intentId);
       const order = findOrder(tx, eq(orders.id, orderId));
       if (!order || order.status !== 'pending_payment') return false;
       setOrderState(tx, order.id, 'paid', 'paid');
@@ -119,6 +123,15 @@ export function createOrderPayments(deps: OrderPaymentsDeps) {
     });
     return done;
   }
+
+  const setIntentIfUnknown = (q: Query, orderId: number, intentId: string) =>
+    preparedOn(q, 'payments:set-intent', (h) =>
+      h
+        .update(orders)
+        .set({ paymentIntentId: sql`${sql.placeholder('intentId')}` })
+        .where(and(eq(orders.id, sql.placeholder('orderId')), isNull(orders.paymentIntentId)))
+        .prepare(),
+    ).run({ intentId, orderId });
 
   /** Writes the confirmation (and a back-order notice) in the transaction that marks the order paid. */
   function confirmPaid(tx: Query, orderId: number) {
@@ -253,7 +266,13 @@ export function createOrderPayments(deps: OrderPaymentsDeps) {
       const created = await within(deadline, (o) => payments.paymentIntents.create(intentParams(header, input.paymentMethod), { ...o, idempotencyKey: `order-${placed.number}-intent` }));
       if (created.ok) {
         intent = created.value;
-        preparedOn(db, 'payments:set-intent', (h) => h.update(orders).set({ paymentIntentId: sql`${sql.placeholder('intentId')}` }).where(eq(orders.id, sql.placeholder('orderId'))).prepare()).run({ intentId: intent.id, orderId: placed.orderId });
+        if (intent.status === 'succeeded') {
+          // The provider's own answer to our call says the money is taken: the order is paid now, in the write that
+          // records its payment, and the webhook that follows finds nothing left to do (it may also come first).
+          const paid = markPaid(placed.orderId, 'Card payment received', intent.id) || orderById(placed.orderId)?.status === 'paid';
+          return answer(paid ? 'paid' : 'pending_payment', { outcome: 'confirmed' });
+        }
+        setIntentIfUnknown(db, placed.orderId, intent.id);
       } else {
         // A refused create took nothing: the order goes back to the cart.
         if (created.error instanceof Stripe.errors.StripeInvalidRequestError) {
@@ -269,12 +288,12 @@ export function createOrderPayments(deps: OrderPaymentsDeps) {
         const found = await within(deadline, (o) => findIntentByOrderNumber(placed.number, new Date(Date.now() - budgetMs), o));
         if (!found.ok || !found.value) return confirming();
         intent = found.value;
-        db.update(orders).set({ paymentIntentId: intent.id }).where(and(eq(orders.id, placed.orderId), isNull(orders.paymentIntentId))).run();
-        const order = orderById(placed.orderId)!;
         if (intent.status === 'succeeded') {
-          markPaid(order.id, 'Card payment received (confirmed with the card provider after a lost reply)');
+          markPaid(placed.orderId, 'Card payment received (confirmed with the card provider after a lost reply)', intent.id);
           return answer('paid', { outcome: 'confirmed' });
         }
+        setIntentIfUnknown(db, placed.orderId, intent.id);
+        const order = orderById(placed.orderId)!;
         if (intent.status === 'requires_confirmation') {
           // Created but never confirmed: nothing was taken.
           const reason = `The card payment could not be completed. ${DECLINED_NOTE}`;
@@ -321,12 +340,21 @@ export function createOrderPayments(deps: OrderPaymentsDeps) {
    * Applies a verified webhook event once. The event id is recorded in the same transaction as its effect, so a
    * repeat changes nothing, and a paid order is never moved back by a late failure event.
    */
-  const applyEvent = (event: Stripe.Event) =>
-    db.transaction((tx): { applied: boolean; effect: EventEffect; orderId: number | null; intentId: string | null; amountCents: number } => {
-      const object = EventObjectSchema.parse(event.data.object);
-      const intentId = object.object === 'payment_intent' ? object.id : (object.payment_intent ?? null);
-      const amountCents = object.amount_received || object.amount || 0;
-      const none = { applied: true, effect: null, orderId: null, intentId, amountCents };
+  const applyEvent = (event: Stripe.Event) => {
+    const object = EventObjectSchema.parse(event.data.object);
+    const intentId = object.object === 'payment_intent' ? object.id : (object.payment_intent ?? null);
+    const amountCents = object.amount_received || object.amount || 0;
+    const none = { applied: true, effect: null, orderId: null, intentId, amountCents };
+    if (event.type === 'payment_intent.succeeded' && intentId) {
+      // Most card orders are paid at checkout, by the provider's answer to our own call: their success event is read
+      // and answered without a write. What the transaction below would do for it is nothing either (a paid order
+      // stays paid); only an order still awaiting payment, or one cancelled unpaid (a stray to refund), goes on.
+      const known = findOrderByIntent(db, intentId);
+      if (known && known.status !== 'pending_payment' && !(known.status === 'cancelled' && known.paymentState === 'failed')) {
+        return { ...none, applied: false, orderId: known.id };
+      }
+    }
+    return db.transaction((tx): { applied: boolean; effect: EventEffect; orderId: number | null; intentId: string | null; amountCents: number } => {
       const inserted = preparedOn(tx, 'payments:event', (h) =>
         h.insert(paymentEvents).values({ eventId: sql.placeholder('eventId'), type: sql.placeholder('type'), paymentIntentId: sql.placeholder('intentId') }).onConflictDoNothing().prepare(),
       ).run({ eventId: event.id, type: event.type, intentId });
@@ -365,6 +393,7 @@ export function createOrderPayments(deps: OrderPaymentsDeps) {
       }
       return { ...none, orderId: order.id };
     });
+  };
 
   async function handlePaymentEvent(event: Stripe.Event) {
     const result = applyEvent(event);
