@@ -727,8 +727,6 @@ export const mailOutbox = sqliteTable(
     kind: text('kind', { enum: MAIL_KINDS }).notNull(),
     recipient: text('recipient').notNull(),
     subject: text('subject').notNull(),
-    text: text('text').notNull(),
-    html: text('html').notNull(),
     state: text('state', { enum: MAIL_STATES }).notNull().default('queued'),
     attempts: integer('attempts').notNull().default(0),
     /** Epoch milliseconds: the worker takes a queued row once this has passed. */
@@ -751,6 +749,18 @@ export const mailOutbox = sqliteTable(
     holds('mail_outbox', 'sent', "state <> 'sent' OR sent_at IS NOT NULL"),
   ],
 );
+
+/**
+ * A queued message's text and HTML, kept apart from its sending state: a message is a few pages of text, and SQLite
+ * rewrites a whole row on every update, so the worker's claims and marks would otherwise copy the message each time.
+ */
+export const mailBodies = sqliteTable('mail_bodies', {
+  outboxId: integer('outbox_id')
+    .primaryKey()
+    .references(() => mailOutbox.id, { onDelete: 'cascade' }),
+  text: text('text').notNull(),
+  html: text('html').notNull(),
+});
 
 /** On-site notices: what changed on a buyer's orders and returns, written beside the e-mail in the same transaction. */
 export const notices = sqliteTable(

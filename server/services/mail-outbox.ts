@@ -2,7 +2,7 @@ import { randomUUID } from 'node:crypto';
 import { and, count, desc, eq, inArray, lt, lte, sql } from 'drizzle-orm';
 import type { Db } from '../db/client';
 import { preparedOn } from '../db/prepared';
-import { mailOutbox } from '../db/schema';
+import { mailBodies, mailOutbox } from '../db/schema';
 import type { MailKind, MailState } from '../../shared/allowed-values';
 import type { MailOutboxList, MailOutboxQuery } from '../../shared/schemas/mail-outbox';
 import { ConflictError, NotFoundError } from './errors';
@@ -64,16 +64,27 @@ export function enqueueMail(q: Query, kind: MailKind, build: () => OutgoingMail,
     message = build();
   } catch (error) {
     console.warn(`${kind} not written: ${reason(error)}`);
-    q.insert(mailOutbox)
-      .values({ kind, recipient: '', subject: `(${kind} could not be written)`, text: '', html: '', state: 'failed', nextAttemptAt: now, lastError: `Could not be written: ${reason(error)}` })
-      .run();
+    const { id } = q
+      .insert(mailOutbox)
+      .values({ kind, recipient: '', subject: `(${kind} could not be written)`, state: 'failed', nextAttemptAt: now, lastError: `Could not be written: ${reason(error)}` })
+      .returning({ id: mailOutbox.id })
+      .get();
+    q.insert(mailBodies).values({ outboxId: id, text: '', html: '' }).run();
     return;
   }
   const $ = sql.placeholder;
-  preparedOn(q, 'outbox:enqueue', (h) =>
-    h.insert(mailOutbox).values({ kind: $('kind'), recipient: $('recipient'), subject: $('subject'), text: $('text'), html: $('html'), nextAttemptAt: $('nextAttemptAt') }).prepare(),
-  ).run({ kind, recipient: message.to, subject: message.subject, text: message.text, html: message.html, nextAttemptAt: now });
+  const { lastInsertRowid } = preparedOn(q, 'outbox:enqueue', (h) =>
+    h.insert(mailOutbox).values({ kind: $('kind'), recipient: $('recipient'), subject: $('subject'), nextAttemptAt: $('nextAttemptAt') }).prepare(),
+  ).run({ kind, recipient: message.to, subject: message.subject, nextAttemptAt: now });
+  preparedOn(q, 'outbox:enqueue-body', (h) => h.insert(mailBodies).values({ outboxId: $('outboxId'), text: $('text'), html: $('html') }).prepare()).run({
+    outboxId: Number(lastInsertRowid),
+    text: message.text,
+    html: message.html,
+  });
 }
+
+/** A claimed message: its row and the text and HTML to send. */
+type ClaimedMail = typeof mailOutbox.$inferSelect & { text: string; html: string };
 
 export interface OutboxRunResult {
   claimed: number;
@@ -108,12 +119,22 @@ export function createMailOutbox(deps: { db: Db; mailer: MailerPort; policy?: Pa
       .where(and(eq(mailOutbox.state, 'queued'), lte(mailOutbox.nextAttemptAt, dueBy)))
       .orderBy(mailOutbox.nextAttemptAt, mailOutbox.id)
       .limit(policy.batchSize);
-    return db
+    const rows = db
       .update(mailOutbox)
       .set({ state: 'sending', claimedBy: holder, claimExpiresAt: at + policy.claimMs, attempts: sql`${mailOutbox.attempts} + 1`, lastAttemptAt: new Date(at).toISOString() })
       .where(and(inArray(mailOutbox.id, due), eq(mailOutbox.state, 'queued')))
       .returning()
       .all();
+    if (rows.length === 0) return [];
+    const bodies = new Map(
+      db
+        .select()
+        .from(mailBodies)
+        .where(inArray(mailBodies.outboxId, rows.map((r) => r.id)))
+        .all()
+        .map((b) => [b.outboxId, b]),
+    );
+    return rows.map((r): ClaimedMail => ({ ...r, text: bodies.get(r.id)?.text ?? '', html: bodies.get(r.id)?.html ?? '' }));
   }
 
   const mine = (id: number) => and(eq(mailOutbox.id, id), eq(mailOutbox.state, 'sending'), eq(mailOutbox.claimedBy, holder));
@@ -130,7 +151,7 @@ export function createMailOutbox(deps: { db: Db; mailer: MailerPort; policy?: Pa
   let stopped = false;
 
   /** Hands one claimed row to the mail server and records what happened, if the claim is still this worker's. */
-  async function sendOne(row: typeof mailOutbox.$inferSelect, result: OutboxRunResult, sent: Array<typeof mailOutbox.$inferSelect>) {
+  async function sendOne(row: ClaimedMail, result: OutboxRunResult, sent: ClaimedMail[]) {
     try {
       await mailer.send({ to: row.recipient, subject: row.subject, text: row.text, html: row.html });
     } catch (error) {
@@ -158,24 +179,20 @@ export function createMailOutbox(deps: { db: Db; mailer: MailerPort; policy?: Pa
    * Marks a batch's delivered rows sent in one write (one commit for the batch, not one per message), if their claims
    * are still this worker's. A reset or confirmation link is a credential: once it has gone it is not kept.
    */
-  function markSent(rows: Array<typeof mailOutbox.$inferSelect>, result: OutboxRunResult) {
+  function markSent(rows: ClaimedMail[], result: OutboxRunResult) {
     if (rows.length === 0) return;
     const at = new Date(now()).toISOString();
     const credentials = rows.filter((r) => CARRIES_A_CREDENTIAL.has(r.kind)).map((r) => r.id);
     const marked = db.transaction(() => {
-      let n = 0;
-      for (const [ids, clear] of [
-        [rows.filter((r) => !CARRIES_A_CREDENTIAL.has(r.kind)).map((r) => r.id), {}],
-        [credentials, { text: '', html: '' }],
-      ] as const) {
-        if (ids.length === 0) continue;
-        n += db
-          .update(mailOutbox)
-          .set({ state: 'sent', sentAt: at, claimedBy: null, claimExpiresAt: null, lastError: null, ...clear })
-          .where(and(inArray(mailOutbox.id, [...ids]), eq(mailOutbox.state, 'sending'), eq(mailOutbox.claimedBy, holder)))
-          .run().changes;
-      }
-      return n;
+      const done = db
+        .update(mailOutbox)
+        .set({ state: 'sent', sentAt: at, claimedBy: null, claimExpiresAt: null, lastError: null })
+        .where(and(inArray(mailOutbox.id, rows.map((r) => r.id)), eq(mailOutbox.state, 'sending'), eq(mailOutbox.claimedBy, holder)))
+        .returning({ id: mailOutbox.id })
+        .all();
+      const cleared = credentials.filter((id) => done.some((d) => d.id === id));
+      if (cleared.length > 0) db.update(mailBodies).set({ text: '', html: '' }).where(inArray(mailBodies.outboxId, cleared)).run();
+      return done.length;
     });
     result.sent += marked;
   }
@@ -192,7 +209,7 @@ export function createMailOutbox(deps: { db: Db; mailer: MailerPort; policy?: Pa
       // A few messages in hand at once, one per pooled connection; a stop leaves the rest untried and gives them back.
       let next = 0;
       const untried: number[] = [];
-      const sent: Array<typeof mailOutbox.$inferSelect> = [];
+      const sent: ClaimedMail[] = [];
       const worker = async () => {
         while (next < rows.length) {
           const row = rows[next++]!;
@@ -278,7 +295,7 @@ export function createMailOutbox(deps: { db: Db; mailer: MailerPort; policy?: Pa
           lastAttemptAt: mailOutbox.lastAttemptAt,
           sentAt: mailOutbox.sentAt,
           createdAt: mailOutbox.createdAt,
-          hasBody: sql<number>`length(${mailOutbox.text}) > 0`,
+          hasBody: sql<number>`(select length(${mailBodies.text}) from ${mailBodies} where ${mailBodies.outboxId} = ${mailOutbox.id}) > 0`,
         })
         .from(mailOutbox)
         .where(where)
@@ -301,9 +318,14 @@ export function createMailOutbox(deps: { db: Db; mailer: MailerPort; policy?: Pa
     },
     /** Queues a message again for the next pass; a sent one goes once more. */
     resend(id: number) {
-      const row = db.select({ state: mailOutbox.state, text: mailOutbox.text, kind: mailOutbox.kind }).from(mailOutbox).where(eq(mailOutbox.id, id)).get();
+      const row = db
+        .select({ state: mailOutbox.state, text: mailBodies.text, kind: mailOutbox.kind })
+        .from(mailOutbox)
+        .leftJoin(mailBodies, eq(mailBodies.outboxId, mailOutbox.id))
+        .where(eq(mailOutbox.id, id))
+        .get();
       if (!row) throw new NotFoundError('No such message');
-      if (row.text === '') {
+      if (!row.text) {
         throw new ConflictError(
           row.kind === 'password-reset'
             ? 'A reset link is not kept once it has gone. The customer can ask for a new one from the sign-in page.'

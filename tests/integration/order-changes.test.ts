@@ -47,7 +47,7 @@ function ledgerMismatches() {
 const detail = async (buyer: TestUser, number: string) => OrderDetailSchema.parse((await buyer.client.get(`/api/orders/${number}`)).body);
 const changes = async (buyer: TestUser, number: string) => OrderChangesSchema.parse((await buyer.client.get(`/api/orders/${number}/changes`)).body);
 const provider = () => paymentsClient(t.payments!.port);
-const mailsTo = (email: string, subject: RegExp) => sql<{ subject: string; text: string }>("SELECT subject, text FROM mail_outbox WHERE recipient = ? AND kind = 'order-changed'", email).filter((m) => subject.test(m.subject));
+const mailsTo = (email: string, subject: RegExp) => sql<{ subject: string; text: string }>("SELECT subject, text FROM mail_outbox JOIN mail_bodies ON outbox_id = id WHERE recipient = ? AND kind = 'order-changed'", email).filter((m) => subject.test(m.subject));
 
 describe('changing a card order before picking', () => {
   it('lowers one quantity and takes a line off: stock goes back through the ledger, the difference is refunded, the buyer is mailed', async () => {

@@ -218,7 +218,7 @@ describe('service reminders', () => {
 
     t.app.reminders.sendDue(new Date(`${due}T09:00:00Z`));
     expect(mailsFor(buyer.email)).toBe(1);
-    const mail = one<{ subject: string; text: string }>("SELECT subject, text FROM mail_outbox WHERE kind = 'service-reminder' AND recipient = ?", buyer.email);
+    const mail = one<{ subject: string; text: string }>("SELECT subject, text FROM mail_outbox JOIN mail_bodies ON outbox_id = id WHERE kind = 'service-reminder' AND recipient = ?", buyer.email);
     expect(mail.subject).toContain(serial);
     expect(mail.text).toContain(`/service/new?serial=${serial}`);
     expect(t.db.select().from(serviceReminders).where(eq(serviceReminders.unitId, unit.id)).all()).toHaveLength(1);
