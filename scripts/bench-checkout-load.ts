@@ -292,7 +292,9 @@ export async function runCheckout(o: CheckoutRunOptions): Promise<CheckoutRun> {
       const settled = () =>
         (sqlite.prepare("SELECT count(*) FROM orders WHERE status = 'pending_payment'").pluck().get() as number) === 0 &&
         (sqlite.prepare("SELECT count(*) FROM mail_outbox WHERE state IN ('queued', 'sending')").pluck().get() as number) === 0;
-      await until('the warm-up orders being paid and mailed', settled, 60_000);
+      await until('the warm-up orders being paid and mailed', settled, 60_000).catch((error: unknown) => {
+        throw new Error(`${(error as Error).message}; the app said:\n${srv.output().slice(-3000)}`);
+      });
       const ordersBefore = sqlite.prepare('SELECT count(*) FROM orders').pluck().get() as number;
 
       const cpu0 = { app: treeCpuMs(srv.pid), fakes: treeCpuMs(payments.pid) + treeCpuMs(mail.pid) };

@@ -40,7 +40,7 @@ export interface MailFake {
   httpPort: number;
   httpUrl: string;
   /** Newest first. */
-  messages(): StoredMessage[];
+  messages(): Promise<StoredMessage[]>;
   /** SMTP connections opened so far, to see that a pooled sender reuses them. */
   connections(): number;
   clear(): void;
@@ -72,12 +72,52 @@ function listen(server: Server | SMTPServer, port: number, host: string): Promis
   });
 }
 
+/** A message as it came in: read (parsed) only when someone asks for it, then kept read. */
+interface Received {
+  id: string;
+  raw: Buffer;
+  envelope: { from: string | null; to: string[] };
+  receivedAt: Date;
+  read?: Promise<StoredMessage>;
+}
+
+/** The inbox shows the text and HTML parts as sent: no HTML made from the text, no links found in it. */
+const PARSE_OPTIONS = { skipTextToHtml: true, skipTextLinks: true, skipImageLinks: true } as const;
+
+async function readMessage(r: Received): Promise<StoredMessage> {
+  const parsed = await simpleParser(r.raw, PARSE_OPTIONS);
+  const from = parsed.from?.value[0];
+  const message: StoredMessage = {
+    id: r.id,
+    messageId: parsed.messageId ?? null,
+    from: from?.address?.toLowerCase() ?? r.envelope.from,
+    fromName: from?.name || null,
+    to: addresses(parsed.to),
+    cc: addresses(parsed.cc),
+    envelope: r.envelope,
+    subject: parsed.subject ?? '',
+    text: parsed.text ?? null,
+    html: typeof parsed.html === 'string' ? parsed.html : null,
+    date: (parsed.date ?? r.receivedAt).toISOString(),
+    receivedAt: r.receivedAt.toISOString(),
+    attachments: parsed.attachments.map((a) => ({
+      filename: a.filename ?? null,
+      contentType: a.contentType,
+      size: a.size,
+    })),
+  };
+  if (message.to.length === 0) message.to = message.envelope.to;
+  return message;
+}
+
 export async function startMailFake(options: MailFakeOptions = {}): Promise<MailFake> {
   const host = options.host ?? '127.0.0.1';
   const maxMessages = options.maxMessages ?? 500;
-  let stored: StoredMessage[] = [];
+  let stored: Received[] = [];
   let connectionCount = 0;
   const waiters = new Set<(message: StoredMessage) => void>();
+  const read = (r: Received) => (r.read ??= readMessage(r));
+  const readAll = () => Promise.all(stored.map(read));
 
   const smtp = new SMTPServer({
     // The certificate bundled with smtp-server has expired, so the fake talks plain SMTP only.
@@ -97,43 +137,36 @@ export async function startMailFake(options: MailFakeOptions = {}): Promise<Mail
     closeTimeout: 1_000,
     logger: false,
     onData(stream, session, callback) {
-      // The inbox shows the text and HTML parts as sent: no HTML made from the text, no links found in it.
-      simpleParser(stream, { skipTextToHtml: true, skipTextLinks: true, skipImageLinks: true })
-        .then((parsed) => {
-          if ((stream as unknown as { sizeExceeded?: boolean }).sizeExceeded) {
-            const error = Object.assign(new Error('Message exceeds the size limit'), { responseCode: 552 });
-            callback(error);
-            return;
-          }
-          const receivedAt = new Date();
-          const from = parsed.from?.value[0];
-          const envelopeFrom = session.envelope.mailFrom === false ? null : session.envelope.mailFrom.address;
-          const message: StoredMessage = {
-            id: randomUUID(),
-            messageId: parsed.messageId ?? null,
-            from: from?.address?.toLowerCase() ?? envelopeFrom,
-            fromName: from?.name || null,
-            to: addresses(parsed.to),
-            cc: addresses(parsed.cc),
-            envelope: { from: envelopeFrom, to: session.envelope.rcptTo.map((r) => r.address.toLowerCase()) },
-            subject: parsed.subject ?? '',
-            text: parsed.text ?? null,
-            html: typeof parsed.html === 'string' ? parsed.html : null,
-            date: (parsed.date ?? receivedAt).toISOString(),
-            receivedAt: receivedAt.toISOString(),
-            attachments: parsed.attachments.map((a) => ({
-              filename: a.filename ?? null,
-              contentType: a.contentType,
-              size: a.size,
-            })),
-          };
-          if (message.to.length === 0) message.to = message.envelope.to;
-          stored.unshift(message);
-          if (stored.length > maxMessages) stored.length = maxMessages;
-          for (const wake of [...waiters]) wake(message);
-          callback();
-        })
-        .catch((error: unknown) => callback(error instanceof Error ? error : new Error(String(error))));
+      // Kept as it came: a message is read (parsed) when someone lists it or waits for it, not for every one sent.
+      const chunks: Buffer[] = [];
+      stream.on('data', (chunk: Buffer) => chunks.push(chunk));
+      stream.once('error', (error: Error) => callback(error));
+      stream.once('end', () => {
+        if ((stream as unknown as { sizeExceeded?: boolean }).sizeExceeded) {
+          callback(Object.assign(new Error('Message exceeds the size limit'), { responseCode: 552 }));
+          return;
+        }
+        const received: Received = {
+          id: randomUUID(),
+          raw: Buffer.concat(chunks),
+          envelope: {
+            from: session.envelope.mailFrom === false ? null : session.envelope.mailFrom.address,
+            to: session.envelope.rcptTo.map((r) => r.address.toLowerCase()),
+          },
+          receivedAt: new Date(),
+        };
+        stored.unshift(received);
+        if (stored.length > maxMessages) stored.length = maxMessages;
+        if (waiters.size > 0) {
+          void read(received).then(
+            (message) => {
+              for (const wake of [...waiters]) wake(message);
+            },
+            () => undefined,
+          );
+        }
+        callback();
+      });
     },
   });
   // A client dropping its connection is no reason to stop the fake.
@@ -141,18 +174,19 @@ export async function startMailFake(options: MailFakeOptions = {}): Promise<Mail
 
   const app = express();
   app.disable('x-powered-by');
-  app.get('/messages', (req, res) => {
+  app.get('/messages', async (req, res) => {
     const to = typeof req.query.to === 'string' ? req.query.to.toLowerCase() : undefined;
-    const list = to ? stored.filter((m) => m.to.includes(to) || m.cc.includes(to) || m.envelope.to.includes(to)) : stored;
+    const all = await readAll();
+    const list = to ? all.filter((m) => m.to.includes(to) || m.cc.includes(to) || m.envelope.to.includes(to)) : all;
     res.json({ messages: list });
   });
-  app.get('/messages/:id', (req, res) => {
-    const message = stored.find((m) => m.id === req.params.id);
-    if (!message) {
+  app.get('/messages/:id', async (req, res) => {
+    const received = stored.find((m) => m.id === req.params.id);
+    if (!received) {
       res.status(404).json({ error: { message: `No message with id ${req.params.id}` } });
       return;
     }
-    res.json(message);
+    res.json(await read(received));
   });
   app.delete('/messages', (_req, res) => {
     stored = [];
@@ -193,26 +227,36 @@ export async function startMailFake(options: MailFakeOptions = {}): Promise<Mail
     smtpPort,
     httpPort,
     httpUrl: `http://${urlHost}:${httpPort}`,
-    messages: () => structuredClone(stored),
+    messages: async () => structuredClone(await readAll()),
     connections: () => connectionCount,
     clear: () => {
       stored = [];
     },
     waitForMessage(match, timeoutMs = 5_000) {
-      const found = stored.find(match);
-      if (found) return Promise.resolve(structuredClone(found));
       return new Promise((resolve, reject) => {
-        const wake = (message: StoredMessage) => {
-          if (!match(message)) return;
+        let settled = false;
+        const finish = (message: StoredMessage) => {
+          if (settled) return;
+          settled = true;
           waiters.delete(wake);
           clearTimeout(timer);
           resolve(structuredClone(message));
         };
+        const wake = (message: StoredMessage) => {
+          if (match(message)) finish(message);
+        };
         const timer = setTimeout(() => {
+          if (settled) return;
+          settled = true;
           waiters.delete(wake);
           reject(new Error(`No matching message within ${timeoutMs} ms`));
         }, timeoutMs);
+        // Waiting first, then looking through what is already here: a message arriving while those are read is not missed.
         waiters.add(wake);
+        void readAll().then((all) => {
+          const found = all.find(match);
+          if (found) finish(found);
+        }, reject);
       });
     },
     async close() {

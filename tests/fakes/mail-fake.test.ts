@@ -57,7 +57,7 @@ describe('mail fake', () => {
     expect(filtered.messages).toHaveLength(0);
 
     expect((await fetch(`${fake.httpUrl}/messages`, { method: 'DELETE' })).status).toBe(204);
-    expect(fake.messages()).toHaveLength(0);
+    expect((await fake.messages())).toHaveLength(0);
   });
 
   it('does not offer STARTTLS, so a client that insists on TLS is refused', async () => {
@@ -79,14 +79,24 @@ describe('mail fake', () => {
     expect(message.html).toBeNull();
   });
 
+  it('wakes a waiter with a message that arrives after it began to wait, and keeps each message read once', async () => {
+    const fake = await start();
+    const waiting = fake.waitForMessage((m) => m.subject === 'Order SY-1002 on its way');
+    await transport(fake).sendMail({ from: 'orders@spoolyard.test', to: 'buyer@retail.test', subject: 'Order SY-1002 on its way', text: 'Tracking: QF123', html: '<p>Tracking: QF123</p>' });
+    const message = await waiting;
+    expect(message).toMatchObject({ to: ['buyer@retail.test'], text: 'Tracking: QF123' });
+    const [listed] = await fake.messages();
+    expect(listed).toEqual(message);
+  });
+
   it('keeps only the newest messages past the cap', async () => {
     const fake = await start({ maxMessages: 3 });
     const mailer = transport(fake);
     for (let i = 1; i <= 5; i += 1) {
       await mailer.sendMail({ from: 'orders@spoolyard.test', to: 'buyer@retail.test', subject: `Notice ${i}`, text: `n${i}` });
     }
-    expect(fake.messages().map((m) => m.subject)).toEqual(['Notice 5', 'Notice 4', 'Notice 3']);
+    expect((await fake.messages()).map((m) => m.subject)).toEqual(['Notice 5', 'Notice 4', 'Notice 3']);
     fake.clear();
-    expect(fake.messages()).toEqual([]);
+    expect((await fake.messages())).toEqual([]);
   });
 });

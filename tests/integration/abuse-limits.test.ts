@@ -212,7 +212,8 @@ describe('sign-up and reset do not tell whether an account exists', () => {
     for (const ms of [...signUps.known, ...signUps.unknown, ...resets.known, ...resets.unknown]) expect(ms).toBeGreaterThanOrEqual(595);
 
     await t.mailSettled();
-    const to = (address: string) => t.mail!.messages().filter((m) => m.to.includes(address));
+    const inbox = await t.mail!.messages();
+    const to = (address: string) => inbox.filter((m) => m.to.includes(address));
     expect(to(owner.email).filter((m) => /already have a Spoolyard account/.test(m.subject))).toHaveLength(5);
     expect(to(owner.email).filter((m) => /Reset your Spoolyard password/.test(m.subject))).toHaveLength(5);
     expect(to('new-0@example.test').map((m) => m.subject)).toEqual(['Confirm your Spoolyard account']);

@@ -290,7 +290,7 @@ describe('checkout by card', () => {
     expect(sql("SELECT 1 FROM order_events WHERE order_id = ? AND status = 'paid'", id)).toHaveLength(1);
     // Nothing to apply for an order already paid: the event is answered without a write.
     expect(sql('SELECT 1 FROM payment_events WHERE event_id = ?', succeeded.event.id)).toHaveLength(0);
-    const confirmations = t.mail!.messages().filter((m) => m.to.includes(email) && m.subject.includes(`Order ${order.number} confirmed`));
+    const confirmations = (await t.mail!.messages()).filter((m) => m.to.includes(email) && m.subject.includes(`Order ${order.number} confirmed`));
     expect(confirmations).toHaveLength(1);
   });
 
@@ -311,7 +311,7 @@ describe('checkout by card', () => {
     const { id } = orderRow(placed.order.number);
     expect(sql("SELECT 1 FROM order_events WHERE order_id = ? AND status = 'paid'", id)).toHaveLength(1);
     expect(sql('SELECT 1 FROM payment_events WHERE event_id = ?', succeeded.event.id)).toHaveLength(1);
-    const confirmations = t.mail!.messages().filter((m) => m.to.includes(email) && m.subject.includes(`Order ${placed.order.number} confirmed`));
+    const confirmations = (await t.mail!.messages()).filter((m) => m.to.includes(email) && m.subject.includes(`Order ${placed.order.number} confirmed`));
     expect(confirmations).toHaveLength(1);
   });
 

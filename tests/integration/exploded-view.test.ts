@@ -94,7 +94,7 @@ describe('orientation travels with the order', () => {
     expect(batch.lines.map((l) => l.orientation)).toContainEqual({ compressorOutlet: '3:00', turbineInlet: '8:00' });
 
     await t.mailSettled();
-    const mail = t.mail!.messages().find((m) => m.to.includes(dealer.email) && m.subject.includes(`Order ${number} confirmed`));
+    const mail = (await t.mail!.messages()).find((m) => m.to.includes(dealer.email) && m.subject.includes(`Order ${number} confirmed`));
     expect(mail?.text).toContain("Built with: Compressor outlet 3 o'clock, turbine inlet 8 o'clock (viewed from the compressor inlet)");
     expect(mail?.text).toContain('standard position');
   });

@@ -119,7 +119,7 @@ describe('mail server down for a while', () => {
     await t.mailSettled();
     await new Promise((r) => setTimeout(r, 200));
 
-    const inbox = restored.messages();
+    const inbox = (await restored.messages());
     for (const e of expected) {
       const copies = inbox.filter((m) => m.to.includes(e.to.toLowerCase()) && e.subject.test(m.subject));
       expect(copies, `${e.to} ${String(e.subject)}`).toHaveLength(1);

@@ -111,8 +111,8 @@ describe('a mail server that is down', () => {
       const outbox = createMailOutbox({ db, mailer: pooled });
       const result = await outbox.drain();
       expect(result).toMatchObject({ claimed: 40, sent: 40, retrying: 0, failed: 0 });
-      expect(fake.messages()).toHaveLength(40);
-      expect(new Set(fake.messages().map((m) => m.to[0])).size).toBe(40);
+      expect((await fake.messages())).toHaveLength(40);
+      expect(new Set((await fake.messages()).map((m) => m.to[0])).size).toBe(40);
       expect(fake.connections() - opened).toBeLessThanOrEqual(2);
     } finally {
       await pooled.close();

@@ -87,7 +87,7 @@ describe('payment faults', () => {
     await t.mailSettled();
     const { id } = orderRow(answer.order.number);
     expect(sql("SELECT 1 FROM order_events WHERE order_id = ? AND status = 'paid'", id)).toHaveLength(1);
-    expect(t.mail!.messages().filter((m) => m.to.includes(email) && m.subject.includes(`Order ${answer.order.number} confirmed`))).toHaveLength(1);
+    expect((await t.mail!.messages()).filter((m) => m.to.includes(email) && m.subject.includes(`Order ${answer.order.number} confirmed`))).toHaveLength(1);
     figure('reply lost on the payment: checkout answered "paid" after', `${Math.round(answeredMs)} ms (the provider was asked before answering)`);
   });
 
@@ -119,7 +119,7 @@ describe('payment faults', () => {
     expect(orderRow(answer.order.number)).toMatchObject({ status: 'paid', payment_state: 'paid' });
     expect(available(PART)).toBe(before - 1);
     await t.mailSettled();
-    expect(t.mail!.messages().filter((m) => m.to.includes(email) && m.subject.includes(`Order ${answer.order.number} confirmed`))).toHaveLength(1);
+    expect((await t.mail!.messages()).filter((m) => m.to.includes(email) && m.subject.includes(`Order ${answer.order.number} confirmed`))).toHaveLength(1);
     figure('reply lost, provider unreachable: time from the answer to the order reconciled paid', `${Math.round(reconcileMs)} ms once the provider answered`);
   });
 
