@@ -1,17 +1,14 @@
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
-import Database from 'better-sqlite3';
-import { drizzle } from 'drizzle-orm/better-sqlite3';
-import { migrate } from 'drizzle-orm/better-sqlite3/migrator';
 import { generateCatalogue } from '../../catalog-seed/generate';
 import { loadCatalogue } from '../../catalog-seed/load';
 import { openDatabase } from '../../server/db/client';
-import * as schema from '../../server/db/schema';
 import { afterAll, describe, expect, it } from 'vitest';
 import { ORDER_STATUSES, PART_STATUSES, STOCK_MOVEMENT_KINDS } from '../../shared/allowed-values';
 import { parts, stock, stockMovements } from '../../server/db/schema';
 import { createTestDb } from '../support/test-app';
+import { databaseMigratedBefore } from '../support/old-migrations';
 
 /**
  * The database holds the rules the code holds: allowed values (from shared/allowed-values.ts), the stock ledger's
@@ -107,17 +104,7 @@ describe('migrating a database that has data', () => {
   it('keeps every part, spec, alias and stock row through the rebuilds', () => {
     const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'spoolyard-migrate-'));
     try {
-      const folder = path.join(dir, 'migrations');
-      fs.mkdirSync(path.join(folder, 'meta'), { recursive: true });
-      const source = path.resolve(import.meta.dirname, '../../drizzle');
-      const journal = JSON.parse(fs.readFileSync(path.join(source, 'meta/_journal.json'), 'utf8')) as { entries: Array<{ tag: string }> };
-      const before = journal.entries.filter((e) => e.tag < '0006');
-      for (const e of before) fs.copyFileSync(path.join(source, `${e.tag}.sql`), path.join(folder, `${e.tag}.sql`));
-      fs.writeFileSync(path.join(folder, 'meta/_journal.json'), JSON.stringify({ ...journal, entries: before }));
-      const file = path.join(dir, 'old.db');
-      const sqlite = new Database(file);
-      sqlite.pragma('foreign_keys = ON');
-      migrate(drizzle(sqlite, { schema }), { migrationsFolder: folder });
+      const { sqlite, file } = databaseMigratedBefore(dir, (tag) => tag >= '0006');
       // Today's loader writes today's columns, so the catalogue is loaded into a current database and its rows copied
       // into the old one, column by column as far as the old tables have them.
       const current = openDatabase(path.join(dir, 'current.db'));

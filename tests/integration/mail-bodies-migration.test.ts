@@ -1,12 +1,9 @@
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
-import Database from 'better-sqlite3';
-import { drizzle } from 'drizzle-orm/better-sqlite3';
-import { migrate } from 'drizzle-orm/better-sqlite3/migrator';
 import { describe, expect, it } from 'vitest';
 import { openDatabase } from '../../server/db/client';
-import * as schema from '../../server/db/schema';
+import { databaseMigratedBefore } from '../support/old-migrations';
 
 /**
  * Messages queued before a message's text and HTML moved to a table of their own keep them: a database migrated up to
@@ -16,17 +13,7 @@ describe('moving message bodies out of the outbox rows', () => {
   it('keeps every queued and sent message’s text and HTML, and the rows keep their state', () => {
     const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'spoolyard-mail-bodies-'));
     try {
-      const folder = path.join(dir, 'migrations');
-      fs.mkdirSync(path.join(folder, 'meta'), { recursive: true });
-      const source = path.resolve(import.meta.dirname, '../../drizzle');
-      const journal = JSON.parse(fs.readFileSync(path.join(source, 'meta/_journal.json'), 'utf8')) as { entries: Array<{ tag: string }> };
-      const move = journal.entries.find((e) => e.tag.endsWith('_mail_bodies_apart'))!;
-      const before = journal.entries.filter((e) => e.tag < move.tag);
-      for (const e of before) fs.copyFileSync(path.join(source, `${e.tag}.sql`), path.join(folder, `${e.tag}.sql`));
-      fs.writeFileSync(path.join(folder, 'meta/_journal.json'), JSON.stringify({ ...journal, entries: before }));
-      const file = path.join(dir, 'old.db');
-      const sqlite = new Database(file);
-      migrate(drizzle(sqlite, { schema }), { migrationsFolder: folder });
+      const { sqlite, file } = databaseMigratedBefore(dir, (tag) => tag.endsWith('_mail_bodies_apart'));
       const insert = sqlite.prepare('INSERT INTO mail_outbox (kind, recipient, subject, text, html, state, next_attempt_at, sent_at) VALUES (?, ?, ?, ?, ?, ?, ?, ?)');
       insert.run('order-confirmation', 'a@spoolyard.test', 'Order SY-1 confirmed', 'Thanks for your order', '<p>Thanks for your order</p>'.repeat(300), 'queued', 1, null);
       insert.run('dispatch', 'b@spoolyard.test', 'Order SY-2 is on its way', 'On its way', '<p>On its way</p>', 'sent', 1, '2026-12-01T10:00:00.000Z');
