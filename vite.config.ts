@@ -9,10 +9,10 @@ const SHARED = /[\\/]node_modules[\\/]zod[\\/]|[\\/]shared[\\/](schemas[\\/]|(al
 // Of those, the schemas of the shop's pages (the answers to what a visitor does there, the forms) with the allowed
 // values they are built from; the Floor's, Office's, Bench's and trade tools' schemas wait in a chunk of their own.
 // The first answers are read without them.
-const SHARED_FIRST = /[\\/]node_modules[\\/]zod[\\/]|[\\/]shared[\\/](schemas[\\/](errors|accounts|account-replies|paging|orders|parts|parts-lists|saved-fitments|compressor-map|fitment|notices|mail-outbox)|allowed-values)\.ts$/;
+const SHARED_FIRST = /[\\/]node_modules[\\/]zod[\\/]|[\\/]shared[\\/](schemas[\\/](errors|accounts|account-replies|paging|orders|parts|parts-lists|saved-fitments|compressor-map|fitment|notices|mail-outbox)|allowed-values|gtin)\.ts$/;
 // The small rules the first pages use without the validation library (names, prices, formats, drawings). Not the
 // allowed values' lists and labels, which only the Floor's, Office's and order pages' blocks read.
-const RULES = /[\\/]shared[\\/](catalog|format|order-limits|part-number|parts-query|pricing|part-illustration|exploded-view|gtin)\.ts$/;
+const RULES = /[\\/]shared[\\/](catalog|format|order-limits|part-number|parts-query|pricing|part-illustration|exploded-view)\.ts$/;
 const BLOCKS = /[\\/]src[\\/](components[\\/](ui|illustrations)|lib|features[\\/]([\w-]+[\\/](api[\\/]|[\w-]+\.ts$)|catalog[\\/]components|cart[\\/](components[\\/]quantity-stepper|lib[\\/])))/;
 // The blocks of the Floor, Office, Bench and the account's own pages (orders, returns, units, service): kept apart
 // from the shop's, so the first page does not bring them (nor their schemas).
@@ -24,10 +24,10 @@ const PART_BLOCKS = /[\\/]src[\\/](components[\\/]illustrations|features[\\/](ca
 const HEAVY_BLOCKS = /[\\/]ui[\\/](form|sort-header|table|error-summary|part-search-box)\.|(form|table|dialog|menu|live-card|mail-inbox|-page)\.tsx$/;
 // The icons of the shop's first pages (beyond the header's, which stay with the entry): with the blocks those pages
 // share, rather than in the chunk of every icon the app draws. The budget test finds one that is missing here.
-const FIRST_ICONS = /[\\/]lucide-react[\\/].*[\\/]icons[\\/](gauge|x|arrow-right|circle-check|clock|ban|triangle-alert|triangle-exclamation-point|minus|plus|list-plus|info|octagon-alert|circle-check-big|alert-triangle|check-circle-2|circle-alert|circle-exclamation-point|chevron-right)\.m?js$/;
-// Small blocks the first pages do not use (paging, labels, the statuses of orders and the Floor, sign-in's words, the
-// trade lists' requests).
-const LATER_BLOCKS = /[\\/]src[\\/](components[\\/]ui[\\/](pager|page-nav|parcel-label|orientation-note|status-looks|status-badge)\.tsx?|features[\\/](auth[\\/]auth-errors|lists[\\/]api[\\/][\w-]+)\.ts)$/;
+const FIRST_ICONS = /[\\/]lucide-react[\\/].*[\\/]icons[\\/](gauge|x|arrow-right|circle-check|clock|ban|triangle-alert|triangle-exclamation-point|minus|plus|chevron-right)\.m?js$/;
+// Small blocks the first pages do not use (paging, labels, notices, the statuses of orders and the Floor, sign-in's
+// words and the roles' names, the trade lists' requests).
+const LATER_BLOCKS = /[\\/]src[\\/](components[\\/]ui[\\/](pager|page-nav|parcel-label|orientation-note|status-looks|status-badge|notice)\.tsx?|features[\\/](auth[\\/](auth-errors|roles)|lists[\\/]api[\\/][\w-]+)\.ts)$/;
 const FITMENT_BLOCKS = /[\\/]src[\\/]features[\\/]fitment[\\/](api[\\/]|lib[\\/]|components[\\/]unit-switch\.tsx$)|[\\/]shared[\\/](units|fitment[\\/](limits|defaults|airflow))\.ts$/;
 // The query library beyond what the entry needs (its mutations).
 const QUERY_LIBRARY = /[\\/]node_modules[\\/]@tanstack[\\/](react-query|query-core)[\\/]/;
@@ -54,6 +54,8 @@ export default defineConfig({
   plugins: [react(), tailwindcss(), precompressPlugin()],
   build: {
     outDir: 'dist/client',
+    // Every browser we serve preloads modules itself (modulepreload); the polyfill would be in every first visit's script.
+    modulePreload: { polyfill: false },
     emptyOutDir: true,
     rolldownOptions: {
       output: {

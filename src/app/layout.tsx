@@ -4,10 +4,11 @@ import { Link, NavLink, useLocation, useNavigate, useSearchParams, type Navigate
 import { useMe } from '../features/auth/api/get-me';
 // The account menu (and the accessible-menu library it needs) loads only for signed-in users.
 const AccountMenu = lazy(() => import('../features/auth/components/account-menu').then((m) => ({ default: m.AccountMenu })));
+// So does the notices bell, for signed-in buyers only.
+const NoticesBell = lazy(() => import('../features/notices/components/notices-bell').then((m) => ({ default: m.NoticesBell })));
 import { signInHref } from '../features/auth/next-path';
 import type { Role } from '../features/auth/roles';
 import { useCart } from '../features/cart/api/get-cart';
-import { NoticesBell } from '../features/notices/components/notices-bell';
 import { useNavigationPending } from './navigation-pending';
 import { PageOutlet } from './page-outlet';
 
@@ -254,7 +255,11 @@ export function Layout() {
             </div>
             <div className="ml-auto flex flex-wrap items-center justify-end gap-2">
               <CartLink />
-              {(role === 'customer' || role === 'dealer') && <NoticesBell />}
+              {(role === 'customer' || role === 'dealer') && (
+                <Suspense fallback={<span className="inline-block min-h-11 min-w-11" aria-hidden />}>
+                  <NoticesBell />
+                </Suspense>
+              )}
               <AccountArea />
             </div>
           </div>

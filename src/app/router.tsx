@@ -135,10 +135,14 @@ export function AppRouter() {
   useLayoutEffect(
     () =>
       history.listen(({ action, location }) => {
-        // The next page's chunk and data leave now, not once the page has rendered. A change of filters on the same
-        // page is left to the page and the query cache.
-        if (location.pathname !== last.current) startPage(location);
+        const samePage = location.pathname === last.current;
         last.current = location.pathname;
+        // A change of filters on the same page is the page's own: drawn at once (its controls follow the address), its
+        // data left to the query cache.
+        if (samePage) return setState({ action, location });
+        // Another page: its chunk and data leave now, not once it has rendered, and the page on screen stays (with the
+        // header's loading bar) until the next one can be drawn.
+        startPage(location);
         startTransition(() => setState({ action, location }));
       }),
     [],

@@ -11,25 +11,28 @@ import { describeChunks, entryScripts, firstVisitScripts, pageScripts, readManif
  * and they are named below. Sizes only, no timing (see scripts/bench-pages.ts for the throttled page loads these
  * budgets are for).
  *
- * The goal is 120 kB, and each page meets it. The libraries every page needs before it can draw (React DOM, the
- * router in its declarative mode, the query cache) are about 93 kB of it; the first answers are read without the
- * validation library (src/lib/api-client.ts apiRead, tests/integration/first-reads.test.ts), which comes with the
- * forms and with the answers to what a visitor does. The budgets keep a little room over what each page is now.
+ * The goal is 120 kB. The libraries every page needs before it can draw (React DOM, the router in its declarative
+ * mode, the query cache) are about 92 kB of it; the first answers are read without the validation library
+ * (src/lib/api-client.ts apiRead, tests/integration/first-reads.test.ts), which comes with the forms and with the
+ * answers to what a visitor does. Home, catalogue and fitment meet the goal; the part page is about 2 kB over it, with
+ * the frame's exploded view (4 kB) drawn at once below the specification. The budgets keep a little room over what
+ * each page is now.
  */
 const FIRST_VISIT_BUDGET_BYTES: Record<string, number> = {
-  'src/app/routes/home.tsx': 110_000,
-  'src/app/routes/catalogue.tsx': 118_000,
-  'src/app/routes/part.tsx': 125_000,
-  'src/app/routes/fitment.tsx': 117_000,
+  'src/app/routes/home.tsx': 109_000,
+  'src/app/routes/catalogue.tsx': 117_000,
+  'src/app/routes/part.tsx': 123_500,
+  'src/app/routes/fitment.tsx': 116_000,
 };
 /** The entry alone, before any page's chunk. */
-const ENTRY_BUDGET_BYTES = 105_000;
+const ENTRY_BUDGET_BYTES = 104_500;
 /** Chunks that load only when the visitor does something, for every page and for one page. */
 const ON_DEMAND = [
   // The header's search-as-you-type combobox: when the pointer comes over the search field, or it is touched or focused.
   'src/components/ui/part-search-box.tsx',
-  // The account menu: for someone signed in only.
+  // The account menu, and the notices bell: for someone signed in only.
   'src/features/auth/components/account-menu.tsx',
+  'src/features/notices/components/notices-bell.tsx',
   // The schemas of the answers to what a visitor does (add to the cart or a list, run or save a fitment check), with
   // the validation library: they load with that request.
   'src/lib/action-schemas.ts',

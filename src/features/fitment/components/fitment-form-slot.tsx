@@ -22,15 +22,6 @@ function loadForm(): Promise<Form> {
   return loadingForm;
 }
 
-/** What the stand-in holds when the form arrives: its values, and where the visitor was typing. */
-interface Handover {
-  values: FitmentFormValues;
-  focusId: string | null;
-  selection: [number, number] | null;
-  advancedOpen: boolean;
-  submit: boolean;
-}
-
 function readValues(form: HTMLFormElement, base: FitmentFormValues): FitmentFormValues {
   const values: Record<string, unknown> = { ...base };
   for (const name of Object.keys(base) as FormField[]) {
@@ -47,6 +38,8 @@ function StandIn({
   onSwitchUnits,
   onIntent,
   onPress,
+  onLeave,
+  onEdit,
   onSubmit,
   formRef,
 }: {
@@ -55,16 +48,24 @@ function StandIn({
   onSwitchUnits: (next: UnitSystem) => void;
   onIntent: () => void;
   onPress: () => void;
+  onLeave: () => void;
+  onEdit: () => void;
   onSubmit: () => void;
   formRef: RefObject<HTMLFormElement | null>;
 }) {
   const [advancedOpen, setAdvancedOpen] = useState(false);
-  const reg: Registrar = (name, radioValue) =>
-    name === 'intercooled'
-      ? { name, defaultChecked: values.intercooled }
-      : radioValue !== undefined
-        ? { name, defaultChecked: values[name] === radioValue }
-        : { name, defaultValue: String(values[name]) };
+  // The first values go in as the form library puts them (through each field's element, not as attributes), so the
+  // stand-in's fields are the form's to the pixel; after that, what is typed stays the visitor's.
+  const reg: Registrar = (name, radioValue) => ({
+    name,
+    ref: (el: HTMLInputElement | HTMLSelectElement | null) => {
+      if (!el || filled.has(el)) return;
+      filled.add(el);
+      if (el instanceof HTMLInputElement && el.type === 'checkbox') el.checked = Boolean(values[name]);
+      else if (el instanceof HTMLInputElement && el.type === 'radio') el.checked = values[name] === radioValue;
+      else el.value = String(values[name]);
+    },
+  });
   return (
     <FitmentFormView
       values={values}
@@ -79,46 +80,85 @@ function StandIn({
         e.preventDefault();
         onSubmit();
       }}
-      formProps={{ ref: formRef, onPointerEnter: onIntent, onPointerDown: onPress, onFocus: onIntent }}
+      formProps={{ ref: formRef, onPointerEnter: onIntent, onPointerDown: onPress, onFocus: onIntent, onBlur: onLeave, onChange: onEdit }}
     />
   );
 }
 
-/** The fitment form: at first a stand-in of the same fields, then the real form with what was typed in it. */
+const filled = new WeakSet<Element>();
+
+/** Writes values into the stand-in's fields (a unit switch converts what was typed), without drawing them again. */
+function writeValues(form: HTMLFormElement, values: FitmentFormValues) {
+  for (const [name, value] of Object.entries(values)) {
+    const item = form.elements.namedItem(name);
+    if (item instanceof HTMLInputElement && item.type === 'checkbox') item.checked = Boolean(value);
+    else if (item instanceof HTMLInputElement || item instanceof HTMLSelectElement || item instanceof RadioNodeList) item.value = String(value);
+  }
+}
+
+const FOCUSABLE = 'input, select, button, summary, a[href]';
+/** Where focus is inside a form, as a place among its focusable elements (the same in the stand-in and the form). */
+const focusPlace = (form: HTMLFormElement | null) =>
+  form && document.activeElement ? Array.from(form.querySelectorAll(FOCUSABLE)).indexOf(document.activeElement) : -1;
+
+/** Whether the visitor is typing or choosing in one of the stand-in's fields. */
+function inField(form: HTMLFormElement | null) {
+  const active = document.activeElement;
+  return Boolean(form && (active instanceof HTMLInputElement || active instanceof HTMLSelectElement) && form.contains(active));
+}
+
+/**
+ * The fitment form: at first a stand-in of the same fields, then the real form with what was typed in it. The form
+ * takes the stand-in's place only between two moves of the visitor (not while a field has focus or a press is under
+ * way), so nothing typed or clicked lands in a field that has just gone; a submit of the stand-in brings it at once.
+ */
 export function FitmentFormSlot(props: FitmentFormProps) {
   const [Form, setForm] = useState<Form | null>(() => loadedForm);
   const formRef = useRef<HTMLFormElement>(null);
-  // The stand-in's values as last drawn (a unit switch redraws them); what is typed lives in its fields.
-  const [standIn, setStandIn] = useState({ key: 0, values: props.initialValues });
-  const standInValues = useRef(standIn.values);
-  standInValues.current = standIn.values;
-  const [handover, setHandover] = useState<Handover | null>(null);
-  const submitWanted = useRef(false);
-  // A press on the stand-in (a tap on its button, say) ends on the same element it began on, or its click is lost: a
-  // form that arrives meanwhile waits until the press, and its click, are over.
+  // The values the stand-in's hints read; what is typed lives in its fields.
+  const [standInValues, setStandInValues] = useState(props.initialValues);
+  const [handover, setHandover] = useState<{ values: FitmentFormValues; advancedOpen: boolean; submit: boolean; focus: number } | null>(null);
+  const swapped = useRef(false);
   const pressing = useRef(false);
-  const waiting = useRef<Form | null>(null);
+  const arrived = useRef<Form | null>(null);
+  // The stand-in was submitted before the form arrived: the form submits as it comes.
+  const submitWanted = useRef(false);
 
-  const swap = (loaded: Form) => {
+  const swap = (submit: boolean) => {
+    const loaded = arrived.current;
     const form = formRef.current;
-    const active = document.activeElement;
-    const focused = form && (active instanceof HTMLInputElement || active instanceof HTMLSelectElement) && form.contains(active) ? active : null;
+    if (!loaded || swapped.current) return;
+    swapped.current = true;
     setHandover({
-      values: form ? readValues(form, standInValues.current) : standInValues.current,
-      focusId: focused?.id || null,
-      selection: focused instanceof HTMLInputElement && focused.type === 'text' ? [focused.selectionStart ?? 0, focused.selectionEnd ?? 0] : null,
+      values: form ? readValues(form, standInValues) : standInValues,
       advancedOpen: Boolean(form?.querySelector('details')?.open),
-      submit: submitWanted.current,
+      submit,
+      focus: focusPlace(form),
     });
     setForm(() => loaded);
   };
-  const arrive = (loaded: Form) => {
-    if (pressing.current) waiting.current = loaded;
-    else swap(loaded);
+  // A keyboard user on the stand-in's button, radio or fold keeps their place in the form.
+  const slotRef = useRef<HTMLDivElement>(null);
+  useLayoutEffect(() => {
+    if (!Form || !handover || handover.focus < 0 || handover.submit) return;
+    const form = slotRef.current?.querySelector('form');
+    const target = form?.querySelectorAll<HTMLElement>(FOCUSABLE)[handover.focus];
+    target?.focus();
+  }, [Form, handover]);
+  // Between two moves: no press under way, no field in use.
+  const swapWhenIdle = () => {
+    if (!pressing.current && !inField(formRef.current)) swap(false);
   };
   const want = () => {
     if (Form) return;
-    loadForm().then(arrive, () => undefined);
+    loadForm().then(
+      (loaded) => {
+        arrived.current = loaded;
+        if (submitWanted.current) swap(true);
+        else swapWhenIdle();
+      },
+      () => undefined,
+    );
   };
   const press = () => {
     want();
@@ -129,52 +169,50 @@ export function FitmentFormSlot(props: FitmentFormProps) {
       // After the click that follows the release.
       setTimeout(() => {
         pressing.current = false;
-        if (waiting.current) swap(waiting.current);
-        waiting.current = null;
+        swapWhenIdle();
       }, 0);
     };
     window.addEventListener('pointerup', release, true);
     window.addEventListener('pointercancel', release, true);
   };
 
-  // Typing carries on in the same field, at the same place, once the form has taken the stand-in's place.
-  useLayoutEffect(() => {
-    if (!Form || !handover?.focusId) return;
-    const field = document.getElementById(handover.focusId);
-    if (!(field instanceof HTMLInputElement || field instanceof HTMLSelectElement)) return;
-    field.focus();
-    if (handover.selection && field instanceof HTMLInputElement) field.setSelectionRange(...handover.selection);
-  }, [Form, handover]);
-
-  if (Form) {
-    return (
-      <Form
-        {...props}
-        initialValues={handover?.values ?? props.initialValues}
-        initialAdvancedOpen={handover?.advancedOpen ?? false}
-        submitOnMount={handover?.submit ?? false}
-      />
-    );
-  }
   return (
-    <StandIn
-      key={standIn.key}
-      values={standIn.values}
-      system={props.system}
-      formRef={formRef}
-      onIntent={want}
-      onPress={press}
-      onSubmit={() => {
-        submitWanted.current = true;
-        want();
-      }}
-      onSwitchUnits={(next) => {
-        want();
-        if (next === props.system) return;
-        const typed = formRef.current ? readValues(formRef.current, standIn.values) : standIn.values;
-        setStandIn((s) => ({ key: s.key + 1, values: requestToForm(formToRequest(typed, props.system) as Partial<FitmentRequest>, next, typed) }));
-        props.onSystemChange(next);
-      }}
-    />
+    // `display: contents`: a handle to find the form by, with no box of its own.
+    <div ref={slotRef} className="contents">
+      {Form ? (
+        <Form
+          {...props}
+          initialValues={handover?.values ?? props.initialValues}
+          initialAdvancedOpen={handover?.advancedOpen ?? false}
+          submitOnMount={handover?.submit ?? false}
+        />
+      ) : (
+        <StandIn
+          values={standInValues}
+          system={props.system}
+          formRef={formRef}
+          onIntent={want}
+          onPress={press}
+          // Leaving a field: the form may come in now, once focus has settled on what comes next.
+          onLeave={() => setTimeout(swapWhenIdle, 0)}
+          // The hints follow what is typed, as the form's own do.
+          onEdit={() => formRef.current && setStandInValues(readValues(formRef.current, standInValues))}
+          onSubmit={() => {
+            want();
+            if (arrived.current) swap(true);
+            else submitWanted.current = true;
+          }}
+          onSwitchUnits={(next) => {
+            want();
+            if (next === props.system || !formRef.current) return;
+            const typed = readValues(formRef.current, standInValues);
+            const converted = requestToForm(formToRequest(typed, props.system) as Partial<FitmentRequest>, next, typed);
+            writeValues(formRef.current, converted);
+            setStandInValues(converted);
+            props.onSystemChange(next);
+          }}
+        />
+      )}
+    </div>
   );
 }

@@ -35,8 +35,8 @@ export const APPLICATION_LABELS: Record<Application, string> = {
 export const fieldId = (name: FormField) => `fitment-${name}`;
 export const fieldOfId = (id: string) => id.replace(/^fitment-/, '') as FormField;
 
-/** What a field's input takes from the form: the form library's registration, or the stand-in's first value. */
-export type Registered = Partial<UseFormRegisterReturn> & { name: string; defaultValue?: string; defaultChecked?: boolean };
+/** What a field's input takes from the form: the form library's registration, or the stand-in's (its first value). */
+export type Registered = Partial<UseFormRegisterReturn> & { name: string };
 /** A field's registration; for the displacement unit's radios, the one for `radioValue`. */
 export type Registrar = (name: FormField, radioValue?: string) => Registered;
 
