@@ -13,6 +13,17 @@ export const EDITABLE_PART_STATUSES = ['active', 'discontinued'] as const;
 
 export const ORDER_STATUSES = ['pending_payment', 'paid', 'on_account', 'picking', 'packed', 'dispatched', 'back_ordered', 'cancelled', 'returned'] as const;
 export type OrderStatus = (typeof ORDER_STATUSES)[number];
+export const ORDER_STATUS_LABELS: Record<OrderStatus, string> = {
+  pending_payment: 'Awaiting payment',
+  paid: 'Paid',
+  on_account: 'On account',
+  picking: 'Picking',
+  packed: 'Packed',
+  dispatched: 'Dispatched',
+  back_ordered: 'Back-ordered',
+  cancelled: 'Cancelled',
+  returned: 'Returned',
+};
 
 export const PART_CONDITIONS = ['new', 'exchange'] as const;
 export type PartCondition = (typeof PART_CONDITIONS)[number];
@@ -83,6 +94,12 @@ export type MailKind = (typeof MAIL_KINDS)[number];
 /** An outbox message waits (queued), is being handed to the mail server (sending), went (sent) or was given up on (failed). */
 export const MAIL_STATES = ['queued', 'sending', 'sent', 'failed'] as const;
 export type MailState = (typeof MAIL_STATES)[number];
+export const MAIL_STATE_LABELS = {
+  queued: 'Waiting',
+  sending: 'Sending',
+  sent: 'Sent',
+  failed: 'Gave up',
+} as const satisfies Record<MailState, string>;
 
 /** `column IN ('a', 'b', …)` for a CHECK constraint; the values are our own constants, never user input. */
 export function inListSql(column: string, values: readonly string[]): string {

@@ -23,12 +23,7 @@ export const MAIL_KIND_LABELS = {
   'service-shipped': 'Serviced unit shipped back',
 } as const satisfies Record<(typeof MAIL_KINDS)[number], string>;
 
-export const MAIL_STATE_LABELS = {
-  queued: 'Waiting',
-  sending: 'Sending',
-  sent: 'Sent',
-  failed: 'Gave up',
-} as const satisfies Record<(typeof MAIL_STATES)[number], string>;
+export { MAIL_STATE_LABELS } from '../allowed-values';
 
 export const MAIL_OUTBOX_PAGE_SIZE = 50;
 

@@ -24,3 +24,4 @@ export const NoticesPageSchema = z.object({
 export type NoticesPage = z.infer<typeof NoticesPageSchema>;
 
 export const UnreadNoticesSchema = z.object({ unread: z.number().int() });
+export type UnreadNotices = z.infer<typeof UnreadNoticesSchema>;

@@ -3,8 +3,9 @@ import { ORDER_STATUSES, PART_CONDITIONS, type OrderStatus } from '../allowed-va
 import { DEALER_TIER_KEYS, DELIVERY_ZONE_KEYS } from '../pricing';
 import { IllustrationSpecsSchema, PhotoNameSchema } from './parts';
 import { CLOCK_POSITIONS } from '../exploded-view';
+import { QUANTITY_MAX } from '../order-limits';
 
-export const QUANTITY_MAX = 999;
+export { QUANTITY_MAX } from '../order-limits';
 export const CART_LINES_MAX = 200;
 export const PURCHASE_ORDER_MAX = 40;
 export const CSV_MAX_BYTES = 200_000;
@@ -122,17 +123,7 @@ export const CartViewSchema = z.object({
 });
 export type CartView = z.infer<typeof CartViewSchema>;
 
-export const ORDER_STATUS_LABELS: Record<OrderStatus, string> = {
-  pending_payment: 'Awaiting payment',
-  paid: 'Paid',
-  on_account: 'On account',
-  picking: 'Picking',
-  packed: 'Packed',
-  dispatched: 'Dispatched',
-  back_ordered: 'Back-ordered',
-  cancelled: 'Cancelled',
-  returned: 'Returned',
-};
+export { ORDER_STATUS_LABELS } from '../allowed-values';
 export type { OrderStatus };
 export const ORDER_STATUS_KEYS = ORDER_STATUSES;
 

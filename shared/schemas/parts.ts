@@ -3,11 +3,9 @@ import { z } from 'zod';
 import { isValidGtin13 } from '../gtin';
 import { PART_CONDITIONS } from '../allowed-values';
 import { BEARINGS, CATEGORY_SLUGS, PART_STATUSES } from '../catalog';
+import { HP_FILTER_MAX, PAGE_MAX, PAGE_SIZE_MAX, PART_SORTS, QUERY_MAX_LENGTH } from '../parts-query';
 
-export const PAGE_SIZE_MAX = 100;
-export const PAGE_SIZE_DEFAULT = 24;
-export const QUERY_MAX_LENGTH = 100;
-export const PART_SORTS = ['relevance', 'price-asc', 'price-desc', 'number', 'title'] as const;
+export { PAGE_SIZE_DEFAULT, PAGE_SIZE_MAX, PART_SORTS, QUERY_MAX_LENGTH } from '../parts-query';
 
 const optionalNumber = (label: string, min: number, max: number) =>
   z.coerce
@@ -23,11 +21,11 @@ export const PartsQuerySchema = z
     category: z.enum(CATEGORY_SLUGS, { error: `category must be one of ${CATEGORY_SLUGS.join(', ')}` }).optional(),
     frame: z.string().trim().regex(FRAME_CODE_PATTERN, `frame must be a frame code of three letters, such as ${FRAME_CODE_EXAMPLE}`).optional(),
     bearing: z.enum(BEARINGS, { error: 'bearing must be journal or ball' }).optional(),
-    minHp: optionalNumber('minimum power', 0, 5000),
-    maxHp: optionalNumber('maximum power', 0, 5000),
+    minHp: optionalNumber('minimum power', 0, HP_FILTER_MAX),
+    maxHp: optionalNumber('maximum power', 0, HP_FILTER_MAX),
     inStock: z.enum(['true', 'false'], { error: 'inStock must be true or false' }).transform((v) => v === 'true').optional(),
     sort: z.enum(PART_SORTS, { error: `sort must be one of ${PART_SORTS.join(', ')}` }).optional(),
-    page: optionalNumber('page', 1, 10_000),
+    page: optionalNumber('page', 1, PAGE_MAX),
     pageSize: optionalNumber('page size', 1, PAGE_SIZE_MAX),
   })
   .refine((v) => v.minHp === undefined || v.maxHp === undefined || v.minHp <= v.maxHp, {
@@ -129,6 +127,7 @@ export const FrameSummarySchema = z.object({
 });
 export type FrameSummary = z.infer<typeof FrameSummarySchema>;
 export const FramesResponseSchema = z.object({ items: z.array(FrameSummarySchema) });
+export type FramesResponse = z.infer<typeof FramesResponseSchema>;
 
 /** A frame's page (GET /api/frames/:code): its data, what the catalogue sells for it, and the parts themselves. */
 export const FrameDetailSchema = FrameSummarySchema.extend({

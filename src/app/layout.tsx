@@ -1,14 +1,16 @@
 import { Inbox, Search, ShoppingCart } from 'lucide-react';
 import { lazy, Suspense, useEffect, useState, type FormEvent } from 'react';
-import { Link, NavLink, Outlet, useLocation, useNavigate, useNavigation, useSearchParams, type NavigateOptions } from 'react-router-dom';
+import { Link, NavLink, useLocation, useNavigate, useSearchParams, type NavigateOptions } from 'react-router-dom';
 import { useMe } from '../features/auth/api/get-me';
-import { useSignOut } from '../features/auth/api/sign-out';
 // The account menu (and the accessible-menu library it needs) loads only for signed-in users.
 const AccountMenu = lazy(() => import('../features/auth/components/account-menu').then((m) => ({ default: m.AccountMenu })));
+// So does the notices bell, for signed-in buyers only.
+const NoticesBell = lazy(() => import('../features/notices/components/notices-bell').then((m) => ({ default: m.NoticesBell })));
 import { signInHref } from '../features/auth/next-path';
 import type { Role } from '../features/auth/roles';
 import { useCart } from '../features/cart/api/get-cart';
-import { NoticesBell } from '../features/notices/components/notices-bell';
+import { useNavigationPending } from './navigation-pending';
+import { PageOutlet } from './page-outlet';
 
 declare module 'react-aria-components' {
   interface RouterConfig {
@@ -178,7 +180,6 @@ function AccountArea() {
   const me = useMe();
   const location = useLocation();
   const navigate = useNavigate();
-  const signOut = useSignOut();
   const here = `${location.pathname}${location.search}`;
   if (me.isPending) return <span className="inline-block min-h-11 w-28" aria-hidden />;
   const user = me.data?.user;
@@ -190,25 +191,10 @@ function AccountArea() {
     );
   }
   return (
-    <>
-      <Suspense fallback={<span className="inline-block min-h-11 w-40" aria-hidden />}>
-        <AccountMenu
-          user={user}
-          signingOut={signOut.isPending}
-          onSignOut={() =>
-            signOut.mutate(undefined, {
-              // The sign-out hook resets every cached query, the cart included.
-              onSuccess: () => navigate('/'),
-            })
-          }
-        />
-      </Suspense>
-      {signOut.isError && (
-        <p role="alert" className="basis-full text-right text-sm font-semibold text-oxide">
-          Sign-out did not go through. Try again.
-        </p>
-      )}
-    </>
+    <Suspense fallback={<span className="inline-block min-h-11 w-40" aria-hidden />}>
+      {/* The sign-out resets every cached query, the cart included, then goes back to the counter. */}
+      <AccountMenu user={user} onSignedOut={() => navigate('/')} />
+    </Suspense>
   );
 }
 
@@ -239,7 +225,7 @@ function FloorHeader({ role, loading }: { role: Role; loading: boolean }) {
 }
 
 export function Layout() {
-  const navigation = useNavigation();
+  const loading = useNavigationPending();
   const location = useLocation();
   const me = useMe();
   const role = me.data?.user?.role;
@@ -254,7 +240,7 @@ export function Layout() {
           Skip to content
         </a>
         {workspace === 'Floor' && role ? (
-          <FloorHeader role={role} loading={navigation.state === 'loading'} />
+          <FloorHeader role={role} loading={loading} />
         ) : (
         <header className="no-print border-b-4 border-temper bg-white">
           <div className="mx-auto flex max-w-6xl flex-wrap items-center gap-x-4 gap-y-3 px-4 py-3">
@@ -269,7 +255,11 @@ export function Layout() {
             </div>
             <div className="ml-auto flex flex-wrap items-center justify-end gap-2">
               <CartLink />
-              {(role === 'customer' || role === 'dealer') && <NoticesBell />}
+              {(role === 'customer' || role === 'dealer') && (
+                <Suspense fallback={<span className="inline-block min-h-11 min-w-11" aria-hidden />}>
+                  <NoticesBell />
+                </Suspense>
+              )}
               <AccountArea />
             </div>
           </div>
@@ -294,12 +284,12 @@ export function Layout() {
               </div>
             </div>
           </div>
-          {navigation.state === 'loading' && <div className="h-0.5 animate-pulse bg-temper" role="progressbar" aria-label="Loading page" />}
+          {loading && <div className="h-0.5 animate-pulse bg-temper" role="progressbar" aria-label="Loading page" />}
         </header>
         )}
         {/* At least a screen tall, so the footer never sits in the first view only to be pushed down as the page arrives. */}
         <main id="main" className={`mx-auto min-h-screen w-full max-w-6xl flex-1 px-4 print:min-h-0 ${workspace === 'Floor' ? 'py-2 sm:py-6' : 'py-6'}`}>
-          <Outlet />
+          <PageOutlet />
         </main>
         <footer className="no-print border-t border-cast-line bg-panel">
           <div className="mx-auto grid max-w-6xl gap-2 px-4 py-6 text-sm text-cast sm:grid-cols-2">

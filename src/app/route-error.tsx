@@ -1,8 +1,8 @@
-import { isRouteErrorResponse, Link, useRouteError } from 'react-router-dom';
+import { Link } from 'react-router-dom';
 
-export function RouteError() {
-  const error = useRouteError();
-  const message = isRouteErrorResponse(error) ? `${error.status} ${error.statusText}` : error instanceof Error ? error.message : 'Unknown error';
+/** A page (or the layout) that failed to draw or to download; the rest of the app carries on. */
+export function RouteError({ error }: { error: unknown }) {
+  const message = error instanceof Error ? error.message : 'Unknown error';
   return (
     <main className="mx-auto max-w-3xl px-4 py-12">
       <h1 className="text-2xl font-bold">This page ran into a problem</h1>

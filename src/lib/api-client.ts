@@ -1,4 +1,5 @@
 import type { z } from 'zod';
+import type { ApiErrorBody } from '../../shared/schemas/errors';
 
 /**
  * A response schema, or a function that imports it. The schemas bring the validation library (a quarter of the
@@ -6,8 +7,6 @@ import type { z } from 'zod';
  * the answers instead of delaying every page's first paint.
  */
 export type SchemaSource<T extends z.ZodType> = T | (() => Promise<T>);
-
-const errorSchema = () => import('../../shared/schemas/errors').then((m) => m.ApiErrorSchema);
 
 /** Any failed API call; `status` 0 means the server could not be reached. */
 export class ApiError extends Error {
@@ -41,6 +40,25 @@ export async function api<T extends z.ZodType>(path: string, schema: SchemaSourc
   const schemaReady = typeof schema === 'function' ? schema() : Promise.resolve(schema);
   // Settled here as well, so a request that fails first leaves no unhandled rejection behind.
   schemaReady.catch(() => undefined);
+  const { status, json } = await request(path, options);
+  const parsed = (await loadSchema(schemaReady)).safeParse(json);
+  if (!parsed.success) throw new ApiError(status, 'The server sent an answer we could not read.');
+  return parsed.data;
+}
+
+/**
+ * Fetches from /api and takes the answer as the shared schema's type without parsing it: for the reads every first
+ * page makes (who is signed in, the cart, parts, frames, the fitment maps, the unread count), so a first visit does not
+ * download the validation library. Only for answers whose schema has no defaults or transforms the server leaves to
+ * it: tests/integration/first-reads.test.ts shows, for real answers of each, that parsing changes nothing.
+ */
+export async function apiRead<T>(path: string, options: Pick<RequestOptions, 'signal'> = {}): Promise<T> {
+  const { status, json } = await request(path, options);
+  if (json === null || typeof json !== 'object') throw new ApiError(status, 'The server sent an answer we could not read.');
+  return json as T;
+}
+
+async function request(path: string, options: RequestOptions): Promise<{ status: number; json: unknown }> {
   let response: Response;
   try {
     response = await fetch(`/api${path}`, {
@@ -57,12 +75,10 @@ export async function api<T extends z.ZodType>(path: string, schema: SchemaSourc
   const text = await response.text();
   const json: unknown = text ? safeJson(text) : null;
   if (!response.ok) {
-    const parsed = (await loadSchema(errorSchema())).safeParse(json);
-    throw new ApiError(response.status, parsed.success ? parsed.data.error.message : `Request failed (${response.status})`, parsed.success ? parsed.data.error.fieldErrors : {});
+    const error = readApiError(json);
+    throw new ApiError(response.status, error?.message ?? `Request failed (${response.status})`, error?.fieldErrors ?? {});
   }
-  const parsed = (await loadSchema(schemaReady)).safeParse(json);
-  if (!parsed.success) throw new ApiError(response.status, 'The server sent an answer we could not read.');
-  return parsed.data;
+  return { status: response.status, json };
 }
 
 async function loadSchema<T>(ready: Promise<T>): Promise<T> {
@@ -71,6 +87,28 @@ async function loadSchema<T>(ready: Promise<T>): Promise<T> {
   } catch {
     throw new ApiError(0, 'Part of the page did not load. Check your connection and reload the page.');
   }
+}
+
+/**
+ * The server's one error shape (shared/schemas/errors.ts), read without the validation library, which an error on a
+ * first page would otherwise download; tests/unit/api-error-reader.test.ts holds it to the schema.
+ */
+export function readApiError(json: unknown): ApiErrorBody['error'] | null {
+  if (!isRecord(json) || !isRecord(json.error)) return null;
+  const { message, fieldErrors } = json.error;
+  if (typeof message !== 'string') return null;
+  if (fieldErrors === undefined) return { message };
+  if (!isRecord(fieldErrors)) return null;
+  const fields: Record<string, string[]> = {};
+  for (const [key, value] of Object.entries(fieldErrors)) {
+    if (!Array.isArray(value) || !value.every((v) => typeof v === 'string')) return null;
+    fields[key] = value as string[];
+  }
+  return { message, fieldErrors: fields };
+}
+
+function isRecord(value: unknown): value is Record<string, unknown> {
+  return typeof value === 'object' && value !== null && !Array.isArray(value);
 }
 
 function safeJson(text: string): unknown {

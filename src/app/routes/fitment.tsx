@@ -14,6 +14,7 @@ import { useSavedFitment } from '../../features/fitment/api/get-saved-fitment';
 import { useRunFitmentCheck } from '../../features/fitment/api/run-fitment-check';
 import { formValuesFor } from '../../features/fitment/lib/form-values';
 import { FitmentCautions } from '../../features/fitment/components/fitment-cautions';
+import { FitmentFormSlot } from '../../features/fitment/components/fitment-form-slot';
 import { useUnitSystem } from '../../features/fitment/lib/use-unit-system';
 import { FRAME_CODE_PATTERN } from '../../../shared/part-number';
 
@@ -22,9 +23,6 @@ import { FRAME_CODE_PATTERN } from '../../../shared/part-number';
 const loadResults = () => import('../../features/fitment/components/fitment-results');
 const FitmentResults = lazy(() => loadResults().then((m) => ({ default: m.FitmentResults })));
 const preloadResults = () => void loadResults().catch(() => undefined);
-// The form (and its form library) follows the page's words: the heading and the introduction paint first, and the
-// form's card keeps its place while it comes (at least a screen tall, as the form is), so nothing below it moves.
-const FitmentForm = lazy(() => import('../../features/fitment/components/fitment-form').then((m) => ({ default: m.FitmentForm })));
 
 export function FitmentRoute() {
   const [params] = useSearchParams();
@@ -117,14 +115,8 @@ export function FitmentRoute() {
 
       <div className="grid items-start gap-8 lg:grid-cols-[26rem_minmax(0,1fr)]">
         <div className="rounded-lg bg-white p-5 shadow-sm ring-1 ring-cast-line" onFocus={preloadResults} onPointerDown={preloadResults}>
-          <Suspense
-              fallback={
-                <div className="min-h-screen">
-                  <LoadingState label="Loading the form…" />
-                </div>
-              }
-            >
-            <FitmentForm
+          {/* A stand-in of the same fields until the visitor reaches for the form; then the form, with what was typed. */}
+          <FitmentFormSlot
             key={form.key}
             initialValues={form.values}
             system={system}
@@ -139,7 +131,6 @@ export function FitmentRoute() {
               setRefusedHere(true);
             }}
           />
-          </Suspense>
         </div>
         <div className="min-w-0">
           {check.isPending || savedCheck.isFetching ? (

@@ -9,7 +9,6 @@ import { ApiError } from '../../lib/api-client';
 import { ErrorState, LoadingState } from '../../components/ui/states';
 import { useMe } from '../../features/auth/api/get-me';
 import { AddToCart } from '../../features/cart/components/add-to-cart';
-import { AddToList } from '../../features/lists/components/add-to-list';
 import { usePart } from '../../features/catalog/api/get-part';
 import { useFrame } from '../../features/catalog/api/get-frame';
 import { PartCautions } from '../../features/catalog/components/part-cautions';
@@ -19,6 +18,8 @@ import { StockBadge } from '../../features/catalog/components/stock-badge';
 
 // The drawing is its own chunk, loaded once the part's frame is known.
 const ExplodedView = lazy(() => import('../../components/illustrations/exploded-view'));
+// Lists are for approved dealers only: the form (and its parts) loads for them, not with every visit to a part.
+const AddToList = lazy(() => import('../../features/lists/components/add-to-list').then((m) => ({ default: m.AddToList })));
 
 export function PartRoute() {
   const { partNumber = '' } = useParams();
@@ -179,7 +180,12 @@ export function PartRoute() {
               {...(clocking && chosen ? { orientation: { clocking, value: chosen, onChange: (value: Orientation) => setOrientation({ partNumber: p.partNumber, value }) } } : {})}
             />
           )}
-          {dealer && <AddToList source={{ kind: 'part', partNumber: p.partNumber }} />}
+          {dealer && (
+            // The button's height meanwhile, so the lines below do not move when it comes.
+            <Suspense fallback={<div className="min-h-11" aria-hidden />}>
+              <AddToList source={{ kind: 'part', partNumber: p.partNumber }} />
+            </Suspense>
+          )}
           <p className="tabular text-sm text-cast">Shipping weight {(p.weightGrams / 1000).toFixed(p.weightGrams < 1000 ? 2 : 1)} kg</p>
           {p.frame && (
             <Link to={`/fitment?frame=${p.frame.code}`} className={buttonClass('secondary')}>

@@ -20,31 +20,20 @@ import {
   PackageCheck,
   ReceiptText,
   RotateCcw,
-  TriangleAlert,
   Truck,
   Undo2,
-  type LucideIcon,
 } from 'lucide-react';
 import type { z } from 'zod';
 import type { DealerAccountRowSchema } from '../../../shared/schemas/accounts';
 import type { MailState } from '../../../shared/allowed-values';
-import { MAIL_STATE_LABELS } from '../../../shared/schemas/mail-outbox';
-import { ORDER_STATUS_LABELS, type OrderStatus } from '../../../shared/schemas/orders';
-import type { StockStateSchema } from '../../../shared/schemas/parts';
+import { MAIL_STATE_LABELS, ORDER_STATUS_LABELS, type OrderStatus } from '../../../shared/allowed-values';
 import type { PickQueueItemSchema, ReturnViewSchema } from '../../../shared/schemas/warehouse';
+import { STOCK_STATE_LOOKS, type StatusLook } from './stock-looks';
 
-/** The design's colours for states: temper (in hand), amber (attention), machined (done, good), oxide (refused, ended), cast (neutral). */
-export type Tone = 'temper' | 'amber' | 'machined' | 'oxide' | 'cast';
-
-export interface StatusLook {
-  label: string;
-  Icon: LucideIcon;
-  tone: Tone;
-}
+export { STOCK_STATE_LOOKS, TONE_PILL, TONE_TEXT, type StatusLook, type StockState, type Tone } from './stock-looks';
 
 export type ReturnStatus = z.infer<typeof ReturnViewSchema>['status'];
 export type DealerStatus = z.infer<typeof DealerAccountRowSchema>['status'];
-export type StockState = z.infer<typeof StockStateSchema>;
 /** Where an order stands in the Floor's queue; a back-order whose stock arrived is picked like others but marked. */
 export type QueueState = z.infer<typeof PickQueueItemSchema>['ready'] | 'released';
 
@@ -71,13 +60,6 @@ export const DEALER_STATUS_LOOKS: Record<DealerStatus, StatusLook> = {
   pending: { label: 'Pending', Icon: Clock, tone: 'amber' },
   approved: { label: 'Approved', Icon: BadgeCheck, tone: 'machined' },
   declined: { label: 'Declined', Icon: CircleSlash, tone: 'oxide' },
-};
-
-export const STOCK_STATE_LOOKS: Record<StockState, StatusLook> = {
-  'in-stock': { label: 'In stock', Icon: CircleCheck, tone: 'machined' },
-  low: { label: 'Low stock', Icon: TriangleAlert, tone: 'amber' },
-  'out-of-stock': { label: 'Awaiting stock', Icon: Clock, tone: 'cast' },
-  discontinued: { label: 'Discontinued', Icon: Ban, tone: 'oxide' },
 };
 
 export const QUEUE_STATE_LOOKS: Record<QueueState, StatusLook> = {
@@ -111,21 +93,3 @@ export function statusLook<K extends StatusKind>(kind: K, status: StatusOf<K> | 
   const looks = STATUS_LOOKS[kind] as Record<string, StatusLook | undefined>;
   return looks[status as string] ?? { label: String(status).replace(/[_-]/g, ' '), Icon: Clock, tone: 'cast' };
 }
-
-/** Pill colours per tone: tinted background, dark text and border, each pair at least 4.5:1 (WCAG 2.2 AA). */
-export const TONE_PILL: Record<Tone, string> = {
-  temper: 'bg-temper-tint text-temper-deep border-temper/40',
-  amber: 'bg-amber-tint text-amber border-amber-line/50',
-  machined: 'bg-machined-tint text-machined border-machined/40',
-  oxide: 'bg-oxide-tint text-oxide border-oxide/40',
-  cast: 'bg-panel text-ink border-cast-line',
-};
-
-/** Text colours per tone for the plain (unboxed) form, as in lists and stock lines. */
-export const TONE_TEXT: Record<Tone, string> = {
-  temper: 'text-temper-deep',
-  amber: 'text-amber',
-  machined: 'text-machined',
-  oxide: 'text-oxide',
-  cast: 'text-cast',
-};

@@ -1,11 +1,10 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import { api } from '../../../lib/api-client';
+import type { Me } from '../../../../shared/schemas/accounts';
+import { apiRead } from '../../../lib/api-client';
 import { authKeys } from './keys';
 
-// The schema (and the validation library) loads beside the request, not before the page's first paint.
-const schema = () => import('../../../../shared/schemas/accounts').then((m) => m.MeSchema);
-
-export const getMe = (signal?: AbortSignal) => api('/account/me', schema, { signal });
+// Read without the validation library, as the shared schema's type: a first page makes this request (see apiRead).
+export const getMe = (signal?: AbortSignal) => apiRead<Me>('/account/me', { signal });
 
 export const meQueryOptions = () => queryOptions({ queryKey: authKeys.me(), queryFn: ({ signal }) => getMe(signal), staleTime: 60_000 });
 

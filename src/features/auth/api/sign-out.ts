@@ -1,16 +1,19 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { api } from '../../../lib/api-client';
 
-// The schema (and the validation library) loads beside the request, not before the page's first paint.
-const schema = () => import('../../../../shared/schemas/account-replies').then((m) => m.AuthStatusReplySchema);
+import { AuthStatusReplySchema } from '../../../../shared/schemas/account-replies';
 
-export const signOut = () => api('/auth/sign-out', schema, { method: 'POST', body: {} });
+export const signOut = () => api('/auth/sign-out', AuthStatusReplySchema, { method: 'POST', body: {} });
 
-export function useSignOut() {
+/** Signs out; `onSignedOut` runs once the cache has started over, even if the menu that asked has gone by then. */
+export function useSignOut(onSignedOut?: () => void) {
   const client = useQueryClient();
   return useMutation({
     mutationFn: signOut,
     // Everything cached belonged to the person who just left (orders, cart, account): start over.
-    onSuccess: () => client.resetQueries(),
+    onSuccess: async () => {
+      await client.resetQueries();
+      onSignedOut?.();
+    },
   });
 }

@@ -1,9 +1,12 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { CartViewSchema, type AddCartLine } from '../../../../shared/schemas/orders';
+import type { AddCartLine } from '../../../../shared/schemas/orders';
 import { api } from '../../../lib/api-client';
 import { cartKeys } from './keys';
 
-export const addCartLine = (line: AddCartLine) => api('/cart/lines', CartViewSchema, { method: 'POST', body: line });
+// The answer's schema (and the validation library) loads with the request: the part and catalogue pages offer this.
+const schema = () => import('../../../lib/action-schemas').then((m) => m.CartViewSchema);
+
+export const addCartLine = (line: AddCartLine) => api('/cart/lines', schema, { method: 'POST', body: line });
 
 /** Adds a part; the answer is the whole cart, so it replaces the cached one (with any "superseded" notices). */
 export function useAddCartLine() {

@@ -1,11 +1,10 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import { api } from '../../../lib/api-client';
+import type { CartView } from '../../../../shared/schemas/orders';
+import { apiRead } from '../../../lib/api-client';
 import { cartKeys } from './keys';
 
-// The schema (and the validation library) loads beside the request, not before the page's first paint.
-const schema = () => import('../../../../shared/schemas/orders').then((m) => m.CartViewSchema);
-
-export const getCart = (signal?: AbortSignal) => api('/cart', schema, { signal });
+// Read without the validation library, as the shared schema's type: a first page makes this request (see apiRead).
+export const getCart = (signal?: AbortSignal) => apiRead<CartView>('/cart', { signal });
 
 export const cartQueryOptions = () => queryOptions({ queryKey: cartKeys.cart(), queryFn: ({ signal }) => getCart(signal) });
 

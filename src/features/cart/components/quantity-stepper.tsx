@@ -1,6 +1,6 @@
 import { Minus, Plus } from 'lucide-react';
 import { useEffect, useState } from 'react';
-import { QUANTITY_MAX } from '../../../../shared/schemas/orders';
+import { QUANTITY_MAX } from '../../../../shared/order-limits';
 import { readQuantity, stepQuantity } from '../lib/cart-lines';
 
 /** − / number / + with the typed value committed on blur or Enter, so each keystroke is not a request. */

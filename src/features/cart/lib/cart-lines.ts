@@ -1,5 +1,5 @@
 import type { CartLineView, CartView } from '../../../../shared/schemas/orders';
-import { QUANTITY_MAX } from '../../../../shared/schemas/orders';
+import { QUANTITY_MAX } from '../../../../shared/order-limits';
 
 /** Units of a line that stock cannot cover now: what a dealer may back-order, or a buyer must take off. */
 export const shortBy = (line: Pick<CartLineView, 'quantity' | 'available'>): number => Math.max(0, line.quantity - line.available);

@@ -1,11 +1,10 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import { api } from '../../../lib/api-client';
+import type { FrameDetail } from '../../../../shared/schemas/parts';
+import { apiRead } from '../../../lib/api-client';
 import { catalogKeys } from './keys';
 
-// The schema (and the validation library) loads beside the request, not before the page's first paint.
-const schema = () => import('../../../../shared/schemas/parts').then((m) => m.FrameDetailSchema);
-
-export const getFrame = (code: string, signal?: AbortSignal) => api(`/frames/${encodeURIComponent(code)}`, schema, { signal });
+// Read without the validation library, as the shared schema's type: a first page makes this request (see apiRead).
+export const getFrame = (code: string, signal?: AbortSignal) => apiRead<FrameDetail>(`/frames/${encodeURIComponent(code)}`, { signal });
 
 export const frameQueryOptions = (code: string) => queryOptions({ queryKey: catalogKeys.frame(code), queryFn: ({ signal }) => getFrame(code, signal), staleTime: 60_000 });
 

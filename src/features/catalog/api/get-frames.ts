@@ -1,11 +1,10 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import { api } from '../../../lib/api-client';
+import type { FramesResponse } from '../../../../shared/schemas/parts';
+import { apiRead } from '../../../lib/api-client';
 import { catalogKeys } from './keys';
 
-// The schema (and the validation library) loads beside the request, not before the page's first paint.
-const schema = () => import('../../../../shared/schemas/parts').then((m) => m.FramesResponseSchema);
-
-export const getFrames = (signal?: AbortSignal) => api('/frames', schema, { signal });
+// Read without the validation library, as the shared schema's type: a first page makes this request (see apiRead).
+export const getFrames = (signal?: AbortSignal) => apiRead<FramesResponse>('/frames', { signal });
 
 export const framesQueryOptions = () => queryOptions({ queryKey: catalogKeys.frames(), queryFn: ({ signal }) => getFrames(signal), staleTime: 10 * 60_000 });
 

@@ -1,11 +1,10 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import { api } from '../../../lib/api-client';
+import type { PartDetail } from '../../../../shared/schemas/parts';
+import { apiRead } from '../../../lib/api-client';
 import { catalogKeys } from './keys';
 
-// The schema (and the validation library) loads beside the request, not before the page's first paint.
-const schema = () => import('../../../../shared/schemas/parts').then((m) => m.PartDetailSchema);
-
-export const getPart = (partNumber: string, signal?: AbortSignal) => api(`/parts/${encodeURIComponent(partNumber)}`, schema, { signal });
+// Read without the validation library, as the shared schema's type: a first page makes this request (see apiRead).
+export const getPart = (partNumber: string, signal?: AbortSignal) => apiRead<PartDetail>(`/parts/${encodeURIComponent(partNumber)}`, { signal });
 
 export const partQueryOptions = (partNumber: string) =>
   queryOptions({ queryKey: catalogKeys.part(partNumber), queryFn: ({ signal }) => getPart(partNumber, signal) });

@@ -1,13 +1,11 @@
 import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
-import type { PartsQuery } from '../../../../shared/schemas/parts';
-import { api, toSearchParams } from '../../../lib/api-client';
+import type { PartsListResponse, PartsQuery } from '../../../../shared/schemas/parts';
+import { apiRead, toSearchParams } from '../../../lib/api-client';
 import { catalogKeys } from './keys';
 
-// The schema (and the validation library) loads beside the request, not before the page's first paint.
-const schema = () => import('../../../../shared/schemas/parts').then((m) => m.PartsListResponseSchema);
-
+// Read without the validation library, as the shared schema's type: a first page makes this request (see apiRead).
 export function getParts(query: PartsQuery, signal?: AbortSignal) {
-  return api(`/parts${toSearchParams({ ...query, inStock: query.inStock === undefined ? undefined : String(query.inStock) })}`, schema, { signal });
+  return apiRead<PartsListResponse>(`/parts${toSearchParams({ ...query, inStock: query.inStock === undefined ? undefined : String(query.inStock) })}`, { signal });
 }
 
 export const partsQueryOptions = (query: PartsQuery) =>

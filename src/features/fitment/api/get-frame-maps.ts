@@ -1,11 +1,10 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import { api } from '../../../lib/api-client';
+import type { FitmentFrameMapsResponse } from '../../../../shared/schemas/saved-fitments';
+import { apiRead } from '../../../lib/api-client';
 import { fitmentKeys } from './keys';
 
-// The schema (and the validation library) loads beside the request, not before the page's first paint.
-const schema = () => import('../../../../shared/schemas/saved-fitments').then((m) => m.FitmentFrameMapsResponseSchema);
-
-export const getFrameMaps = (signal?: AbortSignal) => api('/fitment/frames', schema, { signal });
+// Read without the validation library, as the shared schema's type: a first page makes this request (see apiRead).
+export const getFrameMaps = (signal?: AbortSignal) => apiRead<FitmentFrameMapsResponse>('/fitment/frames', { signal });
 
 export const frameMapsQueryOptions = () =>
   queryOptions({ queryKey: fitmentKeys.frameMaps(), queryFn: ({ signal }) => getFrameMaps(signal), staleTime: 10 * 60_000 });

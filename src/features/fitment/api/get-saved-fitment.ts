@@ -1,9 +1,12 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import { SavedFitmentSchema } from '../../../../shared/schemas/saved-fitments';
 import { api } from '../../../lib/api-client';
 import { fitmentKeys } from './keys';
 
-export const getSavedFitment = (id: number, signal?: AbortSignal) => api(`/fitments/${id}`, SavedFitmentSchema, { signal });
+// The fitment page asks for a saved check only when its address names one; the schema (and the validation library)
+// loads beside that request, not with the page.
+const schema = () => import('../../../lib/action-schemas').then((m) => m.SavedFitmentSchema);
+
+export const getSavedFitment = (id: number, signal?: AbortSignal) => api(`/fitments/${id}`, schema, { signal });
 
 export const savedFitmentQueryOptions = (id: number) =>
   queryOptions({ queryKey: fitmentKeys.savedOne(id), queryFn: ({ signal }) => getSavedFitment(id, signal) });

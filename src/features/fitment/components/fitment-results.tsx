@@ -13,7 +13,7 @@ import { CandidateList, candidateKey } from './candidate-list';
 import { CompressorMapChart } from './compressor-map-chart';
 import { FrameExploded } from './frame-exploded';
 import { FrameParts } from './frame-parts';
-import { FUEL_LABELS } from './fitment-form';
+import { FUEL_LABELS } from './fitment-form-view';
 import { TurbineHousings } from './turbine-housings';
 import { VerdictBadge } from './verdict-badge';
 

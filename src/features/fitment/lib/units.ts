@@ -1,4 +1,5 @@
-import { FITMENT_LIMITS, type Application, type DisplacementUnit, type Fuel, type FitmentRequest } from '../../../../shared/schemas/fitment';
+import { FITMENT_LIMITS, type Application, type DisplacementUnit, type Fuel } from '../../../../shared/fitment/limits';
+import type { FitmentRequest } from '../../../../shared/schemas/fitment';
 import {
   celsiusToFahrenheit,
   cubicInchesToLitres,

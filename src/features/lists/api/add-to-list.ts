@@ -1,9 +1,12 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { AddToListResultSchema, type AddToList } from '../../../../shared/schemas/parts-lists';
+import type { AddToList } from '../../../../shared/schemas/parts-lists';
 import { api } from '../../../lib/api-client';
 import { listKeys } from './keys';
 
-export const addToList = (input: AddToList) => api('/lists/add', AddToListResultSchema, { method: 'POST', body: input });
+// The answer's schema (and the validation library) loads with the request: the part page offers this.
+const schema = () => import('../../../lib/action-schemas').then((m) => m.AddToListResultSchema);
+
+export const addToList = (input: AddToList) => api('/lists/add', schema, { method: 'POST', body: input });
 
 /** Puts a part, the cart or a past order on a list (or on a new one). */
 export function useAddToList() {

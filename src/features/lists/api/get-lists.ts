@@ -1,9 +1,11 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import { ListsSchema } from '../../../../shared/schemas/parts-lists';
 import { api } from '../../../lib/api-client';
 import { listKeys } from './keys';
 
-export const getLists = (signal?: AbortSignal) => api('/lists', ListsSchema, { signal });
+// The schema (and the validation library) loads with the request: the part page asks only when its list form opens.
+const schema = () => import('../../../lib/action-schemas').then((m) => m.ListsSchema);
+
+export const getLists = (signal?: AbortSignal) => api('/lists', schema, { signal });
 
 export const listsQueryOptions = () => queryOptions({ queryKey: listKeys.index(), queryFn: ({ signal }) => getLists(signal) });
 

@@ -2,7 +2,7 @@ import { ListPlus } from 'lucide-react';
 import { useId, useState, type FormEvent } from 'react';
 import { Link } from 'react-router-dom';
 import type { AddToList as AddToListInput } from '../../../../shared/schemas/parts-lists';
-import { QUANTITY_MAX } from '../../../../shared/schemas/orders';
+import { QUANTITY_MAX } from '../../../../shared/order-limits';
 import { Button } from '../../../components/ui/button';
 import { SelectField, TextField } from '../../../components/ui/form';
 import { Notice } from '../../../components/ui/notice';

@@ -4,7 +4,7 @@ import { Link, useNavigate } from 'react-router-dom';
 import { formatPrice } from '../../../../shared/catalog';
 import { formatDateTime } from '../../../../shared/format';
 import type { ListDetail as ListDetailData, ListLine } from '../../../../shared/schemas/parts-lists';
-import { QUANTITY_MAX } from '../../../../shared/schemas/orders';
+import { QUANTITY_MAX } from '../../../../shared/order-limits';
 import { Button } from '../../../components/ui/button';
 import { Notice } from '../../../components/ui/notice';
 import { EmptyState, ErrorState, LoadingState } from '../../../components/ui/states';

@@ -1,6 +1,6 @@
 import { Bell } from 'lucide-react';
 import { NavLink } from 'react-router-dom';
-import { useUnreadNotices } from '../api/get-notices';
+import { useUnreadNotices } from '../api/get-unread-notices';
 
 /** The header's way to the buyer's notices, with the unread count in figures and in words. */
 export function NoticesBell() {
