@@ -70,6 +70,8 @@ test('a part page shows its own piece lit, and a recommendation links to the fra
   const parts = await frameParts(page.request, 'GIM');
   const housing = parts.find((p) => p.category === 'turbine-housings' && p.status === 'active')!;
   await page.goto(`/parts/${housing.partNumber}`);
+  // The drawing sits below the specification and loads as the visitor scrolls towards it.
+  await page.getByRole('region', { name: 'Drawing of frame GIM, taken apart' }).scrollIntoViewIfNeeded();
   const drawing = page.getByRole('group', { name: 'Pieces of frame GIM, taken apart along the shaft' });
   await expect(drawing.getByRole('button', { name: /^Turbine housing: / })).toHaveAttribute('aria-pressed', 'true');
   // The larger frames hold the turbine housing with a clamp.

@@ -14,14 +14,13 @@ import { describeChunks, entryScripts, firstVisitScripts, pageScripts, readManif
  * The goal is 120 kB. The libraries every page needs before it can draw (React DOM, the router in its declarative
  * mode, the query cache) are about 92 kB of it; the first answers are read without the validation library
  * (src/lib/api-client.ts apiRead, tests/integration/first-reads.test.ts), which comes with the forms and with the
- * answers to what a visitor does. Home, catalogue and fitment meet the goal; the part page is about 2 kB over it, with
- * the frame's exploded view (4 kB) drawn at once below the specification. The budgets keep a little room over what
- * each page is now.
+ * answers to what a visitor does. All four meet the goal; the part page's exploded view (4 kB), below the
+ * specification, loads as its place comes near the screen. The budgets keep a little room over what each page is now.
  */
 const FIRST_VISIT_BUDGET_BYTES: Record<string, number> = {
   'src/app/routes/home.tsx': 109_000,
   'src/app/routes/catalogue.tsx': 117_000,
-  'src/app/routes/part.tsx': 123_500,
+  'src/app/routes/part.tsx': 120_000,
   'src/app/routes/fitment.tsx': 116_000,
 };
 /** The entry alone, before any page's chunk. */
@@ -38,8 +37,9 @@ const ON_DEMAND = [
   'src/lib/action-schemas.ts',
 ];
 const ON_DEMAND_ON: Record<string, string[]> = {
-  // Saving a part to a list: for approved dealers only.
-  'src/app/routes/part.tsx': ['src/features/lists/components/add-to-list.tsx'],
+  // Saving a part to a list: for approved dealers only. The frame's exploded view, below the specification: when its
+  // place comes near the screen (src/components/ui/near-view.tsx).
+  'src/app/routes/part.tsx': ['src/features/lists/components/add-to-list.tsx', 'src/components/illustrations/exploded-view.tsx'],
   // The fitment check's answer (build sheet, map, candidates, a frame's exploded view) loads when the form is touched
   // or a check is run.
   // The form itself, with the form library and the validation library, when the visitor reaches for the stand-in of the

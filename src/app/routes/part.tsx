@@ -7,6 +7,7 @@ import { buttonClass } from '../../components/ui/button';
 import { PartPicture, partPhotoUrl } from '../../components/illustrations/part-picture';
 import { ApiError } from '../../lib/api-client';
 import { ErrorState, LoadingState } from '../../components/ui/states';
+import { NearView } from '../../components/ui/near-view';
 import { useMe } from '../../features/auth/api/get-me';
 import { AddToCart } from '../../features/cart/components/add-to-cart';
 import { usePart } from '../../features/catalog/api/get-part';
@@ -16,7 +17,7 @@ import { PartListItem } from '../../features/catalog/components/part-list-item';
 import { specRows } from '../../features/catalog/components/spec-rows';
 import { StockBadge } from '../../features/catalog/components/stock-badge';
 
-// The drawing is its own chunk, loaded once the part's frame is known.
+// The drawing is its own chunk, loaded once the part's frame is known and its place comes near the screen.
 const ExplodedView = lazy(() => import('../../components/illustrations/exploded-view'));
 // Lists are for approved dealers only: the form (and its parts) loads for them, not with every visit to a part.
 const AddToList = lazy(() => import('../../features/lists/components/add-to-list').then((m) => ({ default: m.AddToList })));
@@ -237,9 +238,12 @@ export function PartRoute() {
       </section>
 
       {p.frame && frame.data && (
-        <Suspense fallback={<LoadingState label="Loading the drawing…" />}>
-          <ExplodedView frame={frame.data} parts={frame.data.parts} highlight={pieceForCategory(p.category)} orientation={chosen} />
-        </Suspense>
+        // Below the specification: its code loads as the visitor comes near it, not with the page.
+        <NearView minHeight="24rem" label={`Drawing of frame ${frame.data.code}, taken apart`}>
+          <Suspense fallback={<LoadingState label="Loading the drawing…" />}>
+            <ExplodedView frame={frame.data} parts={frame.data.parts} highlight={pieceForCategory(p.category)} orientation={chosen} />
+          </Suspense>
+        </NearView>
       )}
 
       {p.goesWith.length > 0 && (
