@@ -70,9 +70,12 @@ test('a part page shows its own piece lit, and a recommendation links to the fra
   const parts = await frameParts(page.request, 'GIM');
   const housing = parts.find((p) => p.category === 'turbine-housings' && p.status === 'active')!;
   await page.goto(`/parts/${housing.partNumber}`);
-  // The drawing sits below the specification and loads as the visitor scrolls towards it.
-  await page.getByRole('region', { name: 'Drawing of frame GIM, taken apart' }).scrollIntoViewIfNeeded();
   const drawing = page.getByRole('group', { name: 'Pieces of frame GIM, taken apart along the shaft' });
+  // The drawing sits below the specification and loads as the visitor scrolls towards it (at once on a tall screen).
+  await expect(async () => {
+    await page.mouse.wheel(0, 600);
+    await expect(drawing).toBeVisible({ timeout: 500 });
+  }).toPass({ timeout: 10_000 });
   await expect(drawing.getByRole('button', { name: /^Turbine housing: / })).toHaveAttribute('aria-pressed', 'true');
   // The larger frames hold the turbine housing with a clamp.
   await expect(drawing.getByRole('button', { name: /^Turbine housing clamp/ })).toBeVisible();
