@@ -3,6 +3,7 @@ import { defineConfig } from 'vite';
 import react from '@vitejs/plugin-react';
 import tailwindcss from '@tailwindcss/vite';
 import { precompressPlugin } from './scripts/precompress';
+import { preloadFontsPlugin } from './scripts/preload-fonts';
 
 // Not the sign-up schema: it brings the password-strength dictionary (a quarter of a megabyte).
 const SHARED = /[\\/]node_modules[\\/]zod[\\/]|[\\/]shared[\\/](schemas[\\/]|(allowed-values|catalog|format|order-limits|part-number|parts-query|pricing|units|part-illustration|exploded-view|ageing|price-import-flags|gtin|scan-code|service|unit-serial)\.ts$)/;
@@ -51,7 +52,7 @@ const ON_DEMAND = /[\\/]illustrations[\\/]exploded-view\.tsx$/;
 const apiPort = Number(process.env.PORT ?? 3000);
 
 export default defineConfig({
-  plugins: [react(), tailwindcss(), precompressPlugin()],
+  plugins: [react(), tailwindcss(), preloadFontsPlugin(), precompressPlugin()],
   build: {
     outDir: 'dist/client',
     // Every browser we serve preloads modules itself (modulepreload); the polyfill would be in every first visit's script.

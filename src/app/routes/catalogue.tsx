@@ -146,7 +146,9 @@ export function CatalogueRoute() {
       </aside>
 
       <section aria-labelledby="results-heading" className="min-w-0">
-        <div className="flex flex-wrap items-end justify-between gap-3">
+        {/* On a phone the sort always sits under the heading: whether it fits beside it would change when the web font
+            arrives (narrower than the fallback) and move the list below. */}
+        <div className="grid gap-3 sm:flex sm:flex-wrap sm:items-end sm:justify-between">
           <div>
             <h1 id="results-heading" className="text-2xl font-bold">
               {heading}
