@@ -76,6 +76,15 @@ beforeAll(async () => {
 }, 180_000);
 afterAll(() => fs.rmSync(outDir, { recursive: true, force: true }));
 
+describe('the first page’s fonts', () => {
+  it('are asked for from the head (the Latin files of the three weights used), so text does not re-wrap under a drawn list', () => {
+    const html = fs.readFileSync(path.join(outDir, 'index.html'), 'utf8');
+    const preloads = [...html.matchAll(/<link rel="preload" href="\/assets\/(source-sans-3-latin-(\d00)-normal-[\w-]+\.woff2)" as="font" type="font\/woff2" crossorigin/g)];
+    expect(preloads.map((m) => m[2])).toEqual(['400', '600', '700']);
+    for (const m of preloads) expect(fs.existsSync(path.join(outDir, 'assets', m[1]!))).toBe(true);
+  });
+});
+
 describe('the first page’s script', () => {
   it.each(FIRST_PAGES)('a first visit to %s stays within its budget, gzip', (source) => {
     const chunks = firstVisitScripts(outDir, source, [...ON_DEMAND, ...(ON_DEMAND_ON[source] ?? [])]);
