@@ -10,6 +10,7 @@ import { signInHref } from '../features/auth/next-path';
 import type { Role } from '../features/auth/roles';
 import { useCart } from '../features/cart/api/get-cart';
 import { useNavigationPending } from './navigation-pending';
+import { loadOnIntent } from '../lib/load-on-intent';
 import { PageOutlet } from './page-outlet';
 
 declare module 'react-aria-components' {
@@ -22,19 +23,7 @@ declare module 'react-aria-components' {
 // when someone shows they mean to search: the pointer comes over the field, or it is touched or focused. Until then a
 // plain field of the same size stands in, and a search typed there works as a form. Loaded once, kept for every page.
 type SearchBox = typeof import('../components/ui/part-search-box').PartSearchBox;
-let loadedSearchBox: SearchBox | null = null;
-let loadingSearchBox: Promise<SearchBox> | null = null;
-function loadSearchBox(): Promise<SearchBox> {
-  loadingSearchBox ??= import('../components/ui/part-search-box').then(
-    (m) => (loadedSearchBox = m.PartSearchBox),
-    (err: unknown) => {
-      // A failed load (say, the connection dropped) is tried again on the next sign of intent; the plain field works.
-      loadingSearchBox = null;
-      throw err;
-    },
-  );
-  return loadingSearchBox;
-}
+const searchBox = loadOnIntent(() => import('../components/ui/part-search-box').then((m) => m.PartSearchBox));
 const headerInputClass = 'min-h-11 w-full rounded-l-md border border-cast-line bg-white px-3 text-ink placeholder:text-cast focus:border-temper';
 
 function HeaderSearch() {
@@ -42,13 +31,13 @@ function HeaderSearch() {
   const navigate = useNavigate();
   const current = params.get('q') ?? '';
   const [value, setValue] = useState(current);
-  const [Box, setBox] = useState<SearchBox | null>(() => loadedSearchBox);
+  const [Box, setBox] = useState<SearchBox | null>(() => searchBox.loaded());
   // Whether the stand-in field had focus when the combobox arrived, so typing carries on in it.
   const [typing, setTyping] = useState(false);
   useEffect(() => setValue(current), [current]);
   const want = () => {
     if (Box) return;
-    loadSearchBox().then(
+    searchBox.load().then(
       (loaded) => setBox(() => loaded),
       () => undefined,
     );

@@ -2,25 +2,14 @@ import { useLayoutEffect, useRef, useState, type RefObject } from 'react';
 import type { FitmentRequest } from '../../../../shared/schemas/fitment';
 import { formToRequest, requestToForm, type FitmentFormValues, type FormField, type UnitSystem } from '../lib/units';
 import type { FitmentFormProps } from './fitment-form';
+import { loadOnIntent } from '../../../lib/load-on-intent';
 import { FitmentFormView, type Registrar } from './fitment-form-view';
 
 // The form library and the validation library (together a third of a first visit's script) load when someone shows
 // they mean to use the form: the pointer comes over it, or it is touched or focused. Until then a stand-in draws the
 // very same fields, and what is typed, chosen or submitted there carries over. Loaded once, kept for every visit.
 type Form = typeof import('./fitment-form').FitmentForm;
-let loadedForm: Form | null = null;
-let loadingForm: Promise<Form> | null = null;
-function loadForm(): Promise<Form> {
-  loadingForm ??= import('./fitment-form').then(
-    (m) => (loadedForm = m.FitmentForm),
-    (err: unknown) => {
-      // A failed load (say, the connection dropped) is tried again on the next sign of intent.
-      loadingForm = null;
-      throw err;
-    },
-  );
-  return loadingForm;
-}
+const form = loadOnIntent(() => import('./fitment-form').then((m) => m.FitmentForm));
 
 function readValues(form: HTMLFormElement, base: FitmentFormValues): FitmentFormValues {
   const values: Record<string, unknown> = { ...base };
@@ -113,7 +102,7 @@ function inField(form: HTMLFormElement | null) {
  * way), so nothing typed or clicked lands in a field that has just gone; a submit of the stand-in brings it at once.
  */
 export function FitmentFormSlot(props: FitmentFormProps) {
-  const [Form, setForm] = useState<Form | null>(() => loadedForm);
+  const [Form, setForm] = useState<Form | null>(() => form.loaded());
   const formRef = useRef<HTMLFormElement>(null);
   // The values the stand-in's hints read; what is typed lives in its fields.
   const [standInValues, setStandInValues] = useState(props.initialValues);
@@ -151,7 +140,7 @@ export function FitmentFormSlot(props: FitmentFormProps) {
   };
   const want = () => {
     if (Form) return;
-    loadForm().then(
+    form.load().then(
       (loaded) => {
         arrived.current = loaded;
         if (submitWanted.current) swap(true);
