@@ -1,5 +1,4 @@
 import { spawn, type ChildProcess } from 'node:child_process';
-import http from 'node:http';
 import fs from 'node:fs';
 import path from 'node:path';
 import { openDatabase } from '../server/db/client';
@@ -9,7 +8,7 @@ import { clientOf, type Client } from '../tests/support/session';
 import type { TestApp } from '../tests/support/test-app';
 import { build } from 'esbuild';
 import { buildServer } from './build-server';
-import { summarize } from './bench-harness';
+import { buyerLoop, type BuyerRequest } from './bench-buyer';
 import { treeCpuMs } from './bench-figures';
 
 const WEBHOOK_SECRET = 'whsec_spoolyard_bench';
@@ -92,7 +91,6 @@ export interface CheckoutRun {
   seconds: number;
   orders: number;
   ordersPerS: number;
-  p95Ms: number;
   /** CPU of the app's processes (and tsx's parent) per order, from the first order until every order is paid and mailed. */
   appCpuMsPerOrder: number;
   /** CPU of the payments and mail fakes per order, over the same span. */
@@ -252,43 +250,21 @@ export async function runCheckout(o: CheckoutRunOptions): Promise<CheckoutRun> {
         buyers.push(c);
       }
 
-      // The buyers' own requests go out on kept-alive connections through node:http, so the load costs little of the
-      // two cores beside the app and the fakes it measures.
-      const agent = new http.Agent({ keepAlive: true, maxSockets: o.buyers });
-      const post = (c: Client, p: string, body: unknown) =>
-        new Promise<number>((resolve, reject) => {
-          const payload = JSON.stringify(body);
-          const req = http.request(`${appUrl}${p}`, { method: 'POST', agent, headers: { origin: appUrl, cookie: c.cookie(), 'content-type': 'application/json', 'content-length': Buffer.byteLength(payload) } }, (res) => {
-            res.resume();
-            res.once('end', () => resolve(res.statusCode ?? 0));
-            res.once('error', reject);
-          });
-          req.once('error', reject);
-          req.end(payload);
-        });
-      const checkoutOnce = async (c: Client, partNumber: string) => {
-        const add = await post(c, '/api/cart/lines', { partNumber, quantity: 1 });
-        if (add !== 201) return add;
-        return post(c, '/api/checkout', { method: 'card', paymentMethod: 'pm_card_visa', delivery: DELIVERY });
-      };
-      const loop = async (ms: number, latencies: number[] | null) => {
-        const end = performance.now() + ms;
-        let failed = 0;
-        await Promise.all(
-          buyers.map(async (c) => {
-            while (performance.now() < end) {
-              const started = performance.now();
-              const status = await checkoutOnce(c, plenty);
-              if (status === 201) latencies?.push(performance.now() - started);
-              else if (++failed === 1) log(`checkout answered ${status}\n${srv.output().slice(-2000)}`);
-            }
-          }),
-        );
+      // Each buyer adds a line and pays, in turn, on a kept-alive connection of its own (scripts/bench-buyer.ts).
+      const round: BuyerRequest[] = [
+        { method: 'POST', path: '/api/cart/lines', body: JSON.stringify({ partNumber: plenty, quantity: 1 }), expect: 201 },
+        { method: 'POST', path: '/api/checkout', body: JSON.stringify({ method: 'card', paymentMethod: 'pm_card_visa', delivery: DELIVERY }), expect: 201 },
+      ];
+      const loop = async (seconds: number) => {
+        const until = performance.now() + seconds * 1000;
+        const runs = await Promise.all(buyers.map((c) => buyerLoop(appUrl, { origin: appUrl, cookie: c.cookie(), 'content-type': 'application/json' }, round, until)));
+        const failed = runs.reduce((n, r) => n + r.failed, 0);
+        if (failed > 0) log(`${failed} requests failed or were refused\n${srv.output().slice(-2000)}`);
         return failed;
       };
 
       // Warm-up, then wait for it to settle so its webhooks and mail are not charged to the measured orders.
-      await loop(1000, null);
+      await loop(1);
       const settled = () =>
         (sqlite.prepare("SELECT count(*) FROM orders WHERE status = 'pending_payment'").pluck().get() as number) === 0 &&
         (sqlite.prepare("SELECT count(*) FROM mail_outbox WHERE state IN ('queued', 'sending')").pluck().get() as number) === 0;
@@ -299,10 +275,9 @@ export async function runCheckout(o: CheckoutRunOptions): Promise<CheckoutRun> {
 
       const cpu0 = { app: treeCpuMs(srv.pid), fakes: treeCpuMs(payments.pid) + treeCpuMs(mail.pid) };
       const buyersCpu0 = process.cpuUsage();
-      const latencies: number[] = [];
       o.onMeasure?.('start', srv.pid);
       const t0 = performance.now();
-      const failed = await loop(o.seconds * 1000, latencies);
+      const failed = await loop(o.seconds);
       o.onMeasure?.('end', srv.pid);
       const elapsedS = (performance.now() - t0) / 1000;
       const buyersCpu = process.cpuUsage(buyersCpu0);
@@ -316,7 +291,6 @@ export async function runCheckout(o: CheckoutRunOptions): Promise<CheckoutRun> {
       }
       const cpu1 = { app: treeCpuMs(srv.pid), fakes: treeCpuMs(payments.pid) + treeCpuMs(mail.pid) };
       const orders = (sqlite.prepare('SELECT count(*) FROM orders').pluck().get() as number) - ordersBefore;
-      const lat = summarize(latencies);
 
       // The last units, once: every buyer at once for a part with 5 free.
       const scarceUnits = 5;
@@ -325,17 +299,15 @@ export async function runCheckout(o: CheckoutRunOptions): Promise<CheckoutRun> {
       const results = await Promise.all(buyers.map((c) => c.send('POST', '/api/checkout', { method: 'card', paymentMethod: 'pm_card_visa', delivery: DELIVERY })));
       const scarceSold = results.filter((r) => r.status === 201).length;
       await until('the stampede orders being paid', settled, 60_000).catch(() => {});
-      agent.destroy();
 
       return {
         processes: o.processes,
         seconds: elapsedS,
         orders,
-        ordersPerS: latencies.length / elapsedS,
-        p95Ms: lat.p95,
+        ordersPerS: orders / elapsedS,
         appCpuMsPerOrder: (cpu1.app - cpu0.app) / Math.max(1, orders),
         fakesCpuMsPerOrder: (cpu1.fakes - cpu0.fakes) / Math.max(1, orders),
-        buyersCpuMsPerOrder: (buyersCpu.user + buyersCpu.system) / 1000 / Math.max(1, latencies.length),
+        buyersCpuMsPerOrder: (buyersCpu.user + buyersCpu.system) / 1000 / Math.max(1, orders),
         failed,
         unpaid,
         mailUnsent,

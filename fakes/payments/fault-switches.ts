@@ -102,10 +102,10 @@ export class FaultSwitches {
       }
       if (fault.action === 'drop') {
         // The request is carried out; the connection is cut instead of answering.
-        res.json = () => {
+        res.end = (() => {
           res.socket?.destroy();
           return res;
-        };
+        }) as typeof res.end;
         return next();
       }
       // A caller that gives up meanwhile does not stop it: the request is carried out late, as a slow provider's would be.

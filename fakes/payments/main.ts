@@ -18,6 +18,8 @@ const EnvSchema = z.object({
     .regex(/^\d+(,\d+)*$/, 'comma-separated whole milliseconds')
     .transform((s) => s.split(',').map(Number))
     .optional(),
+  /** Whole milliseconds between a payment and its webhook's first post. */
+  PAYMENTS_WEBHOOK_DELAY_MS: z.coerce.number().int().min(0).optional(),
 });
 
 const parsed = EnvSchema.safeParse(process.env);
@@ -35,6 +37,7 @@ const fake = await startPaymentsFake({
   webhookSecret: env.PAYMENTS_WEBHOOK_SECRET,
   apiKey: env.PAYMENTS_API_KEY,
   retryDelaysMs: env.PAYMENTS_WEBHOOK_RETRY_DELAYS_MS,
+  webhookDelayMs: env.PAYMENTS_WEBHOOK_DELAY_MS,
 });
 console.log(`payments fake listening on ${fake.url}; webhooks -> ${env.PAYMENTS_WEBHOOK_URL || '(not posted)'}`);
 

@@ -12,6 +12,12 @@ import { WebhookDispatcher, type DeliveryAttempt, type EventRecord } from './web
 /** The event types the storefront subscribes to. */
 export const DEFAULT_WEBHOOK_EVENTS = ['payment_intent.succeeded', 'payment_intent.payment_failed', 'charge.refunded'] as const;
 
+/**
+ * How long after a payment's event its webhook is first posted. The provider answers the API call and posts the events
+ * it caused afterwards, on their own; a short wait keeps that order here even when the app is busy answering others.
+ */
+export const DEFAULT_WEBHOOK_DELAY_MS = 250;
+
 /** Growing gaps between webhook attempts; short enough for development, bounded to five attempts. */
 export const DEFAULT_RETRY_DELAYS_MS = [1_000, 5_000, 20_000, 60_000] as const;
 
@@ -26,6 +32,8 @@ export interface PaymentsFakeOptions {
   /** When set, only this key is accepted; otherwise any `sk_test_...` key is. */
   apiKey?: string;
   retryDelaysMs?: readonly number[];
+  /** Wait before an event's first post (DEFAULT_WEBHOOK_DELAY_MS); 0 posts it as soon as the call is answered. */
+  webhookDelayMs?: number;
   webhookTimeoutMs?: number;
   /** Event types posted to the webhook URL; '*' posts all. Every event is still listed by the API. */
   enabledEvents?: readonly string[];
@@ -73,8 +81,17 @@ function maskKey(key: string): string {
   return key.length <= 12 ? '*'.repeat(key.length) : `${key.slice(0, 8)}${'*'.repeat(key.length - 12)}${key.slice(-4)}`;
 }
 
+/** A JSON answer written at once (what Express's res.json ends with, without its content negotiation). */
+function sendJson(res: Response, status: number, body: unknown): void {
+  const json = JSON.stringify(body);
+  res.statusCode = status;
+  res.setHeader('Content-Type', 'application/json; charset=utf-8');
+  res.setHeader('Content-Length', Buffer.byteLength(json));
+  res.end(json);
+}
+
 function sendError(res: Response, error: ApiError): void {
-  res.status(error.status).json(error.toBody());
+  sendJson(res, error.status, error.toBody());
 }
 
 function escapeHtml(text: string): string {
@@ -109,6 +126,7 @@ export async function startPaymentsFake(options: PaymentsFakeOptions): Promise<P
     secret: options.webhookSecret,
     url: options.webhookUrl ?? null,
     retryDelaysMs: options.retryDelaysMs ?? DEFAULT_RETRY_DELAYS_MS,
+    firstAttemptDelayMs: options.webhookDelayMs ?? DEFAULT_WEBHOOK_DELAY_MS,
     timeoutMs: options.webhookTimeoutMs ?? 10_000,
     enabledEvents: options.enabledEvents ?? DEFAULT_WEBHOOK_EVENTS,
     maxRecords: 5_000,
@@ -163,7 +181,7 @@ export async function startPaymentsFake(options: PaymentsFakeOptions): Promise<P
             return;
           }
           res.set('Idempotent-Replayed', 'true');
-          res.status(saved.status).json(saved.body);
+          sendJson(res, saved.status, saved.body);
           return;
         }
       }
@@ -184,7 +202,7 @@ export async function startPaymentsFake(options: PaymentsFakeOptions): Promise<P
       if (key && (status < 400 || status === 402 || status >= 500)) {
         idempotency.set(apiKey, key, { path: req.path, fingerprint, status, body });
       }
-      res.status(status).json(body);
+      sendJson(res, status, body);
     };
 
   const id = (req: Request): string => String(req.params.id);

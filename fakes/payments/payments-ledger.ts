@@ -1,4 +1,4 @@
-import { randomBytes } from 'node:crypto';
+import { randomFillSync } from 'node:crypto';
 import { ApiError, invalidRequest, noSuch } from './api-error';
 import {
   applyMetadata,
@@ -21,9 +21,18 @@ import { TEST_CARDS, isTestPaymentMethodId, type TestCard } from '../../shared/p
 
 const ALPHABET = '0123456789ABCDEFGHIJKLMNOPQRSTUVWXYZabcdefghijklmnopqrstuvwxyz';
 
+/** Random bytes drawn a few kilobytes at a time: one call to the system's generator serves many ids. */
+const pool = Buffer.alloc(4096);
+let poolAt = pool.length;
+
 export function newId(prefix: string, length = 24): string {
+  if (poolAt + length > pool.length) {
+    randomFillSync(pool);
+    poolAt = 0;
+  }
   let out = '';
-  for (const byte of randomBytes(length)) out += ALPHABET[byte % ALPHABET.length];
+  for (let i = 0; i < length; i++) out += ALPHABET[pool[poolAt + i]! % ALPHABET.length];
+  poolAt += length;
   return `${prefix}_${out}`;
 }
 
@@ -343,8 +352,9 @@ function docUrl(code: string): string {
   return `https://stripe.com/docs/error-codes/${code.replaceAll('_', '-')}`;
 }
 
+/** The objects are plain JSON (strings, numbers, booleans, null, arrays, objects), so a JSON round trip copies them whole. */
 function clone<T>(value: T): T {
-  return structuredClone(value);
+  return JSON.parse(JSON.stringify(value)) as T;
 }
 
 export class PaymentsLedger {

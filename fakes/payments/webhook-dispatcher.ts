@@ -35,6 +35,11 @@ export interface DispatcherOptions {
   url: string | null;
   /** Delay before each retry; attempts = 1 + retryDelaysMs.length. */
   retryDelaysMs: readonly number[];
+  /**
+   * How long after the event the first attempt is made. Whatever it is, the first attempt waits until the API call
+   * that caused the event has been answered: the provider answers the call, then posts its events.
+   */
+  firstAttemptDelayMs?: number;
   timeoutMs: number;
   /** Event types posted to the endpoint; '*' posts all. */
   enabledEvents: readonly string[];
@@ -132,10 +137,8 @@ export class WebhookDispatcher {
   private async deliverWithRetries(record: EventRecord, url: string): Promise<void> {
     const delays = this.options.retryDelaysMs;
     for (let i = 0; i <= delays.length; i += 1) {
-      if (i > 0) {
-        const delay = delays[i - 1] ?? 0;
-        if (!(await this.sleep(delay))) break;
-      }
+      const delay = i === 0 ? (this.options.firstAttemptDelayMs ?? 0) : (delays[i - 1] ?? 0);
+      if (!(await this.sleep(delay))) break;
       const result = await this.attempt(record, url, i === 0 ? 'first' : 'retry');
       if (result.ok) return;
       if (this.closing.signal.aborted) break;
@@ -143,6 +146,7 @@ export class WebhookDispatcher {
     if (record.state !== 'delivered') record.state = 'failed';
   }
 
+  /** Resolves true after `ms` (0: once the current turn of the event loop is over), false if the dispatcher closes first. */
   private sleep(ms: number): Promise<boolean> {
     const signal = this.closing.signal;
     if (signal.aborted) return Promise.resolve(false);

@@ -6,6 +6,9 @@ import { migrate } from 'drizzle-orm/better-sqlite3/migrator';
 import { PROJECT_ROOT } from '../paths';
 import * as schema from './schema';
 
+/** How long a statement waits for another connection's lock before it fails. */
+const BUSY_TIMEOUT_MS = 5000;
+
 export type Db = BetterSQLite3Database<typeof schema> & { $client: Database.Database };
 
 const migrationsFolder = path.join(PROJECT_ROOT, 'drizzle');
@@ -15,7 +18,7 @@ export function openDatabase(file: string): Db {
   if (file !== ':memory:') fs.mkdirSync(path.dirname(path.resolve(file)), { recursive: true });
   const sqlite = new Database(file);
   sqlite.pragma('journal_mode = WAL');
-  sqlite.pragma('busy_timeout = 5000');
+  sqlite.pragma(`busy_timeout = ${BUSY_TIMEOUT_MS}`);
   sqlite.pragma('synchronous = NORMAL');
   // A transaction's statement journal (a statement with triggers, or one that may stop halfway) is kept in memory
   // rather than in a temporary file: no file created, written and deleted in /var/tmp for each order. (Reading the
@@ -90,14 +93,54 @@ function reuseStatements(db: Db, sqlite: Database.Database) {
   };
 }
 
+/** The first wait for another process's write lock, and the longest; the wait grows by half each time in between. */
+const LOCK_POLL_FIRST_MS = 0.05;
+const LOCK_POLL_MAX_MS = 1;
+
 /**
  * With several processes on one file, a transaction that reads before it writes must hold the write lock from its
  * start: a deferred one that read a snapshot while another process committed cannot upgrade and fails at once with
  * SQLITE_BUSY, never waiting (SQLite's documentation of BEGIN TRANSACTION and of SQLITE_BUSY_SNAPSHOT; BEGIN IMMEDIATE
- * takes the write lock at once, waiting through the busy timeout). So every Drizzle transaction begins IMMEDIATE unless it
- * asks otherwise (a read-only one passes `{ behavior: 'deferred' }`), and waits up to the busy timeout for its turn.
+ * takes the write lock at once). So every Drizzle transaction begins IMMEDIATE unless it asks otherwise (a read-only
+ * one passes `{ behavior: 'deferred' }`).
+ *
+ * While another process holds the lock, SQLite's own busy handler sleeps 1, 2, 5, 10 … ms between tries (sqlite3.c,
+ * sqliteDefaultBusyCallback), and the whole process sleeps with it; the other process's transactions take a fraction
+ * of a millisecond. So the BEGIN is tried without the busy handler (busy_timeout 0 for that one statement) and tried
+ * again after 0.05 ms, growing to 1 ms, until the busy timeout has passed; the connection's timeout is set back at
+ * once after. Only a BEGIN that failed is tried again: an error from the work inside goes to the caller as it is.
  */
 function writeTransactionsTakeTheLockFirst(db: Db) {
   const begin = db.transaction.bind(db);
-  db.transaction = ((transaction, config) => begin(transaction, { behavior: 'immediate', ...config })) as typeof db.transaction;
+  const sqlite = db.$client;
+  const noWait = sqlite.prepare('PRAGMA busy_timeout = 0');
+  const wait = sqlite.prepare(`PRAGMA busy_timeout = ${BUSY_TIMEOUT_MS}`);
+  const nap = new Int32Array(new SharedArrayBuffer(4));
+  db.transaction = ((transaction, config) => {
+    const behavior = config?.behavior ?? 'immediate';
+    // A nested call is a savepoint in the lock already held; a deferred transaction takes no lock at its start.
+    if (sqlite.inTransaction || behavior === 'deferred') return begin(transaction, { ...config, behavior });
+    let began = false;
+    const work: typeof transaction = (tx) => {
+      began = true;
+      return transaction(tx);
+    };
+    const deadline = performance.now() + BUSY_TIMEOUT_MS;
+    let pause = LOCK_POLL_FIRST_MS;
+    noWait.get();
+    try {
+      for (;;) {
+        try {
+          return begin(work, { ...config, behavior });
+        } catch (error) {
+          if (began || (error as { code?: unknown }).code !== 'SQLITE_BUSY' || performance.now() > deadline) throw error;
+        }
+        // A short sleep of this thread, not a spin: the core goes to the process that holds the lock.
+        Atomics.wait(nap, 0, 0, pause);
+        pause = Math.min(pause * 1.5, LOCK_POLL_MAX_MS);
+      }
+    } finally {
+      wait.get();
+    }
+  }) as typeof db.transaction;
 }

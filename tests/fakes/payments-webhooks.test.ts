@@ -17,7 +17,7 @@ afterEach(async () => {
 });
 
 async function setup(options: Partial<PaymentsFakeOptions> = {}): Promise<{ fake: PaymentsFake; stripe: Stripe; receiver: WebhookReceiver }> {
-  const fake = await startPaymentsFake({ port: 0, webhookSecret: SECRET, retryDelaysMs: [30, 60], ...options });
+  const fake = await startPaymentsFake({ port: 0, webhookSecret: SECRET, retryDelaysMs: [30, 60], webhookDelayMs: 0, ...options });
   cleanup.push(() => fake.close());
   const stripe = new Stripe(KEY, { host: '127.0.0.1', port: fake.port, protocol: 'http' });
   const receiver = await startWebhookReceiver(stripe, SECRET);
@@ -31,6 +31,17 @@ async function pay(stripe: Stripe, amount = 25_000): Promise<Stripe.PaymentInten
 }
 
 describe('webhook delivery', () => {
+  it('posts a payment\'s event after answering the call that caused it, the set wait later', async () => {
+    const { fake, stripe, receiver } = await setup({ webhookDelayMs: 300 });
+    const intent = await pay(stripe);
+    // The answer is here and the event is not yet: the provider posts events on their own, after the call.
+    expect(receiver.received).toHaveLength(0);
+    expect(fake.events().find((e) => e.event.type === 'payment_intent.succeeded')?.state).toBe('pending');
+    await fake.waitForWebhooks();
+    const delivered = receiver.received.filter((r) => r.event?.type === 'payment_intent.succeeded');
+    expect(delivered.map((d) => (d.event?.data.object as Stripe.PaymentIntent).id)).toEqual([intent.id]);
+  });
+
   it('retries after the app answers 500 and then records the event as delivered', async () => {
     const { fake, stripe, receiver } = await setup();
     receiver.failNext(500);
