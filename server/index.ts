@@ -6,6 +6,7 @@ import { demoAccountList } from '../catalog-seed/accounts';
 import Stripe from 'stripe';
 import { createApp } from './app';
 import { pruneChangeLog } from './db/change-feed';
+import { keepCheckpointing } from './db/checkpoints';
 import { openDatabase } from './db/client';
 import { pruneRateLimits, runIfLeaseHeld } from './db/shared-state';
 import { parseEnv, publicUrl, type Env } from './env';
@@ -33,7 +34,9 @@ if (env.APP_PROCESSES > 1 && cluster.isPrimary) {
  * that dies and stops them all on a signal.
  */
 function runPrimary(env: Env) {
-  openDatabase(env.DATABASE_FILE).$client.close();
+  // The primary serves no requests: it keeps a connection to copy the write-ahead log back into the file.
+  const db = openDatabase(env.DATABASE_FILE);
+  const stopCheckpoints = keepCheckpointing(db.$client);
   cluster.setupPrimary({ exec: fileURLToPath(import.meta.url) });
   let stopping = false;
   for (let i = 0; i < env.APP_PROCESSES; i += 1) cluster.fork();
@@ -48,7 +51,10 @@ function runPrimary(env: Env) {
     for (const worker of Object.values(cluster.workers ?? {})) worker?.process.kill(signal);
     setTimeout(() => process.exit(0), 6000).unref();
     cluster.on('exit', () => {
-      if (Object.keys(cluster.workers ?? {}).length === 0) process.exit(0);
+      if (Object.keys(cluster.workers ?? {}).length > 0) return;
+      stopCheckpoints();
+      db.$client.close();
+      process.exit(0);
     });
   };
   process.on('SIGINT', () => stop('SIGINT'));
@@ -57,6 +63,7 @@ function runPrimary(env: Env) {
 
 function runApp(env: Env) {
   const db = openDatabase(env.DATABASE_FILE);
+  const stopCheckpoints = cluster.isWorker ? () => {} : keepCheckpointing(db.$client);
   const payments = new Stripe(env.PAYMENTS_SECRET_KEY, {
     host: env.PAYMENTS_API_HOST,
     port: env.PAYMENTS_API_PORT,
@@ -137,6 +144,7 @@ function runApp(env: Env) {
         .stop()
         .then(() => mailer.close())
         .finally(() => {
+          stopCheckpoints();
           db.$client.close();
           process.exit(0);
         });

@@ -4,6 +4,7 @@ import Database from 'better-sqlite3';
 import { drizzle, type BetterSQLite3Database } from 'drizzle-orm/better-sqlite3';
 import { migrate } from 'drizzle-orm/better-sqlite3/migrator';
 import { PROJECT_ROOT } from '../paths';
+import { checkpointOnlyAsBackstop } from './checkpoints';
 import * as schema from './schema';
 
 /** How long a statement waits for another connection's lock before it fails. */
@@ -25,6 +26,8 @@ export function openDatabase(file: string): Db {
   // file through a memory map, tried too, halved the read calls but cost 10 % more CPU per card order with two
   // processes: 3 interleaved runs each.)
   sqlite.pragma('temp_store = MEMORY');
+  // Checkpoints run on a timer in one process (./checkpoints.ts); SQLite's own stays only as a backstop.
+  checkpointOnlyAsBackstop(sqlite);
   const db = drizzle(sqlite, { schema }) as Db;
   // A migration that adds a constraint rebuilds its table (create, copy, drop, rename). With foreign keys on, the drop
   // would cascade into the rows that point at the table, and the switch cannot be made inside the migration's own

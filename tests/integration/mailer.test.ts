@@ -121,6 +121,42 @@ describe('a mail server that is down', () => {
     }
   });
 
+  it('keeps a connection the server refused one message on, and sends the next over it', async () => {
+    const strict = await startMailFake({ smtpPort: 0, httpPort: 0, maxMessageBytes: 40_000 });
+    const sender = createMailer({ host: '127.0.0.1', port: strict.smtpPort, from: FROM });
+    try {
+      const small = orderMail();
+      await sender.send({ to: 'first@retail.test', ...small });
+      await expect(sender.send({ to: 'too-big@retail.test', ...small, html: small.html + '<p>filler</p>'.repeat(6_000) })).rejects.toThrow();
+      await sender.send({ to: 'after@retail.test', ...small });
+      expect((await strict.messages()).map((m) => m.to[0]).sort()).toEqual(['after@retail.test', 'first@retail.test']);
+      expect(strict.connections()).toBe(1);
+    } finally {
+      await sender.close();
+      await strict.close();
+    }
+  });
+
+  it('opens a fresh connection when the server has closed the one kept open', async () => {
+    const first = await startMailFake({ smtpPort: 0, httpPort: 0 });
+    const port = first.smtpPort;
+    const sender = createMailer({ host: '127.0.0.1', port, from: FROM });
+    try {
+      await sender.send({ to: 'before@retail.test', ...orderMail() });
+      await first.close();
+      // The server comes back on the same port; the pooled connection it cut is not used again.
+      const second = await startMailFake({ smtpPort: port, httpPort: 0 });
+      try {
+        await sender.send({ to: 'after@retail.test', ...orderMail() });
+        expect((await second.messages()).map((m) => m.to[0])).toEqual(['after@retail.test']);
+      } finally {
+        await second.close();
+      }
+    } finally {
+      await sender.close();
+    }
+  });
+
   it('makes a send fail fast with the connection error (the outbox keeps the message and tries again)', async () => {
     const down = createMailer({ host: '127.0.0.1', port: await closedPort(), from: FROM, timeoutMs: 2_000 });
     try {
