@@ -143,9 +143,12 @@ export const httpSection = section<BenchEnv>(`Catalogue list beside bare Express
     const cookie = await signedInCookie(app, file);
     let random = 1;
     const nextRandom = () => (random = (random * 48_271) % 2_147_483_647);
-    const figures: Array<{ name: string; run: () => Promise<AutocannonResult> }> = [
+    // The goal (≥ 0.5× the bare route) is for lists served from the cache: with writes going on and signed in. A list
+    // never cached is held to its time instead, in process, by the fresh-list section (≤ 10 ms at 50,000 parts).
+    const figures: Array<{ name: string; run: () => Promise<AutocannonResult>; goal?: boolean }> = [
       {
         name: 'GET /api/parts, uncached (a different minimum power each request)',
+        goal: false,
         run: () => load('uncached', app, env.httpDurationS, { requests: [{ setupRequest: (req) => ({ ...req, path: `/api/parts?minHp=${nextRandom() % 3000}` }) }] }),
       },
       { name: 'GET /api/parts, cached', run: () => load('cached', `${app}/api/parts`, env.httpDurationS) },
@@ -180,7 +183,7 @@ export const httpSection = section<BenchEnv>(`Catalogue list beside bare Express
         value: median(values),
         unit: 'req/s',
         reference: { name: 'bare Express + 1 SQLite select', value: median(refs) },
-        goal: { op: '>=', value: LIST_RATIO_GOAL, on: 'ratio' },
+        ...(f.goal === false ? {} : { goal: { op: '>=' as const, value: LIST_RATIO_GOAL, on: 'ratio' as const } }),
       });
     }
     ctx.table(`each run ${env.httpDurationS} s after a 1 s warm-up, ${env.rounds} round(s); servers in a child process, load generator in this one`, ['route', 'req/s', 'p50 ms', 'p99 ms'], rows);

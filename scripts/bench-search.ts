@@ -7,7 +7,10 @@ import type { BenchCatalogue, BenchEnv } from './bench-catalogues';
 import { section, summarize, type LatencySummary, type SectionContext } from './bench-harness';
 import { buildQueries, QUERY_KINDS, type BenchQuery } from './bench-queries';
 
-const SEARCH_P95_TARGET_MS = 15;
+/** The goals at 50,000 parts: `search()` in process, and the whole `GET /api/parts?q=` handler. */
+const SEARCH_P95_TARGET_MS = 5;
+const HANDLER_P95_TARGET_MS = 15;
+const GOAL_PARTS = 50_000;
 const ROUNDS = 3;
 
 interface Measured {
@@ -88,16 +91,15 @@ export const searchSection = section<BenchEnv>('Search latency (100 mixed querie
   for (const { cat, m } of results) {
     const label0 = `${cat.parts.toLocaleString('en-US')} parts`;
     const reference = { name: 'FTS5 prefix query, same text', value: m.fts.p95 };
-    const goal = cat.parts >= 50_000 ? { op: '<=' as const, value: SEARCH_P95_TARGET_MS, on: 'value' as const } : undefined;
-    ctx.figure({ figure: `search() p95, ${label0}`, value: m.search.p95, unit: 'ms', reference, goal });
-    ctx.figure({ figure: `GET /api/parts?q= handler p95, ${label0}`, value: m.handler.p95, unit: 'ms', reference, goal });
-    const large = cat.parts >= 50_000;
-    const target = large ? { op: '<=' as const, value: SEARCH_P95_TARGET_MS } : undefined;
+    const atGoalSize = cat.parts === GOAL_PARTS;
+    const goal = (value: number) => (atGoalSize ? { op: '<=' as const, value, on: 'value' as const } : undefined);
+    ctx.figure({ figure: `search() p95, ${label0}`, value: m.search.p95, unit: 'ms', reference, goal: goal(SEARCH_P95_TARGET_MS) });
+    ctx.figure({ figure: `GET /api/parts?q= handler p95, ${label0}`, value: m.handler.p95, unit: 'ms', reference, goal: goal(HANDLER_P95_TARGET_MS) });
     const label = `${cat.parts.toLocaleString('en-US')} parts`;
     ctx.record(`search() p50, ${label}`, m.search.p50, 'ms');
-    ctx.record(`search() p95, ${label}`, m.search.p95, 'ms', { target });
+    ctx.record(`search() p95, ${label}`, m.search.p95, 'ms', { target: atGoalSize ? { op: '<=', value: SEARCH_P95_TARGET_MS } : undefined });
     ctx.record(`GET /api/parts?q= handler p50, ${label}`, m.handler.p50, 'ms');
-    ctx.record(`GET /api/parts?q= handler p95, ${label}`, m.handler.p95, 'ms', { target });
+    ctx.record(`GET /api/parts?q= handler p95, ${label}`, m.handler.p95, 'ms', { target: atGoalSize ? { op: '<=', value: HANDLER_P95_TARGET_MS } : undefined });
     ctx.record(`exact / lower-case numbers ranked first, ${label}`, (100 * m.exactFirst.hit) / m.exactFirst.of, '%', {
       target: { op: '>=', value: 100 },
       detail: `${m.exactFirst.hit} of ${m.exactFirst.of}`,
