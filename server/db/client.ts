@@ -109,9 +109,10 @@ const LOCK_POLL_MAX_MS = 1;
  *
  * While another process holds the lock, SQLite's own busy handler sleeps 1, 2, 5, 10 … ms between tries (sqlite3.c,
  * sqliteDefaultBusyCallback), and the whole process sleeps with it; the other process's transactions take a fraction
- * of a millisecond. So the BEGIN is tried without the busy handler (busy_timeout 0 for that one statement) and tried
- * again after 0.05 ms, growing to 1 ms, until the busy timeout has passed; the connection's timeout is set back at
- * once after. Only a BEGIN that failed is tried again: an error from the work inside goes to the caller as it is.
+ * of a millisecond. So the BEGIN is tried without the busy handler (busy_timeout 0 until the transaction ends; once
+ * the lock is held nothing inside waits for another connection) and tried again after 0.05 ms, growing to 1 ms, until
+ * the busy timeout has passed; the connection's timeout is set back when the transaction ends. Only a BEGIN that
+ * failed is tried again: an error from the work inside goes to the caller as it is.
  */
 function writeTransactionsTakeTheLockFirst(db: Db) {
   const begin = db.transaction.bind(db);

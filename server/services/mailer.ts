@@ -44,8 +44,10 @@ const CONNECTION_ERRORS = new Set(['ECONNECTION', 'ESOCKET', 'ETIMEDOUT', 'ECONN
  * pooled transport runs on). The outbox worker hands over whole messages, already composed, with their envelope, so
  * the transport's per-message pipeline (plugins, a second MIME pass over the raw message, its queue) is not needed:
  * measured here, a message cost 1.24 ms of CPU through the pooled transport and 0.72 ms this way, of which composing
- * is 0.48 ms. A connection that fails or that the server closes is dropped; a message that met a dropped connection
- * it had not yet been written to goes once more over a fresh one.
+ * is 0.48 ms. A connection that fails or that the server closes is dropped. A message whose send failed with a
+ * connection error on a reused connection (most often one the server closed while it was idle) goes once more over a
+ * fresh one; should the server have taken it just before the connection broke, that is a duplicate, the outbox's
+ * at-least-once edge (docs/decisions/0007-mail-outbox.md), never a lost message.
  */
 class SmtpConnections {
   /** Connected and not failed: idle, or carrying a message. */
